@@ -1,0 +1,147 @@
+import { z } from 'zod';
+import { tryMolarMass, validateCasNumber } from '@lotwise/chem';
+import {
+  ghsCodeSchema,
+  hazardStatementSchema,
+  peroxideClassSchema,
+  storageGroupSchema,
+} from './hazards';
+import { listQuerySchema } from './list';
+
+export const physicalStates = ['solid', 'liquid', 'gas', 'solution'] as const;
+export const physicalStateSchema = z.enum(physicalStates, {
+  message: `must be one of: ${physicalStates.join(', ')}`,
+});
+export type PhysicalState = (typeof physicalStates)[number];
+
+/** Units a chemical's stock and reorder point are counted in. */
+export const stockUnits = ['g', 'mL'] as const;
+export const stockUnitSchema = z.enum(stockUnits, { message: 'must be g or mL' });
+export type StockUnit = (typeof stockUnits)[number];
+
+const casNumberSchema = z
+  .string()
+  .trim()
+  .superRefine((value, ctx) => {
+    const check = validateCasNumber(value);
+    if (!check.valid) ctx.addIssue({ code: 'custom', message: check.reason });
+  });
+
+const formulaSchema = z
+  .string()
+  .trim()
+  .min(1, 'is required when given; leave it out if the formula is unknown')
+  .max(120)
+  .superRefine((value, ctx) => {
+    const result = tryMolarMass(value);
+    if (!result.ok) ctx.addIssue({ code: 'custom', message: result.error.message });
+  });
+
+const nonNegative = (what: string) =>
+  z.number({ message: `${what} must be a number` }).nonnegative(`${what} cannot be negative`);
+
+function uniqueList<T extends z.ZodType>(item: T, what: string) {
+  return z
+    .array(item)
+    .max(30)
+    .refine((list) => new Set(list).size === list.length, `lists a ${what} twice`);
+}
+
+/** The fields a person edits on a chemical, without defaults (a patch never fills them). */
+const chemicalFields = {
+  name: z.string().trim().min(1, 'is required').max(200, 'is at most 200 characters'),
+  synonyms: uniqueList(z.string().trim().min(1).max(200), 'synonym'),
+  casNumber: casNumberSchema.nullable(),
+  formula: formulaSchema.nullable(),
+  physicalState: physicalStateSchema,
+  /** g/mL at 20 °C. */
+  density: z.number().positive('must be greater than 0 g/mL').max(25).nullable(),
+  /** Purity a new lot gets unless its certificate says otherwise, in %. */
+  defaultPurityPercent: z
+    .number()
+    .gt(0, 'must be more than 0 %')
+    .max(100, 'cannot be more than 100 %'),
+  ghsPictograms: uniqueList(ghsCodeSchema, 'pictogram'),
+  hazardStatements: uniqueList(hazardStatementSchema, 'hazard statement'),
+  storageGroup: storageGroupSchema,
+  peroxideClass: peroxideClassSchema.nullable(),
+  stockUnit: stockUnitSchema,
+  reorderPoint: nonNegative('reorder point').nullable(),
+  reorderQuantity: nonNegative('reorder quantity').nullable(),
+  /** Orders of a restricted chemical need a manager's approval. */
+  restricted: z.boolean(),
+  notes: z.string().max(4000, 'is at most 4000 characters'),
+};
+
+/**
+ * Create a chemical. `molarMass` is never sent: the server computes it from `formula`
+ * with packages/chem.
+ */
+export const chemicalCreateSchema = z
+  .object({
+    ...chemicalFields,
+    synonyms: chemicalFields.synonyms.default([]),
+    casNumber: chemicalFields.casNumber.default(null),
+    formula: chemicalFields.formula.default(null),
+    density: chemicalFields.density.default(null),
+    defaultPurityPercent: chemicalFields.defaultPurityPercent.default(100),
+    ghsPictograms: chemicalFields.ghsPictograms.default([]),
+    hazardStatements: chemicalFields.hazardStatements.default([]),
+    storageGroup: chemicalFields.storageGroup.default('low-hazard'),
+    peroxideClass: chemicalFields.peroxideClass.default(null),
+    stockUnit: chemicalFields.stockUnit.default('g'),
+    reorderPoint: chemicalFields.reorderPoint.default(null),
+    reorderQuantity: chemicalFields.reorderQuantity.default(null),
+    restricted: chemicalFields.restricted.default(false),
+    notes: chemicalFields.notes.default(''),
+  })
+  .strict();
+/** What a client sends (defaults optional). */
+export type ChemicalCreate = z.input<typeof chemicalCreateSchema>;
+/** What the server works with after parsing (defaults filled). */
+export type ChemicalCreateParsed = z.output<typeof chemicalCreateSchema>;
+
+/** Change some fields of a chemical; absent fields stay as they are. */
+export const chemicalPatchSchema = z.object(chemicalFields).partial().strict();
+export type ChemicalPatch = z.infer<typeof chemicalPatchSchema>;
+
+export const chemicalSchema = z.object({
+  id: z.number().int(),
+  name: z.string(),
+  synonyms: z.array(z.string()),
+  casNumber: z.string().nullable(),
+  formula: z.string().nullable(),
+  /** g/mol, computed from the formula; null when there is no formula. */
+  molarMass: z.number().nullable(),
+  physicalState: physicalStateSchema,
+  density: z.number().nullable(),
+  defaultPurityPercent: z.number(),
+  ghsPictograms: z.array(ghsCodeSchema),
+  hazardStatements: z.array(z.string()),
+  storageGroup: storageGroupSchema,
+  peroxideClass: peroxideClassSchema.nullable(),
+  stockUnit: stockUnitSchema,
+  reorderPoint: z.number().nullable(),
+  reorderQuantity: z.number().nullable(),
+  restricted: z.boolean(),
+  notes: z.string(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type Chemical = z.infer<typeof chemicalSchema>;
+
+export const chemicalSortFields = [
+  'name',
+  'casNumber',
+  'formula',
+  'molarMass',
+  'storageGroup',
+  'updatedAt',
+] as const;
+
+export const chemicalListQuerySchema = listQuerySchema(chemicalSortFields, 'name.asc').extend({
+  storageGroup: storageGroupSchema.optional(),
+  physicalState: physicalStateSchema.optional(),
+  pictogram: ghsCodeSchema.optional(),
+});
+export type ChemicalListQuery = z.infer<typeof chemicalListQuerySchema>;

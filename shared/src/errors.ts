@@ -1,0 +1,42 @@
+import { z } from 'zod';
+
+/**
+ * The closed set of error codes the API answers with. The web client switches on these,
+ * never on message text.
+ */
+export const errorCodes = [
+  'validation_failed',
+  'unauthenticated',
+  'forbidden',
+  'not_found',
+  'conflict',
+  'payload_too_large',
+  'unsupported_media_type',
+  'rate_limited',
+  'internal',
+] as const;
+export type ErrorCode = (typeof errorCodes)[number];
+
+/** HTTP status for each error code. */
+export const errorStatus: Record<ErrorCode, number> = {
+  validation_failed: 400,
+  unauthenticated: 401,
+  forbidden: 403,
+  not_found: 404,
+  conflict: 409,
+  payload_too_large: 413,
+  unsupported_media_type: 415,
+  rate_limited: 429,
+  internal: 500,
+};
+
+/** Body of every error response: `{ error: { code, message, fields? } }`. */
+export const errorBodySchema = z.object({
+  error: z.object({
+    code: z.enum(errorCodes),
+    message: z.string(),
+    /** Field path (dot-separated, e.g. `ghsPictograms.1`) -> what is wrong with it. */
+    fields: z.record(z.string(), z.string()).optional(),
+  }),
+});
+export type ErrorBody = z.infer<typeof errorBodySchema>;
