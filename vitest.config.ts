@@ -1,0 +1,8 @@
+import { defineConfig } from 'vitest/config';
+
+// One `vitest run` at the root runs every workspace's own config.
+export default defineConfig({
+  test: {
+    projects: ['packages/chem', 'shared', 'apps/server', 'apps/web'],
+  },
+});
