@@ -1,5 +1,10 @@
 import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
-  test: { name: 'chem', include: ['src/**/*.test.ts'], environment: 'node', benchmark: { include: ['bench/**/*.bench.ts'] } },
+  test: {
+    name: 'chem',
+    include: ['src/**/*.test.ts'],
+    environment: 'node',
+    benchmark: { include: ['bench/**/*.bench.ts'] },
+  },
 });

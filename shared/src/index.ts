@@ -5,3 +5,4 @@ export * from './hazards';
 export * from './auth';
 export * from './users';
 export * from './chemicals';
+export * from './audit';

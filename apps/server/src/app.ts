@@ -1,0 +1,85 @@
+import cookieParser from 'cookie-parser';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import type { DataSource } from 'typeorm';
+import type { Config } from './config';
+import { createStore } from './db/store';
+import { errorMiddleware, notFoundMiddleware } from './lib/error-middleware';
+import { createLogger, type Logger } from './lib/logger';
+import { mountRoutes, type ApiRoute } from './lib/route-table';
+import { serveWebApp } from './lib/web-app';
+import { auditRoutes } from './modules/audit/audit.routes';
+import { auditService } from './modules/audit/audit.service';
+import { authRoutes } from './modules/auth/auth.routes';
+import { authService } from './modules/auth/auth.service';
+import { sessions } from './modules/auth/session';
+import { chemicalRoutes } from './modules/chemicals/chemicals.routes';
+import { chemicalsService } from './modules/chemicals/chemicals.service';
+import { healthRoutes } from './modules/health/health.routes';
+import { userRoutes } from './modules/users/users.routes';
+import { usersService } from './modules/users/users.service';
+
+export interface AppOptions {
+  dataSource: DataSource;
+  config: Config;
+  logger?: Logger;
+}
+
+const routeTableKey = 'lotwiseRoutes';
+
+/** The route table the app was built from (the permission walk test reads it). */
+export function routeTable(app: Express): ApiRoute[] {
+  return app.locals[routeTableKey] as ApiRoute[];
+}
+
+/** Builds the Express app on an initialized, migrated DataSource; does not listen. */
+export function createApp({
+  dataSource,
+  config,
+  logger = createLogger(config.logLevel),
+}: AppOptions) {
+  const app = express();
+  app.disable('x-powered-by');
+  app.use(
+    helmet({
+      // Over plain HTTP (localhost, a lab's LAN) upgrading requests would break the page.
+      contentSecurityPolicy: {
+        directives: { upgradeInsecureRequests: config.cookieSecure ? [] : null },
+      },
+      strictTransportSecurity: config.cookieSecure,
+    }),
+  );
+  app.use((req, res, next) => {
+    const started = performance.now();
+    res.on('finish', () => {
+      const detail = {
+        status: res.statusCode,
+        ms: Math.round(performance.now() - started),
+      };
+      const line = `${req.method} ${req.originalUrl}`;
+      if (res.statusCode >= 500) logger.warn(line, detail);
+      else logger.debug(line, detail);
+    });
+    next();
+  });
+  app.use(express.json({ limit: '1mb' }));
+  app.use(cookieParser());
+
+  const store = createStore(dataSource);
+  const session = sessions(config, store.repos.users);
+  const routes = [
+    ...healthRoutes(store, logger),
+    ...authRoutes(authService(store, config), session, config.loginRateLimit),
+    ...userRoutes(usersService(store, config)),
+    ...auditRoutes(auditService(store)),
+    ...chemicalRoutes(chemicalsService(store)),
+  ];
+  mountRoutes(app, routes, session.resolve);
+  app.locals[routeTableKey] = routes;
+
+  app.use('/api', notFoundMiddleware);
+  serveWebApp(app, config.webDist);
+  app.use(notFoundMiddleware);
+  app.use(errorMiddleware(logger));
+  return app;
+}

@@ -1,0 +1,61 @@
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { createDataSource, migrations } from './data-source';
+import { testContext } from '../test/harness';
+
+async function tables(dataSource: ReturnType<typeof createDataSource>): Promise<string[]> {
+  const rows: { name: string }[] = await dataSource.query(
+    "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name",
+  );
+  return rows.map((row) => row.name);
+}
+
+describe('migrations', () => {
+  it('when run on an empty file, then every table exists, and undoing the last migration removes them', async () => {
+    const dir = mkdtempSync(path.join(tmpdir(), 'lotwise-migrate-'));
+    const dataSource = createDataSource(path.join(dir, 'fresh.sqlite'));
+    await dataSource.initialize();
+    try {
+      const applied = await dataSource.runMigrations({ transaction: 'all' });
+      expect(applied.map((m) => m.name)).toEqual(migrations.map((m) => m.name));
+      expect(await tables(dataSource)).toEqual([
+        'audit_events',
+        'chemicals',
+        'migrations',
+        'users',
+      ]);
+      expect(await dataSource.showMigrations()).toBe(false);
+
+      for (let i = 0; i < migrations.length; i++)
+        await dataSource.undoLastMigration({ transaction: 'all' });
+      expect(await tables(dataSource)).toEqual(['migrations']);
+
+      // And forward again: the down really reverses the up.
+      await dataSource.runMigrations({ transaction: 'all' });
+      expect(await tables(dataSource)).toContain('chemicals');
+    } finally {
+      await dataSource.destroy();
+    }
+  });
+
+  it('when the database is open, then it runs in WAL mode with foreign keys enforced', async () => {
+    const { dataSource } = testContext();
+    const [journal] = await dataSource.query('PRAGMA journal_mode');
+    const [foreignKeys] = await dataSource.query('PRAGMA foreign_keys');
+    expect(journal.journal_mode).toBe('wal');
+    expect(foreignKeys.foreign_keys).toBe(1);
+    await expect(
+      dataSource.query(
+        "INSERT INTO audit_events (actor_id, action, target_type, detail, created_at) VALUES (987654, 'x', 'y', '{}', 'now')",
+      ),
+    ).rejects.toThrow(/FOREIGN KEY/);
+  });
+
+  it('when the schema is compared with the entities, then nothing is missing (no pending changes)', async () => {
+    const { dataSource } = testContext();
+    const sql = await dataSource.driver.createSchemaBuilder().log();
+    expect(sql.upQueries.map((q) => q.query)).toEqual([]);
+  });
+});

@@ -1,0 +1,109 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { chemicalSchema } from '@lotwise/shared';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { DataSource } from 'typeorm';
+import { createApp } from '../../app';
+import { createDataSource } from '../data-source';
+import { createStore } from '../store';
+import { testConfig } from '../../test/harness';
+import { demoAccounts, demoPassword, seedDemo } from './demo-seed';
+import { demoChemicals } from './demo-chemicals';
+
+describe('demo seed', () => {
+  let dataSource: DataSource;
+  const dir = mkdtempSync(path.join(tmpdir(), 'lotwise-seed-'));
+  const config = testConfig(dir);
+
+  beforeAll(async () => {
+    dataSource = createDataSource(config.databasePath);
+    await dataSource.initialize();
+    await dataSource.runMigrations({ transaction: 'all' });
+  });
+  afterAll(async () => {
+    await dataSource.destroy();
+    rmSync(dir, { recursive: true, force: true });
+  });
+
+  it('when the database is empty, then it seeds the demo lab once; a second run does nothing', async () => {
+    expect(await seedDemo(dataSource, 4)).toBe(true);
+    expect(await seedDemo(dataSource, 4)).toBe(false);
+    const store = createStore(dataSource);
+    expect(await store.repos.users.count()).toBe(demoAccounts.length);
+    const all = await store.repos.chemicals.list({
+      q: '',
+      sort: 'name.asc',
+      page: 1,
+      pageSize: 200,
+    });
+    expect(all.total).toBe(26);
+    expect(demoChemicals).toHaveLength(26);
+  });
+
+  it('when seeded, then every chemical is valid with a molar mass, a unit that fits its state; people have example.test addresses', async () => {
+    const store = createStore(dataSource);
+    const { items } = await store.repos.chemicals.list({
+      q: '',
+      sort: 'name.asc',
+      page: 1,
+      pageSize: 200,
+    });
+    for (const chemical of items) {
+      chemicalSchema.parse(chemical);
+      expect(chemical.molarMass, chemical.name).toBeGreaterThan(1);
+      expect(chemical.stockUnit, chemical.name).toBe(
+        chemical.physicalState === 'solid' ? 'g' : 'mL',
+      );
+    }
+    const hcl = items.find((c) => c.casNumber === '7647-01-0');
+    expect(hcl).toMatchObject({
+      formula: 'HCl',
+      physicalState: 'solution',
+      defaultPurityPercent: 37,
+    });
+    expect(hcl?.notes).toMatch(/37 %/);
+    expect(
+      items
+        .filter((c) => c.peroxideClass === 'B')
+        .map((c) => c.name)
+        .sort(),
+    ).toEqual(['Diethyl ether', 'Isoamyl alcohol', 'Tetrahydrofuran']);
+    for (const account of demoAccounts) expect(account.email).toMatch(/@example\.test$/);
+  });
+
+  it('when seeded, then each demo account signs in with the demo password and has its role', async () => {
+    const app = createApp({ dataSource, config });
+    for (const account of demoAccounts) {
+      const response = await request(app)
+        .post('/api/auth/login')
+        .send({ email: account.email, password: demoPassword })
+        .expect(200);
+      expect(response.body.user.role).toBe(account.role);
+    }
+    const roles = new Set(demoAccounts.map((a) => a.role));
+    expect([...roles].sort()).toEqual(['admin', 'manager', 'member', 'viewer']);
+  });
+
+  it('when searching the demo stock, then synonyms such as aspirin and THF find their chemical', async () => {
+    const store = createStore(dataSource);
+    for (const [q, name] of [
+      ['aspirin', 'Acetylsalicylic acid'],
+      ['THF', 'Tetrahydrofuran'],
+      ['isopentyl alcohol', 'Isoamyl alcohol'],
+      ['cuso4', 'Copper(II) sulfate pentahydrate'],
+    ]) {
+      const { items } = await store.repos.chemicals.list({
+        q: q!,
+        sort: 'name.asc',
+        page: 1,
+        pageSize: 5,
+      });
+      expect(
+        items.map((c) => c.name),
+        q,
+      ).toContain(name);
+    }
+  });
+});

@@ -1,0 +1,52 @@
+import { chemicalCreateSchema, type Role } from '@lotwise/shared';
+import type { DataSource } from 'typeorm';
+import { hashPassword } from '../../modules/auth/passwords';
+import { newChemicalValues } from '../../modules/chemicals/chemicals.service';
+import { nowIso } from '../sql';
+import { createStore } from '../store';
+import { demoChemicals } from './demo-chemicals';
+
+/** One published password for every demo account; change it before real use. */
+export const demoPassword = 'lotwise-demo-2026';
+
+/** The demo lab's people: a college teaching lab that hosts an evening chemistry club. */
+export const demoAccounts: { email: string; displayName: string; role: Role }[] = [
+  { email: 'instructor@example.test', displayName: 'Demo Instructor', role: 'admin' },
+  { email: 'technician@example.test', displayName: 'Demo Technician', role: 'manager' },
+  { email: 'member.one@example.test', displayName: 'Club Member One', role: 'member' },
+  { email: 'member.two@example.test', displayName: 'Club Member Two', role: 'member' },
+  { email: 'member.three@example.test', displayName: 'Club Member Three', role: 'member' },
+  { email: 'visitor@example.test', displayName: 'Visiting Student', role: 'viewer' },
+];
+
+/**
+ * Fills an empty database with the demo lab in one transaction. Does nothing (answers false)
+ * when there is any user or chemical already.
+ */
+export async function seedDemo(dataSource: DataSource, bcryptCost: number): Promise<boolean> {
+  const store = createStore(dataSource);
+  const chemicals = demoChemicals.map((chemical) => chemicalCreateSchema.parse(chemical));
+  const passwordHash = await hashPassword(demoPassword, bcryptCost);
+  return store.transaction(async (repos) => {
+    const empty =
+      (await repos.users.count()) === 0 &&
+      (await repos.chemicals.list({ q: '', sort: 'name.asc', page: 1, pageSize: 1 })).total === 0;
+    if (!empty) return false;
+    const now = nowIso();
+    for (const account of demoAccounts) {
+      await repos.users.insert({
+        ...account,
+        passwordHash,
+        active: true,
+        inviteTokenHash: null,
+        inviteExpiresAt: null,
+        lastLoginAt: null,
+        createdAt: now,
+        updatedAt: now,
+      });
+    }
+    for (const chemical of chemicals)
+      await repos.chemicals.insert(newChemicalValues(chemical, now));
+    return true;
+  });
+}

@@ -1,0 +1,37 @@
+import { errorStatus, type ErrorCode } from '@lotwise/shared';
+
+/** Field path (dot-separated) -> what is wrong with it. */
+export type FieldErrors = Record<string, string>;
+
+/** The one error type of the API; the error middleware turns it into `{ error: { … } }`. */
+export class AppError extends Error {
+  override name = 'AppError';
+
+  constructor(
+    public readonly code: ErrorCode,
+    message: string,
+    public readonly fields?: FieldErrors,
+  ) {
+    super(message);
+  }
+
+  get status(): number {
+    return errorStatus[this.code];
+  }
+
+  static validation(message: string, fields?: FieldErrors) {
+    return new AppError('validation_failed', message, fields);
+  }
+  static unauthenticated(message = 'Please sign in first.') {
+    return new AppError('unauthenticated', message);
+  }
+  static forbidden(message = 'Your role does not allow this.') {
+    return new AppError('forbidden', message);
+  }
+  static notFound(message: string) {
+    return new AppError('not_found', message);
+  }
+  static conflict(message: string, fields?: FieldErrors) {
+    return new AppError('conflict', message, fields);
+  }
+}

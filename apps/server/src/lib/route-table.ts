@@ -1,0 +1,97 @@
+import type { Express, Request, RequestHandler, Response } from 'express';
+import type { Permission, User } from '@lotwise/shared';
+import type { z } from 'zod';
+import { AppError } from './app-error';
+import { authenticate, authorize, currentUser, type SessionResolver } from './auth-middleware';
+import { parsedInput, validate } from './validate';
+
+export type HttpMethod = 'get' | 'post' | 'patch' | 'put' | 'delete';
+
+/** Who may call a route: anyone, any signed-in user, or a role holding the permission. */
+export type RouteAccess = 'public' | 'signed-in' | Permission;
+
+type Parsed<S> = S extends z.ZodType ? z.output<S> : undefined;
+
+export interface RouteContext<B, Q, P> {
+  body: B;
+  query: Q;
+  params: P;
+  req: Request;
+  res: Response;
+  /** The signed-in user; throws 401 on a public route (they do not read the session). */
+  actor(): User;
+}
+
+interface RouteDefinition<B, Q, P> {
+  method: HttpMethod;
+  /** Full path, e.g. `/api/chemicals/:id`. */
+  path: string;
+  access: RouteAccess;
+  body?: B;
+  query?: Q;
+  params?: P;
+  /** Extra middleware run before validation (e.g. a rate limiter). */
+  before?: RequestHandler[];
+  handle(ctx: RouteContext<Parsed<B>, Parsed<Q>, Parsed<P>>): unknown;
+}
+
+/** One row of the route table: the routers are built from it and the permission walk reads it. */
+export interface ApiRoute {
+  method: HttpMethod;
+  path: string;
+  access: RouteAccess;
+  handlers(resolveSession: SessionResolver): RequestHandler[];
+}
+
+/** Declares a route; the schemas type the handler's parsed body, query and params. */
+export function defineRoute<
+  B extends z.ZodType | undefined = undefined,
+  Q extends z.ZodType | undefined = undefined,
+  P extends z.ZodType | undefined = undefined,
+>(definition: RouteDefinition<B, Q, P>): ApiRoute {
+  return {
+    method: definition.method,
+    path: definition.path,
+    access: definition.access,
+    handlers(resolveSession) {
+      const guard: RequestHandler[] =
+        definition.access === 'public'
+          ? []
+          : definition.access === 'signed-in'
+            ? [authenticate(resolveSession)]
+            : [authenticate(resolveSession), authorize(definition.access)];
+      const run: RequestHandler = async (req, res) => {
+        const input = parsedInput(res);
+        await definition.handle({
+          body: input.body as Parsed<B>,
+          query: input.query as Parsed<Q>,
+          params: input.params as Parsed<P>,
+          req,
+          res,
+          actor() {
+            const user = currentUser(res);
+            if (!user) throw AppError.unauthenticated();
+            return user;
+          },
+        });
+      };
+      return [
+        ...guard,
+        ...(definition.before ?? []),
+        validate({ body: definition.body, query: definition.query, params: definition.params }),
+        run,
+      ];
+    },
+  };
+}
+
+/** Registers every route directly on the app, so `app.router.stack` lists them all. */
+export function mountRoutes(app: Express, routes: ApiRoute[], resolveSession: SessionResolver) {
+  const seen = new Set<string>();
+  for (const route of routes) {
+    const key = `${route.method.toUpperCase()} ${route.path}`;
+    if (seen.has(key)) throw new Error(`Route ${key} is declared twice`);
+    seen.add(key);
+    app[route.method](route.path, ...route.handlers(resolveSession));
+  }
+}

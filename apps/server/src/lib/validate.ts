@@ -1,0 +1,85 @@
+import type { RequestHandler, Response } from 'express';
+import { z } from 'zod';
+import { AppError, type FieldErrors } from './app-error';
+
+/** Missing values read "is required" instead of zod's "expected string, received undefined". */
+const parseContext = {
+  error: (issue: { input?: unknown }) => (issue.input === undefined ? 'is required' : undefined),
+};
+
+/** Turns zod issues into `{ 'dot.path': message }`; unknown keys are named one by one. */
+export function zodFieldErrors(error: z.ZodError): FieldErrors {
+  const fields: FieldErrors = {};
+  const add = (path: PropertyKey[], message: string) => {
+    const key = path.map(String).join('.') || '_';
+    fields[key] ??= message;
+  };
+  for (const issue of error.issues) {
+    if (issue.code === 'unrecognized_keys') {
+      for (const key of issue.keys) add([...issue.path, key], 'is not a known field');
+    } else {
+      add(issue.path, issue.message);
+    }
+  }
+  return fields;
+}
+
+function parseOrThrow<S extends z.ZodType>(schema: S, value: unknown, what: string): z.output<S> {
+  const result = schema.safeParse(value, parseContext);
+  if (!result.success) {
+    throw AppError.validation(`Some ${what} values are not valid.`, zodFieldErrors(result.error));
+  }
+  return result.data;
+}
+
+export interface RequestSchemas {
+  body?: z.ZodType;
+  query?: z.ZodType;
+  params?: z.ZodType;
+}
+
+export interface ParsedInput {
+  body: unknown;
+  query: unknown;
+  params: unknown;
+}
+
+function sentBodyThatIsNotJson(req: Parameters<RequestHandler>[0]): boolean {
+  const hasBody =
+    Number(req.headers['content-length'] ?? 0) > 0 || req.headers['transfer-encoding'] != null;
+  return hasBody && req.body === undefined && !req.is('application/json');
+}
+
+/**
+ * Validates params, query and body against the schemas and keeps the parsed values on
+ * `res.locals.input` (Express 5 makes `req.query` a getter, so it cannot be replaced).
+ */
+export function validate(schemas: RequestSchemas): RequestHandler {
+  return (req, res, next) => {
+    if (schemas.body && sentBodyThatIsNotJson(req)) {
+      throw new AppError('unsupported_media_type', 'Send the request body as application/json.');
+    }
+    const input: ParsedInput = {
+      params: schemas.params ? parseOrThrow(schemas.params, req.params, 'path') : req.params,
+      query: schemas.query ? parseOrThrow(schemas.query, req.query, 'query') : req.query,
+      body: schemas.body ? parseOrThrow(schemas.body, req.body ?? {}, 'field') : undefined,
+    };
+    res.locals.input = input;
+    next();
+  };
+}
+
+/** The values `validate()` parsed for this request. */
+export function parsedInput(res: Response): ParsedInput {
+  return (
+    (res.locals.input as ParsedInput | undefined) ?? { body: undefined, query: {}, params: {} }
+  );
+}
+
+/** `:id` path parameter: a positive whole number, otherwise 400 naming `id`. */
+export const idParamsSchema = z.object({
+  id: z
+    .string()
+    .regex(/^[1-9]\d{0,14}$/, 'must be a positive whole number')
+    .transform(Number),
+});

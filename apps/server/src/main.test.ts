@@ -1,0 +1,101 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { afterAll, describe, expect, it } from 'vitest';
+import { demoPassword } from './db/seed/demo-seed';
+
+const serverDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const tsx = path.resolve(serverDir, '../../node_modules/.bin/tsx');
+const dir = mkdtempSync(path.join(tmpdir(), 'lotwise-main-'));
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = createServer();
+    probe.once('error', reject);
+    probe.listen(0, '127.0.0.1', () => {
+      const address = probe.address();
+      probe.close(() => resolve(typeof address === 'object' && address ? address.port : 0));
+    });
+  });
+}
+
+interface Started {
+  child: ChildProcess;
+  output: () => string;
+  exited: Promise<number | null>;
+}
+
+/** Starts `tsx src/main.ts` from the repository root, as the e2e config does. */
+function start(env: NodeJS.ProcessEnv): Started {
+  let output = '';
+  const child = spawn(tsx, ['apps/server/src/main.ts'], {
+    cwd: path.resolve(serverDir, '../..'),
+    env: { ...process.env, BCRYPT_COST: '4', ...env },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  child.stdout?.on('data', (chunk) => (output += String(chunk)));
+  child.stderr?.on('data', (chunk) => (output += String(chunk)));
+  const exited = new Promise<number | null>((resolve) => child.once('exit', resolve));
+  return { child, output: () => output, exited };
+}
+
+async function waitForHealth(url: string, started: Started): Promise<void> {
+  const deadline = Date.now() + 25_000;
+  while (Date.now() < deadline) {
+    if (started.child.exitCode !== null) throw new Error(`Server exited:\n${started.output()}`);
+    try {
+      const response = await fetch(`${url}/api/health`);
+      if (response.ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((resolve) => setTimeout(resolve, 150));
+  }
+  throw new Error(`No health answer in time:\n${started.output()}`);
+}
+
+const running: Started[] = [];
+afterAll(async () => {
+  for (const started of running) {
+    if (started.child.exitCode === null) {
+      started.child.kill('SIGTERM');
+      await started.exited;
+    }
+  }
+  rmSync(dir, { recursive: true, force: true });
+});
+
+describe('src/main.ts', () => {
+  it('when started on an empty database, then it migrates, seeds, serves health and a demo user can sign in', async () => {
+    const port = await freePort();
+    const url = `http://127.0.0.1:${port}`;
+    const started = start({ PORT: String(port), DATABASE_PATH: path.join(dir, 'main.sqlite') });
+    running.push(started);
+    await waitForHealth(url, started);
+
+    const health = await (await fetch(`${url}/api/health`)).json();
+    expect(health).toMatchObject({ status: 'ok', database: 'ok' });
+    const login = await fetch(`${url}/api/auth/login`, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json' },
+      body: JSON.stringify({ email: 'instructor@example.test', password: demoPassword }),
+    });
+    expect(login.status).toBe(200);
+    expect(((await login.json()) as { user: { role: string } }).user.role).toBe('admin');
+    expect(started.output()).toContain(`Lotwise is running at ${url}`);
+    expect(started.output()).toContain('instructor@example.test');
+
+    started.child.kill('SIGTERM');
+    expect(await started.exited).toBe(0);
+  });
+
+  it('when PORT is bad, then the process stops with exit code 1 and a message naming PORT', async () => {
+    const started = start({ PORT: 'eighty', DATABASE_PATH: path.join(dir, 'bad.sqlite') });
+    running.push(started);
+    expect(await started.exited).toBe(1);
+    expect(started.output()).toMatch(/Invalid configuration: PORT/);
+  });
+});

@@ -1,0 +1,88 @@
+import { acceptInviteBodySchema, loginBodySchema } from '@lotwise/shared';
+import type { RequestHandler } from 'express';
+import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
+import { z } from 'zod';
+import { AppError } from '../../lib/app-error';
+import { defineRoute } from '../../lib/route-table';
+import type { AuthService } from './auth.service';
+import type { Sessions } from './session';
+
+const windowMinutes = 15;
+
+/** Failed sign-ins per IP address and e-mail address in 15 minutes; successes do not count. */
+function loginLimiter(limit: number): RequestHandler {
+  return rateLimit({
+    windowMs: windowMinutes * 60 * 1000,
+    limit,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => {
+      const email: unknown = req.body?.email;
+      const who = typeof email === 'string' ? email.trim().toLowerCase() : '';
+      return `${ipKeyGenerator(req.ip ?? '')}|${who}`;
+    },
+    handler: (_req, _res, next) => {
+      next(
+        new AppError(
+          'rate_limited',
+          `Too many sign-in attempts. Wait ${windowMinutes} minutes and try again.`,
+        ),
+      );
+    },
+  });
+}
+
+export function authRoutes(auth: AuthService, session: Sessions, loginRateLimit: number) {
+  return [
+    defineRoute({
+      method: 'post',
+      path: '/api/auth/login',
+      access: 'public',
+      before: [loginLimiter(loginRateLimit)],
+      body: loginBodySchema,
+      handle: async ({ body, res }) => {
+        const user = await auth.login(body);
+        session.issue(res, user.id);
+        res.json({ user });
+      },
+    }),
+    defineRoute({
+      method: 'post',
+      path: '/api/auth/logout',
+      access: 'public',
+      handle: ({ res }) => {
+        session.clear(res);
+        res.status(204).end();
+      },
+    }),
+    defineRoute({
+      method: 'get',
+      path: '/api/auth/me',
+      access: 'signed-in',
+      handle: ({ res, actor }) => {
+        res.json({ user: actor() });
+      },
+    }),
+    defineRoute({
+      method: 'get',
+      path: '/api/auth/invite/:token',
+      access: 'public',
+      params: z.object({ token: z.string().min(1).max(200) }),
+      handle: async ({ params, res }) => {
+        res.json(await auth.invitation(params.token));
+      },
+    }),
+    defineRoute({
+      method: 'post',
+      path: '/api/auth/accept-invite',
+      access: 'public',
+      body: acceptInviteBodySchema,
+      handle: async ({ body, res }) => {
+        const user = await auth.acceptInvite(body);
+        session.issue(res, user.id);
+        res.json({ user });
+      },
+    }),
+  ];
+}

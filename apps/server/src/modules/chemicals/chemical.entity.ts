@@ -1,0 +1,67 @@
+import type {
+  GhsCode,
+  PeroxideClass,
+  PhysicalState,
+  StockUnit,
+  StorageGroup,
+} from '@lotwise/shared';
+import { EntitySchema } from 'typeorm';
+
+/** A row of `chemicals`. Lists are JSON text; `searchText` is a lower-cased search key. */
+export interface ChemicalRow {
+  id: number;
+  name: string;
+  synonyms: string[];
+  casNumber: string | null;
+  formula: string | null;
+  molarMass: number | null;
+  physicalState: PhysicalState;
+  density: number | null;
+  defaultPurityPercent: number;
+  ghsPictograms: GhsCode[];
+  hazardStatements: string[];
+  storageGroup: StorageGroup;
+  peroxideClass: PeroxideClass | null;
+  stockUnit: StockUnit;
+  reorderPoint: number | null;
+  reorderQuantity: number | null;
+  restricted: boolean;
+  notes: string;
+  /** Name, synonyms, CAS RN and formula, lower-cased, one per line: what `q` searches. */
+  searchText: string;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export const ChemicalEntity = new EntitySchema<ChemicalRow>({
+  name: 'Chemical',
+  tableName: 'chemicals',
+  columns: {
+    id: { type: 'integer', primary: true, generated: 'increment' },
+    name: { type: 'varchar', length: 200 },
+    synonyms: { type: 'simple-json' },
+    casNumber: { name: 'cas_number', type: 'varchar', length: 12, nullable: true },
+    formula: { type: 'varchar', length: 120, nullable: true },
+    molarMass: { name: 'molar_mass', type: 'double precision', nullable: true },
+    physicalState: { name: 'physical_state', type: 'varchar', length: 10 },
+    density: { type: 'double precision', nullable: true },
+    defaultPurityPercent: { name: 'default_purity_percent', type: 'double precision' },
+    ghsPictograms: { name: 'ghs_pictograms', type: 'simple-json' },
+    hazardStatements: { name: 'hazard_statements', type: 'simple-json' },
+    storageGroup: { name: 'storage_group', type: 'varchar', length: 20 },
+    peroxideClass: { name: 'peroxide_class', type: 'varchar', length: 1, nullable: true },
+    stockUnit: { name: 'stock_unit', type: 'varchar', length: 4 },
+    reorderPoint: { name: 'reorder_point', type: 'double precision', nullable: true },
+    reorderQuantity: { name: 'reorder_quantity', type: 'double precision', nullable: true },
+    restricted: { type: 'boolean' },
+    notes: { type: 'text' },
+    searchText: { name: 'search_text', type: 'text' },
+    createdAt: { name: 'created_at', type: 'varchar', length: 24 },
+    updatedAt: { name: 'updated_at', type: 'varchar', length: 24 },
+  },
+  indices: [
+    { name: 'chemicals_name_idx', columns: ['name'] },
+    { name: 'chemicals_cas_number_unique', columns: ['casNumber'], unique: true },
+    { name: 'chemicals_storage_group_idx', columns: ['storageGroup'] },
+  ],
+});

@@ -1,0 +1,97 @@
+import { parseSort, type Chemical, type ChemicalListQuery } from '@lotwise/shared';
+import type { EntityManager } from 'typeorm';
+import { AppError } from '../../lib/app-error';
+import { containsPattern, isUniqueViolation } from '../../db/sql';
+import { ChemicalEntity, type ChemicalRow } from './chemical.entity';
+
+const sortColumns: Record<string, string> = {
+  name: 'LOWER(c.name)',
+  casNumber: 'c.casNumber',
+  formula: 'c.formula',
+  molarMass: 'c.molarMass',
+  storageGroup: 'c.storageGroup',
+  updatedAt: 'c.updatedAt',
+};
+
+const nullableSortFields = new Set(['casNumber', 'formula', 'molarMass']);
+
+export type ChemicalValues = Omit<ChemicalRow, 'id'>;
+
+function toChemical({ searchText: _searchText, ...chemical }: ChemicalRow): Chemical {
+  return chemical;
+}
+
+function duplicateCas(): AppError {
+  return AppError.conflict('Another chemical already has this CAS RN.', {
+    casNumber: 'is already used by another chemical',
+  });
+}
+
+/** Data access for `chemicals`; answers plain `Chemical` objects. */
+export function chemicalsRepository(manager: EntityManager) {
+  const repo = manager.getRepository(ChemicalEntity);
+
+  return {
+    async findById(id: number): Promise<Chemical | null> {
+      const row = await repo.findOneBy({ id });
+      return row ? toChemical(row) : null;
+    },
+    async findByCasNumber(casNumber: string): Promise<Chemical | null> {
+      const row = await repo.findOneBy({ casNumber });
+      return row ? toChemical(row) : null;
+    },
+    async insert(values: ChemicalValues): Promise<Chemical> {
+      try {
+        const result = await repo.insert(values);
+        return (await this.findById(Number(result.identifiers[0]?.id))) as Chemical;
+      } catch (error) {
+        if (isUniqueViolation(error)) throw duplicateCas();
+        throw error;
+      }
+    },
+    async update(id: number, changes: Partial<ChemicalValues>): Promise<Chemical> {
+      try {
+        await repo.update({ id }, changes);
+      } catch (error) {
+        if (isUniqueViolation(error)) throw duplicateCas();
+        throw error;
+      }
+      return (await this.findById(id)) as Chemical;
+    },
+    async delete(id: number): Promise<boolean> {
+      const result = await repo.delete({ id });
+      return (result.affected ?? 0) > 0;
+    },
+    async list(query: ChemicalListQuery): Promise<{ items: Chemical[]; total: number }> {
+      const qb = repo.createQueryBuilder('c');
+      if (query.q) {
+        qb.andWhere("c.searchText LIKE :q ESCAPE '\\'", {
+          q: containsPattern(query.q.toLowerCase()),
+        });
+      }
+      if (query.storageGroup)
+        qb.andWhere('c.storageGroup = :storageGroup', { storageGroup: query.storageGroup });
+      if (query.physicalState)
+        qb.andWhere('c.physicalState = :physicalState', { physicalState: query.physicalState });
+      // Lists are JSON text; a quoted code cannot match part of another code.
+      if (query.pictogram) {
+        qb.andWhere('c.ghsPictograms LIKE :pictogram', { pictogram: `%"${query.pictogram}"%` });
+      }
+      const total = await qb.getCount();
+      const { field, direction } = parseSort(query.sort);
+      const column = sortColumns[field] ?? sortColumns.name!;
+      if (nullableSortFields.has(field)) {
+        // Empty values last in both directions, the same on SQLite and PostgreSQL.
+        qb.orderBy(`CASE WHEN ${column} IS NULL THEN 1 ELSE 0 END`, 'ASC');
+      }
+      const rows = await qb
+        .addOrderBy(column, direction === 'desc' ? 'DESC' : 'ASC')
+        .addOrderBy('c.id', 'ASC')
+        .offset((query.page - 1) * query.pageSize)
+        .limit(query.pageSize)
+        .getMany();
+      return { items: rows.map(toChemical), total };
+    },
+  };
+}
+export type ChemicalsRepository = ReturnType<typeof chemicalsRepository>;

@@ -1,0 +1,60 @@
+import {
+  chemicalCreateSchema,
+  chemicalListQuerySchema,
+  chemicalPatchSchema,
+} from '@lotwise/shared';
+import { idParamsSchema } from '../../lib/validate';
+import { defineRoute } from '../../lib/route-table';
+import type { ChemicalsService } from './chemicals.service';
+
+export function chemicalRoutes(chemicals: ChemicalsService) {
+  return [
+    defineRoute({
+      method: 'get',
+      path: '/api/chemicals',
+      access: 'chemicals.read',
+      query: chemicalListQuerySchema,
+      handle: async ({ query, res }) => {
+        res.json(await chemicals.list(query));
+      },
+    }),
+    defineRoute({
+      method: 'post',
+      path: '/api/chemicals',
+      access: 'chemicals.write',
+      body: chemicalCreateSchema,
+      handle: async ({ body, res }) => {
+        res.status(201).json(await chemicals.create(body));
+      },
+    }),
+    defineRoute({
+      method: 'get',
+      path: '/api/chemicals/:id',
+      access: 'chemicals.read',
+      params: idParamsSchema,
+      handle: async ({ params, res }) => {
+        res.json(await chemicals.get(params.id));
+      },
+    }),
+    defineRoute({
+      method: 'patch',
+      path: '/api/chemicals/:id',
+      access: 'chemicals.write',
+      params: idParamsSchema,
+      body: chemicalPatchSchema,
+      handle: async ({ params, body, res }) => {
+        res.json(await chemicals.update(params.id, body));
+      },
+    }),
+    defineRoute({
+      method: 'delete',
+      path: '/api/chemicals/:id',
+      access: 'chemicals.write',
+      params: idParamsSchema,
+      handle: async ({ params, res }) => {
+        await chemicals.remove(params.id);
+        res.status(204).end();
+      },
+    }),
+  ];
+}

@@ -1,0 +1,97 @@
+import { tryMolarMass } from '@lotwise/chem';
+import type {
+  Chemical,
+  ChemicalCreateParsed,
+  ChemicalListQuery,
+  ChemicalPatch,
+  Page,
+} from '@lotwise/shared';
+import { AppError } from '../../lib/app-error';
+import type { Store } from '../../db/store';
+import { nowIso } from '../../db/sql';
+import type { ChemicalValues } from './chemicals.repository';
+
+/** Molar mass in g/mol from packages/chem; null without a formula. */
+export function molarMassOf(formula: string | null): number | null {
+  if (!formula) return null;
+  const result = tryMolarMass(formula);
+  return result.ok ? result.value : null;
+}
+
+/** What `q` matches: name, synonyms, CAS RN and formula, lower-cased (JS, so not ASCII only). */
+export function searchTextOf(chemical: {
+  name: string;
+  synonyms: string[];
+  casNumber: string | null;
+  formula: string | null;
+}): string {
+  return [chemical.name, ...chemical.synonyms, chemical.casNumber, chemical.formula]
+    .filter((part): part is string => Boolean(part))
+    .join('\n')
+    .toLowerCase();
+}
+
+/** Values of a new chemical row, with the computed columns filled in. */
+export function newChemicalValues(input: ChemicalCreateParsed, now = nowIso()): ChemicalValues {
+  return {
+    ...input,
+    molarMass: molarMassOf(input.formula),
+    searchText: searchTextOf(input),
+    createdAt: now,
+    updatedAt: now,
+  };
+}
+
+function notFound(id: number) {
+  return AppError.notFound(`There is no chemical #${id}.`);
+}
+
+export function chemicalsService(store: Store) {
+  const { chemicals } = store.repos;
+
+  async function assertCasFree(casNumber: string | null, exceptId?: number) {
+    if (!casNumber) return;
+    const holder = await chemicals.findByCasNumber(casNumber);
+    if (holder && holder.id !== exceptId) {
+      throw AppError.conflict(`CAS RN ${casNumber} already belongs to ${holder.name}.`, {
+        casNumber: `is already used by ${holder.name}`,
+      });
+    }
+  }
+
+  return {
+    async list(query: ChemicalListQuery): Promise<Page<Chemical>> {
+      const { items, total } = await chemicals.list(query);
+      return { items, total, page: query.page, pageSize: query.pageSize };
+    },
+
+    async get(id: number): Promise<Chemical> {
+      const chemical = await chemicals.findById(id);
+      if (!chemical) throw notFound(id);
+      return chemical;
+    },
+
+    async create(input: ChemicalCreateParsed): Promise<Chemical> {
+      await assertCasFree(input.casNumber);
+      return chemicals.insert(newChemicalValues(input));
+    },
+
+    async update(id: number, patch: ChemicalPatch): Promise<Chemical> {
+      const current = await this.get(id);
+      if (Object.keys(patch).length === 0) return current;
+      if (patch.casNumber !== undefined) await assertCasFree(patch.casNumber, id);
+      const next = { ...current, ...patch };
+      const changes: Partial<ChemicalValues> = { ...patch, updatedAt: nowIso() };
+      if (patch.formula !== undefined) changes.molarMass = molarMassOf(next.formula);
+      if (['name', 'synonyms', 'casNumber', 'formula'].some((key) => key in patch)) {
+        changes.searchText = searchTextOf(next);
+      }
+      return chemicals.update(id, changes);
+    },
+
+    async remove(id: number): Promise<void> {
+      if (!(await chemicals.delete(id))) throw notFound(id);
+    },
+  };
+}
+export type ChemicalsService = ReturnType<typeof chemicalsService>;

@@ -1,0 +1,75 @@
+import { parseSort, type UserListQuery } from '@lotwise/shared';
+import { type EntityManager, In } from 'typeorm';
+import { containsPattern } from '../../db/sql';
+import { UserEntity, type UserRow } from './user.entity';
+
+const sortColumns: Record<string, string> = {
+  email: 'u.email',
+  displayName: 'LOWER(u.displayName)',
+  role: 'u.role',
+  createdAt: 'u.createdAt',
+  lastLoginAt: 'u.lastLoginAt',
+};
+
+export type NewUser = Omit<UserRow, 'id'>;
+
+/** Data access for `users`; answers plain rows. */
+export function usersRepository(manager: EntityManager) {
+  const repo = manager.getRepository(UserEntity);
+  const plain = (row: UserRow | null): UserRow | null => (row ? { ...row } : null);
+
+  return {
+    async findById(id: number) {
+      return plain(await repo.findOneBy({ id }));
+    },
+    async findByIds(ids: number[]): Promise<UserRow[]> {
+      if (ids.length === 0) return [];
+      return (await repo.findBy({ id: In(ids) })).map((row) => ({ ...row }));
+    },
+    async findByEmail(email: string) {
+      return plain(await repo.findOneBy({ email }));
+    },
+    async findByInviteTokenHash(inviteTokenHash: string) {
+      return plain(await repo.findOneBy({ inviteTokenHash }));
+    },
+    async insert(values: NewUser): Promise<UserRow> {
+      const result = await repo.insert(values);
+      const id = Number(result.identifiers[0]?.id);
+      return (await this.findById(id)) as UserRow;
+    },
+    async update(id: number, changes: Partial<NewUser>): Promise<UserRow> {
+      await repo.update({ id }, changes);
+      return (await this.findById(id)) as UserRow;
+    },
+    countActiveAdmins() {
+      return repo.countBy({ role: 'admin', active: true });
+    },
+    count() {
+      return repo.count();
+    },
+    async list(query: UserListQuery): Promise<{ rows: UserRow[]; total: number }> {
+      const qb = repo.createQueryBuilder('u');
+      if (query.q) {
+        qb.where(
+          "(LOWER(u.email) LIKE :q ESCAPE '\\' OR LOWER(u.displayName) LIKE :q ESCAPE '\\')",
+          {
+            q: containsPattern(query.q.toLowerCase()),
+          },
+        );
+      }
+      const total = await qb.getCount();
+      const { field, direction } = parseSort(query.sort);
+      const column = sortColumns[field] ?? 'LOWER(u.displayName)';
+      const order = direction === 'desc' ? 'DESC' : 'ASC';
+      const rows = await qb
+        .orderBy(`CASE WHEN ${column} IS NULL THEN 1 ELSE 0 END`, 'ASC')
+        .addOrderBy(column, order)
+        .addOrderBy('u.id', 'ASC')
+        .offset((query.page - 1) * query.pageSize)
+        .limit(query.pageSize)
+        .getMany();
+      return { rows: rows.map((row) => ({ ...row })), total };
+    },
+  };
+}
+export type UsersRepository = ReturnType<typeof usersRepository>;

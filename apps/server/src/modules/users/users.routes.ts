@@ -1,0 +1,59 @@
+import { userCreateSchema, userListQuerySchema, userPatchSchema } from '@lotwise/shared';
+import { defineRoute } from '../../lib/route-table';
+import { idParamsSchema } from '../../lib/validate';
+import type { UsersService } from './users.service';
+
+// Unknown fields are refused here as they are for chemicals (the shared schemas strip them).
+const createBody = userCreateSchema.strict();
+const patchBody = userPatchSchema.strict();
+
+export function userRoutes(users: UsersService) {
+  return [
+    defineRoute({
+      method: 'get',
+      path: '/api/users',
+      access: 'users.manage',
+      query: userListQuerySchema,
+      handle: async ({ query, res }) => {
+        res.json(await users.list(query));
+      },
+    }),
+    defineRoute({
+      method: 'post',
+      path: '/api/users',
+      access: 'users.manage',
+      body: createBody,
+      handle: async ({ body, res, actor }) => {
+        res.status(201).json(await users.create(body, actor().id));
+      },
+    }),
+    defineRoute({
+      method: 'get',
+      path: '/api/users/:id',
+      access: 'users.manage',
+      params: idParamsSchema,
+      handle: async ({ params, res }) => {
+        res.json(await users.get(params.id));
+      },
+    }),
+    defineRoute({
+      method: 'patch',
+      path: '/api/users/:id',
+      access: 'users.manage',
+      params: idParamsSchema,
+      body: patchBody,
+      handle: async ({ params, body, res, actor }) => {
+        res.json(await users.update(params.id, body, actor().id));
+      },
+    }),
+    defineRoute({
+      method: 'post',
+      path: '/api/users/:id/invite',
+      access: 'users.manage',
+      params: idParamsSchema,
+      handle: async ({ params, res, actor }) => {
+        res.json(await users.reissueInvite(params.id, actor().id));
+      },
+    }),
+  ];
+}
