@@ -1,17 +1,16 @@
-// Temporary stub: replaced by the real implementation.
-export class ChemError extends Error {
-  constructor(
-    public readonly code: string,
-    message: string,
-    public readonly position?: number,
-  ) {
-    super(message);
-  }
-}
-export type Result<T> = { ok: true; value: T } | { ok: false; error: ChemError };
-export function tryMolarMass(formula: string): Result<number> {
-  return formula.length ? { ok: true, value: 1 } : { ok: false, error: new ChemError('empty_formula', 'formula is empty') };
-}
-export function validateCasNumber(cas: string): { valid: true } | { valid: false; reason: string } {
-  return /^\d{2,7}-\d{2}-\d$/.test(cas) ? { valid: true } : { valid: false, reason: 'bad' };
-}
+/**
+ * @lotwise/chem: the chemistry and arithmetic of Lotwise. Pure functions, no I/O; errors
+ * are {@link ChemError}s with stable codes and messages a person can act on.
+ */
+export * from './errors';
+export * from './elements';
+export * from './formula';
+export * from './molar-mass';
+export * from './units';
+export * from './conversions';
+export * from './solutions';
+export * from './stoichiometry';
+export * from './scaling';
+export * from './cas';
+export * from './money';
+export * from './consumption';
