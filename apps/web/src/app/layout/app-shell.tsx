@@ -1,0 +1,60 @@
+import { Link, Outlet, useNavigate } from 'react-router';
+import { LogOut } from 'lucide-react';
+import { roleLabels, type User } from '@lotwise/shared';
+import { Wordmark } from '../../components/brand/wordmark';
+import { Badge } from '../../components/ui/badge';
+import { Button } from '../../components/ui/button';
+import { paths } from '../../config/paths';
+import { useSignOut } from '../../features/auth/api';
+import { SideNav } from './side-nav';
+
+export function AppShell({ user }: { user: User }) {
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+
+  return (
+    <div className="flex min-h-screen flex-col">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:fixed focus:top-2 focus:left-2 focus:z-50 focus:rounded-md focus:bg-white focus:px-3 focus:py-2 focus:shadow"
+      >
+        Skip to content
+      </a>
+      <header className="sticky top-0 z-20 flex h-14 items-center justify-between gap-4 border-b border-ink-200 bg-white px-4">
+        <Link to={paths.home} aria-label="Lotwise, home" className="rounded">
+          <Wordmark />
+        </Link>
+        <div className="flex items-center gap-3 text-sm">
+          <span className="hidden text-right sm:block">
+            <span className="block leading-5 font-medium text-ink-900">{user.displayName}</span>
+            <span className="block text-xs leading-4 text-ink-600">{user.email}</span>
+          </span>
+          <Badge tone="accent">{roleLabels[user.role]}</Badge>
+          <Button
+            variant="ghost"
+            size="sm"
+            busy={signOut.isPending}
+            icon={<LogOut aria-hidden="true" className="size-4" />}
+            onClick={() =>
+              signOut.mutate(undefined, {
+                onSettled: () => navigate(paths.signIn, { replace: true }),
+              })
+            }
+          >
+            Sign out
+          </Button>
+        </div>
+      </header>
+      <div className="flex flex-1 flex-col md:flex-row">
+        <aside className="shrink-0 border-b border-ink-200 bg-white md:sticky md:top-14 md:h-[calc(100vh-3.5rem)] md:w-56 md:overflow-y-auto md:border-r md:border-b-0">
+          <SideNav role={user.role} />
+        </aside>
+        <main id="main" tabIndex={-1} className="min-w-0 flex-1 px-4 py-6 outline-none md:px-8">
+          <div className="mx-auto max-w-7xl">
+            <Outlet />
+          </div>
+        </main>
+      </div>
+    </div>
+  );
+}

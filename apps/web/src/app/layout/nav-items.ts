@@ -1,0 +1,56 @@
+import type { Permission, Role } from '@lotwise/shared';
+import { can } from '@lotwise/shared';
+import {
+  Bell,
+  ClipboardList,
+  FlaskConical,
+  FlaskRound,
+  Package,
+  ShoppingCart,
+  Users,
+  type LucideIcon,
+} from 'lucide-react';
+import { paths } from '../../config/paths';
+
+export interface NavItem {
+  label: string;
+  to: string;
+  permission: Permission;
+  icon: LucideIcon;
+  /** Not built yet: the page says so and tells what it will do. */
+  coming?: boolean;
+  section?: 'admin';
+}
+
+export const navItems: readonly NavItem[] = [
+  { label: 'Chemicals', to: paths.chemicals, permission: 'chemicals.read', icon: FlaskConical },
+  { label: 'Stock', to: paths.stock, permission: 'stock.read', icon: Package, coming: true },
+  {
+    label: 'Preparations',
+    to: paths.preparations,
+    permission: 'procedures.read',
+    icon: ClipboardList,
+    coming: true,
+  },
+  { label: 'Runs', to: paths.runs, permission: 'runs.record', icon: FlaskRound, coming: true },
+  {
+    label: 'Orders',
+    to: paths.orders,
+    permission: 'orders.read',
+    icon: ShoppingCart,
+    coming: true,
+  },
+  { label: 'Alerts', to: paths.alerts, permission: 'alerts.read', icon: Bell, coming: true },
+  {
+    label: 'People',
+    to: paths.adminUsers,
+    permission: 'users.manage',
+    icon: Users,
+    section: 'admin',
+  },
+];
+
+/** The navigation a role sees: only what it may use. */
+export function navItemsFor(role: Role): NavItem[] {
+  return navItems.filter((item) => can(role, item.permission));
+}

@@ -1,0 +1,57 @@
+import { render, screen, within } from '@testing-library/react';
+import { MemoryRouter } from 'react-router';
+import { describe, expect, it } from 'vitest';
+import type { Role } from '@lotwise/shared';
+import { SideNav } from './side-nav';
+
+function navLabels(role: Role): string[] {
+  render(
+    <MemoryRouter>
+      <SideNav role={role} />
+    </MemoryRouter>,
+  );
+  const nav = screen.getByRole('navigation', { name: 'Main' });
+  return within(nav)
+    .getAllByRole('link')
+    .map((link) => link.textContent?.replace('coming', '').trim() ?? '');
+}
+
+describe('SideNav', () => {
+  it('when a viewer signs in, then only read-only places show', () => {
+    expect(navLabels('viewer')).toEqual(['Chemicals', 'Stock', 'Preparations']);
+  });
+
+  it('when a member signs in, then runs, orders and alerts show but not administration', () => {
+    expect(navLabels('member')).toEqual([
+      'Chemicals',
+      'Stock',
+      'Preparations',
+      'Runs',
+      'Orders',
+      'Alerts',
+    ]);
+  });
+
+  it('when an admin signs in, then People under Admin shows too', () => {
+    expect(navLabels('admin')).toEqual([
+      'Chemicals',
+      'Stock',
+      'Preparations',
+      'Runs',
+      'Orders',
+      'Alerts',
+      'People',
+    ]);
+    expect(screen.getByText('Admin')).toBeInTheDocument();
+  });
+
+  it('marks capabilities not built yet as coming', () => {
+    render(
+      <MemoryRouter>
+        <SideNav role="manager" />
+      </MemoryRouter>,
+    );
+    expect(screen.getByRole('link', { name: /Stock/ })).toHaveTextContent('coming');
+    expect(screen.getByRole('link', { name: /Chemicals/ })).not.toHaveTextContent('coming');
+  });
+});

@@ -1,0 +1,4 @@
+import { createBrowserRouter } from 'react-router';
+import { routes } from './routes';
+
+export const router = createBrowserRouter(routes);

@@ -1,0 +1,134 @@
+import { Navigate, type RouteObject } from 'react-router';
+import { PageSpinner } from '../components/ui/spinner';
+import { paths } from '../config/paths';
+import { ChemicalsListPage } from '../features/chemicals/pages/chemicals-list-page';
+import { ChemicalDetailPage } from '../features/chemicals/pages/chemical-detail-page';
+import { ComingSoonPage, comingCapabilities } from './routes/coming-soon';
+import { RequirePermission, SignedInLayout } from './routes/guards';
+import { NotFoundPage, RouteErrorPage } from './routes/status-pages';
+
+/** Every screen of the web app. Forms and admin pages load their code when first opened. */
+export const routes: RouteObject[] = [
+  {
+    errorElement: <RouteErrorPage />,
+    hydrateFallbackElement: <PageSpinner label="Opening Lotwise…" />,
+    children: [
+      {
+        path: paths.signIn,
+        lazy: async () => ({
+          Component: (await import('../features/auth/pages/sign-in-page')).SignInPage,
+        }),
+      },
+      {
+        path: paths.invite(),
+        lazy: async () => ({
+          Component: (await import('../features/auth/pages/accept-invite-page')).AcceptInvitePage,
+        }),
+      },
+      {
+        element: <SignedInLayout />,
+        children: [
+          { index: true, element: <Navigate to={paths.chemicals} replace /> },
+          {
+            path: paths.chemicals,
+            element: (
+              <RequirePermission permission="chemicals.read">
+                <ChemicalsListPage />
+              </RequirePermission>
+            ),
+          },
+          {
+            path: paths.chemicalNew,
+            lazy: async () => {
+              const { ChemicalCreatePage } =
+                await import('../features/chemicals/pages/chemical-create-page');
+              return {
+                element: (
+                  <RequirePermission permission="chemicals.write">
+                    <ChemicalCreatePage />
+                  </RequirePermission>
+                ),
+              };
+            },
+          },
+          {
+            path: paths.chemical(),
+            element: (
+              <RequirePermission permission="chemicals.read">
+                <ChemicalDetailPage />
+              </RequirePermission>
+            ),
+          },
+          {
+            path: paths.chemicalEdit(),
+            lazy: async () => {
+              const { ChemicalEditPage } =
+                await import('../features/chemicals/pages/chemical-edit-page');
+              return {
+                element: (
+                  <RequirePermission permission="chemicals.write">
+                    <ChemicalEditPage />
+                  </RequirePermission>
+                ),
+              };
+            },
+          },
+          {
+            path: paths.stock,
+            element: (
+              <RequirePermission permission="stock.read">
+                <ComingSoonPage capability={comingCapabilities.stock} />
+              </RequirePermission>
+            ),
+          },
+          {
+            path: paths.preparations,
+            element: (
+              <RequirePermission permission="procedures.read">
+                <ComingSoonPage capability={comingCapabilities.preparations} />
+              </RequirePermission>
+            ),
+          },
+          {
+            path: paths.runs,
+            element: (
+              <RequirePermission permission="runs.record">
+                <ComingSoonPage capability={comingCapabilities.runs} />
+              </RequirePermission>
+            ),
+          },
+          {
+            path: paths.orders,
+            element: (
+              <RequirePermission permission="orders.read">
+                <ComingSoonPage capability={comingCapabilities.orders} />
+              </RequirePermission>
+            ),
+          },
+          {
+            path: paths.alerts,
+            element: (
+              <RequirePermission permission="alerts.read">
+                <ComingSoonPage capability={comingCapabilities.alerts} />
+              </RequirePermission>
+            ),
+          },
+          {
+            path: paths.adminUsers,
+            lazy: async () => {
+              const { UsersPage } = await import('../features/users/pages/users-page');
+              return {
+                element: (
+                  <RequirePermission permission="users.manage">
+                    <UsersPage />
+                  </RequirePermission>
+                ),
+              };
+            },
+          },
+          { path: '*', element: <NotFoundPage /> },
+        ],
+      },
+    ],
+  },
+];

@@ -1,0 +1,103 @@
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { z } from 'zod';
+import { mockFetch } from '../test/fetch-mock';
+import { ApiError, apiRequest, setUnauthenticatedHandler } from './api-client';
+
+afterEach(() => setUnauthenticatedHandler(() => {}));
+
+describe('apiRequest', () => {
+  it('when the server answers the uniform error body, then the ApiError carries code, message and fields', async () => {
+    mockFetch({
+      'POST /api/chemicals': {
+        status: 400,
+        body: {
+          error: {
+            code: 'validation_failed',
+            message: 'Some fields need a look',
+            fields: {
+              casNumber: 'check digit should be 7',
+              'ghsPictograms.1': 'must be a GHS pictogram code',
+            },
+          },
+        },
+      },
+    });
+
+    const error = await apiRequest('/api/chemicals', { method: 'POST', body: {} }).catch(
+      (e: unknown) => e,
+    );
+
+    expect(error).toBeInstanceOf(ApiError);
+    expect(error).toMatchObject({
+      status: 400,
+      code: 'validation_failed',
+      message: 'Some fields need a look',
+      fields: {
+        casNumber: 'check digit should be 7',
+        'ghsPictograms.1': 'must be a GHS pictogram code',
+      },
+    });
+  });
+
+  it('when an error body is not ours (a proxy page), then a readable internal error is thrown', async () => {
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => new Response('<html>Bad gateway</html>', { status: 502 })),
+    );
+
+    const error = await apiRequest('/api/health').catch((e: unknown) => e);
+
+    expect(error).toMatchObject({ status: 502, code: 'internal', fields: {} });
+    expect((error as ApiError).message).toMatch(/server had a problem/i);
+  });
+
+  it('when the network fails, then a network_error is thrown', async () => {
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))),
+    );
+
+    await expect(apiRequest('/api/health')).rejects.toMatchObject({
+      code: 'network_error',
+      status: 0,
+    });
+  });
+
+  it('when a request answers 401, then the app is told to send the person to sign-in', async () => {
+    mockFetch({
+      'GET /api/chemicals': {
+        status: 401,
+        body: { error: { code: 'unauthenticated', message: 'Sign in first' } },
+      },
+    });
+    const onUnauthenticated = vi.fn();
+    setUnauthenticatedHandler(onUnauthenticated);
+
+    await expect(apiRequest('/api/chemicals')).rejects.toMatchObject({ code: 'unauthenticated' });
+    expect(onUnauthenticated).toHaveBeenCalledTimes(1);
+
+    await expect(
+      apiRequest('/api/chemicals', { allowUnauthenticated: true }),
+    ).rejects.toBeInstanceOf(ApiError);
+    expect(onUnauthenticated).toHaveBeenCalledTimes(1);
+  });
+
+  it('when the answer does not fit the contract, then a bad_response error is thrown', async () => {
+    mockFetch({ 'GET /api/auth/me': { body: { person: 'someone' } } });
+
+    await expect(
+      apiRequest('/api/auth/me', { schema: z.object({ user: z.object({ id: z.number() }) }) }),
+    ).rejects.toMatchObject({ code: 'bad_response' });
+  });
+
+  it('sends JSON with same-origin credentials', async () => {
+    const { fetchMock, requests } = mockFetch({ 'PATCH /api/users/3': { body: { ok: true } } });
+
+    await apiRequest('/api/users/3', { method: 'PATCH', body: { role: 'viewer' } });
+
+    const init = fetchMock.mock.calls[0]?.[1];
+    expect(init).toMatchObject({ credentials: 'same-origin', method: 'PATCH' });
+    expect(init?.headers).toMatchObject({ 'Content-Type': 'application/json' });
+    expect(requests[0]?.body).toEqual({ role: 'viewer' });
+  });
+});
