@@ -1,25 +1,15 @@
 import type { ReactNode } from 'react';
-import {
-  functionalUpdate,
-  useTable,
-  createColumnHelper,
-  type PaginationState,
-  type SortingState,
-  type Updater,
-} from '@tanstack/react-table';
+import { createColumnHelper } from '@tanstack/react-table';
 import { Link, useNavigate } from 'react-router';
 import { Lock } from 'lucide-react';
-import { hazardStatementTexts, parseSort, type Chemical } from '@lotwise/shared';
+import { hazardStatementTexts, type Chemical } from '@lotwise/shared';
 import { Formula } from '../../../components/chem/formula';
 import { PictogramList } from '../../../components/hazards/pictogram-badge';
 import { StorageGroupLabel } from '../../../components/hazards/storage-group-label';
 import { Badge } from '../../../components/ui/badge';
-import {
-  DataTable,
-  serverTableFeatures,
-  type ServerTableFeatures,
-} from '../../../components/ui/data-table';
+import { DataTable, type ServerTableFeatures } from '../../../components/ui/data-table';
 import { Pagination } from '../../../components/ui/pagination';
+import { useServerTable, type ServerTableState } from '../../../components/ui/use-server-table';
 import { formatAmount, formatMolarMass } from '../../../lib/format';
 import { paths } from '../../../config/paths';
 
@@ -114,61 +104,17 @@ const columns = column.columns([
   }),
 ]);
 
-const noRows: Chemical[] = [];
-
-interface ChemicalsTableProps {
-  rows: Chemical[] | undefined;
-  total: number;
-  sort: string;
-  page: number;
-  pageSize: number;
+interface ChemicalsTableProps extends ServerTableState<Chemical> {
   loading: boolean;
   refreshing: boolean;
-  onSortChange: (sort: string) => void;
-  onPageChange: (page: number) => void;
-  onPageSizeChange: (pageSize: number) => void;
   empty: ReactNode;
 }
 
 /** The chemicals of one page, sorted and paged by the server; state lives in the URL. */
-export function ChemicalsTable({
-  rows,
-  total,
-  sort,
-  page,
-  pageSize,
-  loading,
-  refreshing,
-  onSortChange,
-  onPageChange,
-  onPageSizeChange,
-  empty,
-}: ChemicalsTableProps) {
+export function ChemicalsTable({ loading, refreshing, empty, ...list }: ChemicalsTableProps) {
   const navigate = useNavigate();
-  const { field, direction } = parseSort(sort);
-  const sorting: SortingState = [{ id: field, desc: direction === 'desc' }];
-  const pagination: PaginationState = { pageIndex: page - 1, pageSize };
 
-  const table = useTable({
-    features: serverTableFeatures,
-    columns,
-    data: rows ?? noRows,
-    getRowId: (chemical) => String(chemical.id),
-    manualSorting: true,
-    manualPagination: true,
-    enableSortingRemoval: false,
-    rowCount: total,
-    state: { sorting, pagination },
-    onSortingChange: (updater: Updater<SortingState>) => {
-      const next = functionalUpdate(updater, sorting)[0];
-      if (next) onSortChange(`${next.id}.${next.desc ? 'desc' : 'asc'}`);
-    },
-    onPaginationChange: (updater: Updater<PaginationState>) => {
-      const next = functionalUpdate(updater, pagination);
-      if (next.pageSize !== pageSize) onPageSizeChange(next.pageSize);
-      else if (next.pageIndex !== pagination.pageIndex) onPageChange(next.pageIndex + 1);
-    },
-  });
+  const table = useServerTable(columns, (chemical) => String(chemical.id), list);
 
   return (
     <div>
@@ -180,13 +126,13 @@ export function ChemicalsTable({
         empty={empty}
         onRowActivate={(row) => navigate(paths.chemical(row.original.id))}
       />
-      {total > 0 && (
+      {list.total > 0 && (
         <Pagination
-          page={page}
+          page={list.page}
           pageCount={table.getPageCount()}
-          pageSize={pageSize}
-          total={total}
-          noun={total === 1 ? 'chemical' : 'chemicals'}
+          pageSize={list.pageSize}
+          total={list.total}
+          noun={list.total === 1 ? 'chemical' : 'chemicals'}
           onPageChange={(next) => table.setPageIndex(next - 1)}
           onPageSizeChange={(next) => table.setPageSize(next)}
         />

@@ -1,23 +1,13 @@
-import {
-  createColumnHelper,
-  functionalUpdate,
-  useTable,
-  type PaginationState,
-  type SortingState,
-  type Updater,
-} from '@tanstack/react-table';
+import { createColumnHelper } from '@tanstack/react-table';
 import { CircleCheck, CircleSlash, Mail, RotateCcw, Send, UserX } from 'lucide-react';
 import { createContext, use, type ReactNode } from 'react';
-import { parseSort, roleLabels, roles, type Role, type User } from '@lotwise/shared';
+import { roleLabels, roles, type Role, type User } from '@lotwise/shared';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
-import {
-  DataTable,
-  serverTableFeatures,
-  type ServerTableFeatures,
-} from '../../../components/ui/data-table';
+import { DataTable, type ServerTableFeatures } from '../../../components/ui/data-table';
 import { Select } from '../../../components/ui/input';
 import { Pagination } from '../../../components/ui/pagination';
+import { useServerTable, type ServerTableState } from '../../../components/ui/use-server-table';
 import { formatDateTime } from '../../../lib/format';
 
 /** What the rows can ask the page to do. */
@@ -174,61 +164,15 @@ const columns = column.columns([
   }),
 ]);
 
-const noRows: User[] = [];
-
-interface UsersTableProps {
-  rows: User[] | undefined;
-  total: number;
-  sort: string;
-  page: number;
-  pageSize: number;
+interface UsersTableProps extends ServerTableState<User> {
   loading: boolean;
   refreshing: boolean;
   actions: UserActions;
-  onSortChange: (sort: string) => void;
-  onPageChange: (page: number) => void;
-  onPageSizeChange: (pageSize: number) => void;
   empty: ReactNode;
 }
 
-export function UsersTable({
-  rows,
-  total,
-  sort,
-  page,
-  pageSize,
-  loading,
-  refreshing,
-  actions,
-  onSortChange,
-  onPageChange,
-  onPageSizeChange,
-  empty,
-}: UsersTableProps) {
-  const { field, direction } = parseSort(sort);
-  const sorting: SortingState = [{ id: field, desc: direction === 'desc' }];
-  const pagination: PaginationState = { pageIndex: page - 1, pageSize };
-
-  const table = useTable({
-    features: serverTableFeatures,
-    columns,
-    data: rows ?? noRows,
-    getRowId: (user) => String(user.id),
-    manualSorting: true,
-    manualPagination: true,
-    enableSortingRemoval: false,
-    rowCount: total,
-    state: { sorting, pagination },
-    onSortingChange: (updater: Updater<SortingState>) => {
-      const next = functionalUpdate(updater, sorting)[0];
-      if (next) onSortChange(`${next.id}.${next.desc ? 'desc' : 'asc'}`);
-    },
-    onPaginationChange: (updater: Updater<PaginationState>) => {
-      const next = functionalUpdate(updater, pagination);
-      if (next.pageSize !== pageSize) onPageSizeChange(next.pageSize);
-      else if (next.pageIndex !== pagination.pageIndex) onPageChange(next.pageIndex + 1);
-    },
-  });
+export function UsersTable({ loading, refreshing, actions, empty, ...list }: UsersTableProps) {
+  const table = useServerTable(columns, (user) => String(user.id), list);
 
   return (
     <div>
@@ -242,13 +186,13 @@ export function UsersTable({
           rowAlign="middle"
         />
       </UserActionsContext>
-      {total > 0 && (
+      {list.total > 0 && (
         <Pagination
-          page={page}
+          page={list.page}
           pageCount={table.getPageCount()}
-          pageSize={pageSize}
-          total={total}
-          noun={total === 1 ? 'person' : 'people'}
+          pageSize={list.pageSize}
+          total={list.total}
+          noun={list.total === 1 ? 'person' : 'people'}
           onPageChange={(next) => table.setPageIndex(next - 1)}
           onPageSizeChange={(next) => table.setPageSize(next)}
         />
