@@ -120,6 +120,11 @@ export const chemicalSchema = z.object({
   hazardStatements: z.array(z.string()),
   storageGroup: storageGroupSchema,
   peroxideClass: peroxideClassSchema.nullable(),
+  /**
+   * Groups whose incompatibilities the chemical carries besides its storage group (sodium
+   * nitrite: an oxidizer that also releases toxic gas with acids). Always sent by the server.
+   */
+  extraHazardGroups: z.array(storageGroupSchema).optional(),
   stockUnit: stockUnitSchema,
   reorderPoint: z.number().nullable(),
   reorderQuantity: z.number().nullable(),
@@ -145,3 +150,21 @@ export const chemicalListQuerySchema = listQuerySchema(chemicalSortFields, 'name
   pictogram: ghsCodeSchema.optional(),
 });
 export type ChemicalListQuery = z.infer<typeof chemicalListQuerySchema>;
+
+/** Extra incompatibilities of a chemical; see `chemicalSchema.extraHazardGroups`. */
+export const extraHazardGroupsSchema = z
+  .array(storageGroupSchema)
+  .max(8)
+  .refine((list) => new Set(list).size === list.length, 'lists a storage group twice');
+
+/** What `POST /api/chemicals` accepts: {@link chemicalCreateSchema} plus `extraHazardGroups`. */
+export const chemicalCreateBodySchema = chemicalCreateSchema.extend({
+  extraHazardGroups: extraHazardGroupsSchema.optional(),
+});
+export type ChemicalCreateBody = z.input<typeof chemicalCreateBodySchema>;
+
+/** What `PATCH /api/chemicals/:id` accepts: {@link chemicalPatchSchema} plus `extraHazardGroups`. */
+export const chemicalPatchBodySchema = chemicalPatchSchema.extend({
+  extraHazardGroups: extraHazardGroupsSchema.optional(),
+});
+export type ChemicalPatchBody = z.infer<typeof chemicalPatchBodySchema>;

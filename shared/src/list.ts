@@ -49,3 +49,8 @@ export interface Page<T> {
   page: number;
   pageSize: number;
 }
+
+/** A yes/no query parameter: `true`/`false` (also `1`/`0`). */
+export const queryFlagSchema = z
+  .enum(['true', 'false', '1', '0'], { message: 'must be true or false' })
+  .transform((value) => value === 'true' || value === '1');

@@ -24,6 +24,8 @@ export const permissions = [
   'chemicals.write',
   'stock.read',
   'stock.write',
+  /** Record draws (use) from a container; adjusting, splitting and moving need stock.write. */
+  'stock.draw',
   'procedures.read',
   'procedures.write',
   'runs.record',
@@ -33,6 +35,8 @@ export const permissions = [
   'alerts.read',
   'users.manage',
   'outbox.manage',
+  /** Run maintenance checks such as the ledger invariant. */
+  'maintenance.run',
 ] as const;
 export type Permission = (typeof permissions)[number];
 
@@ -45,6 +49,7 @@ export const permissionMatrix: Record<Role, readonly Permission[]> = {
     'chemicals.write',
     'stock.read',
     'stock.write',
+    'stock.draw',
     'procedures.read',
     'procedures.write',
     'runs.record',
@@ -56,6 +61,7 @@ export const permissionMatrix: Record<Role, readonly Permission[]> = {
   member: [
     'chemicals.read',
     'stock.read',
+    'stock.draw',
     'procedures.read',
     'runs.record',
     'orders.read',

@@ -15,7 +15,17 @@ import { authService } from './modules/auth/auth.service';
 import { sessions } from './modules/auth/session';
 import { chemicalRoutes } from './modules/chemicals/chemicals.routes';
 import { chemicalsService } from './modules/chemicals/chemicals.service';
+import { containerRoutes } from './modules/containers/containers.routes';
+import { containersService } from './modules/containers/containers.service';
 import { healthRoutes } from './modules/health/health.routes';
+import { locationRoutes } from './modules/locations/locations.routes';
+import { locationsService } from './modules/locations/locations.service';
+import { lotRoutes } from './modules/lots/lots.routes';
+import { lotsService } from './modules/lots/lots.service';
+import { maintenanceRoutes } from './modules/maintenance/maintenance.routes';
+import { segregationRoutes } from './modules/segregation/segregation.routes';
+import { stockRoutes } from './modules/stock/stock.routes';
+import { stockService } from './modules/stock/stock.service';
 import { userRoutes } from './modules/users/users.routes';
 import { usersService } from './modules/users/users.service';
 
@@ -73,6 +83,12 @@ export function createApp({
     ...userRoutes(usersService(store, config)),
     ...auditRoutes(auditService(store)),
     ...chemicalRoutes(chemicalsService(store)),
+    ...locationRoutes(locationsService(store)),
+    ...lotRoutes(lotsService(store)),
+    ...containerRoutes(containersService(store)),
+    ...stockRoutes(stockService(store)),
+    ...segregationRoutes(store),
+    ...maintenanceRoutes(store),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;

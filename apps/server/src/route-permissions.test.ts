@@ -7,7 +7,11 @@ import { signedIn } from './test/factories';
 import { testContext } from './test/harness';
 
 /** Values for path parameters: ids nobody has, so allowed calls end in 400/404, not in damage. */
-const sampleParams: Record<string, string> = { id: '999999', token: 'no-such-invitation' };
+const sampleParams: Record<string, string> = {
+  id: '999999',
+  token: 'no-such-invitation',
+  labelCode: 'LW-99999',
+};
 
 function samplePath(path: string): string {
   return path.replace(/:(\w+)/g, (_match, name: string) => {

@@ -14,3 +14,6 @@ export * from './scaling';
 export * from './cas';
 export * from './money';
 export * from './consumption';
+export * from './segregation';
+export * from './peroxide';
+export * from './stock';

@@ -4,13 +4,28 @@ import { DataSource } from 'typeorm';
 import { repoRoot } from '../config';
 import { AuditEventEntity } from '../modules/audit/audit-event.entity';
 import { ChemicalEntity } from '../modules/chemicals/chemical.entity';
+import { ContainerEntity } from '../modules/containers/container.entity';
+import { LedgerEntryEntity } from '../modules/containers/ledger-entry.entity';
+import { LocationEntity } from '../modules/locations/location.entity';
+import { LotEntity } from '../modules/lots/lot.entity';
+import { StocktakeEntity } from '../modules/stock/stocktake.entity';
 import { UserEntity } from '../modules/users/user.entity';
 import { Initial1796160000000 } from './migrations/1796160000000-initial';
+import { Stock1796250000000 } from './migrations/1796250000000-stock';
 
-export const entities = [UserEntity, AuditEventEntity, ChemicalEntity];
+export const entities = [
+  UserEntity,
+  AuditEventEntity,
+  ChemicalEntity,
+  LocationEntity,
+  LotEntity,
+  ContainerEntity,
+  LedgerEntryEntity,
+  StocktakeEntity,
+];
 
 /** In order; listed by hand so tsx, vitest and the TypeORM CLI all load the same classes. */
-export const migrations = [Initial1796160000000];
+export const migrations = [Initial1796160000000, Stock1796250000000];
 
 /**
  * A DataSource on the SQLite file at `databasePath` (not yet initialized): WAL journal,

@@ -23,7 +23,12 @@ describe('migrations', () => {
       expect(await tables(dataSource)).toEqual([
         'audit_events',
         'chemicals',
+        'containers',
+        'ledger_entries',
+        'locations',
+        'lots',
         'migrations',
+        'stocktakes',
         'users',
       ]);
       expect(await dataSource.showMigrations()).toBe(false);

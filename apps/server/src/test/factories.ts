@@ -74,3 +74,53 @@ export function chemicalInput(overrides: Partial<ChemicalCreate> = {}): Chemical
     ...overrides,
   };
 }
+
+/** Stock set-up over HTTP as a manager: a chemical, a lot of it, places and containers. */
+export function stockFactory(cookie: () => string) {
+  const post = (path: string, body: object) =>
+    request(testContext().app).post(path).set('Cookie', cookie()).send(body);
+  return {
+    async chemical(overrides: Partial<ChemicalCreate> & { extraHazardGroups?: string[] } = {}) {
+      const response = await post('/api/chemicals', chemicalInput(overrides)).expect(201);
+      return response.body as { id: number; name: string; stockUnit: 'g' | 'mL' };
+    },
+    async location(
+      body: {
+        name?: string;
+        parentId?: number | null;
+        storageGroups?: string[];
+        kind?: string;
+      } = {},
+    ) {
+      const response = await post('/api/locations', { name: `Place ${next()}`, ...body }).expect(
+        201,
+      );
+      return response.body as { id: number; name: string; path: string };
+    },
+    async lot(chemicalId: number, body: object = {}) {
+      const response = await post('/api/lots', {
+        chemicalId,
+        supplierName: 'Northgate Lab Supply (fictional)',
+        receivedOn: '2026-01-10',
+        ...body,
+      }).expect(201);
+      return response.body as { id: number };
+    },
+    async container(lotId: number, locationId: number, body: object = {}) {
+      const response = await post('/api/containers', {
+        lotId,
+        locationId,
+        quantity: 500,
+        unit: 'g',
+        ...body,
+      }).expect(201);
+      return response.body.container as {
+        id: number;
+        labelCode: string;
+        quantity: number;
+        unit: string;
+        status: string;
+      };
+    },
+  };
+}

@@ -1,4 +1,4 @@
-import type { ChemicalCreate } from '@lotwise/shared';
+import type { ChemicalCreateBody } from '@lotwise/shared';
 
 /**
  * The demo lab's reagents. Identity, density, GHS pictograms, H-statements, storage groups
@@ -8,7 +8,7 @@ import type { ChemicalCreate } from '@lotwise/shared';
  * "(memory)" there were recalled, not read. Reorder points and quantities are invented for
  * the demo. Demo data only: the supplier's SDS is the authority for any real bottle.
  */
-export const demoChemicals: ChemicalCreate[] = [
+export const demoChemicals: ChemicalCreateBody[] = [
   {
     name: 'Water, deionised',
     synonyms: ['water', 'DI water'],
@@ -321,6 +321,8 @@ export const demoChemicals: ChemicalCreate[] = [
     ghsPictograms: ['GHS03', 'GHS06', 'GHS09'],
     hazardStatements: ['H272', 'H301', 'H400'],
     storageGroup: 'oxidizer',
+    // Nitrites also release toxic gas with acids (PP lists them with both groups).
+    extraHazardGroups: ['gas-with-acid'],
     stockUnit: 'g',
     reorderPoint: 50,
     reorderQuantity: 250,

@@ -86,6 +86,45 @@ describe('demo seed', () => {
     expect([...roles].sort()).toEqual(['admin', 'manager', 'member', 'viewer']);
   });
 
+  it('when seeded, then the stockroom has places, 60+ containers with history, expired and expiring stock, low stock and exactly one conflict', async () => {
+    const app = createApp({ dataSource, config });
+    const login = await request(app)
+      .post('/api/auth/login')
+      .send({ email: 'instructor@example.test', password: demoPassword })
+      .expect(200);
+    const cookie = String([login.headers['set-cookie']].flat()[0]).split(';')[0]!;
+    const get = (path: string) => request(app).get(path).set('Cookie', cookie).expect(200);
+
+    const locations = (await get('/api/locations')).body;
+    expect(locations.items.filter((l: { depth: number }) => l.depth === 0)).toHaveLength(3);
+    expect(locations.total).toBeGreaterThanOrEqual(11);
+    const containers = (await get('/api/containers?pageSize=200')).body;
+    expect(containers.total).toBeGreaterThanOrEqual(60);
+    const chemicalsHeld = new Set(
+      containers.items.map((c: { chemical: { id: number } }) => c.chemical.id),
+    );
+    expect(chemicalsHeld.size).toBe(26);
+    expect((await get('/api/containers?expired=true')).body.total).toBeGreaterThan(0);
+    const today = new Date().toISOString().slice(0, 10);
+    const monthEnd =
+      new Date(Date.UTC(+today.slice(0, 4), +today.slice(5, 7), 0)).getUTCDate() -
+      +today.slice(8, 10);
+    expect(
+      (await get(`/api/containers?expiringWithinDays=${monthEnd}`)).body.total,
+    ).toBeGreaterThan(0);
+    const low = (await get('/api/stock?belowReorderPoint=true&pageSize=200')).body;
+    expect(low.total).toBeGreaterThanOrEqual(3);
+    const conflicts = (await get('/api/segregation/conflicts')).body;
+    expect(conflicts.items, JSON.stringify(conflicts.items, null, 1)).toHaveLength(1);
+    expect(conflicts.items[0].location.path).toMatch(/Bases shelf/);
+    expect(conflicts.items[0].pairs[0].groups).toEqual(['inorganic-acid', 'base']);
+    const check = (await get('/api/maintenance/ledger-check')).body;
+    expect(check.ok).toBe(true);
+    expect(check.entriesChecked).toBeGreaterThan(containers.total * 3);
+    const nitrite = (await get('/api/chemicals?q=sodium nitrite')).body.items[0];
+    expect(nitrite.extraHazardGroups).toEqual(['gas-with-acid']);
+  });
+
   it('when searching the demo stock, then synonyms such as aspirin and THF find their chemical', async () => {
     const store = createStore(dataSource);
     for (const [q, name] of [

@@ -1,10 +1,11 @@
-import { chemicalCreateSchema, type Role } from '@lotwise/shared';
+import { chemicalCreateBodySchema, type Role } from '@lotwise/shared';
 import type { DataSource } from 'typeorm';
 import { hashPassword } from '../../modules/auth/passwords';
 import { newChemicalValues } from '../../modules/chemicals/chemicals.service';
 import { nowIso } from '../sql';
 import { createStore } from '../store';
 import { demoChemicals } from './demo-chemicals';
+import { seedDemoStock } from './demo-stock';
 
 /** One published password for every demo account; change it before real use. */
 export const demoPassword = 'lotwise-demo-2026';
@@ -25,7 +26,7 @@ export const demoAccounts: { email: string; displayName: string; role: Role }[] 
  */
 export async function seedDemo(dataSource: DataSource, bcryptCost: number): Promise<boolean> {
   const store = createStore(dataSource);
-  const chemicals = demoChemicals.map((chemical) => chemicalCreateSchema.parse(chemical));
+  const chemicals = demoChemicals.map((chemical) => chemicalCreateBodySchema.parse(chemical));
   const passwordHash = await hashPassword(demoPassword, bcryptCost);
   return store.transaction(async (repos) => {
     const empty =
@@ -33,8 +34,9 @@ export async function seedDemo(dataSource: DataSource, bcryptCost: number): Prom
       (await repos.chemicals.list({ q: '', sort: 'name.asc', page: 1, pageSize: 1 })).total === 0;
     if (!empty) return false;
     const now = nowIso();
+    const people: { id: number; role: Role }[] = [];
     for (const account of demoAccounts) {
-      await repos.users.insert({
+      const created = await repos.users.insert({
         ...account,
         passwordHash,
         active: true,
@@ -44,9 +46,12 @@ export async function seedDemo(dataSource: DataSource, bcryptCost: number): Prom
         createdAt: now,
         updatedAt: now,
       });
+      people.push({ id: created.id, role: created.role });
     }
+    const inserted = [];
     for (const chemical of chemicals)
-      await repos.chemicals.insert(newChemicalValues(chemical, now));
+      inserted.push(await repos.chemicals.insert(newChemicalValues(chemical, now)));
+    await seedDemoStock(repos, inserted, people);
     return true;
   });
 }

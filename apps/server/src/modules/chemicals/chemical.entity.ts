@@ -22,6 +22,8 @@ export interface ChemicalRow {
   hazardStatements: string[];
   storageGroup: StorageGroup;
   peroxideClass: PeroxideClass | null;
+  /** Null on rows from before the column existed: read as none. */
+  extraHazardGroups: StorageGroup[] | null;
   stockUnit: StockUnit;
   reorderPoint: number | null;
   reorderQuantity: number | null;
@@ -50,6 +52,7 @@ export const ChemicalEntity = new EntitySchema<ChemicalRow>({
     hazardStatements: { name: 'hazard_statements', type: 'simple-json' },
     storageGroup: { name: 'storage_group', type: 'varchar', length: 20 },
     peroxideClass: { name: 'peroxide_class', type: 'varchar', length: 1, nullable: true },
+    extraHazardGroups: { name: 'extra_hazard_groups', type: 'simple-json', nullable: true },
     stockUnit: { name: 'stock_unit', type: 'varchar', length: 4 },
     reorderPoint: { name: 'reorder_point', type: 'double precision', nullable: true },
     reorderQuantity: { name: 'reorder_quantity', type: 'double precision', nullable: true },

@@ -17,8 +17,12 @@ const nullableSortFields = new Set(['casNumber', 'formula', 'molarMass']);
 
 export type ChemicalValues = Omit<ChemicalRow, 'id'>;
 
-function toChemical({ searchText: _searchText, ...chemical }: ChemicalRow): Chemical {
-  return chemical;
+function toChemical({
+  searchText: _searchText,
+  extraHazardGroups,
+  ...chemical
+}: ChemicalRow): Chemical {
+  return { ...chemical, extraHazardGroups: extraHazardGroups ?? [] };
 }
 
 function duplicateCas(): AppError {
@@ -35,6 +39,10 @@ export function chemicalsRepository(manager: EntityManager) {
     async findById(id: number): Promise<Chemical | null> {
       const row = await repo.findOneBy({ id });
       return row ? toChemical(row) : null;
+    },
+    /** The row as stored (with its search key), for services that need every column. */
+    async findRow(id: number): Promise<ChemicalRow | null> {
+      return repo.findOneBy({ id });
     },
     async findByCasNumber(casNumber: string): Promise<Chemical | null> {
       const row = await repo.findOneBy({ casNumber });

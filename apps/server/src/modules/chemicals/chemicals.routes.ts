@@ -1,7 +1,7 @@
 import {
-  chemicalCreateSchema,
+  chemicalCreateBodySchema,
   chemicalListQuerySchema,
-  chemicalPatchSchema,
+  chemicalPatchBodySchema,
 } from '@lotwise/shared';
 import { idParamsSchema } from '../../lib/validate';
 import { defineRoute } from '../../lib/route-table';
@@ -22,7 +22,7 @@ export function chemicalRoutes(chemicals: ChemicalsService) {
       method: 'post',
       path: '/api/chemicals',
       access: 'chemicals.write',
-      body: chemicalCreateSchema,
+      body: chemicalCreateBodySchema,
       handle: async ({ body, res }) => {
         res.status(201).json(await chemicals.create(body));
       },
@@ -41,7 +41,7 @@ export function chemicalRoutes(chemicals: ChemicalsService) {
       path: '/api/chemicals/:id',
       access: 'chemicals.write',
       params: idParamsSchema,
-      body: chemicalPatchSchema,
+      body: chemicalPatchBodySchema,
       handle: async ({ params, body, res }) => {
         res.json(await chemicals.update(params.id, body));
       },

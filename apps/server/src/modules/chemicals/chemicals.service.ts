@@ -3,8 +3,9 @@ import type {
   Chemical,
   ChemicalCreateParsed,
   ChemicalListQuery,
-  ChemicalPatch,
+  ChemicalPatchBody,
   Page,
+  StorageGroup,
 } from '@lotwise/shared';
 import { AppError } from '../../lib/app-error';
 import type { Store } from '../../db/store';
@@ -32,9 +33,13 @@ export function searchTextOf(chemical: {
 }
 
 /** Values of a new chemical row, with the computed columns filled in. */
-export function newChemicalValues(input: ChemicalCreateParsed, now = nowIso()): ChemicalValues {
+export function newChemicalValues(
+  input: ChemicalCreateParsed & { extraHazardGroups?: StorageGroup[] },
+  now = nowIso(),
+): ChemicalValues {
   return {
     ...input,
+    extraHazardGroups: input.extraHazardGroups ?? [],
     molarMass: molarMassOf(input.formula),
     searchText: searchTextOf(input),
     createdAt: now,
@@ -71,14 +76,25 @@ export function chemicalsService(store: Store) {
       return chemical;
     },
 
-    async create(input: ChemicalCreateParsed): Promise<Chemical> {
+    async create(
+      input: ChemicalCreateParsed & { extraHazardGroups?: StorageGroup[] },
+    ): Promise<Chemical> {
       await assertCasFree(input.casNumber);
       return chemicals.insert(newChemicalValues(input));
     },
 
-    async update(id: number, patch: ChemicalPatch): Promise<Chemical> {
+    async update(id: number, patch: ChemicalPatchBody): Promise<Chemical> {
       const current = await this.get(id);
       if (Object.keys(patch).length === 0) return current;
+      if (patch.stockUnit !== undefined && patch.stockUnit !== current.stockUnit) {
+        const held = await store.repos.containers.countForChemical(id);
+        if (held > 0) {
+          throw AppError.conflict(
+            `${current.name} has ${held} container(s) counted in ${current.stockUnit}; its stock unit cannot change.`,
+            { stockUnit: `stays ${current.stockUnit} while containers hold it` },
+          );
+        }
+      }
       if (patch.casNumber !== undefined) await assertCasFree(patch.casNumber, id);
       const next = { ...current, ...patch };
       const changes: Partial<ChemicalValues> = { ...patch, updatedAt: nowIso() };
@@ -90,6 +106,12 @@ export function chemicalsService(store: Store) {
     },
 
     async remove(id: number): Promise<void> {
+      const lots = await store.repos.lots.countForChemical(id);
+      if (lots > 0) {
+        throw AppError.conflict(
+          `This chemical has ${lots} lot(s) in stock history and cannot be deleted.`,
+        );
+      }
       if (!(await chemicals.delete(id))) throw notFound(id);
     },
   };

@@ -1,0 +1,88 @@
+import type { ContainerStatus, StockUnit } from '@lotwise/shared';
+import { EntitySchema } from 'typeorm';
+
+/**
+ * A row of `containers`. `quantity` is the running balance of its ledger entries, written
+ * only together with an entry. `chemicalId`, `expiresOn` (the lot's) and `peroxideDueOn`
+ * are copies kept for fast filters.
+ */
+export interface ContainerRow {
+  id: number;
+  labelCode: string;
+  /** The number of an `LW-` label code, for generating the next one; null for other codes. */
+  labelNumber: number | null;
+  lotId: number;
+  chemicalId: number;
+  locationId: number;
+  status: ContainerStatus;
+  quantity: number;
+  unit: StockUnit;
+  tareMass: number | null;
+  capacity: number | null;
+  capacityUnit: string | null;
+  openedOn: string | null;
+  expiresOn: string | null;
+  peroxideDueOn: string | null;
+  notes: string;
+  createdAt: string;
+  updatedAt: string;
+  /** Declared so the foreign keys are part of the mapping; never loaded. */
+  lot?: unknown;
+  chemical?: unknown;
+  location?: unknown;
+}
+
+export const ContainerEntity = new EntitySchema<ContainerRow>({
+  name: 'Container',
+  tableName: 'containers',
+  columns: {
+    id: { type: 'integer', primary: true, generated: 'increment' },
+    labelCode: { name: 'label_code', type: 'varchar', length: 20 },
+    labelNumber: { name: 'label_number', type: 'integer', nullable: true },
+    lotId: { name: 'lot_id', type: 'integer' },
+    chemicalId: { name: 'chemical_id', type: 'integer' },
+    locationId: { name: 'location_id', type: 'integer' },
+    status: { type: 'varchar', length: 10 },
+    quantity: { type: 'double precision' },
+    unit: { type: 'varchar', length: 4 },
+    tareMass: { name: 'tare_mass', type: 'double precision', nullable: true },
+    capacity: { type: 'double precision', nullable: true },
+    capacityUnit: { name: 'capacity_unit', type: 'varchar', length: 8, nullable: true },
+    openedOn: { name: 'opened_on', type: 'varchar', length: 10, nullable: true },
+    expiresOn: { name: 'expires_on', type: 'varchar', length: 10, nullable: true },
+    peroxideDueOn: { name: 'peroxide_due_on', type: 'varchar', length: 10, nullable: true },
+    notes: { type: 'text' },
+    createdAt: { name: 'created_at', type: 'varchar', length: 24 },
+    updatedAt: { name: 'updated_at', type: 'varchar', length: 24 },
+  },
+  relations: {
+    lot: {
+      type: 'many-to-one',
+      target: 'Lot',
+      joinColumn: { name: 'lot_id', foreignKeyConstraintName: 'containers_lot_fk' },
+      onDelete: 'RESTRICT',
+    },
+    chemical: {
+      type: 'many-to-one',
+      target: 'Chemical',
+      joinColumn: { name: 'chemical_id', foreignKeyConstraintName: 'containers_chemical_fk' },
+      onDelete: 'RESTRICT',
+    },
+    location: {
+      type: 'many-to-one',
+      target: 'Location',
+      joinColumn: { name: 'location_id', foreignKeyConstraintName: 'containers_location_fk' },
+      onDelete: 'RESTRICT',
+    },
+  },
+  indices: [
+    { name: 'containers_label_code_unique', columns: ['labelCode'], unique: true },
+    { name: 'containers_label_number_unique', columns: ['labelNumber'], unique: true },
+    { name: 'containers_chemical_status_idx', columns: ['chemicalId', 'status'] },
+    { name: 'containers_lot_idx', columns: ['lotId'] },
+    { name: 'containers_location_idx', columns: ['locationId'] },
+    { name: 'containers_status_idx', columns: ['status'] },
+    { name: 'containers_expires_on_idx', columns: ['expiresOn'] },
+    { name: 'containers_peroxide_due_on_idx', columns: ['peroxideDueOn'] },
+  ],
+});

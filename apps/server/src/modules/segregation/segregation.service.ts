@@ -1,0 +1,195 @@
+import { rulesBetween, type IncompatiblePair } from '@lotwise/chem';
+import {
+  safetyDeferral,
+  storageGroups,
+  type ConflictContainer,
+  type LocationConflict,
+  type LocationConflictPair,
+  type SegregationConflictsResponse,
+  type SegregationWarning,
+  type StorageGroup,
+} from '@lotwise/shared';
+import type { Repositories } from '../../db/store';
+import type { LocationRow } from '../locations/location.entity';
+import type { PlacedContainer } from './segregation.repository';
+
+/** Every group whose incompatibilities a chemical carries: its storage group, then the extras. */
+export function hazardGroupsOf(chemical: {
+  storageGroup: StorageGroup;
+  extraHazardGroups: StorageGroup[] | null | undefined;
+}): StorageGroup[] {
+  return [chemical.storageGroup, ...(chemical.extraHazardGroups ?? [])];
+}
+
+function asConflictContainer(container: PlacedContainer): ConflictContainer {
+  return {
+    id: container.id,
+    labelCode: container.labelCode,
+    chemicalId: container.chemicalId,
+    chemicalName: container.chemicalName,
+    storageGroup: container.storageGroup,
+  };
+}
+
+function label(group: StorageGroup): string {
+  return storageGroups[group].label.toLowerCase();
+}
+
+/** Does `group` fall under the rule's side `side`? */
+function carries(container: PlacedContainer, group: StorageGroup): boolean {
+  return hazardGroupsOf(container).includes(group);
+}
+
+/** Every incompatible pair and every misplaced container at one place. */
+function conflictsAmong(location: LocationRow, here: PlacedContainer[]): LocationConflict | null {
+  const byRule = new Map<IncompatiblePair, LocationConflictPair>();
+  for (let i = 0; i < here.length; i++) {
+    for (let j = i + 1; j < here.length; j++) {
+      const a = here[i]!;
+      const b = here[j]!;
+      if (a.chemicalId === b.chemicalId) continue;
+      for (const rule of rulesBetween(hazardGroupsOf(a), hazardGroupsOf(b))) {
+        const entry = byRule.get(rule) ?? {
+          groups: [rule.a, rule.b] as [StorageGroup, StorageGroup],
+          reason: rule.reason,
+          source: rule.source,
+          first: [],
+          second: [],
+        };
+        const [onA, onB] = carries(a, rule.a) && carries(b, rule.b) ? [a, b] : [b, a];
+        if (!entry.first.some((c) => c.id === onA.id)) entry.first.push(asConflictContainer(onA));
+        if (!entry.second.some((c) => c.id === onB.id)) entry.second.push(asConflictContainer(onB));
+        byRule.set(rule, entry);
+      }
+    }
+  }
+  const mismatches =
+    location.storageGroups.length === 0
+      ? []
+      : here
+          .filter((c) => !location.storageGroups.includes(c.storageGroup))
+          .map(asConflictContainer);
+  if (byRule.size === 0 && mismatches.length === 0) return null;
+  return {
+    location: { id: location.id, name: location.name, path: location.path },
+    pairs: [...byRule.values()],
+    mismatches,
+  };
+}
+
+export function segregationService(repos: Repositories) {
+  return {
+    /**
+     * Warnings for a container (of `chemical`) at `location`: incompatible groups among the
+     * other containers there, and a mismatch with the place's intended groups.
+     */
+    async warningsFor(
+      container: { id: number | null; labelCode: string },
+      chemical: {
+        id: number;
+        name: string;
+        storageGroup: StorageGroup;
+        extraHazardGroups: StorageGroup[] | null;
+      },
+      location: LocationRow,
+    ): Promise<SegregationWarning[]> {
+      // Bottles of one chemical never warn about each other (sodium nitrite's two groups).
+      const others = (await repos.segregation.placedAt([location.id])).filter(
+        (c) => c.id !== container.id && c.chemicalId !== chemical.id,
+      );
+      const mine = hazardGroupsOf(chemical);
+      const byRule = new Map<IncompatiblePair, PlacedContainer[]>();
+      for (const other of others) {
+        for (const rule of rulesBetween(mine, hazardGroupsOf(other))) {
+          byRule.set(rule, [...(byRule.get(rule) ?? []), other]);
+        }
+      }
+      const warnings: SegregationWarning[] = [...byRule.entries()].map(([rule, found]) => ({
+        code: 'incompatible_groups',
+        message: `${container.labelCode} (${chemical.name}) shares ${location.path} with ${found
+          .map((c) => `${c.labelCode} (${c.chemicalName})`)
+          .join(', ')}: ${label(rule.a)} and ${label(rule.b)} are stored apart.`,
+        reason: rule.reason,
+        source: rule.source,
+        groups: [rule.a, rule.b],
+        labelCodes: found.map((c) => c.labelCode),
+      }));
+      if (
+        location.storageGroups.length > 0 &&
+        !location.storageGroups.includes(chemical.storageGroup)
+      ) {
+        warnings.push({
+          code: 'location_group_mismatch',
+          message: `${location.path} is meant for ${location.storageGroups.map(label).join(', ')}; ${container.labelCode} (${chemical.name}) is ${label(chemical.storageGroup)}.`,
+          reason: 'The place was set up for other storage groups.',
+          source: null,
+          groups: [chemical.storageGroup],
+          labelCodes: [],
+        });
+      }
+      return warnings;
+    },
+
+    /** Conflicts at one place, as warnings (for the location page). */
+    async warningsAt(location: LocationRow): Promise<SegregationWarning[]> {
+      const conflict = conflictsAmong(location, await repos.segregation.placedAt([location.id]));
+      if (!conflict) return [];
+      return [
+        ...conflict.pairs.map((pair): SegregationWarning => ({
+          code: 'incompatible_groups',
+          message: `${location.path} holds ${label(pair.groups[0])} (${pair.first.map((c) => c.labelCode).join(', ')}) with ${label(pair.groups[1])} (${pair.second.map((c) => c.labelCode).join(', ')}).`,
+          reason: pair.reason,
+          source: pair.source,
+          groups: pair.groups,
+          labelCodes: [...pair.first, ...pair.second].map((c) => c.labelCode),
+        })),
+        ...conflict.mismatches.map((c): SegregationWarning => ({
+          code: 'location_group_mismatch',
+          message: `${location.path} is meant for ${location.storageGroups.map(label).join(', ')}; ${c.labelCode} (${c.chemicalName}) is ${label(c.storageGroup)}.`,
+          reason: 'The place was set up for other storage groups.',
+          source: null,
+          groups: [c.storageGroup],
+          labelCodes: [c.labelCode],
+        })),
+      ];
+    },
+
+    /** Every place with a conflict, by path. */
+    async conflicts(): Promise<SegregationConflictsResponse> {
+      const combos = await repos.segregation.chemicalsByLocation();
+      const byLocation = new Map<number, typeof combos>();
+      for (const combo of combos)
+        byLocation.set(combo.locationId, [...(byLocation.get(combo.locationId) ?? []), combo]);
+      const locations = new Map(
+        (await repos.locations.rowsByIds([...byLocation.keys()])).map((row) => [row.id, row]),
+      );
+      // First find the places that may conflict from one row per chemical, then load their containers.
+      const suspects = [...byLocation.entries()].filter(([locationId, here]) => {
+        const location = locations.get(locationId);
+        if (!location) return false;
+        if (
+          location.storageGroups.length > 0 &&
+          here.some((c) => !location.storageGroups.includes(c.storageGroup))
+        )
+          return true;
+        for (let i = 0; i < here.length; i++)
+          for (let j = i + 1; j < here.length; j++)
+            if (rulesBetween(hazardGroupsOf(here[i]!), hazardGroupsOf(here[j]!)).length > 0)
+              return true;
+        return false;
+      });
+      const placed = await repos.segregation.placedAt(suspects.map(([id]) => id));
+      const items = suspects
+        .map(([locationId]) =>
+          conflictsAmong(
+            locations.get(locationId)!,
+            placed.filter((c) => c.locationId === locationId),
+          ),
+        )
+        .filter((item): item is LocationConflict => item !== null)
+        .sort((a, b) => a.location.path.localeCompare(b.location.path));
+      return { items, total: items.length, notice: safetyDeferral };
+    },
+  };
+}
+export type SegregationService = ReturnType<typeof segregationService>;
