@@ -1,4 +1,6 @@
+import type { ComponentType } from 'react';
 import { Navigate, type RouteObject } from 'react-router';
+import type { Permission } from '@lotwise/shared';
 import { PageSpinner } from '../components/ui/spinner';
 import { paths } from '../config/paths';
 import { ChemicalsListPage } from '../features/chemicals/pages/chemicals-list-page';
@@ -6,6 +8,62 @@ import { ChemicalDetailPage } from '../features/chemicals/pages/chemical-detail-
 import { ComingSoonPage, comingCapabilities } from './routes/coming-soon';
 import { RequirePermission, SignedInLayout } from './routes/guards';
 import { NotFoundPage, RouteErrorPage } from './routes/status-pages';
+
+/** A page of the stock feature, loaded when first opened. */
+function stockPage(
+  path: string,
+  load: () => Promise<{ Component: ComponentType }>,
+  permission: Permission = 'stock.read',
+): RouteObject {
+  return {
+    // The section's own address is its index page.
+    ...(path === paths.stock ? { index: true } : { path }),
+    lazy: async () => {
+      const { Component } = await load();
+      return {
+        element: (
+          <RequirePermission permission={permission}>
+            <Component />
+          </RequirePermission>
+        ),
+      };
+    },
+  };
+}
+
+const stockRoutes: RouteObject[] = [
+  stockPage(paths.stock, async () => ({
+    Component: (await import('../features/stock/pages/stock-overview-page')).StockOverviewPage,
+  })),
+  stockPage(paths.stockContainers, async () => ({
+    Component: (await import('../features/stock/pages/containers-list-page')).ContainersListPage,
+  })),
+  stockPage(paths.stockContainer(), async () => ({
+    Component: (await import('../features/stock/pages/container-page')).ContainerPage,
+  })),
+  stockPage(paths.stockContainerByLabel(), async () => ({
+    Component: (await import('../features/stock/pages/container-page')).ContainerByLabelPage,
+  })),
+  stockPage(paths.stockChemical(), async () => ({
+    Component: (await import('../features/stock/pages/chemical-stock-page')).ChemicalStockPage,
+  })),
+  stockPage(paths.stockLocations, async () => ({
+    Component: (await import('../features/stock/pages/locations-page')).LocationsPage,
+  })),
+  stockPage(paths.stockLocation(), async () => ({
+    Component: (await import('../features/stock/pages/location-page')).LocationPage,
+  })),
+  stockPage(
+    paths.stockStocktake(),
+    async () => ({
+      Component: (await import('../features/stock/pages/stocktake-page')).StocktakePage,
+    }),
+    'stock.write',
+  ),
+  stockPage(paths.stockSegregation, async () => ({
+    Component: (await import('../features/stock/pages/segregation-page')).SegregationPage,
+  })),
+];
 
 /** Every screen of the web app. Forms and admin pages load their code when first opened. */
 export const routes: RouteObject[] = [
@@ -75,11 +133,16 @@ export const routes: RouteObject[] = [
           },
           {
             path: paths.stock,
-            element: (
-              <RequirePermission permission="stock.read">
-                <ComingSoonPage capability={comingCapabilities.stock} />
-              </RequirePermission>
-            ),
+            element: <RequirePermission permission="stock.read" />,
+            children: [
+              {
+                lazy: async () => ({
+                  Component: (await import('../features/stock/components/stock-section-nav'))
+                    .StockLayout,
+                }),
+                children: stockRoutes,
+              },
+            ],
           },
           {
             path: paths.preparations,

@@ -8,6 +8,16 @@ export const paths = {
   chemicalNew: '/chemicals/new',
   chemicalEdit: (id: number | string = ':id') => `/chemicals/${id}/edit`,
   stock: '/stock',
+  stockContainers: '/stock/containers',
+  stockContainer: (id: number | string = ':id') => `/stock/containers/${id}`,
+  /** A label code as printed or scanned, e.g. `/stock/c/LW-00042`. */
+  stockContainerByLabel: (labelCode?: string) =>
+    labelCode === undefined ? '/stock/c/:labelCode' : `/stock/c/${encodeURIComponent(labelCode)}`,
+  stockChemical: (id: number | string = ':id') => `/stock/chemicals/${id}`,
+  stockLocations: '/stock/locations',
+  stockLocation: (id: number | string = ':id') => `/stock/locations/${id}`,
+  stockStocktake: (id: number | string = ':id') => `/stock/locations/${id}/stocktake`,
+  stockSegregation: '/stock/segregation',
   preparations: '/preparations',
   runs: '/runs',
   orders: '/orders',

@@ -1,11 +1,12 @@
 import { Link, Outlet, useNavigate } from 'react-router';
 import { LogOut } from 'lucide-react';
-import { roleLabels, type User } from '@lotwise/shared';
+import { can, roleLabels, type User } from '@lotwise/shared';
 import { Wordmark } from '../../components/brand/wordmark';
 import { Badge } from '../../components/ui/badge';
 import { Button } from '../../components/ui/button';
 import { paths } from '../../config/paths';
 import { useSignOut } from '../../features/auth/api';
+import { GlobalSearch } from '../../features/search/components/global-search';
 import { SideNav } from './side-nav';
 
 export function AppShell({ user }: { user: User }) {
@@ -21,10 +22,15 @@ export function AppShell({ user }: { user: User }) {
         Skip to content
       </a>
       <header className="sticky top-0 z-20 flex h-14 items-center justify-between gap-4 border-b border-ink-200 bg-white px-4">
-        <Link to={paths.home} aria-label="Lotwise, home" className="rounded">
+        <Link to={paths.home} aria-label="Lotwise, home" className="shrink-0 rounded">
           <Wordmark />
         </Link>
-        <div className="flex items-center gap-3 text-sm">
+        {can(user.role, 'stock.read') && (
+          <div role="search" className="flex flex-1 justify-center">
+            <GlobalSearch />
+          </div>
+        )}
+        <div className="flex shrink-0 items-center gap-3 text-sm">
           <span className="hidden text-right sm:block">
             <span className="block leading-5 font-medium text-ink-900">{user.displayName}</span>
             <span className="block text-xs leading-4 text-ink-600">{user.email}</span>

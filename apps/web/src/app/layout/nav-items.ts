@@ -24,7 +24,7 @@ export interface NavItem {
 
 export const navItems: readonly NavItem[] = [
   { label: 'Chemicals', to: paths.chemicals, permission: 'chemicals.read', icon: FlaskConical },
-  { label: 'Stock', to: paths.stock, permission: 'stock.read', icon: Package, coming: true },
+  { label: 'Stock', to: paths.stock, permission: 'stock.read', icon: Package },
   {
     label: 'Preparations',
     to: paths.preparations,

@@ -51,7 +51,8 @@ describe('SideNav', () => {
         <SideNav role="manager" />
       </MemoryRouter>,
     );
-    expect(screen.getByRole('link', { name: /Stock/ })).toHaveTextContent('coming');
+    expect(screen.getByRole('link', { name: /Preparations/ })).toHaveTextContent('coming');
+    expect(screen.getByRole('link', { name: /Stock/ })).not.toHaveTextContent('coming');
     expect(screen.getByRole('link', { name: /Chemicals/ })).not.toHaveTextContent('coming');
   });
 });

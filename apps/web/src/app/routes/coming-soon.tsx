@@ -8,15 +8,6 @@ export interface ComingCapability {
 
 /** Capabilities that are planned but not built yet, described honestly. */
 export const comingCapabilities = {
-  stock: {
-    title: 'Stock',
-    summary: 'What the lab holds, where it is, and every change to it.',
-    willDo: [
-      'Lots of each chemical — bought or made in-house — with grade, purity and expiry date.',
-      'Labelled containers on shelves, cabinets and rooms, with tare mass and status.',
-      'An append-only ledger: every amount received, drawn, adjusted, moved or disposed of, with who and when.',
-    ],
-  },
   preparations: {
     title: 'Preparations',
     summary: 'Plan a procedure at the scale you will run it.',

@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { Navigate, useLocation } from 'react-router';
+import { Navigate, Outlet, useLocation } from 'react-router';
 import type { Permission } from '@lotwise/shared';
 import { ErrorState } from '../../components/ui/error-state';
 import { PageSpinner } from '../../components/ui/spinner';
@@ -33,14 +33,15 @@ export function SignedInLayout() {
   return <AppShell user={me.data} />;
 }
 
-/** Shows the page only to roles holding the permission. */
+/** Shows the page (or, without children, the nested routes) only to roles holding the permission. */
 export function RequirePermission({
   permission,
   children,
 }: {
   permission: Permission;
-  children: ReactNode;
+  children?: ReactNode;
 }) {
   const allowed = useCan(permission);
-  return allowed ? children : <ForbiddenPage />;
+  if (!allowed) return <ForbiddenPage />;
+  return children ?? <Outlet />;
 }

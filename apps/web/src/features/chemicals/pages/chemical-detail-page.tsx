@@ -1,6 +1,6 @@
 import { useState, type ReactNode } from 'react';
 import { Link, useNavigate, useParams } from 'react-router';
-import { ChevronLeft, Lock, Pencil, Trash2 } from 'lucide-react';
+import { ChevronLeft, Lock, Package, Pencil, Trash2 } from 'lucide-react';
 import { Formula } from '../../../components/chem/formula';
 import { Badge } from '../../../components/ui/badge';
 import { Button, buttonClasses } from '../../../components/ui/button';
@@ -36,6 +36,7 @@ export function ChemicalDetailPage() {
   const id = Number(params.id);
   const chemical = useChemical(id);
   const mayWrite = useCan('chemicals.write');
+  const mayReadStock = useCan('stock.read');
   const navigate = useNavigate();
   const remove = useDeleteChemical();
   const [confirming, setConfirming] = useState(false);
@@ -95,6 +96,15 @@ export function ChemicalDetailPage() {
           </h1>
           {c.synonyms.length > 0 && (
             <p className="text-sm text-ink-600">Also known as {c.synonyms.join('; ')}</p>
+          )}
+          {mayReadStock && (
+            <Link
+              to={paths.stockChemical(c.id)}
+              className="mt-1 inline-flex items-center gap-1 text-sm text-accent-700 underline-offset-2 hover:underline"
+            >
+              <Package aria-hidden="true" className="size-4" />
+              Stock, containers and where they are
+            </Link>
           )}
         </div>
         {mayWrite && (

@@ -1,0 +1,156 @@
+import { screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { describe, expect, it } from 'vitest';
+import { mockFetch } from '../../../test/fetch-mock';
+import { makeContainer, makeLedgerEntry, makeUser, page } from '../../../test/factories';
+import { renderApp } from '../../../test/render-app';
+
+const member = makeUser({ role: 'member', displayName: 'Mo Member' });
+
+const acetone = makeContainer({
+  id: 42,
+  labelCode: 'LW-00042',
+  quantity: 250,
+  unit: 'g',
+  tareMass: 150,
+  chemical: {
+    id: 3,
+    name: 'Acetone',
+    formula: 'C3H6O',
+    casNumber: '67-64-1',
+    density: 0.791,
+    storageGroup: 'flammable',
+    extraHazardGroups: [],
+    ghsPictograms: ['GHS02', 'GHS07'],
+    hazardStatements: ['H225', 'H319', 'H336'],
+    peroxideClass: null,
+    stockUnit: 'g',
+  },
+});
+
+const received = makeLedgerEntry({ containerId: 42, quantity: 250, balanceAfter: 250 });
+
+function stockRoutes() {
+  let balance = 250;
+  const entries = [received];
+  const routes = mockFetch({
+    'GET /api/auth/me': { body: { user: member } },
+    'GET /api/containers/42': () => ({ body: { ...acetone, quantity: balance } }),
+    'GET /api/containers/42/ledger': () => ({ body: page(entries, entries.length, 1, 10) }),
+    'GET /api/locations': { body: page([]) },
+    'POST /api/containers/42/draws': (request) => {
+      const body = request.body as { grossMass: number };
+      const drawn = balance - (body.grossMass - 150);
+      balance -= drawn;
+      const entry = makeLedgerEntry({
+        containerId: 42,
+        reason: 'drawn',
+        quantity: -drawn,
+        balanceAfter: balance,
+        note: `Weighed ${body.grossMass} g gross`,
+        user: { id: member.id, displayName: member.displayName },
+        createdAt: '2026-11-30T10:00:00.000Z',
+      });
+      entries.unshift(entry);
+      return {
+        status: 201,
+        body: {
+          container: { ...acetone, quantity: balance },
+          entries: [entry],
+          warnings: [],
+        },
+      };
+    },
+  });
+  return routes;
+}
+
+async function openContainer() {
+  const user = userEvent.setup();
+  const view = renderApp('/stock/containers/42');
+  await screen.findByRole('heading', { level: 1, name: 'Acetone' }, { timeout: 5000 });
+  return { user, ...view };
+}
+
+describe('Container page', () => {
+  it('shows the hazards first: pictograms, H-statement texts and the SDS caution', async () => {
+    stockRoutes();
+    await openContainer();
+
+    const hazards = screen.getByRole('region', { name: 'Hazards' });
+    expect(within(hazards).getByText('Flame')).toBeInTheDocument();
+    expect(within(hazards).getByText('Highly flammable liquid and vapour')).toBeInTheDocument();
+    expect(within(hazards).getByText(/not a safety approval/)).toBeInTheDocument();
+  });
+
+  it('when a gross mass is typed, then net and drawn amounts are previewed and the draw sends { grossMass, unit }; balance and ledger follow', async () => {
+    const { requests } = stockRoutes();
+    const { user } = await openContainer();
+
+    const form = screen.getByRole('form', { name: 'Record a draw' });
+    expect(within(form).getByRole('radio', { name: /Weigh the container/ })).toBeChecked();
+    expect(within(form).getByTestId('weighing-preview')).toHaveTextContent('150.00 g');
+
+    await user.type(within(form).getByRole('textbox', { name: 'Gross mass now' }), '380');
+
+    expect(within(form).getByTestId('preview-net')).toHaveTextContent('230.00 g');
+    expect(within(form).getByTestId('preview-drawn')).toHaveTextContent('20.00 g');
+
+    await user.click(within(form).getByRole('button', { name: 'Record draw' }));
+
+    expect(await within(form).findByText(/Drawn 20.00 g from LW-00042/)).toBeInTheDocument();
+    expect(requests.find((r) => r.method === 'POST')?.body).toEqual({ grossMass: 380, unit: 'g' });
+    await waitFor(() => expect(screen.getByTestId('balance')).toHaveTextContent('230.00 g'));
+    const ledger = screen.getByRole('table', { name: 'Ledger' });
+    expect(await within(ledger).findByText('Drawn')).toBeInTheDocument();
+    expect(within(ledger).getByText('−20.00 g')).toBeInTheDocument();
+  });
+
+  it('when the server refuses a draw with 409, then its message naming container, amount and unit shows at the form', async () => {
+    mockFetch({
+      'GET /api/auth/me': { body: { user: member } },
+      'GET /api/containers/42': { body: acetone },
+      'GET /api/containers/42/ledger': { body: page([received]) },
+      'POST /api/containers/42/draws': {
+        status: 409,
+        body: {
+          error: {
+            code: 'conflict',
+            message: 'LW-00042 holds only 250 g; 300 g cannot be drawn from it.',
+            fields: { amount: 'at most 250 g is available in LW-00042' },
+          },
+        },
+      },
+    });
+    const { user } = await openContainer();
+
+    const form = screen.getByRole('form', { name: 'Record a draw' });
+    await user.click(within(form).getByRole('radio', { name: /Amount taken/ }));
+    const amount = within(form).getByRole('textbox', { name: 'Amount taken' });
+    await user.type(amount, '300');
+    await user.click(within(form).getByRole('button', { name: 'Record draw' }));
+
+    expect(await within(form).findByRole('alert')).toHaveTextContent(
+      'LW-00042 holds only 250 g; 300 g cannot be drawn from it. Nothing was recorded.',
+    );
+    expect(amount).toHaveAttribute('aria-invalid', 'true');
+    expect(amount).toHaveAccessibleDescription(/at most 250 g is available in LW-00042/i);
+    expect(amount).toHaveValue('300');
+  });
+
+  it('when a viewer opens a container, then there is no draw form and no write actions', async () => {
+    mockFetch({
+      'GET /api/auth/me': { body: { user: makeUser({ role: 'viewer' }) } },
+      'GET /api/containers/42': { body: acetone },
+      'GET /api/containers/42/ledger': { body: page([received]) },
+    });
+    await openContainer();
+
+    expect(screen.queryByRole('form', { name: 'Record a draw' })).not.toBeInTheDocument();
+    expect(screen.getByText(/Your role can look at stock but not record use/)).toBeInTheDocument();
+    for (const name of ['Adjust', 'Split', 'Move', 'Dispose']) {
+      expect(screen.queryByRole('button', { name })).not.toBeInTheDocument();
+    }
+    expect(screen.getByRole('link', { name: /Stock/ })).toBeInTheDocument();
+  });
+});
