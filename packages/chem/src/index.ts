@@ -17,3 +17,4 @@ export * from './consumption';
 export * from './segregation';
 export * from './peroxide';
 export * from './stock';
+export * from './weighing';

@@ -1,4 +1,4 @@
-import { convert, toMass, toVolume, tryParseUnit, type UnitSymbol, unitsOf } from '@lotwise/chem';
+import { type UnitSymbol, unitsOf, weighByDifference } from '@lotwise/chem';
 import type { StockUnit } from '@lotwise/shared';
 
 /** The chemical facts a draw needs: what it is counted in and, to cross mass and volume, its density. */
@@ -29,11 +29,20 @@ export type WeighingPreview =
       net?: number;
     };
 
+const problemMessages = {
+  no_tare:
+    'This container has no tare mass recorded, so a gross mass cannot be turned into its contents. Enter the amount taken instead.',
+  not_a_mass: 'A gross mass is weighed: use g, mg or kg.',
+  no_density:
+    'The chemical has no density recorded, so a mass cannot be turned into mL. Enter the volume taken instead.',
+  above_balance:
+    'The container now holds more than its balance: a draw cannot add stock. Ask someone with the manager role to record an adjustment.',
+} as const;
+
 /**
- * What a gross mass means for a container, in its stock unit: net = gross − tare (converted
- * through the density for a volume-counted chemical) and drawn = balance − net. The
- * conversions are packages/chem's; the server applies the same rule when the draw is saved
- * and its answer is the record.
+ * What a gross mass means for a container, in its stock unit — `weighByDifference` from
+ * packages/chem, the same rule the server applies when the draw is saved (its answer is the
+ * record). This only words the problems for the form.
  */
 export function previewWeighing(input: {
   grossMass: number;
@@ -42,50 +51,30 @@ export function previewWeighing(input: {
   balance: number;
   chemical: DrawChemical;
 }): WeighingPreview {
-  const { grossMass, unit, tareMass, balance, chemical } = input;
-  if (tareMass === null) {
+  const { tareMass, chemical } = input;
+  const result = weighByDifference({
+    grossMass: input.grossMass,
+    unit: input.unit,
+    tareMass,
+    balance: input.balance,
+    stockUnit: chemical.stockUnit,
+    density: chemical.density,
+  });
+  if (result.ok) return result;
+  const { problem, netMass, net } = result;
+  if (problem === 'below_tare') {
     return {
       ok: false,
-      reason: 'no_tare',
-      message:
-        'This container has no tare mass recorded, so a gross mass cannot be turned into its contents. Enter the amount taken instead.',
-    };
-  }
-  const parsed = tryParseUnit(unit);
-  if (!parsed.ok || parsed.value.dimension !== 'mass') {
-    return { ok: false, reason: 'bad_unit', message: 'A gross mass is weighed: use g, mg or kg.' };
-  }
-  const grossG = convert(grossMass, unit, 'g');
-  const netMass = grossG - tareMass;
-  if (netMass < 0) {
-    return {
-      ok: false,
-      reason: 'below_tare',
+      reason: problem,
       netMass,
       message: `That is less than the tare of ${tareMass} g: weigh again with the cap on.`,
     };
   }
-  let net: number;
-  if (chemical.stockUnit === 'g') net = toMass({ value: netMass, unit: 'g' });
-  else if (chemical.density === null) {
-    return {
-      ok: false,
-      reason: 'no_density',
-      netMass,
-      message:
-        'The chemical has no density recorded, so a mass cannot be turned into mL. Enter the volume taken instead.',
-    };
-  } else net = toVolume({ value: netMass, unit: 'g' }, { density: chemical.density });
-  const drawn = balance - net;
-  if (drawn < 0) {
-    return {
-      ok: false,
-      reason: 'above_balance',
-      netMass,
-      net,
-      message:
-        'The container now holds more than its balance: a draw cannot add stock. Ask someone with the manager role to record an adjustment.',
-    };
-  }
-  return { ok: true, netMass, net, drawn };
+  return {
+    ok: false,
+    reason: problem === 'not_a_mass' ? 'bad_unit' : problem,
+    message: problemMessages[problem],
+    ...(netMass !== undefined && { netMass }),
+    ...(net !== undefined && { net }),
+  };
 }
