@@ -7,6 +7,7 @@ import {
   storageGroupSchema,
 } from './hazards';
 import { listQuerySchema } from './list';
+import { storedFileSchema } from './uploads';
 
 export const physicalStates = ['solid', 'liquid', 'gas', 'solution'] as const;
 export const physicalStateSchema = z.enum(physicalStates, {
@@ -130,6 +131,11 @@ export const chemicalSchema = z.object({
   reorderQuantity: z.number().nullable(),
   restricted: z.boolean(),
   notes: z.string(),
+  /**
+   * The current safety data sheet (PDF), downloaded from `GET /api/chemicals/:id/sds`; null
+   * when none was uploaded. Always sent by the server.
+   */
+  sds: storedFileSchema.nullable().optional(),
   createdAt: z.string(),
   updatedAt: z.string(),
 });

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { isoDateSchema } from './dates';
 import { listQuerySchema } from './list';
+import { storedFileSchema } from './uploads';
 
 /** Bought from a supplier, or made in-house by a run. */
 export const lotSources = ['purchased', 'prepared'] as const;
@@ -77,8 +78,13 @@ export const lotSchema = z.object({
   expiresOn: z.string().nullable(),
   /** The run that made a prepared lot (filled in by runs). */
   madeByRunId: z.number().int().nullable(),
-  /** Original file name of the certificate of analysis, once uploads exist. */
+  /** Original file name of the certificate of analysis; null when none was uploaded. */
   certificateFileName: z.string().nullable(),
+  /**
+   * The certificate of analysis (PDF, PNG or JPEG), downloaded from
+   * `GET /api/lots/:id/certificate`. Always sent by the server.
+   */
+  certificate: storedFileSchema.nullable().optional(),
   notes: z.string(),
   /** Containers of this lot that are not disposed. */
   containerCount: z.number().int(),

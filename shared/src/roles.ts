@@ -29,6 +29,8 @@ export const permissions = [
   'procedures.read',
   'procedures.write',
   'runs.record',
+  /** Change anyone's prep plans and runs (runs.record alone: only one's own). */
+  'plans.manage',
   'orders.read',
   'orders.join',
   'orders.manage',
@@ -53,6 +55,7 @@ export const permissionMatrix: Record<Role, readonly Permission[]> = {
     'procedures.read',
     'procedures.write',
     'runs.record',
+    'plans.manage',
     'orders.read',
     'orders.join',
     'orders.manage',

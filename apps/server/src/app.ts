@@ -7,7 +7,10 @@ import { createStore } from './db/store';
 import { errorMiddleware, notFoundMiddleware } from './lib/error-middleware';
 import { createLogger, type Logger } from './lib/logger';
 import { mountRoutes, type ApiRoute } from './lib/route-table';
+import { fileStore } from './lib/uploads';
 import { serveWebApp } from './lib/web-app';
+import { alertRoutes } from './modules/alerts/alerts.routes';
+import { alertsService } from './modules/alerts/alerts.service';
 import { auditRoutes } from './modules/audit/audit.routes';
 import { auditService } from './modules/audit/audit.service';
 import { authRoutes } from './modules/auth/auth.routes';
@@ -17,15 +20,27 @@ import { chemicalRoutes } from './modules/chemicals/chemicals.routes';
 import { chemicalsService } from './modules/chemicals/chemicals.service';
 import { containerRoutes } from './modules/containers/containers.routes';
 import { containersService } from './modules/containers/containers.service';
+import { exportRoutes } from './modules/exports/exports.routes';
+import { exportsService } from './modules/exports/exports.service';
 import { healthRoutes } from './modules/health/health.routes';
+import { importRoutes } from './modules/imports/imports.routes';
+import { importsService } from './modules/imports/imports.service';
 import { locationRoutes } from './modules/locations/locations.routes';
 import { locationsService } from './modules/locations/locations.service';
 import { lotRoutes } from './modules/lots/lots.routes';
 import { lotsService } from './modules/lots/lots.service';
 import { maintenanceRoutes } from './modules/maintenance/maintenance.routes';
+import { planRoutes } from './modules/plans/plans.routes';
+import { plansService } from './modules/plans/plans.service';
+import { procedureRoutes } from './modules/procedures/procedures.routes';
+import { proceduresService } from './modules/procedures/procedures.service';
+import { runRoutes } from './modules/runs/runs.routes';
+import { runsService } from './modules/runs/runs.service';
 import { segregationRoutes } from './modules/segregation/segregation.routes';
 import { stockRoutes } from './modules/stock/stock.routes';
 import { stockService } from './modules/stock/stock.service';
+import { uploadRoutes } from './modules/uploads/uploads.routes';
+import { uploadsService } from './modules/uploads/uploads.service';
 import { userRoutes } from './modules/users/users.routes';
 import { usersService } from './modules/users/users.service';
 
@@ -33,6 +48,8 @@ export interface AppOptions {
   dataSource: DataSource;
   config: Config;
   logger?: Logger;
+  /** Called when e-mails were queued (the server's outbox worker sends them promptly). */
+  onMailQueued?: () => void;
 }
 
 const routeTableKey = 'lotwiseRoutes';
@@ -47,6 +64,7 @@ export function createApp({
   dataSource,
   config,
   logger = createLogger(config.logLevel),
+  onMailQueued,
 }: AppOptions) {
   const app = express();
   app.disable('x-powered-by');
@@ -77,18 +95,33 @@ export function createApp({
 
   const store = createStore(dataSource);
   const session = sessions(config, store.repos.users);
+  const files = fileStore({
+    dir: config.uploadDir,
+    maxBytes: config.uploadMaxBytes,
+    maxMb: config.uploadMaxMb,
+  });
+  const alerts = alertsService(store, config, { logger, onQueued: onMailQueued });
+  // Alert rules run before every transaction that changed the ledger commits.
+  store.onLedgerChange((repos, chemicalIds) => alerts.ledgerChanged(repos, chemicalIds));
   const routes = [
     ...healthRoutes(store, logger),
     ...authRoutes(authService(store, config), session, config.loginRateLimit),
     ...userRoutes(usersService(store, config)),
     ...auditRoutes(auditService(store)),
-    ...chemicalRoutes(chemicalsService(store)),
+    ...chemicalRoutes(chemicalsService(store, files)),
     ...locationRoutes(locationsService(store)),
-    ...lotRoutes(lotsService(store)),
+    ...lotRoutes(lotsService(store, files)),
     ...containerRoutes(containersService(store)),
     ...stockRoutes(stockService(store)),
     ...segregationRoutes(store),
     ...maintenanceRoutes(store),
+    ...procedureRoutes(proceduresService(store), runsService(store)),
+    ...planRoutes(plansService(store)),
+    ...runRoutes(runsService(store)),
+    ...importRoutes(importsService(store, logger), files),
+    ...exportRoutes(exportsService(store)),
+    ...uploadRoutes(uploadsService(store, files), files),
+    ...alertRoutes(alerts),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;

@@ -6,6 +6,10 @@ import { createDataSource } from './db/data-source';
 import { createStore } from './db/store';
 import { demoAccounts, demoPassword, seedDemo } from './db/seed/demo-seed';
 import { createLogger } from './lib/logger';
+import { alertScheduler } from './modules/alerts/alerts-scheduler';
+import { alertsService } from './modules/alerts/alerts.service';
+import { createMailTransport } from './modules/alerts/mail-transport';
+import { outboxWorker, type OutboxWorker } from './modules/alerts/outbox-worker';
 
 export interface RunningServer {
   url: string;
@@ -23,7 +27,23 @@ export async function startServer(config: Config): Promise<RunningServer> {
   const seeded = config.seedDemo ? await seedDemo(dataSource, config.bcryptCost) : false;
   if (seeded) logger.info('Seeded the demo lab');
 
-  const app = createApp({ dataSource, config, logger });
+  let worker: OutboxWorker | null = null;
+  const app = createApp({ dataSource, config, logger, onMailQueued: () => worker?.kick() });
+  // Alerts: a scheduler evaluates the rules, a worker sends what the outbox holds.
+  const transport = createMailTransport(config.mail.smtp);
+  const store = createStore(dataSource);
+  if (transport && config.alerts.outboxIntervalSeconds > 0) {
+    worker = outboxWorker({ store, transport, config, logger });
+    worker.start();
+  } else {
+    logger.warn('No mail server is configured: alert e-mails stay queued in the outbox');
+  }
+  const scheduler = alertScheduler(
+    alertsService(store, config, { logger, onQueued: () => worker?.kick() }),
+    config.alerts.intervalSeconds,
+    logger,
+  );
+  scheduler.start();
   const server: Server = await new Promise((resolve, reject) => {
     const listening = app.listen(config.port, config.host, () => resolve(listening));
     listening.once('error', reject);
@@ -47,6 +67,9 @@ export async function startServer(config: Config): Promise<RunningServer> {
   return {
     url,
     async close() {
+      await scheduler.stop();
+      await worker?.stop();
+      transport?.close();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await dataSource.destroy();
     },

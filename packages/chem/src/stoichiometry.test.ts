@@ -196,6 +196,37 @@ describe('solutions, purity and amounts on lines', () => {
     expect(sig(byAmount.volumeMl ?? 0)).toBe(20.81);
   });
 
+  it('when the product is a solution, then its theoretical yield is the volume holding the moles and the yield compares moles', () => {
+    // worked example (reference worked-examples.md), calc from CIAAW2021: 250 mL of
+    // 1.00 M NaOH needs 9.999 g NaOH, so 9.999 g NaOH makes 250.0 mL of 1.00 M solution
+    const lines: ProcedureLine[] = [
+      {
+        name: 'sodium hydroxide',
+        role: 'limiting-reagent',
+        quantity: { value: 9.999, unit: 'g' },
+        molarMass: molarMass('NaOH'),
+      },
+      { name: 'water', role: 'solvent', quantity: { value: 250, unit: 'mL' }, density: 0.99821 },
+      {
+        name: 'sodium hydroxide solution 1 M',
+        role: 'product',
+        quantity: { value: 245, unit: 'mL' },
+        molarMass: molarMass('NaOH'),
+        concentration: { molarity: 1 },
+        density: 1.04, // from memory: about 1.04 g/mL for 1 M NaOH
+      },
+    ];
+    const result = computeStoichiometry(lines);
+    const product = result.lines[2]!;
+    expect(sig(product.theoretical!.amountMol)).toBe(0.25);
+    expect(sig(product.theoretical!.volumeMl!)).toBe(250.0);
+    // calc: 250.0 mL × 1.04 g/mL of solution
+    expect(sig(product.theoretical!.massG!)).toBe(260.0);
+    // calc: 0.245 mol held ÷ 0.2500 mol = 98.00 %
+    expect(sig(product.percentYield!)).toBe(98.0);
+    expect(result.warnings).toEqual([]);
+  });
+
   it('when a line is given in moles, then the mass to weigh accounts for purity', () => {
     const amounts = lineAmounts({
       role: 'reagent',

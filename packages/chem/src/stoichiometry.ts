@@ -82,9 +82,15 @@ export interface LineAmounts {
 /** Theoretical yield of a product line. */
 export interface TheoreticalYield {
   amountMol: number;
-  /** Needs the product's molar mass. */
+  /**
+   * Needs the product's molar mass. For a solution product (`concentration` given) this is
+   * the mass of the solution holding `amountMol` (needs its density, or a % w/w).
+   */
   massG?: number;
-  /** Needs the product's molar mass and density. */
+  /**
+   * Needs the product's molar mass and density. For a solution product, the volume of
+   * solution holding `amountMol` (from the molarity, or % w/w and density).
+   */
   volumeMl?: number;
 }
 
@@ -102,7 +108,10 @@ export interface LineResult {
   equivalents?: number;
   /** Product lines, when a limiting reagent is known. */
   theoretical?: TheoreticalYield;
-  /** Product lines with an obtained quantity and a theoretical mass: actual ÷ theoretical × 100. */
+  /**
+   * Product lines with an obtained quantity and a theoretical mass: actual ÷ theoretical × 100
+   * (for a solution product: moles held ÷ theoretical moles × 100).
+   */
   percentYield?: number;
 }
 
@@ -381,7 +390,15 @@ export function computeStoichiometry(lines: readonly ProcedureLine[]): Stoichiom
     }
     if (result.role !== 'product') continue;
     const theoretical: TheoreticalYield = { amountMol: limitingRatio * result.coefficient };
-    if (line.molarMass !== undefined) {
+    if (line.concentration) {
+      // A solution product (e.g. 1 M NaOH): the theoretical yield is the solution that
+      // holds the moles; mass and volume are the solution's, as far as the data allow.
+      const solution = atLine(line, result.index, () =>
+        lineAmounts({ ...line, quantity: { value: theoretical.amountMol, unit: 'mol' } }),
+      );
+      if (solution.massG !== undefined) theoretical.massG = solution.massG;
+      if (solution.volumeMl !== undefined) theoretical.volumeMl = solution.volumeMl;
+    } else if (line.molarMass !== undefined) {
       theoretical.massG = theoretical.amountMol * line.molarMass;
       if (line.density !== undefined) theoretical.volumeMl = theoretical.massG / line.density;
     } else {
@@ -393,6 +410,19 @@ export function computeStoichiometry(lines: readonly ProcedureLine[]): Stoichiom
     }
     result.theoretical = theoretical;
     if (!line.quantity) continue;
+    if (line.concentration && result.amountMol !== undefined && theoretical.amountMol > 0) {
+      // A solution is compared by the moles it holds, not by its mass.
+      const yieldResult = percentYield(result.amountMol, theoretical.amountMol);
+      result.percentYield = yieldResult.percent;
+      for (const warning of yieldResult.warnings) {
+        warnings.push({
+          ...warning,
+          message: `${label(line, result.index)}: ${warning.message}`,
+          lineIndex: result.index,
+        });
+      }
+      continue;
+    }
     if (result.massG === undefined) {
       const lineMissing = amounts[result.index]?.missing ?? [];
       warnings.push({

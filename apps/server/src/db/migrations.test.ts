@@ -21,13 +21,23 @@ describe('migrations', () => {
       const applied = await dataSource.runMigrations({ transaction: 'all' });
       expect(applied.map((m) => m.name)).toEqual(migrations.map((m) => m.name));
       expect(await tables(dataSource)).toEqual([
+        'alert_preferences',
         'audit_events',
         'chemicals',
         'containers',
+        'imports',
         'ledger_entries',
         'locations',
         'lots',
         'migrations',
+        'outbox',
+        'prep_plans',
+        'procedure_lines',
+        'procedures',
+        'reservations',
+        'run_inputs',
+        'run_products',
+        'runs',
         'stocktakes',
         'users',
       ]);

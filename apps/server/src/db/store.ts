@@ -1,9 +1,14 @@
 import type { DataSource, EntityManager } from 'typeorm';
+import { alertsRepository } from '../modules/alerts/alerts.repository';
 import { auditRepository } from '../modules/audit/audit.repository';
 import { chemicalsRepository } from '../modules/chemicals/chemicals.repository';
+import { importsRepository } from '../modules/imports/imports.repository';
 import { containersRepository } from '../modules/containers/containers.repository';
 import { locationsRepository } from '../modules/locations/locations.repository';
 import { lotsRepository } from '../modules/lots/lots.repository';
+import { plansRepository } from '../modules/plans/plans.repository';
+import { proceduresRepository } from '../modules/procedures/procedures.repository';
+import { runsRepository } from '../modules/runs/runs.repository';
 import { segregationRepository } from '../modules/segregation/segregation.repository';
 import { stockRepository } from '../modules/stock/stock.repository';
 import { usersRepository } from '../modules/users/users.repository';
@@ -18,6 +23,11 @@ function repositoriesFor(manager: EntityManager) {
     containers: containersRepository(manager),
     segregation: segregationRepository(manager),
     stock: stockRepository(manager),
+    imports: importsRepository(manager),
+    procedures: proceduresRepository(manager),
+    plans: plansRepository(manager),
+    runs: runsRepository(manager),
+    alerts: alertsRepository(manager),
   };
 }
 export type Repositories = ReturnType<typeof repositoriesFor>;
@@ -28,6 +38,22 @@ export interface Store {
   transaction<T>(work: (repos: Repositories) => Promise<T>): Promise<T>;
   /** Throws when the database does not answer. */
   ping(): Promise<void>;
+  /**
+   * Runs `listener` at the end of every transaction of this store that appended ledger
+   * entries, before it commits, with the chemicals concerned: what it writes commits or
+   * rolls back together with the entries (the alert rules queue their e-mails this way).
+   */
+  onLedgerChange(listener: LedgerChangeListener): void;
+}
+
+export type LedgerChangeListener = (repos: Repositories, chemicalIds: number[]) => Promise<void>;
+
+/** The chemicals whose ledger changed, per open transaction (keyed by its repositories). */
+const ledgerChanges = new WeakMap<Repositories, Set<number>>();
+
+/** Notes that a ledger entry of `chemicalId` was appended in the transaction of `repos`. */
+export function noteLedgerChange(repos: Repositories, chemicalId: number) {
+  ledgerChanges.get(repos)?.add(chemicalId);
 }
 
 /**
@@ -48,12 +74,25 @@ function serialized<T>(dataSource: DataSource, work: () => Promise<T>): Promise<
 }
 
 export function createStore(dataSource: DataSource): Store {
+  const listeners: LedgerChangeListener[] = [];
   return {
     repos: repositoriesFor(dataSource.manager),
     transaction: (work) =>
       serialized(dataSource, () =>
-        dataSource.transaction((manager) => work(repositoriesFor(manager))),
+        dataSource.transaction(async (manager) => {
+          const repos = repositoriesFor(manager);
+          const changed = new Set<number>();
+          ledgerChanges.set(repos, changed);
+          const result = await work(repos);
+          if (changed.size > 0) {
+            for (const listener of listeners) await listener(repos, [...changed]);
+          }
+          return result;
+        }),
       ),
+    onLedgerChange(listener) {
+      listeners.push(listener);
+    },
     async ping() {
       await dataSource.query('SELECT 1');
     },

@@ -390,4 +390,22 @@ export const demoChemicals: ChemicalCreateBody[] = [
     reorderQuantity: 250,
     notes: 'Classification is the supplier’s own (no harmonised entry).',
   },
+  {
+    name: 'Sodium hydroxide solution 1 M',
+    synonyms: ['1 M NaOH', 'sodium hydroxide, 1 mol/L'],
+    // A solution has no CAS RN of its own (sodium hydroxide's is on the solid).
+    casNumber: null,
+    formula: 'NaOH',
+    physicalState: 'solution',
+    // from memory: about 1.04 g/mL at 20 °C
+    density: 1.04,
+    ghsPictograms: ['GHS05'],
+    // from memory: sodium hydroxide at 2 % and above is classified H314; 1 M is about 3.8 % w/w
+    hazardStatements: ['H314'],
+    storageGroup: 'base',
+    stockUnit: 'mL',
+    reorderPoint: null,
+    notes:
+      'Made in the lab from sodium hydroxide (procedure "Sodium hydroxide solution 1 M"); the formula and molar mass are those of the solute.',
+  },
 ];

@@ -38,8 +38,8 @@ describe('demo seed', () => {
       page: 1,
       pageSize: 200,
     });
-    expect(all.total).toBe(26);
-    expect(demoChemicals).toHaveLength(26);
+    expect(all.total).toBe(27);
+    expect(demoChemicals).toHaveLength(27);
   });
 
   it('when seeded, then every chemical is valid with a molar mass, a unit that fits its state; people have example.test addresses', async () => {
@@ -103,7 +103,7 @@ describe('demo seed', () => {
     const chemicalsHeld = new Set(
       containers.items.map((c: { chemical: { id: number } }) => c.chemical.id),
     );
-    expect(chemicalsHeld.size).toBe(26);
+    expect(chemicalsHeld.size).toBe(27);
     expect((await get('/api/containers?expired=true')).body.total).toBeGreaterThan(0);
     const today = new Date().toISOString().slice(0, 10);
     const monthEnd =
@@ -123,6 +123,62 @@ describe('demo seed', () => {
     expect(check.entriesChecked).toBeGreaterThan(containers.total * 3);
     const nitrite = (await get('/api/chemicals?q=sodium nitrite')).body.items[0];
     expect(nitrite.extraHazardGroups).toEqual(['gas-with-acid']);
+  });
+
+  it('when seeded, then four procedures (two chained), 11 recorded runs with realistic yields and a make-versus-buy shortfall exist', async () => {
+    const app = createApp({ dataSource, config });
+    const login = await request(app)
+      .post('/api/auth/login')
+      .send({ email: 'technician@example.test', password: demoPassword })
+      .expect(200);
+    const cookie = String([login.headers['set-cookie']].flat()[0]).split(';')[0]!;
+    const get = (path: string) => request(app).get(path).set('Cookie', cookie).expect(200);
+    const procedures = (await get('/api/procedures')).body.items;
+    expect(procedures).toHaveLength(4);
+    const byTitle = (start: string) =>
+      procedures.find((p: { title: string }) => p.title.startsWith(start));
+    const solution = byTitle('Sodium hydroxide solution');
+    const dba = byTitle('Dibenzalacetone');
+    // The chain: the 1 M solution is the product of one procedure and a line of another.
+    expect(dba.lines.map((l: { chemicalId: number }) => l.chemicalId)).toContain(
+      solution.productChemicalIds[0],
+    );
+    // dibenzalacetone: 2 benzaldehyde : 1 acetone, acetone limiting
+    expect(dba.stoichiometry.detectedLimitingIndex).toBe(1);
+    const runs = (await get('/api/runs?status=recorded&pageSize=50')).body;
+    expect(runs.total).toBe(11);
+    const yields = (start: string) =>
+      runs.items
+        .filter((r: { procedure: { title: string } }) => r.procedure.title.startsWith(start))
+        .map((r: { percentYield: number }) => r.percentYield);
+    const aspirin = yields('Aspirin');
+    expect(aspirin.filter((y: number) => y > 100)).toHaveLength(1);
+    // Realistic teaching-lab yields: aspirin 70–90 %, the ester 50–70 %.
+    for (const y of aspirin.filter((y: number) => y <= 100)) {
+      expect(y).toBeGreaterThan(70);
+      expect(y).toBeLessThan(90);
+    }
+    for (const y of yields('Isoamyl')) {
+      expect(y).toBeGreaterThan(50);
+      expect(y).toBeLessThan(70);
+    }
+    const flagged = runs.items.filter((r: { yieldFlag: string | null }) => r.yieldFlag);
+    expect(flagged).toHaveLength(1);
+    expect(flagged[0].yieldFlag).toMatch(/wet or impure/);
+    const history = (await get(`/api/procedures/${byTitle('Aspirin').id}/runs`)).body;
+    expect(history.stats.count).toBe(4);
+    // Eight benches of dibenzalacetone at 1/4 scale: the 1 M solution is short, make it first.
+    const plan = await request(app)
+      .post('/api/plans')
+      .set('Cookie', cookie)
+      .send({ procedureId: dba.id, scaleFactor: '1/4', benches: 8, plannedOn: '2099-06-01' })
+      .expect(201);
+    const naoh = plan.body.stockCheck.lines.find(
+      (l: { chemical: { id: number } }) => l.chemical.id === solution.productChemicalIds[0],
+    );
+    expect(naoh.status).toBe('short');
+    expect(naoh.suggestions.map((s: { kind: string }) => s.kind)).toEqual(['reorder', 'prepare']);
+    expect(naoh.suggestions[1].procedureId).toBe(solution.id);
   });
 
   it('when searching the demo stock, then synonyms such as aspirin and THF find their chemical', async () => {

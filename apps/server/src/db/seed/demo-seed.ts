@@ -6,6 +6,7 @@ import { nowIso } from '../sql';
 import { createStore } from '../store';
 import { demoChemicals } from './demo-chemicals';
 import { seedDemoStock } from './demo-stock';
+import { preparedOnlyChemicals, seedDemoPreparations } from './demo-preparations';
 
 /** One published password for every demo account; change it before real use. */
 export const demoPassword = 'lotwise-demo-2026';
@@ -51,7 +52,13 @@ export async function seedDemo(dataSource: DataSource, bcryptCost: number): Prom
     const inserted = [];
     for (const chemical of chemicals)
       inserted.push(await repos.chemicals.insert(newChemicalValues(chemical, now)));
-    await seedDemoStock(repos, inserted, people);
+    // Chemicals only ever made in the lab get their stock from the demo runs.
+    const places = await seedDemoStock(
+      repos,
+      inserted.filter((chemical) => !preparedOnlyChemicals.has(chemical.name)),
+      people,
+    );
+    await seedDemoPreparations(repos, inserted, people, places);
     return true;
   });
 }

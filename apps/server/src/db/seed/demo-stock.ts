@@ -127,7 +127,7 @@ export async function seedDemoStock(
   chemicals: Chemical[],
   people: { id: number; role: string }[],
   today = todayIso(),
-): Promise<void> {
+): Promise<Map<string, { id: number; path: string }>> {
   const random = prng(20260301);
   const pick = <T>(list: readonly T[]): T => list[Math.floor(random() * list.length)]!;
   const now = `${today}T08:00:00.000Z`;
@@ -311,4 +311,5 @@ export async function seedDemoStock(
     const lot = await addLot(hcl, addDays(today, -40), addDays(today, 500));
     await addContainer(hcl, lot, 'bases', 500, 0.1);
   }
+  return ids;
 }

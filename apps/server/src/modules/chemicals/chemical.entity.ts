@@ -31,6 +31,12 @@ export interface ChemicalRow {
   notes: string;
   /** Name, synonyms, CAS RN and formula, lower-cased, one per line: what `q` searches. */
   searchText: string;
+  /** The current safety data sheet: original name, random stored name, bytes, type, time. */
+  sdsFileName: string | null;
+  sdsStoredName: string | null;
+  sdsSize: number | null;
+  sdsContentType: string | null;
+  sdsUploadedAt: string | null;
   createdAt: string;
   updatedAt: string;
 }
@@ -59,6 +65,11 @@ export const ChemicalEntity = new EntitySchema<ChemicalRow>({
     restricted: { type: 'boolean' },
     notes: { type: 'text' },
     searchText: { name: 'search_text', type: 'text' },
+    sdsFileName: { name: 'sds_file_name', type: 'varchar', length: 255, nullable: true },
+    sdsStoredName: { name: 'sds_stored_name', type: 'varchar', length: 100, nullable: true },
+    sdsSize: { name: 'sds_size', type: 'integer', nullable: true },
+    sdsContentType: { name: 'sds_content_type', type: 'varchar', length: 40, nullable: true },
+    sdsUploadedAt: { name: 'sds_uploaded_at', type: 'varchar', length: 24, nullable: true },
     createdAt: { name: 'created_at', type: 'varchar', length: 24 },
     updatedAt: { name: 'updated_at', type: 'varchar', length: 24 },
   },

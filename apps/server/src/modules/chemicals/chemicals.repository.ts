@@ -20,9 +20,26 @@ export type ChemicalValues = Omit<ChemicalRow, 'id'>;
 function toChemical({
   searchText: _searchText,
   extraHazardGroups,
+  sdsFileName,
+  sdsStoredName: _sdsStoredName,
+  sdsSize,
+  sdsContentType,
+  sdsUploadedAt,
   ...chemical
 }: ChemicalRow): Chemical {
-  return { ...chemical, extraHazardGroups: extraHazardGroups ?? [] };
+  return {
+    ...chemical,
+    extraHazardGroups: extraHazardGroups ?? [],
+    sds:
+      sdsFileName && sdsUploadedAt
+        ? {
+            fileName: sdsFileName,
+            size: Number(sdsSize ?? 0),
+            contentType: sdsContentType ?? 'application/pdf',
+            uploadedAt: sdsUploadedAt,
+          }
+        : null,
+  };
 }
 
 function duplicateCas(): AppError {

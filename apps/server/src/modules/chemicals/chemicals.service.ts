@@ -42,6 +42,11 @@ export function newChemicalValues(
     extraHazardGroups: input.extraHazardGroups ?? [],
     molarMass: molarMassOf(input.formula),
     searchText: searchTextOf(input),
+    sdsFileName: null,
+    sdsStoredName: null,
+    sdsSize: null,
+    sdsContentType: null,
+    sdsUploadedAt: null,
     createdAt: now,
     updatedAt: now,
   };
@@ -51,7 +56,12 @@ function notFound(id: number) {
   return AppError.notFound(`There is no chemical #${id}.`);
 }
 
-export function chemicalsService(store: Store) {
+/** Where a deleted chemical's SDS file goes (the app's file store). */
+interface StoredFiles {
+  remove(storedName: string | null): Promise<void>;
+}
+
+export function chemicalsService(store: Store, files?: StoredFiles) {
   const { chemicals } = store.repos;
 
   async function assertCasFree(casNumber: string | null, exceptId?: number) {
@@ -112,7 +122,15 @@ export function chemicalsService(store: Store) {
           `This chemical has ${lots} lot(s) in stock history and cannot be deleted.`,
         );
       }
-      if (!(await chemicals.delete(id))) throw notFound(id);
+      const procedures = await store.repos.procedures.using(id);
+      if (procedures.length > 0) {
+        throw AppError.conflict(
+          `This chemical is on ${new Set(procedures.map((p) => p.procedureId)).size} procedure(s) and cannot be deleted.`,
+        );
+      }
+      const row = await chemicals.findRow(id);
+      if (!row || !(await chemicals.delete(id))) throw notFound(id);
+      await files?.remove(row.sdsStoredName);
     },
   };
 }

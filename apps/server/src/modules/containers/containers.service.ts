@@ -25,7 +25,7 @@ import {
 } from '@lotwise/shared';
 import type { z } from 'zod';
 import { AppError } from '../../lib/app-error';
-import type { Repositories, Store } from '../../db/store';
+import { noteLedgerChange, type Repositories, type Store } from '../../db/store';
 import { nowIso } from '../../db/sql';
 import type { ChemicalRow } from '../chemicals/chemical.entity';
 import { requireLocation } from '../locations/locations.service';
@@ -158,6 +158,10 @@ interface Movement {
   toLocationId?: number | null;
   relatedContainerId?: number | null;
   stocktakeId?: number | null;
+  /** The run a draw or a product belongs to. */
+  runId?: number | null;
+  /** When it happened, if not now (the demo seed's history). */
+  at?: string;
 }
 
 /**
@@ -186,7 +190,7 @@ export async function appendEntry(
       },
     );
   }
-  const now = nowIso();
+  const now = movement.at ?? nowIso();
   const values: LedgerEntryValues = {
     containerId: container.id,
     reason: movement.reason,
@@ -195,7 +199,7 @@ export async function appendEntry(
     balanceAfter: balance,
     note: movement.note,
     userId: actor?.id ?? null,
-    runId: null,
+    runId: movement.runId ?? null,
     orderId: null,
     stocktakeId: movement.stocktakeId ?? null,
     fromLocationId: movement.fromLocationId ?? null,
@@ -204,6 +208,7 @@ export async function appendEntry(
     createdAt: now,
   };
   const entry = await repos.containers.insertEntry(values);
+  noteLedgerChange(repos, container.chemicalId);
   const next = { ...container, ...changes, quantity: values.balanceAfter, updatedAt: now };
   await repos.containers.update(container.id, {
     ...changes,
@@ -214,7 +219,7 @@ export async function appendEntry(
 }
 
 /** Status after a balance change: first use opens a sealed container; nothing left is empty. */
-function statusAfter(
+export function statusAfter(
   current: ContainerStatus,
   balance: number,
   today: string,

@@ -17,9 +17,12 @@ export interface LotRow {
   expiresOn: string | null;
   /** Filled in by runs; no foreign key until the runs table exists. */
   madeByRunId: number | null;
-  /** Certificate of analysis, once uploads exist: original name and stored (random) name. */
+  /** Certificate of analysis: original name, random stored name, bytes, detected type, time. */
   certificateFileName: string | null;
   certificateStoredName: string | null;
+  certificateSize: number | null;
+  certificateContentType: string | null;
+  certificateUploadedAt: string | null;
   notes: string;
   createdAt: string;
   updatedAt: string;
@@ -54,6 +57,19 @@ export const LotEntity = new EntitySchema<LotRow>({
       name: 'certificate_stored_name',
       type: 'varchar',
       length: 100,
+      nullable: true,
+    },
+    certificateSize: { name: 'certificate_size', type: 'integer', nullable: true },
+    certificateContentType: {
+      name: 'certificate_content_type',
+      type: 'varchar',
+      length: 40,
+      nullable: true,
+    },
+    certificateUploadedAt: {
+      name: 'certificate_uploaded_at',
+      type: 'varchar',
+      length: 24,
       nullable: true,
     },
     notes: { type: 'text' },

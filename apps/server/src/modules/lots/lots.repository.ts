@@ -4,6 +4,10 @@ import { containsPattern } from '../../db/sql';
 import { LotEntity, type LotRow } from './lot.entity';
 
 export type LotValues = Omit<LotRow, 'id' | 'chemical'>;
+type CertificateDetails = 'certificateSize' | 'certificateContentType' | 'certificateUploadedAt';
+/** A new lot: the certificate's details come with its upload. */
+export type NewLotValues = Omit<LotValues, CertificateDetails> &
+  Partial<Pick<LotValues, CertificateDetails>>;
 
 const sortColumns: Record<string, string> = {
   receivedOn: 'l.received_on',
@@ -26,15 +30,33 @@ interface RawLot {
   expiresOn: string | null;
   madeByRunId: number | null;
   certificateFileName: string | null;
+  certificateSize: number | null;
+  certificateContentType: string | null;
+  certificateUploadedAt: string | null;
   notes: string;
   containerCount: number;
   createdAt: string;
   updatedAt: string;
 }
 
-function toLot({ defaultPurity, ...row }: RawLot): Lot {
+function toLot({
+  defaultPurity,
+  certificateSize,
+  certificateContentType,
+  certificateUploadedAt,
+  ...row
+}: RawLot): Lot {
   return {
     ...row,
+    certificate:
+      row.certificateFileName && certificateUploadedAt
+        ? {
+            fileName: row.certificateFileName,
+            size: Number(certificateSize ?? 0),
+            contentType: certificateContentType ?? 'application/pdf',
+            uploadedAt: certificateUploadedAt,
+          }
+        : null,
     id: Number(row.id),
     chemicalId: Number(row.chemicalId),
     madeByRunId: row.madeByRunId === null ? null : Number(row.madeByRunId),
@@ -63,6 +85,9 @@ export function lotsRepository(manager: EntityManager) {
       .addSelect('l.expires_on', 'expiresOn')
       .addSelect('l.made_by_run_id', 'madeByRunId')
       .addSelect('l.certificate_file_name', 'certificateFileName')
+      .addSelect('l.certificate_size', 'certificateSize')
+      .addSelect('l.certificate_content_type', 'certificateContentType')
+      .addSelect('l.certificate_uploaded_at', 'certificateUploadedAt')
       .addSelect('l.notes', 'notes')
       .addSelect(
         "(SELECT COUNT(*) FROM containers c WHERE c.lot_id = l.id AND c.status <> 'disposed')",
@@ -81,8 +106,13 @@ export function lotsRepository(manager: EntityManager) {
       const row = await select().where('l.id = :id', { id }).getRawOne<RawLot>();
       return row ? toLot(row) : null;
     },
-    async insert(values: LotValues): Promise<number> {
-      const result = await repo.insert(values);
+    async insert(values: NewLotValues): Promise<number> {
+      const result = await repo.insert({
+        certificateSize: null,
+        certificateContentType: null,
+        certificateUploadedAt: null,
+        ...values,
+      });
       return Number(result.identifiers[0]?.id);
     },
     async update(id: number, changes: Partial<LotValues>): Promise<void> {

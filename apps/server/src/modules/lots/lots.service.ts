@@ -20,7 +20,12 @@ export async function requireLot(
   return row;
 }
 
-export function lotsService(store: Store) {
+/** Where a deleted lot's certificate file goes (the app's file store). */
+interface StoredFiles {
+  remove(storedName: string | null): Promise<void>;
+}
+
+export function lotsService(store: Store, files?: StoredFiles) {
   return {
     async list(query: LotListQuery): Promise<Page<Lot>> {
       const { items, total } = await store.repos.lots.list(query);
@@ -83,8 +88,9 @@ export function lotsService(store: Store) {
     },
 
     async remove(id: number): Promise<void> {
-      await store.transaction(async (repos) => {
-        if (!(await repos.lots.findRow(id))) throw notFound(id);
+      const certificate = await store.transaction(async (repos) => {
+        const row = await repos.lots.findRow(id);
+        if (!row) throw notFound(id);
         const held = await repos.containers.countForLot(id);
         if (held > 0) {
           throw AppError.conflict(
@@ -92,7 +98,9 @@ export function lotsService(store: Store) {
           );
         }
         await repos.lots.delete(id);
+        return row.certificateStoredName;
       });
+      await files?.remove(certificate);
     },
   };
 }

@@ -1,0 +1,309 @@
+import {
+  parseSort,
+  type ContainerStatus,
+  type GhsCode,
+  type OutboxListQuery,
+  type Role,
+  type StockUnit,
+} from '@lotwise/shared';
+import { In, type EntityManager, type SelectQueryBuilder } from 'typeorm';
+import { usableSql } from '../containers/containers.repository';
+import { AlertPreferenceEntity, type AlertPreferenceRow } from './alert-preference.entity';
+import { OutboxMessageEntity, type OutboxRow } from './outbox-message.entity';
+
+export type OutboxValues = Omit<OutboxRow, 'id' | 'user'>;
+
+/** An outbox row with the recipient's name, for the admin list. */
+export interface OutboxListRow extends OutboxRow {
+  displayName: string | null;
+}
+
+/** A chemical at or below its reorder point, with its usable total. */
+export interface LowStockFacts {
+  id: number;
+  name: string;
+  stockUnit: StockUnit;
+  reorderPoint: number;
+  reorderQuantity: number | null;
+  ghsPictograms: GhsCode[];
+  total: number;
+}
+
+/** A container as the alert rules and messages see it. */
+export interface AlertContainerFacts {
+  id: number;
+  labelCode: string;
+  chemicalId: number;
+  chemicalName: string;
+  ghsPictograms: GhsCode[];
+  status: ContainerStatus;
+  quantity: number;
+  unit: StockUnit;
+  expiresOn: string | null;
+  peroxideDueOn: string | null;
+  locationPath: string;
+}
+
+/** Someone who may receive alerts. */
+export interface AlertRecipientRow {
+  id: number;
+  email: string;
+  displayName: string;
+  role: Role;
+}
+
+const sortColumns: Record<string, string> = {
+  createdAt: 'o.created_at',
+  status: 'o.status',
+  attempts: 'o.attempts',
+  nextAttemptAt: 'o.next_attempt_at',
+};
+
+function parseJsonList<T>(text: unknown): T[] {
+  return typeof text === 'string' && text ? (JSON.parse(text) as T[]) : [];
+}
+
+/** Data access for `outbox`, `alert_preferences` and the stock reads of the alert rules. */
+export function alertsRepository(manager: EntityManager) {
+  const outbox = manager.getRepository(OutboxMessageEntity);
+  const preferences = manager.getRepository(AlertPreferenceEntity);
+
+  function containerQuery(): SelectQueryBuilder<object> {
+    return manager
+      .createQueryBuilder()
+      .select('c.id', 'id')
+      .addSelect('c.label_code', 'labelCode')
+      .addSelect('c.chemical_id', 'chemicalId')
+      .addSelect('ch.name', 'chemicalName')
+      .addSelect('ch.ghs_pictograms', 'ghsPictograms')
+      .addSelect('c.status', 'status')
+      .addSelect('c.quantity', 'quantity')
+      .addSelect('c.unit', 'unit')
+      .addSelect('c.expires_on', 'expiresOn')
+      .addSelect('c.peroxide_due_on', 'peroxideDueOn')
+      .addSelect('loc.path', 'locationPath')
+      .from('containers', 'c')
+      .innerJoin('chemicals', 'ch', 'ch.id = c.chemical_id')
+      .innerJoin('locations', 'loc', 'loc.id = c.location_id');
+  }
+
+  const toContainer = (raw: Record<string, unknown>): AlertContainerFacts =>
+    ({
+      ...raw,
+      id: Number(raw.id),
+      chemicalId: Number(raw.chemicalId),
+      quantity: Number(raw.quantity),
+      ghsPictograms: parseJsonList<GhsCode>(raw.ghsPictograms),
+    }) as AlertContainerFacts;
+
+  return {
+    // ---- outbox ----
+    async insertMessage(values: OutboxValues): Promise<number> {
+      const result = await outbox.insert(values);
+      return Number(result.identifiers[0]?.id);
+    },
+    async findMessage(id: number): Promise<OutboxListRow | null> {
+      const row = await outbox.findOneBy({ id });
+      if (!row) return null;
+      const [user] = row.userId
+        ? await manager.query('SELECT display_name AS name FROM users WHERE id = ?', [row.userId])
+        : [];
+      return { ...row, displayName: (user as { name?: string } | undefined)?.name ?? null };
+    },
+    async updateMessages(ids: number[], changes: Partial<OutboxValues>): Promise<void> {
+      if (ids.length > 0) await outbox.update({ id: In(ids) }, changes);
+    },
+    /** True when `email` got a message with `dedupKey` written at or after `since`. */
+    async mailedSince(email: string, dedupKey: string, since: string): Promise<boolean> {
+      const row = await outbox
+        .createQueryBuilder('o')
+        .select('o.id')
+        .where('o.recipientEmail = :email AND o.dedupKey = :dedupKey AND o.createdAt >= :since', {
+          email,
+          dedupKey,
+          since,
+        })
+        .limit(1)
+        .getRawOne();
+      return Boolean(row);
+    },
+    /**
+     * Messages the worker should send now: queued and due, or left `sending` by a process
+     * that stopped before it finished (older than `staleBefore`).
+     */
+    async dueMessages(now: string, staleBefore: string, limit: number): Promise<OutboxRow[]> {
+      const rows = await outbox
+        .createQueryBuilder('o')
+        .where(
+          "(o.status = 'queued' AND o.nextAttemptAt <= :now) OR (o.status = 'sending' AND o.updatedAt < :staleBefore)",
+          { now, staleBefore },
+        )
+        .orderBy('o.id', 'ASC')
+        .limit(limit)
+        .getMany();
+      return rows.map((row) => ({ ...row }));
+    },
+    async listMessages(query: OutboxListQuery): Promise<{ rows: OutboxListRow[]; total: number }> {
+      const qb = manager
+        .createQueryBuilder()
+        .select('o.id', 'id')
+        .addSelect('o.user_id', 'userId')
+        .addSelect('o.recipient_email', 'recipientEmail')
+        .addSelect('u.display_name', 'displayName')
+        .addSelect('o.kind', 'kind')
+        .addSelect('o.subject', 'subject')
+        .addSelect('o.link', 'link')
+        .addSelect('o.dedup_key', 'dedupKey')
+        .addSelect('o.delivery', 'delivery')
+        .addSelect('o.status', 'status')
+        .addSelect('o.attempts', 'attempts')
+        .addSelect('o.last_error', 'lastError')
+        .addSelect('o.next_attempt_at', 'nextAttemptAt')
+        .addSelect('o.created_at', 'createdAt')
+        .addSelect('o.updated_at', 'updatedAt')
+        .addSelect('o.sent_at', 'sentAt')
+        .from('outbox', 'o')
+        .leftJoin('users', 'u', 'u.id = o.user_id')
+        .where('1 = 1');
+      const count = manager.createQueryBuilder().select('COUNT(*)', 'n').from('outbox', 'o');
+      count.where('1 = 1');
+      const filters: [string, Record<string, unknown>][] = [];
+      if (query.status) filters.push(['o.status = :status', { status: query.status }]);
+      if (query.kind) filters.push(['o.kind = :kind', { kind: query.kind }]);
+      if (query.q) {
+        filters.push([
+          "(LOWER(o.recipient_email) LIKE :q ESCAPE '\\' OR LOWER(o.subject) LIKE :q ESCAPE '\\')",
+          { q: `%${query.q.toLowerCase().replace(/[\\%_]/g, (c) => `\\${c}`)}%` },
+        ]);
+      }
+      for (const [sql, parameters] of filters) {
+        qb.andWhere(sql, parameters);
+        count.andWhere(sql, parameters);
+      }
+      const total = Number((await count.getRawOne<{ n: number }>())?.n ?? 0);
+      const { field, direction } = parseSort(query.sort);
+      const column = sortColumns[field] ?? sortColumns.createdAt!;
+      const rows = await qb
+        .orderBy(`CASE WHEN ${column} IS NULL THEN 1 ELSE 0 END`, 'ASC')
+        .addOrderBy(column, direction === 'desc' ? 'DESC' : 'ASC')
+        .addOrderBy('o.id', direction === 'desc' ? 'DESC' : 'ASC')
+        .offset((query.page - 1) * query.pageSize)
+        .limit(query.pageSize)
+        .getRawMany<OutboxListRow>();
+      return {
+        rows: rows.map((row) => ({
+          ...row,
+          id: Number(row.id),
+          userId: row.userId === null ? null : Number(row.userId),
+          attempts: Number(row.attempts),
+          text: '',
+          html: '',
+        })),
+        total,
+      };
+    },
+
+    // ---- preferences ----
+    async findPreferences(userIds: number[]): Promise<AlertPreferenceRow[]> {
+      if (userIds.length === 0) return [];
+      return (await preferences.findBy({ userId: In(userIds) })).map((row) => ({ ...row }));
+    },
+    async savePreference(row: AlertPreferenceRow): Promise<void> {
+      await preferences.save({ ...row });
+    },
+
+    // ---- what the rules read ----
+    /** Active people with a password (invitations not yet taken up get no mail). */
+    async recipients(): Promise<AlertRecipientRow[]> {
+      const rows: Record<string, unknown>[] = await manager
+        .createQueryBuilder()
+        .select('u.id', 'id')
+        .addSelect('u.email', 'email')
+        .addSelect('u.display_name', 'displayName')
+        .addSelect('u.role', 'role')
+        .from('users', 'u')
+        .where('u.active = :active AND u.password_hash IS NOT NULL', { active: true })
+        .orderBy('u.id', 'ASC')
+        .getRawMany();
+      return rows.map((row) => ({ ...row, id: Number(row.id) }) as AlertRecipientRow);
+    },
+    /** Per user, the chemicals they have ledger entries for (draws, receipts, corrections). */
+    async usedChemicals(userIds: number[]): Promise<Map<number, Set<number>>> {
+      const used = new Map<number, Set<number>>();
+      if (userIds.length === 0) return used;
+      const rows: { userId: number; chemicalId: number }[] = await manager
+        .createQueryBuilder()
+        .select('DISTINCT e.user_id', 'userId')
+        .addSelect('c.chemical_id', 'chemicalId')
+        .from('ledger_entries', 'e')
+        .innerJoin('containers', 'c', 'c.id = e.container_id')
+        .where('e.user_id IN (:...userIds)', { userIds })
+        .getRawMany();
+      for (const row of rows) {
+        const userId = Number(row.userId);
+        if (!used.has(userId)) used.set(userId, new Set());
+        used.get(userId)!.add(Number(row.chemicalId));
+      }
+      return used;
+    },
+    /** Chemicals whose usable total is at or below their reorder point. */
+    async lowStock(today: string, chemicalIds?: number[]): Promise<LowStockFacts[]> {
+      const totalSql = `COALESCE((SELECT SUM(u.quantity) FROM containers u WHERE u.chemical_id = ch.id AND ${usableSql('u')}), 0)`;
+      const qb = manager
+        .createQueryBuilder()
+        .select('ch.id', 'id')
+        .addSelect('ch.name', 'name')
+        .addSelect('ch.stock_unit', 'stockUnit')
+        .addSelect('ch.reorder_point', 'reorderPoint')
+        .addSelect('ch.reorder_quantity', 'reorderQuantity')
+        .addSelect('ch.ghs_pictograms', 'ghsPictograms')
+        .addSelect(totalSql, 'total')
+        .from('chemicals', 'ch')
+        .where(`ch.reorder_point IS NOT NULL AND ${totalSql} <= ch.reorder_point * (1 + 1e-6)`)
+        .setParameter('today', today);
+      if (chemicalIds) {
+        if (chemicalIds.length === 0) return [];
+        qb.andWhere('ch.id IN (:...chemicalIds)', { chemicalIds });
+      }
+      const rows = await qb.orderBy('LOWER(ch.name)', 'ASC').getRawMany<Record<string, unknown>>();
+      return rows.map(
+        (row) =>
+          ({
+            ...row,
+            id: Number(row.id),
+            reorderPoint: Number(row.reorderPoint),
+            reorderQuantity: row.reorderQuantity === null ? null : Number(row.reorderQuantity),
+            total: Number(row.total),
+            ghsPictograms: parseJsonList<GhsCode>(row.ghsPictograms),
+          }) as LowStockFacts,
+      );
+    },
+    /** Usable containers (sealed or open, in date) of these chemicals. */
+    async usableContainers(today: string, chemicalIds: number[]): Promise<AlertContainerFacts[]> {
+      if (chemicalIds.length === 0) return [];
+      const rows = await containerQuery()
+        .where(usableSql('c'), { today })
+        .andWhere('c.chemical_id IN (:...chemicalIds)', { chemicalIds })
+        .orderBy('loc.path', 'ASC')
+        .addOrderBy('c.label_code', 'ASC')
+        .getRawMany<Record<string, unknown>>();
+      return rows.map(toContainer);
+    },
+    /** Sealed or open containers that expire, or are due a peroxide test, on or before `until`. */
+    async datedContainers(until: string, chemicalIds?: number[]): Promise<AlertContainerFacts[]> {
+      const qb = containerQuery()
+        .where("c.status IN ('sealed', 'open')")
+        .andWhere('(c.expires_on <= :until OR c.peroxide_due_on <= :until)', { until });
+      if (chemicalIds) {
+        if (chemicalIds.length === 0) return [];
+        qb.andWhere('c.chemical_id IN (:...chemicalIds)', { chemicalIds });
+      }
+      const rows = await qb
+        .orderBy('LOWER(ch.name)', 'ASC')
+        .addOrderBy('c.label_code', 'ASC')
+        .getRawMany<Record<string, unknown>>();
+      return rows.map(toContainer);
+    },
+  };
+}
+export type AlertsRepository = ReturnType<typeof alertsRepository>;
