@@ -63,6 +63,23 @@ const stockRoutes: RouteObject[] = [
   stockPage(paths.stockSegregation, async () => ({
     Component: (await import('../features/stock/pages/segregation-page')).SegregationPage,
   })),
+  stockPage(
+    paths.stockReceive,
+    async () => ({
+      Component: (await import('../features/stock/pages/receive-page')).ReceivePage,
+    }),
+    'stock.write',
+  ),
+  stockPage(
+    paths.stockImport,
+    async () => ({
+      Component: (await import('../features/imports/pages/import-page')).ImportPage,
+    }),
+    'stock.write',
+  ),
+  stockPage(paths.stockLabels, async () => ({
+    Component: (await import('../features/stock/pages/labels-page')).LabelsPage,
+  })),
 ];
 
 /** Every screen of the web app. Forms and admin pages load their code when first opened. */

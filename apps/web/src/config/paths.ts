@@ -18,6 +18,10 @@ export const paths = {
   stockLocation: (id: number | string = ':id') => `/stock/locations/${id}`,
   stockStocktake: (id: number | string = ':id') => `/stock/locations/${id}/stocktake`,
   stockSegregation: '/stock/segregation',
+  stockReceive: '/stock/receive',
+  stockImport: '/stock/import',
+  /** `?ids=1,2,3` or `?labelCodes=LW-00001,LW-00002`. */
+  stockLabels: '/stock/labels',
   preparations: '/preparations',
   runs: '/runs',
   orders: '/orders',

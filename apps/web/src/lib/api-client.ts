@@ -28,6 +28,11 @@ export function setUnauthenticatedHandler(handler: UnauthenticatedHandler): void
   onUnauthenticated = handler;
 }
 
+/** Runs the app's 401 handling; for requests made without {@link apiRequest} (uploads). */
+export function notifyUnauthenticated(): void {
+  onUnauthenticated();
+}
+
 /** Reads an error response into an ApiError, tolerating bodies that are not ours. */
 export async function toApiError(response: Response): Promise<ApiError> {
   let body: unknown;

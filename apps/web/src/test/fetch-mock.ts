@@ -22,7 +22,12 @@ export function mockFetch(routes: Record<string, Reply>) {
     const request: RecordedRequest = {
       method,
       url,
-      body: typeof init?.body === 'string' ? JSON.parse(init.body) : undefined,
+      body:
+        typeof init?.body === 'string'
+          ? JSON.parse(init.body)
+          : init?.body instanceof FormData
+            ? formDataFields(init.body)
+            : undefined,
     };
     requests.push(request);
     const reply = routes[`${method} ${url.pathname}`];
@@ -36,6 +41,15 @@ export function mockFetch(routes: Record<string, Reply>) {
   });
   vi.stubGlobal('fetch', fetchMock);
   return { fetchMock, requests };
+}
+
+/** A multipart body as the test reads it: field -> value, or the file's name for a file. */
+function formDataFields(form: FormData): Record<string, string> {
+  const fields: Record<string, string> = {};
+  form.forEach((value, key) => {
+    fields[key] = typeof value === 'string' ? value : value.name;
+  });
+  return fields;
 }
 
 export function jsonResponse(status: number, body: unknown): Response {

@@ -17,11 +17,11 @@ export function AppShell({ user }: { user: User }) {
     <div className="flex min-h-screen flex-col">
       <a
         href="#main"
-        className="sr-only focus:not-sr-only focus:fixed focus:top-2 focus:left-2 focus:z-50 focus:rounded-md focus:bg-white focus:px-3 focus:py-2 focus:shadow"
+        className="sr-only focus:not-sr-only print:hidden focus:fixed focus:top-2 focus:left-2 focus:z-50 focus:rounded-md focus:bg-white focus:px-3 focus:py-2 focus:shadow"
       >
         Skip to content
       </a>
-      <header className="sticky top-0 z-20 flex h-14 items-center justify-between gap-4 border-b border-ink-200 bg-white px-4">
+      <header className="sticky top-0 z-20 flex h-14 print:hidden items-center justify-between gap-4 border-b border-ink-200 bg-white px-4">
         <Link to={paths.home} aria-label="Lotwise, home" className="shrink-0 rounded">
           <Wordmark />
         </Link>
@@ -52,11 +52,19 @@ export function AppShell({ user }: { user: User }) {
         </div>
       </header>
       <div className="flex flex-1 flex-col md:flex-row">
-        <aside className="shrink-0 border-b border-ink-200 bg-white md:sticky md:top-14 md:h-[calc(100vh-3.5rem)] md:w-56 md:overflow-y-auto md:border-r md:border-b-0">
-          <SideNav role={user.role} />
+        {/* The column stretches to the page's full height (its border and background with it);
+            only the navigation inside it stays in view while the page scrolls. */}
+        <aside className="shrink-0 border-b border-ink-200 bg-white md:w-56 md:border-r md:border-b-0 print:hidden">
+          <div className="md:sticky md:top-14 md:max-h-[calc(100vh-3.5rem)] md:overflow-y-auto">
+            <SideNav role={user.role} />
+          </div>
         </aside>
-        <main id="main" tabIndex={-1} className="min-w-0 flex-1 px-4 py-6 outline-none md:px-8">
-          <div className="mx-auto max-w-7xl">
+        <main
+          id="main"
+          tabIndex={-1}
+          className="min-w-0 flex-1 px-4 py-6 outline-none md:px-8 print:p-0"
+        >
+          <div className="mx-auto max-w-7xl print:max-w-none">
             <Outlet />
           </div>
         </main>

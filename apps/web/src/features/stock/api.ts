@@ -2,6 +2,7 @@ import {
   keepPreviousData,
   queryOptions,
   useMutation,
+  useQueries,
   useQuery,
   useQueryClient,
 } from '@tanstack/react-query';
@@ -19,7 +20,10 @@ import {
   stockItemSchema,
   stocktakeExpectedSchema,
   stocktakeSchema,
+  lotSchema,
   type Adjustment,
+  type ContainerCreate,
+  type LotCreate,
   type ContainerChange,
   type ContainerStatus,
   type Disposal,
@@ -32,6 +36,7 @@ import {
   type Transfer,
 } from '@lotwise/shared';
 import { api, withQuery } from '../../lib/api-client';
+import { uploadFile, type UploadProgress } from '../../lib/upload';
 
 /** Exactly what the stock overview asks the server; it is also the cache key. */
 export interface StockListParams {
@@ -79,6 +84,10 @@ export const stockKeys = {
   conflicts: () => [...stockKeys.all, 'segregation'] as const,
   stocktake: (locationId: number, includeSublocations: boolean) =>
     [...stockKeys.all, 'stocktake', locationId, includeSublocations] as const,
+  chemical: (id: number) => [...stockKeys.all, 'chemical', id] as const,
+  chemicalSearch: (q: string) => [...stockKeys.all, 'chemical-search', q] as const,
+  lots: (chemicalId: number) => [...stockKeys.all, 'lots', 'list', chemicalId] as const,
+  lot: (id: number) => [...stockKeys.all, 'lots', 'detail', id] as const,
 };
 
 const flag = (value: boolean | undefined) => (value === undefined ? undefined : String(value));
@@ -129,21 +138,33 @@ export function useContainers(params: ContainerListParams) {
 }
 
 export function useContainer(id: number) {
-  return useQuery({
-    queryKey: stockKeys.container(id),
-    queryFn: ({ signal }) => api.get(`/api/containers/${id}`, containerDetailSchema, signal),
-  });
+  return useQuery(containerQuery(id));
 }
 
+const containerQuery = (id: number) => ({
+  queryKey: stockKeys.container(id),
+  queryFn: ({ signal }: { signal: AbortSignal }) =>
+    api.get(`/api/containers/${id}`, containerDetailSchema, signal),
+});
+
+const containerByLabelQuery = (labelCode: string) => ({
+  queryKey: stockKeys.containerByLabel(labelCode),
+  queryFn: ({ signal }: { signal: AbortSignal }) =>
+    api.get(
+      `/api/containers/by-label/${encodeURIComponent(labelCode)}`,
+      containerDetailSchema,
+      signal,
+    ),
+});
+
 export function useContainerByLabel(labelCode: string) {
-  return useQuery({
-    queryKey: stockKeys.containerByLabel(labelCode),
-    queryFn: ({ signal }) =>
-      api.get(
-        `/api/containers/by-label/${encodeURIComponent(labelCode)}`,
-        containerDetailSchema,
-        signal,
-      ),
+  return useQuery(containerByLabelQuery(labelCode));
+}
+
+/** Several containers at once, by id or by label code (a label sheet), in the order asked. */
+export function useContainerSet(ids: readonly number[], labelCodes: readonly string[]) {
+  return useQueries({
+    queries: [...ids.map(containerQuery), ...labelCodes.map(containerByLabelQuery)],
   });
 }
 
@@ -271,7 +292,7 @@ export function useCommitStocktake() {
 /** The chemical itself (identity and hazards) as the chemical stock page shows it. */
 export function useStockChemical(id: number) {
   return useQuery({
-    queryKey: [...stockKeys.all, 'chemical', id] as const,
+    queryKey: stockKeys.chemical(id),
     queryFn: ({ signal }) => api.get(`/api/chemicals/${id}`, chemicalSchema, signal),
   });
 }
@@ -293,4 +314,87 @@ export function useChemicalStockItem(id: number, name: string | undefined) {
       return found.items.find((item) => item.chemical.id === id) ?? null;
     },
   });
+}
+
+const chemicalPageSchema = pageSchema(chemicalSchema);
+const lotPageSchema = pageSchema(lotSchema);
+
+/** Chemicals by name, synonym, CAS RN or formula, for picking one (receiving stock). */
+export function useChemicalSearch(q: string) {
+  const trimmed = q.trim();
+  return useQuery({
+    queryKey: stockKeys.chemicalSearch(trimmed),
+    queryFn: ({ signal }) =>
+      api.get(
+        withQuery('/api/chemicals', { q: trimmed, pageSize: 12, sort: 'name.asc' }),
+        chemicalPageSchema,
+        signal,
+      ),
+    placeholderData: keepPreviousData,
+    staleTime: 10_000,
+  });
+}
+
+/** The lots of one chemical, newest first (receiving into a lot already recorded). */
+export function useChemicalLots(chemicalId: number | undefined) {
+  return useQuery({
+    queryKey: stockKeys.lots(chemicalId ?? 0),
+    enabled: chemicalId !== undefined,
+    queryFn: ({ signal }) =>
+      api.get(
+        withQuery('/api/lots', { chemicalId, sort: 'receivedOn.desc', pageSize: 50 }),
+        lotPageSchema,
+        signal,
+      ),
+  });
+}
+
+export function useLot(id: number) {
+  return useQuery({
+    queryKey: stockKeys.lot(id),
+    queryFn: ({ signal }) => api.get(`/api/lots/${id}`, lotSchema, signal),
+  });
+}
+
+export const createLot = (body: LotCreate) => api.post('/api/lots', body, lotSchema);
+export const createContainer = (body: ContainerCreate) =>
+  api.post('/api/containers', body, containerChangeSchema);
+
+/** Where a stored file of a chemical (its SDS) or a lot (its certificate) lives. */
+export const storedFileUrls = {
+  sds: (chemicalId: number) => `/api/chemicals/${chemicalId}/sds`,
+  certificate: (lotId: number) => `/api/lots/${lotId}/certificate`,
+};
+
+/**
+ * Upload (replacing any earlier file) and delete of an SDS or a certificate. The answer is
+ * not relied on: the chemical or lot is read again, which carries the file's details.
+ */
+export function useStoredFile(url: string) {
+  const queryClient = useQueryClient();
+  const refresh = () => queryClient.invalidateQueries({ queryKey: stockKeys.all });
+  const upload = useMutation({
+    mutationFn: ({ file, onProgress }: { file: File; onProgress?: (p: UploadProgress) => void }) =>
+      uploadFile(url, file, { onProgress }),
+    onSuccess: refresh,
+  });
+  const remove = useMutation({
+    mutationFn: () => api.delete(url),
+    onSuccess: refresh,
+  });
+  return { upload, remove };
+}
+
+/** CSV downloads of the lists as filtered on screen (all rows, not one page). */
+export function containersCsvUrl(params: Omit<ContainerListParams, 'page' | 'pageSize'>): string {
+  return withQuery('/api/exports/containers.csv', {
+    ...params,
+    expired: flag(params.expired),
+    belowReorderPoint: flag(params.belowReorderPoint),
+    peroxideDue: flag(params.peroxideDue),
+  });
+}
+
+export function chemicalsCsvUrl(params: { q: string; storageGroup?: StorageGroup }): string {
+  return withQuery('/api/exports/chemicals.csv', params);
 }

@@ -1,6 +1,6 @@
 import { useState, type ReactNode } from 'react';
 import { Link, useNavigate, useParams } from 'react-router';
-import { ChevronLeft, Lock, Package, Pencil, Trash2 } from 'lucide-react';
+import { ChevronLeft, FileText, Lock, Package, Pencil, Trash2 } from 'lucide-react';
 import { Formula } from '../../../components/chem/formula';
 import { Badge } from '../../../components/ui/badge';
 import { Button, buttonClasses } from '../../../components/ui/button';
@@ -105,6 +105,16 @@ export function ChemicalDetailPage() {
               <Package aria-hidden="true" className="size-4" />
               Stock, containers and where they are
             </Link>
+          )}
+          {c.sds && (
+            <a
+              href={`/api/chemicals/${c.id}/sds`}
+              download={c.sds.fileName}
+              className="mt-1 ml-4 inline-flex items-center gap-1 text-sm text-accent-700 underline-offset-2 hover:underline"
+            >
+              <FileText aria-hidden="true" className="size-4" />
+              SDS: download
+            </a>
           )}
         </div>
         {mayWrite && (

@@ -1,9 +1,9 @@
 import { useId, useState, type KeyboardEvent } from 'react';
 import { useNavigate } from 'react-router';
 import { Boxes, FlaskConical, Search } from 'lucide-react';
-import { normalizeLabelCode } from '@lotwise/shared';
 import { Formula } from '../../../components/chem/formula';
 import { cn } from '../../../lib/cn';
+import { labelCodeFromScan } from '../../../lib/label-scan';
 import { useDebouncedValue } from '../../../lib/use-debounced-value';
 import { paths } from '../../../config/paths';
 import { useGlobalSearch } from '../api';
@@ -84,8 +84,9 @@ export function GlobalSearch() {
       event.preventDefault();
       const chosen = active >= 0 ? options[active] : undefined;
       if (chosen) return go(chosen.to);
-      // A scanner types the code and Enter at once: jump without waiting for results.
-      const labelCode = normalizeLabelCode(text);
+      // A scanner types the code (or the label's QR address) and Enter at once: jump
+      // without waiting for results.
+      const labelCode = labelCodeFromScan(text);
       if (labelCode) return go(paths.stockContainerByLabel(labelCode));
       if (options[0] && debounced === text) go(options[0].to);
     }
@@ -133,8 +134,8 @@ export function GlobalSearch() {
             <li role="presentation" className="px-3 py-2 text-sm text-ink-600">
               {search.isFetching || debounced !== text
                 ? 'Searching…'
-                : normalizeLabelCode(text)
-                  ? `Press Enter to open ${normalizeLabelCode(text)}`
+                : labelCodeFromScan(text)
+                  ? `Press Enter to open ${labelCodeFromScan(text)}`
                   : 'Nothing found. Try a CAS RN, a formula or a label code.'}
             </li>
           ) : (

@@ -1,9 +1,10 @@
-import type { ReactNode } from 'react';
+import { useMemo, type ReactNode } from 'react';
 import { Link, useNavigate } from 'react-router';
 import { createColumnHelper } from '@tanstack/react-table';
 import type { Container } from '@lotwise/shared';
 import { HazardCodes } from '../../../components/hazards/hazard-codes';
 import type { ServerTableFeatures } from '../../../components/ui/data-table';
+import { Checkbox } from '../../../components/ui/input';
 import { ServerTable } from '../../../components/ui/server-table';
 import { formatAmount, formatDate } from '../../../lib/format';
 import { paths } from '../../../config/paths';
@@ -107,6 +108,52 @@ const columns = column.columns([
   }),
 ]);
 
+/** Containers ticked in the list (kept across pages), and how to change the set. */
+export interface ContainerSelection {
+  selected: ReadonlySet<number>;
+  onChange: (next: Set<number>) => void;
+}
+
+function selectionColumn({ selected, onChange }: ContainerSelection, rows: Container[]) {
+  const pageIds = rows.map((c) => c.id);
+  const allOnPage = pageIds.length > 0 && pageIds.every((id) => selected.has(id));
+  const someOnPage = pageIds.some((id) => selected.has(id));
+  return column.display({
+    id: 'select',
+    header: () => (
+      <Checkbox
+        aria-label={
+          allOnPage ? 'Untick every container on this page' : 'Tick every container on this page'
+        }
+        checked={allOnPage}
+        ref={(element) => {
+          if (element) element.indeterminate = someOnPage && !allOnPage;
+        }}
+        onChange={() => {
+          const next = new Set(selected);
+          for (const id of pageIds) {
+            if (allOnPage) next.delete(id);
+            else next.add(id);
+          }
+          onChange(next);
+        }}
+      />
+    ),
+    cell: ({ row }) => (
+      <Checkbox
+        aria-label={`Tick ${row.original.labelCode}`}
+        checked={selected.has(row.original.id)}
+        onChange={() => {
+          const next = new Set(selected);
+          if (next.has(row.original.id)) next.delete(row.original.id);
+          else next.add(row.original.id);
+          onChange(next);
+        }}
+      />
+    ),
+  });
+}
+
 interface ContainersTableProps {
   rows: Container[] | undefined;
   total: number;
@@ -120,14 +167,25 @@ interface ContainersTableProps {
   onPageSizeChange: (pageSize: number) => void;
   empty: ReactNode;
   label?: string;
+  /** Adds a first column of tick boxes (for printing labels of several containers). */
+  selection?: ContainerSelection;
 }
 
-export function ContainersTable({ label = 'Containers', ...props }: ContainersTableProps) {
+export function ContainersTable({
+  label = 'Containers',
+  selection,
+  ...props
+}: ContainersTableProps) {
   const navigate = useNavigate();
+  const rows = props.rows;
+  const withSelection = useMemo(
+    () => (selection ? [selectionColumn(selection, rows ?? []), ...columns] : columns),
+    [selection, rows],
+  );
   return (
     <ServerTable
       {...props}
-      columns={columns}
+      columns={withSelection}
       getRowId={(c) => String(c.id)}
       label={label}
       noun={['container', 'containers']}

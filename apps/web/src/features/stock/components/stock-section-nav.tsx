@@ -1,5 +1,16 @@
 import { NavLink, Outlet } from 'react-router';
-import { Boxes, LayoutList, MapPin, ShieldAlert, type LucideIcon } from 'lucide-react';
+import {
+  Boxes,
+  FileUp,
+  LayoutList,
+  MapPin,
+  PackagePlus,
+  ShieldAlert,
+  Tags,
+  type LucideIcon,
+} from 'lucide-react';
+import { can, type Permission } from '@lotwise/shared';
+import { useCurrentUser } from '../../../lib/auth';
 import { paths } from '../../../config/paths';
 import { cn } from '../../../lib/cn';
 
@@ -8,21 +19,31 @@ interface Section {
   label: string;
   icon: LucideIcon;
   end?: boolean;
+  /** Shown only to roles holding it. */
+  permission?: Permission;
 }
 
-/** The parts of Stock. Import, export and labels join this list when they are built. */
+/** The parts of Stock. CSV export sits on the lists it exports. */
 const sections: Section[] = [
   { to: paths.stock, label: 'Overview', icon: LayoutList, end: true },
   { to: paths.stockContainers, label: 'Containers', icon: Boxes },
   { to: paths.stockLocations, label: 'Locations', icon: MapPin },
   { to: paths.stockSegregation, label: 'Storage conflicts', icon: ShieldAlert },
+  { to: paths.stockReceive, label: 'Receive', icon: PackagePlus, permission: 'stock.write' },
+  { to: paths.stockImport, label: 'Import', icon: FileUp, permission: 'stock.write' },
+  { to: paths.stockLabels, label: 'Labels', icon: Tags },
 ];
 
 export function StockSectionNav() {
+  const { data: user } = useCurrentUser();
+  const visible = sections.filter(
+    (section) =>
+      section.permission === undefined || (user ? can(user.role, section.permission) : false),
+  );
   return (
-    <nav aria-label="Stock" className="-mt-2 mb-5 border-b border-ink-200">
+    <nav aria-label="Stock" className="-mt-2 mb-5 border-b border-ink-200 print:hidden">
       <ul className="flex flex-wrap gap-1">
-        {sections.map(({ to, label, icon: Icon, end }) => (
+        {visible.map(({ to, label, icon: Icon, end }) => (
           <li key={to}>
             <NavLink
               to={to}

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Link, useParams } from 'react-router';
-import { Boxes, ChevronLeft, FlaskConical, TriangleAlert } from 'lucide-react';
+import { Boxes, ChevronLeft, FileText, FlaskConical, TriangleAlert } from 'lucide-react';
 import { Formula } from '../../../components/chem/formula';
 import { HazardStatementList } from '../../../components/hazards/hazard-statement-list';
 import { PictogramList } from '../../../components/hazards/pictogram-badge';
@@ -11,11 +11,13 @@ import { ErrorState } from '../../../components/ui/error-state';
 import { Notice } from '../../../components/ui/notice';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { isApiError, withQuery } from '../../../lib/api-client';
+import { useCan } from '../../../lib/auth';
 import { formatAmount, formatCount } from '../../../lib/format';
 import { paths } from '../../../config/paths';
-import { useChemicalStockItem, useContainers, useStockChemical } from '../api';
+import { storedFileUrls, useChemicalStockItem, useContainers, useStockChemical } from '../api';
 import { ContainersTable } from '../components/containers-table';
 import { StockHistorySection } from '../components/stock-history';
+import { StoredFilePanel } from '../components/stored-file-panel';
 import { ExpiryText, ReorderStatusBadge } from '../labels';
 
 const back = (
@@ -37,6 +39,7 @@ export function ChemicalStockPage() {
   const [pageSize, setPageSize] = useState(25);
   const [sort, setSort] = useState('location.asc');
   const containers = useContainers({ q: '', chemicalId: id, sort, page, pageSize });
+  const mayEditChemical = useCan('chemicals.write');
 
   if (chemical.isPending) return <PageSpinner label="Loading the chemical…" />;
   if (chemical.isError) {
@@ -122,6 +125,28 @@ export function ChemicalStockPage() {
           <HazardStatementList codes={c.hazardStatements} />
         </div>
         <SafetyCaution className="mt-3" />
+      </section>
+
+      <section
+        aria-labelledby="sds-heading"
+        className="rounded-lg border border-ink-200 bg-white px-4 py-3"
+      >
+        <h2 id="sds-heading" className="mb-1 flex items-center gap-2 text-base font-semibold">
+          <FileText aria-hidden="true" className="size-4 text-ink-600" />
+          Safety data sheet
+        </h2>
+        <p className="mb-3 text-sm text-ink-600">
+          The supplier’s SDS is the reference for handling, storage, spills and first aid. Keep the
+          current version here so anyone at the shelf can open it.
+        </p>
+        <StoredFilePanel
+          what="safety data sheet"
+          file={c.sds}
+          url={storedFileUrls.sds(c.id)}
+          kind="pdf"
+          canChange={mayEditChemical}
+          missingText={`No SDS uploaded for ${c.name} yet.${mayEditChemical ? ' Upload the supplier’s current PDF.' : ' Ask a manager to upload the supplier’s current PDF.'}`}
+        />
       </section>
 
       {stock && stock.expiredContainerCount > 0 && (

@@ -1,12 +1,13 @@
 import type { ReactNode } from 'react';
 import { Link, Navigate, useParams } from 'react-router';
-import { ChevronLeft, Lock } from 'lucide-react';
+import { ChevronLeft, Lock, Printer } from 'lucide-react';
 import type { ContainerDetail } from '@lotwise/shared';
 import { Formula } from '../../../components/chem/formula';
+import { buttonClasses } from '../../../components/ui/button';
 import { ErrorState } from '../../../components/ui/error-state';
 import { Notice } from '../../../components/ui/notice';
 import { PageSpinner } from '../../../components/ui/spinner';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, withQuery } from '../../../lib/api-client';
 import { useCan } from '../../../lib/auth';
 import { formatAmount, formatDate, formatPercent } from '../../../lib/format';
 import { paths } from '../../../config/paths';
@@ -15,6 +16,7 @@ import { ContainerActions } from '../components/container-actions';
 import { ContainerHazards } from '../components/container-hazards';
 import { lotSummary } from '../components/containers-table';
 import { DrawForm } from '../components/draw-form';
+import { LotCertificateSection } from '../components/lot-certificate';
 import { LedgerTable } from '../components/ledger-table';
 import { SegregationWarnings } from '../components/segregation-warnings';
 import { ContainerStatusBadge, ExpiryText, PeroxideDueText } from '../labels';
@@ -67,6 +69,13 @@ function ContainerView({ container: c }: { container: ContainerDetail }) {
             {formatAmount(c.quantity, c.unit)}
           </p>
           <ContainerStatusBadge status={c.status} />
+          <Link
+            to={withQuery(paths.stockLabels, { ids: c.id })}
+            className={`${buttonClasses('secondary', 'sm')} mt-1`}
+          >
+            <Printer aria-hidden="true" className="size-4" />
+            Print label
+          </Link>
         </div>
       </header>
 
@@ -158,6 +167,8 @@ function ContainerView({ container: c }: { container: ContainerDetail }) {
           )}
         </section>
       </div>
+
+      <LotCertificateSection lot={c.lot} />
 
       <section aria-labelledby="ledger-heading" className="flex flex-col gap-2">
         <h2 id="ledger-heading" className="text-base font-semibold">

@@ -1,13 +1,25 @@
-import { useCallback, useMemo } from 'react';
-import { Boxes, CalendarClock, Hourglass, SearchX, TestTube, TrendingDown, X } from 'lucide-react';
+import { useCallback, useMemo, useState } from 'react';
+import { Link } from 'react-router';
+import {
+  Boxes,
+  CalendarClock,
+  Hourglass,
+  Printer,
+  SearchX,
+  TestTube,
+  TrendingDown,
+  X,
+} from 'lucide-react';
 import { containerStatuses } from '@lotwise/shared';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
-import { Button } from '../../../components/ui/button';
+import { Button, buttonClasses } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { Select } from '../../../components/ui/input';
+import { withQuery } from '../../../lib/api-client';
 import { daysLeftInMonth } from '../../../lib/dates';
-import { useContainers } from '../api';
+import { paths } from '../../../config/paths';
+import { containersCsvUrl, useContainers } from '../api';
 import { ContainersTable } from '../components/containers-table';
 import {
   ExpiringSelect,
@@ -17,6 +29,7 @@ import {
   StorageGroupSelect,
 } from '../components/filter-controls';
 import { LocationSelect } from '../components/location-select';
+import { AddStockLinks, CsvDownloads, PageHeader } from '../components/page-actions';
 import { containerStatusLooks } from '../labels';
 import { useContainerListParams } from '../list-params';
 
@@ -26,6 +39,11 @@ export function ContainersListPage() {
   const monthDays = useMemo(() => daysLeftInMonth(), []);
   const handleSearch = useCallback((q: string) => update({ q }, { replace: true }), [update]);
   const thisMonth = query.expiringWithinDays === monthDays;
+  const [selected, setSelected] = useState<Set<number>>(() => new Set());
+  const selection = useMemo(() => ({ selected, onChange: setSelected }), [selected]);
+  const pageIds = containers.data?.items.map((c) => c.id) ?? [];
+  const labelIds = selected.size > 0 ? [...selected] : pageIds;
+  const { page: _page, pageSize: _pageSize, ...filters } = query;
 
   const toggle = (key: 'expired' | 'belowReorderPoint' | 'peroxideDue') =>
     update({ filters: { [key]: query[key] ? undefined : 'true' } });
@@ -48,13 +66,10 @@ export function ContainersListPage() {
 
   return (
     <div className="flex flex-col gap-5">
-      <header>
-        <h1 className="text-xl font-semibold text-ink-900">Containers</h1>
-        <p className="text-sm text-ink-600">
-          Every labelled bottle, jar and bag: where it is, how much it holds and when it expires.
-          Open one to record a draw.
-        </p>
-      </header>
+      <PageHeader title="Containers" actions={<AddStockLinks />}>
+        Every labelled bottle, jar and bag: where it is, how much it holds and when it expires. Open
+        one to record a draw.
+      </PageHeader>
 
       <div role="search" className="flex flex-col gap-3">
         <div className="flex flex-wrap items-end gap-3">
@@ -168,8 +183,32 @@ export function ContainersListPage() {
           onPageChange={(page) => update({ page })}
           onPageSizeChange={(pageSize) => update({ pageSize })}
           empty={empty}
+          selection={selection}
         />
       )}
+      <div className="flex flex-col gap-3 border-t border-ink-200 pt-4">
+        <div className="flex flex-wrap items-center gap-2">
+          {labelIds.length > 0 && (
+            <Link
+              to={withQuery(paths.stockLabels, { ids: labelIds.join(',') })}
+              className={buttonClasses('secondary', 'sm')}
+            >
+              <Printer aria-hidden="true" className="size-4" />
+              {selected.size > 0
+                ? `Print labels for ${selected.size} ticked`
+                : `Print labels for this page (${pageIds.length})`}
+            </Link>
+          )}
+          {selected.size > 0 && (
+            <Button size="sm" variant="ghost" onClick={() => setSelected(new Set())}>
+              Untick all
+            </Button>
+          )}
+        </div>
+        <CsvDownloads
+          links={[{ href: containersCsvUrl(filters), label: 'Download these containers (CSV)' }]}
+        />
+      </div>
       <SafetyCaution compact />
     </div>
   );

@@ -25,7 +25,12 @@ import { withQuery } from '../../../lib/api-client';
 import { daysLeftInMonth } from '../../../lib/dates';
 import { formatAmount, formatCount } from '../../../lib/format';
 import { paths } from '../../../config/paths';
-import { useSegregationConflicts, useStockOverview } from '../api';
+import {
+  chemicalsCsvUrl,
+  containersCsvUrl,
+  useSegregationConflicts,
+  useStockOverview,
+} from '../api';
 import {
   ExpiringSelect,
   FilterChip,
@@ -35,6 +40,7 @@ import {
   StorageGroupSelect,
 } from '../components/filter-controls';
 import { LocationSelect } from '../components/location-select';
+import { AddStockLinks, CsvDownloads, PageHeader } from '../components/page-actions';
 import { ExpiryText, ReorderStatusBadge } from '../labels';
 import { useStockListParams } from '../list-params';
 
@@ -157,13 +163,10 @@ export function StockOverviewPage() {
 
   return (
     <div className="flex flex-col gap-5">
-      <header>
-        <h1 className="text-xl font-semibold text-ink-900">Stock</h1>
-        <p className="text-sm text-ink-600">
-          How much of each chemical is usable — sealed or open, and in date — and how many
-          containers hold it. Open a chemical to see where its containers are.
-        </p>
-      </header>
+      <PageHeader title="Stock" actions={<AddStockLinks />}>
+        How much of each chemical is usable — sealed or open, and in date — and how many containers
+        hold it. Open a chemical to see where its containers are.
+      </PageHeader>
 
       <section aria-label="Quick views" className="grid gap-2 sm:grid-cols-2 lg:grid-cols-4">
         <QuickLink
@@ -288,6 +291,25 @@ export function StockOverviewPage() {
           empty={empty}
         />
       )}
+      <CsvDownloads
+        links={[
+          {
+            href: chemicalsCsvUrl({ q: query.q, storageGroup: query.storageGroup }),
+            label: 'Download chemicals (CSV)',
+          },
+          {
+            href: containersCsvUrl({
+              q: query.q,
+              sort: 'chemical.asc',
+              locationId: query.locationId,
+              storageGroup: query.storageGroup,
+              belowReorderPoint: query.belowReorderPoint,
+              expiringWithinDays: query.expiringWithinDays,
+            }),
+            label: 'Download their containers (CSV)',
+          },
+        ]}
+      />
       <SafetyCaution compact />
     </div>
   );

@@ -1,0 +1,411 @@
+import { useEffect, useState } from 'react';
+import { Link, useSearchParams } from 'react-router';
+import { ChevronLeft, CircleCheck, Download, FileWarning, Upload } from 'lucide-react';
+import { importColumns, importRowLimit, type Import } from '@lotwise/shared';
+import { SafetyCaution } from '../../../components/hazards/safety-caution';
+import { Button, buttonClasses } from '../../../components/ui/button';
+import { ErrorState } from '../../../components/ui/error-state';
+import { FileDrop } from '../../../components/ui/file-drop';
+import { Notice } from '../../../components/ui/notice';
+import { ProgressBar } from '../../../components/ui/progress-bar';
+import { PageSpinner } from '../../../components/ui/spinner';
+import { errorMessage, withQuery } from '../../../lib/api-client';
+import { formatCount } from '../../../lib/format';
+import { formatFileSize, uploadErrorMessage, type UploadProgress } from '../../../lib/upload';
+import { paths } from '../../../config/paths';
+import {
+  exampleCsvHref,
+  isWorking,
+  useCommitImport,
+  useImport,
+  useRefreshAfterImport,
+  useUploadImport,
+} from '../api';
+import { ImportErrorsTable } from '../components/import-errors-table';
+import { ImportSummaryTiles } from '../components/import-summary';
+
+const allOrNothing =
+  'The import is all or nothing: every row is written in one go when you confirm, or none is.';
+
+const rows = (n: number) => `${formatCount(n)} ${n === 1 ? 'row' : 'rows'}`;
+
+function ColumnGuide() {
+  return (
+    <details className="rounded-lg border border-ink-200 bg-white px-4 py-3 text-sm">
+      <summary className="cursor-pointer font-semibold text-ink-900">
+        The columns Lotwise reads
+      </summary>
+      <p className="mt-2 text-ink-700">
+        One row per container. Headers may be written in any letter case; the first row must hold
+        them. Columns Lotwise does not know are ignored (the preview says which).
+      </p>
+      <div className="mt-2 overflow-x-auto">
+        <table className="w-full text-left text-sm">
+          <thead className="border-b border-ink-200 text-xs tracking-wide text-ink-600 uppercase">
+            <tr>
+              <th className="py-1.5 pr-3">Header</th>
+              <th className="py-1.5 pr-3">Needed</th>
+              <th className="py-1.5 pr-3">What it holds</th>
+              <th className="py-1.5">Example</th>
+            </tr>
+          </thead>
+          <tbody>
+            {importColumns.map((column) => (
+              <tr key={column.key} className="border-b border-ink-100 align-top last:border-b-0">
+                <td className="py-1.5 pr-3 font-medium whitespace-nowrap">{column.header}</td>
+                <td className="py-1.5 pr-3">{column.required ? 'yes' : 'no'}</td>
+                <td className="py-1.5 pr-3 text-ink-700">{column.description}</td>
+                <td className="py-1.5">
+                  <code className="rounded bg-ink-100 px-1 text-xs whitespace-nowrap">
+                    {column.example}
+                  </code>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </details>
+  );
+}
+
+function UploadStep({
+  onFile,
+  progress,
+  error,
+  fileName,
+}: {
+  onFile: (file: File) => void;
+  progress: UploadProgress | null;
+  error: unknown;
+  fileName: string | null;
+}) {
+  return (
+    <div className="flex flex-col gap-4">
+      <FileDrop
+        accept=".csv,text/csv,text/plain"
+        onFile={onFile}
+        disabled={progress !== null}
+        title="Drop the CSV file here, or choose it"
+      >
+        Saved from a spreadsheet as CSV (comma separated, UTF-8), up to{' '}
+        {formatCount(importRowLimit)} rows. Nothing is written until you have seen the preview and
+        confirmed.
+      </FileDrop>
+      {progress && (
+        <ProgressBar
+          label={`Uploading ${fileName ?? 'the file'}`}
+          value={progress.loaded}
+          max={progress.total}
+          detail={`${formatFileSize(progress.loaded)} of ${formatFileSize(progress.total)} sent`}
+        />
+      )}
+      {error !== null && error !== undefined && (
+        <Notice tone="danger" title="The file was not accepted">
+          {uploadErrorMessage(error, 'csv')}
+        </Notice>
+      )}
+      <div className="flex flex-wrap items-center gap-3 text-sm">
+        <a
+          href={exampleCsvHref}
+          download="lotwise-stock-import-example.csv"
+          className={buttonClasses('secondary', 'sm')}
+        >
+          <Download aria-hidden="true" className="size-4" />
+          Download the example CSV
+        </a>
+        <span className="text-ink-600">
+          Every column, with a few rows of invented stock: replace them with yours, or match your
+          own headers to it.
+        </span>
+      </div>
+      <ColumnGuide />
+    </div>
+  );
+}
+
+function Preview({
+  data,
+  errorsPage,
+  errorsPageSize,
+  onErrorsPage,
+  onErrorsPageSize,
+  refreshing,
+  onReupload,
+}: {
+  data: Import;
+  errorsPage: number;
+  errorsPageSize: number;
+  onErrorsPage: (page: number) => void;
+  onErrorsPageSize: (size: number) => void;
+  refreshing: boolean;
+  onReupload: (file: File) => void;
+}) {
+  const commit = useCommitImport(data.id);
+  const rowCount = data.summary?.rows ?? data.totalRows;
+  const invalid = data.status === 'invalid' || data.errorCount > 0;
+  const blockedReason = invalid
+    ? `Cannot import: the file has ${formatCount(data.errorCount)} ${data.errorCount === 1 ? 'problem' : 'problems'}. Correct ${data.errorCount === 1 ? 'it' : 'them'} in the spreadsheet and upload the file again.`
+    : rowCount === 0
+      ? 'Cannot import: the file has no rows of stock.'
+      : null;
+
+  return (
+    <div className="flex flex-col gap-5">
+      <section aria-labelledby="preview-heading" className="flex flex-col gap-3">
+        <h2 id="preview-heading" className="text-base font-semibold">
+          Preview of {data.fileName}
+        </h2>
+        <p className="text-sm text-ink-700 tabular-nums">
+          {rows(rowCount)} read
+          {data.summary && data.summary.blankRowsSkipped > 0 && (
+            <>, {rows(data.summary.blankRowsSkipped)} left blank and skipped</>
+          )}
+          .{' '}
+          {invalid
+            ? 'Nothing can be imported until every problem is fixed.'
+            : 'Nothing has been written yet.'}
+        </p>
+        {data.summary && <ImportSummaryTiles summary={data.summary} />}
+        {data.warnings.length > 0 && (
+          <Notice tone="warn" title="Worth a look (these do not stop the import)">
+            <ul className="list-disc pl-4">
+              {data.warnings.map((warning) => (
+                <li key={warning}>{warning}</li>
+              ))}
+            </ul>
+          </Notice>
+        )}
+      </section>
+
+      {data.errorCount > 0 && (
+        <section aria-labelledby="problems-heading" className="flex flex-col gap-2">
+          <h2 id="problems-heading" className="flex items-center gap-2 text-base font-semibold">
+            <FileWarning aria-hidden="true" className="size-4 text-danger-700" />
+            {formatCount(data.errorCount)} {data.errorCount === 1 ? 'problem' : 'problems'} to fix
+          </h2>
+          <p className="text-sm text-ink-600">
+            Row numbers are those the spreadsheet shows (the header is row 1).
+          </p>
+          <ImportErrorsTable
+            problems={data.errors}
+            total={data.errorCount}
+            page={errorsPage}
+            pageSize={errorsPageSize}
+            loading={false}
+            refreshing={refreshing}
+            onPageChange={onErrorsPage}
+            onPageSizeChange={onErrorsPageSize}
+          />
+        </section>
+      )}
+
+      <section
+        aria-labelledby="confirm-heading"
+        className="flex flex-col gap-3 rounded-lg border border-ink-200 bg-white px-4 py-3"
+      >
+        <h2 id="confirm-heading" className="text-base font-semibold">
+          Import
+        </h2>
+        <p className="text-sm text-ink-700">{allOrNothing}</p>
+        {commit.isError && (
+          <Notice tone="danger" title="Nothing was imported">
+            {errorMessage(commit.error)}
+          </Notice>
+        )}
+        <div className="flex flex-wrap items-center gap-3">
+          <Button
+            variant="primary"
+            disabled={blockedReason !== null}
+            busy={commit.isPending}
+            aria-describedby={blockedReason ? 'import-blocked' : undefined}
+            onClick={() => commit.mutate()}
+            icon={<CircleCheck aria-hidden="true" className="size-4" />}
+          >
+            Import {rows(rowCount)}
+          </Button>
+          {blockedReason && (
+            <p id="import-blocked" className="text-sm font-medium text-danger-700">
+              {blockedReason}
+            </p>
+          )}
+        </div>
+        <div className="border-t border-ink-100 pt-3">
+          <FileDrop
+            accept=".csv,text/csv,text/plain"
+            onFile={onReupload}
+            title={invalid ? 'Upload the corrected file' : 'Upload another file instead'}
+          >
+            This preview is dropped and the new file is checked from the start.
+          </FileDrop>
+        </div>
+      </section>
+    </div>
+  );
+}
+
+function Committed({ data, onAnother }: { data: Import; onAnother: () => void }) {
+  const refresh = useRefreshAfterImport();
+  useEffect(() => {
+    void refresh();
+    // Once, when the import is done.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [data.id]);
+  return (
+    <div className="flex flex-col gap-4">
+      <Notice tone="ok" title={`${data.fileName} is imported`}>
+        {rows(data.summary?.rows ?? data.totalRows)} written in one go
+        {data.createdBy && <> by {data.createdBy.displayName}</>}.
+      </Notice>
+      {data.summary && <ImportSummaryTiles summary={data.summary} done />}
+      <div className="flex flex-wrap gap-2">
+        <Link
+          to={withQuery(paths.stockContainers, { sort: 'updatedAt.desc' })}
+          className={buttonClasses('primary')}
+        >
+          See the containers
+        </Link>
+        <Link to={paths.stock} className={buttonClasses('secondary')}>
+          Stock overview
+        </Link>
+        <Link to={paths.stockLocations} className={buttonClasses('secondary')}>
+          Locations
+        </Link>
+        <Button onClick={onAnother} icon={<Upload aria-hidden="true" className="size-4" />}>
+          Import another file
+        </Button>
+      </div>
+      {data.summary && data.summary.chemicals.new > 0 && (
+        <p className="text-sm text-ink-700">
+          New chemicals carry only what the file said about them: check their hazards, storage group
+          and reorder point on the chemicals list.
+        </p>
+      )}
+    </div>
+  );
+}
+
+/** `/stock/import`: existing stock from a spreadsheet, checked and previewed before it is written. */
+export function ImportPage() {
+  const [searchParams, setSearchParams] = useSearchParams();
+  const importId = Number(searchParams.get('import')) || null;
+  const [errorsPage, setErrorsPage] = useState(1);
+  const [errorsPageSize, setErrorsPageSize] = useState(25);
+  const [progress, setProgress] = useState<UploadProgress | null>(null);
+  const [fileName, setFileName] = useState<string | null>(null);
+  const upload = useUploadImport();
+  const current = useImport(importId, errorsPage, errorsPageSize);
+
+  const show = (id: number | null) => {
+    setErrorsPage(1);
+    setSearchParams(
+      (previous) => {
+        const next = new URLSearchParams(previous);
+        if (id === null) next.delete('import');
+        else next.set('import', String(id));
+        return next;
+      },
+      { replace: id === null },
+    );
+  };
+
+  function handleFile(file: File) {
+    setFileName(file.name);
+    setProgress({ loaded: 0, total: file.size });
+    show(null);
+    upload.mutate(
+      { file, onProgress: setProgress },
+      {
+        onSuccess: (result) => show(result.id),
+        onSettled: () => setProgress(null),
+      },
+    );
+  }
+
+  const data = current.data;
+  let body;
+  if (importId === null || progress !== null) {
+    body = (
+      <UploadStep
+        onFile={handleFile}
+        progress={progress}
+        error={upload.isError ? upload.error : null}
+        fileName={fileName}
+      />
+    );
+  } else if (current.isPending) {
+    body = <PageSpinner label="Loading the import…" />;
+  } else if (current.isError && !data) {
+    body = (
+      <ErrorState
+        title="The import could not be loaded"
+        error={current.error}
+        onRetry={() => void current.refetch()}
+      />
+    );
+  } else if (data && isWorking(data.status)) {
+    const checking = data.status === 'validating';
+    body = (
+      <div className="flex flex-col gap-3 rounded-lg border border-ink-200 bg-white px-4 py-4">
+        <ProgressBar
+          label={checking ? `Checking ${data.fileName}` : `Importing ${data.fileName}`}
+          value={data.processedRows}
+          max={data.totalRows}
+          detail={`${formatCount(data.processedRows)} of ${formatCount(data.totalRows)} rows ${checking ? 'checked' : 'written'}`}
+        />
+        <p className="text-sm text-ink-600">
+          {checking
+            ? 'Every row is checked before anything is written. You can leave this page and come back.'
+            : 'Writing all rows in one transaction: if anything fails, none is kept.'}
+        </p>
+      </div>
+    );
+  } else if (data && data.status === 'committed') {
+    body = <Committed data={data} onAnother={() => show(null)} />;
+  } else if (data && data.status === 'failed') {
+    body = (
+      <div className="flex flex-col gap-4">
+        <Notice tone="danger" title="Nothing was imported">
+          {data.failure ?? 'The import stopped.'} No row of {data.fileName} was written.
+        </Notice>
+        <UploadStep onFile={handleFile} progress={null} error={null} fileName={null} />
+      </div>
+    );
+  } else if (data) {
+    body = (
+      <Preview
+        data={data}
+        errorsPage={errorsPage}
+        errorsPageSize={errorsPageSize}
+        onErrorsPage={setErrorsPage}
+        onErrorsPageSize={(size) => {
+          setErrorsPageSize(size);
+          setErrorsPage(1);
+        }}
+        refreshing={current.isPlaceholderData || current.isFetching}
+        onReupload={handleFile}
+      />
+    );
+  }
+
+  return (
+    <div className="flex flex-col gap-5">
+      <Link
+        to={paths.stockContainers}
+        className="inline-flex items-center gap-1 text-sm text-ink-600 hover:text-ink-900"
+      >
+        <ChevronLeft aria-hidden="true" className="size-4" />
+        All containers
+      </Link>
+      <header>
+        <h1 className="text-xl font-semibold text-ink-900">Import stock from CSV</h1>
+        <p className="max-w-3xl text-sm text-ink-600">
+          Bring in an existing stock list: chemicals, lots, containers and their places (by path) in
+          one file. Lotwise checks every row and shows what it would add. {allOrNothing}
+        </p>
+      </header>
+      {body}
+      <SafetyCaution compact />
+    </div>
+  );
+}
