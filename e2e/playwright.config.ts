@@ -50,6 +50,11 @@ export default defineConfig({
       SEED_DEMO: 'true',
       LOGIN_RATE_LIMIT: '1000',
       PUBLIC_URL: baseURL,
+      // the dev inbox on ports of its own, so a developer's running Lotwise does not clash
+      DEV_MAIL_SMTP_PORT: String(port + 1),
+      DEV_MAIL_WEB_PORT: String(port + 2),
+      ALERT_INTERVAL_SECONDS: '0',
+      OUTBOX_INTERVAL_SECONDS: '1',
     },
   },
 });

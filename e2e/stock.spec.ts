@@ -34,7 +34,8 @@ test.describe('stock', () => {
     // weighing by difference: gross = tare + balance − 12.50 g means 12.50 g were taken
     const gross = (tareMass! + quantity - 12.5).toFixed(2);
     const form = page.getByRole('form', { name: 'Record a draw' });
-    await form.getByRole('button', { name: /weigh the container/i }).click();
+    await form.locator('label', { hasText: 'Weigh the container' }).click();
+    await expect(form.getByRole('radio', { name: /weigh the container/i })).toBeChecked();
     await form.getByLabel(/gross mass/i).fill(gross);
     await expect(form.getByText('12.50 g')).toBeVisible(); // the preview before saving
     await form.getByRole('button', { name: 'Record draw' }).click();
@@ -61,11 +62,9 @@ test.describe('stock', () => {
     expect(container).toBeTruthy();
     await page.goto(`/stock/containers/${container!.id}`);
     const form = page.getByRole('form', { name: 'Record a draw' });
-    await form.getByRole('button', { name: /amount taken/i }).click();
-    await form
-      .getByLabel(/amount/i)
-      .first()
-      .fill(String(Math.ceil(container!.quantity + 100)));
+    await form.locator('label', { hasText: 'Amount taken' }).click();
+    await expect(form.getByRole('radio', { name: /amount taken/i })).toBeChecked();
+    await form.locator('input[name="value"]').fill(String(Math.ceil(container!.quantity + 100)));
     await form.getByRole('button', { name: 'Record draw' }).click();
     await expect(page.getByText('Not recorded')).toBeVisible();
     await expect(page.getByText(new RegExp(`${container!.labelCode} holds only`))).toBeVisible();
