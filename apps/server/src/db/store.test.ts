@@ -26,4 +26,51 @@ describe('store transactions', () => {
     await expect(failed).rejects.toThrow('boom');
     await expect(next).resolves.toBe('ran');
   });
+
+  it('when a lone write arrives while a failing transaction awaits, then it is kept, not rolled back with it', async () => {
+    const { store } = testContext();
+    const now = new Date().toISOString();
+    let release!: () => void;
+    const gate = new Promise<void>((resolve) => (release = resolve));
+    const failing = store.transaction(async (repos) => {
+      await repos.locations.insert(
+        {
+          name: 'Rolled back room',
+          kind: 'room',
+          parentId: null,
+          storageGroups: [],
+          notes: '',
+          createdAt: now,
+          updatedAt: now,
+        },
+        null,
+      );
+      await gate;
+      throw new Error('import failed midway');
+    });
+    // the lone write waits for the transaction instead of joining it
+    const lone = store.repos.locations.insert(
+      {
+        name: 'Kept room',
+        kind: 'room',
+        parentId: null,
+        storageGroups: [],
+        notes: '',
+        createdAt: now,
+        updatedAt: now,
+      },
+      null,
+    );
+    release();
+    await expect(failing).rejects.toThrow('import failed midway');
+    const kept = await lone;
+    expect(await store.repos.locations.findRow(kept.id)).toMatchObject({ name: 'Kept room' });
+    expect(await store.repos.locations.siblingNamed(null, 'Rolled back room')).toBeNull();
+  });
+
+  it('when a transaction is opened inside another, then it joins it instead of waiting for itself', async () => {
+    const { store } = testContext();
+    const answer = await store.transaction(async () => store.transaction(async () => 'joined'));
+    expect(answer).toBe('joined');
+  });
 });

@@ -1,3 +1,4 @@
+import { AsyncLocalStorage } from 'node:async_hooks';
 import type { DataSource, EntityManager } from 'typeorm';
 import { alertsRepository } from '../modules/alerts/alerts.repository';
 import { auditRepository } from '../modules/audit/audit.repository';
@@ -57,11 +58,14 @@ export function noteLedgerChange(repos: Repositories, chemicalId: number) {
 }
 
 /**
- * The tail of the transaction queue per database. better-sqlite3 has one connection and
- * TypeORM one query runner for it, so two transactions whose awaits interleave would share
- * one BEGIN…COMMIT. Queuing them makes each read-check-write (e.g. a draw) run alone.
+ * The tail of the queue per database. better-sqlite3 has one connection and TypeORM one query
+ * runner for it, so anything that runs while a transaction awaits would land inside that
+ * transaction: two transactions would share one BEGIN…COMMIT, and a lone write made during a
+ * long import would be rolled back with it. Every transaction and every call on `store.repos`
+ * therefore waits its turn; code already inside a transaction runs at once, in it.
  */
 const queues = new WeakMap<DataSource, Promise<unknown>>();
+const openTransaction = new AsyncLocalStorage<Repositories>();
 
 function serialized<T>(dataSource: DataSource, work: () => Promise<T>): Promise<T> {
   const previous = queues.get(dataSource) ?? Promise.resolve();
@@ -73,28 +77,60 @@ function serialized<T>(dataSource: DataSource, work: () => Promise<T>): Promise<
   return run;
 }
 
+type AsyncMethods<R> = {
+  [K in keyof R]: R[K] extends (...args: infer _A) => Promise<unknown> ? R[K] : never;
+};
+
+/** Repositories whose every call waits its turn in the queue (or joins the open transaction). */
+function queuedRepositories(dataSource: DataSource): Repositories {
+  const direct = repositoriesFor(dataSource.manager);
+  const queued = {} as Record<string, Record<string, unknown>>;
+  for (const [name, repository] of Object.entries(direct)) {
+    // every repository method answers a promise, so each can wait in the queue
+    const methods: AsyncMethods<typeof repository> = repository;
+    queued[name] = Object.fromEntries(
+      Object.entries(methods).map(([key, method]) => [
+        key,
+        (...args: unknown[]) => {
+          const call = () =>
+            (method as (...a: unknown[]) => Promise<unknown>).apply(repository, args);
+          return openTransaction.getStore() ? call() : serialized(dataSource, call);
+        },
+      ]),
+    );
+  }
+  return queued as unknown as Repositories;
+}
+
 export function createStore(dataSource: DataSource): Store {
   const listeners: LedgerChangeListener[] = [];
-  return {
-    repos: repositoriesFor(dataSource.manager),
-    transaction: (work) =>
-      serialized(dataSource, () =>
-        dataSource.transaction(async (manager) => {
-          const repos = repositoriesFor(manager);
-          const changed = new Set<number>();
-          ledgerChanges.set(repos, changed);
-          const result = await work(repos);
-          if (changed.size > 0) {
-            for (const listener of listeners) await listener(repos, [...changed]);
+  const transaction = <T>(work: (repos: Repositories) => Promise<T>): Promise<T> => {
+    // a transaction opened inside another one joins it instead of waiting for itself
+    const open = openTransaction.getStore();
+    if (open) return work(open);
+    return serialized(dataSource, () =>
+      dataSource.transaction(async (manager) => {
+        const repos = repositoriesFor(manager);
+        const changed = new Set<number>();
+        ledgerChanges.set(repos, changed);
+        const result = await openTransaction.run(repos, () => work(repos));
+        if (changed.size > 0) {
+          for (const listener of listeners) {
+            await openTransaction.run(repos, () => listener(repos, [...changed]));
           }
-          return result;
-        }),
-      ),
+        }
+        return result;
+      }),
+    );
+  };
+  return {
+    repos: queuedRepositories(dataSource),
+    transaction,
     onLedgerChange(listener) {
       listeners.push(listener);
     },
     async ping() {
-      await dataSource.query('SELECT 1');
+      await serialized(dataSource, () => dataSource.query('SELECT 1'));
     },
   };
 }
