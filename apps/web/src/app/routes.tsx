@@ -6,6 +6,7 @@ import { paths } from '../config/paths';
 import { ChemicalsListPage } from '../features/chemicals/pages/chemicals-list-page';
 import { ChemicalDetailPage } from '../features/chemicals/pages/chemical-detail-page';
 import { ComingSoonPage, comingCapabilities } from './routes/coming-soon';
+import { preparationRoutes } from './preparation-routes';
 import { RequirePermission, SignedInLayout } from './routes/guards';
 import { NotFoundPage, RouteErrorPage } from './routes/status-pages';
 
@@ -163,20 +164,19 @@ export const routes: RouteObject[] = [
           },
           {
             path: paths.preparations,
-            element: (
-              <RequirePermission permission="procedures.read">
-                <ComingSoonPage capability={comingCapabilities.preparations} />
-              </RequirePermission>
-            ),
+            element: <RequirePermission permission="procedures.read" />,
+            children: [
+              {
+                lazy: async () => ({
+                  Component: (await import('../features/preparations/components/section-nav'))
+                    .PreparationsLayout,
+                }),
+                children: preparationRoutes,
+              },
+            ],
           },
-          {
-            path: paths.runs,
-            element: (
-              <RequirePermission permission="runs.record">
-                <ComingSoonPage capability={comingCapabilities.runs} />
-              </RequirePermission>
-            ),
-          },
+          // The runs list moved under Preparations; old links still arrive.
+          { path: '/runs', element: <Navigate to={paths.runs} replace /> },
           {
             path: paths.orders,
             element: (
@@ -187,11 +187,37 @@ export const routes: RouteObject[] = [
           },
           {
             path: paths.alerts,
-            element: (
-              <RequirePermission permission="alerts.read">
-                <ComingSoonPage capability={comingCapabilities.alerts} />
-              </RequirePermission>
-            ),
+            lazy: async () => {
+              const { AlertsPage } = await import('../features/alerts/pages/alerts-page');
+              return {
+                element: (
+                  <RequirePermission permission="alerts.read">
+                    <AlertsPage />
+                  </RequirePermission>
+                ),
+              };
+            },
+          },
+          {
+            // every e-mail's footer links here, so any signed-in person may open it
+            path: paths.alertPreferences,
+            lazy: async () => ({
+              Component: (await import('../features/alerts/pages/preferences-page'))
+                .AlertPreferencesPage,
+            }),
+          },
+          {
+            path: paths.adminOutbox,
+            lazy: async () => {
+              const { OutboxPage } = await import('../features/alerts/pages/outbox-page');
+              return {
+                element: (
+                  <RequirePermission permission="outbox.manage">
+                    <OutboxPage />
+                  </RequirePermission>
+                ),
+              };
+            },
           },
           {
             path: paths.adminUsers,

@@ -23,8 +23,27 @@ export const paths = {
   /** `?ids=1,2,3` or `?labelCodes=LW-00001,LW-00002`. */
   stockLabels: '/stock/labels',
   preparations: '/preparations',
-  runs: '/runs',
+  procedures: '/preparations/procedures',
+  procedureNew: '/preparations/procedures/new',
+  procedure: (id: number | string = ':id') => `/preparations/procedures/${id}`,
+  procedureEdit: (id: number | string = ':id') => `/preparations/procedures/${id}/edit`,
+  plans: '/preparations/plans',
+  /** `?procedureId=4&factor=0.13` fills the form in. */
+  planNew: '/preparations/plans/new',
+  plan: (id: number | string = ':id') => `/preparations/plans/${id}`,
+  planDispensing: (id: number | string = ':id') => `/preparations/plans/${id}/dispensing`,
+  runs: '/preparations/runs',
+  /** `?planId=2`, or `?procedureId=1` for a run without a plan. */
+  runNew: '/preparations/runs/new',
+  run: (id: number | string = ':id') => `/preparations/runs/${id}`,
+  runRecord: (id: number | string = ':id') => `/preparations/runs/${id}/record`,
+  /** Where a chemical was used in runs and procedures. */
+  chemicalUsage: (chemicalId: number | string = ':chemicalId') =>
+    `/preparations/usage/${chemicalId}`,
+  lotProvenance: (id: number | string = ':id') => `/preparations/lots/${id}/provenance`,
   orders: '/orders',
   alerts: '/alerts',
+  alertPreferences: '/alerts/preferences',
+  adminOutbox: '/admin/outbox',
   adminUsers: '/admin/users',
 } as const;

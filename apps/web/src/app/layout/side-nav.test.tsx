@@ -32,7 +32,7 @@ describe('SideNav', () => {
     ]);
   });
 
-  it('when an admin signs in, then People under Admin shows too', () => {
+  it('when an admin signs in, then People and Outbox under Admin show too', () => {
     expect(navLabels('admin')).toEqual([
       'Chemicals',
       'Stock',
@@ -41,6 +41,7 @@ describe('SideNav', () => {
       'Orders',
       'Alerts',
       'People',
+      'Outbox',
     ]);
     expect(screen.getByText('Admin')).toBeInTheDocument();
   });
@@ -51,7 +52,8 @@ describe('SideNav', () => {
         <SideNav role="manager" />
       </MemoryRouter>,
     );
-    expect(screen.getByRole('link', { name: /Preparations/ })).toHaveTextContent('coming');
+    expect(screen.getByRole('link', { name: /Orders/ })).toHaveTextContent('coming');
+    expect(screen.getByRole('link', { name: /Preparations/ })).not.toHaveTextContent('coming');
     expect(screen.getByRole('link', { name: /Stock/ })).not.toHaveTextContent('coming');
     expect(screen.getByRole('link', { name: /Chemicals/ })).not.toHaveTextContent('coming');
   });

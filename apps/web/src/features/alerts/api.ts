@@ -17,12 +17,13 @@ import {
   type OutboxStatus,
 } from '@lotwise/shared';
 import { api, apiRequest, withQuery } from '../../lib/api-client';
+import { paths } from '../../config/paths';
 
 /** Web paths of the alert screens (to be listed in config/paths.ts when wired). */
 export const alertPaths = {
-  alerts: '/alerts',
-  preferences: '/alerts/preferences',
-  outbox: '/admin/outbox',
+  alerts: paths.alerts,
+  preferences: paths.alertPreferences,
+  outbox: paths.adminOutbox,
 } as const;
 
 export interface OutboxListParams {
