@@ -1,0 +1,86 @@
+import { expect, test } from '@playwright/test';
+import { demo, signIn } from './support';
+
+test('when a technician plans 8 benches at 1/4 scale, then the shortfall, make-versus-buy, reservation and recorded run with two crops all follow', async ({
+  page,
+}) => {
+  test.setTimeout(60_000);
+  await signIn(page, demo.manager);
+
+  // plan the session
+  await page.goto('/preparations/plans/new');
+  const form = page.getByRole('form', { name: 'Plan a session' });
+  await form
+    .getByLabel('Procedure')
+    .selectOption({ label: 'Dibenzalacetone by aldol condensation' });
+  await form.getByLabel('Scale per bench').fill('1/4');
+  await form.getByLabel('Benches or groups').fill('8');
+  await form.getByRole('button', { name: 'Check stock for this session' }).click();
+
+  // 8 benches × 1/4 × 1.10 overage = factor 2.2 of the base scale (hand calculation)
+  await expect(page.getByText(/factor 2\.2 of the base scale/)).toBeVisible();
+  await expect(
+    page.getByText(/SDS, local regulations and licensed practice/).first(),
+  ).toBeVisible();
+  await expect(page.getByText('GHS05').first()).toBeVisible();
+  // the demo lab holds 13.5 mL of 1 M NaOH solution against 44.0 mL needed
+  await expect(page.getByText('short by 30.5 mL')).toBeVisible();
+  await expect(page.getByText(/Prepare it first/)).toBeVisible();
+  await expect(page.getByRole('link', { name: 'Plan that preparation' })).toBeVisible();
+
+  await page.getByRole('button', { name: 'Reserve', exact: true }).click();
+  await expect(page.getByRole('table', { name: 'Held for this plan' })).toBeVisible();
+
+  // record the run: acetone (the limiting reagent) weighed before and after, benzaldehyde by amount
+  await page.getByRole('link', { name: 'Record the run' }).click();
+  await page.getByRole('button', { name: 'Start recording' }).click();
+  const record = page.getByRole('form', { name: 'Record the run' });
+  await expect(record).toBeVisible();
+  const acetone = record.getByRole('listitem', { name: /Line \d+: Acetone/ });
+  const acetoneDraw = acetone.getByRole('group', { name: /draw 1$/ });
+  await acetoneDraw.locator('label', { hasText: 'Weighed the container' }).click();
+  await acetoneDraw.getByLabel('Gross mass before (g)').fill('250.00');
+  await acetoneDraw.getByLabel('Gross mass after (g)').fill('248.89'); // 1.11 g of acetone
+  const benzaldehyde = record.getByRole('listitem', { name: /Line \d+: Benzaldehyde/ });
+  await benzaldehyde
+    .getByRole('group', { name: /draw 1$/ })
+    .getByRole('textbox', { name: 'Amount' })
+    .fill('4.4');
+
+  // the rest as planned: all of the 13.5 mL of NaOH solution there is, the solvent and the water
+  for (const [name, amount] of [
+    ['Sodium hydroxide solution 1 M', '13.5'],
+    ['Ethanol', '33'],
+    ['Water, deionised', '110'],
+  ] as const) {
+    await record
+      .getByRole('listitem', { name: new RegExp(`Line \\d+: ${name.replace(/[,.]/g, '.')}`) })
+      .getByRole('group', { name: /draw 1$/ })
+      .getByRole('textbox', { name: 'Amount' })
+      .fill(amount);
+  }
+
+  const first = record.getByRole('listitem', { name: 'Portion 1' });
+  await first.getByRole('textbox', { name: 'Amount' }).fill('2.45');
+  await first.getByLabel('Location').selectOption({ index: 1 });
+  await record.getByRole('button', { name: 'Add a second crop' }).click();
+  const second = record.getByRole('listitem', { name: 'Portion 2' });
+  await second.getByRole('textbox', { name: 'Amount' }).fill('0.38');
+  await second.getByLabel('Location').selectOption({ index: 1 });
+  await record.getByRole('button', { name: 'Record the run' }).click();
+
+  // percent yield from the acetone really used: 1.11 g × 0.995 / 58.08 g/mol = 19.016 mmol
+  // → 19.016 mmol × 234.298 g/mol = 4.455 g theoretical; 2.83 g / 4.455 g = 63.5 %
+  // (calc from CIAAW 2021; purity 99.5 % of the demo acetone lot)
+  await expect(page.getByTestId('percent-yield')).toContainText('63.5');
+  const newLabel = page.getByRole('link', { name: /LW-\d{5}/ }).first();
+  await expect(newLabel).toBeVisible();
+  const labelCode = (await newLabel.textContent())!.match(/LW-\d{5}/)![0];
+
+  // the product is in stock as a prepared lot
+  const search = page.getByPlaceholder(/scan a label/i);
+  await search.fill(labelCode);
+  await search.press('Enter');
+  await expect(page.getByRole('heading', { name: /dibenzalacetone/i })).toBeVisible();
+  await expect(page.getByText('2.45 g').first()).toBeVisible();
+});
