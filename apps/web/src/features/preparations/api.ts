@@ -72,7 +72,6 @@ export const preparationKeys = {
   run: (id: number) => [...preparationKeys.all, 'runs', 'detail', id] as const,
   usage: (chemicalId: number) => [...preparationKeys.all, 'usage', chemicalId] as const,
   provenance: (lotId: number) => [...preparationKeys.all, 'provenance', lotId] as const,
-  chemicalSearch: (q: string) => [...preparationKeys.all, 'chemical-search', q] as const,
   containers: (chemicalId: number) => [...preparationKeys.all, 'containers', chemicalId] as const,
   locations: () => [...preparationKeys.all, 'locations'] as const,
 };
@@ -81,7 +80,6 @@ const stockRootKey = ['stock'] as const;
 const procedurePageSchema = pageSchema(procedureSchema);
 const planPageSchema = pageSchema(planSchema);
 const runPageSchema = pageSchema(runSummarySchema);
-const chemicalPageSchema = pageSchema(chemicalSchema);
 const containerPageSchema = pageSchema(containerSchema);
 const locationPageSchema = pageSchema(locationSchema);
 
@@ -246,23 +244,6 @@ export function useLotProvenance(lotId: number) {
   return useQuery({
     queryKey: preparationKeys.provenance(lotId),
     queryFn: ({ signal }) => api.get(`/api/lots/${lotId}/provenance`, lotProvenanceSchema, signal),
-  });
-}
-
-/** Chemicals by name, synonym, CAS RN or formula, for a procedure line. */
-export function useChemicalSearch(q: string) {
-  const trimmed = q.trim();
-  return useQuery({
-    queryKey: preparationKeys.chemicalSearch(trimmed),
-    enabled: trimmed.length > 0,
-    queryFn: ({ signal }) =>
-      api.get(
-        withQuery('/api/chemicals', { q: trimmed, pageSize: 12, sort: 'name.asc' }),
-        chemicalPageSchema,
-        signal,
-      ),
-    placeholderData: keepPreviousData,
-    staleTime: 10_000,
   });
 }
 

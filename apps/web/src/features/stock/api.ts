@@ -85,7 +85,6 @@ export const stockKeys = {
   stocktake: (locationId: number, includeSublocations: boolean) =>
     [...stockKeys.all, 'stocktake', locationId, includeSublocations] as const,
   chemical: (id: number) => [...stockKeys.all, 'chemical', id] as const,
-  chemicalSearch: (q: string) => [...stockKeys.all, 'chemical-search', q] as const,
   lots: (chemicalId: number) => [...stockKeys.all, 'lots', 'list', chemicalId] as const,
   lot: (id: number) => [...stockKeys.all, 'lots', 'detail', id] as const,
 };
@@ -316,24 +315,7 @@ export function useChemicalStockItem(id: number, name: string | undefined) {
   });
 }
 
-const chemicalPageSchema = pageSchema(chemicalSchema);
 const lotPageSchema = pageSchema(lotSchema);
-
-/** Chemicals by name, synonym, CAS RN or formula, for picking one (receiving stock). */
-export function useChemicalSearch(q: string) {
-  const trimmed = q.trim();
-  return useQuery({
-    queryKey: stockKeys.chemicalSearch(trimmed),
-    queryFn: ({ signal }) =>
-      api.get(
-        withQuery('/api/chemicals', { q: trimmed, pageSize: 12, sort: 'name.asc' }),
-        chemicalPageSchema,
-        signal,
-      ),
-    placeholderData: keepPreviousData,
-    staleTime: 10_000,
-  });
-}
 
 /** The lots of one chemical, newest first (receiving into a lot already recorded). */
 export function useChemicalLots(chemicalId: number | undefined) {
