@@ -26,7 +26,11 @@ const severityBadge: Record<AlertSeverity, { tone: BadgeTone; label: string; ico
     label: 'Act now',
     icon: <CircleAlert aria-hidden="true" />,
   },
-  warning: { tone: 'warn', label: 'Soon', icon: <TriangleAlert aria-hidden="true" /> },
+  warning: {
+    tone: 'warn',
+    label: 'Needs attention',
+    icon: <TriangleAlert aria-hidden="true" />,
+  },
   info: { tone: 'neutral', label: 'Heads-up', icon: <Info aria-hidden="true" /> },
 };
 
@@ -101,7 +105,7 @@ export function AlertsPage() {
             const badge = severityBadge[alert.severity];
             return (
               <li key={alert.key} className="flex flex-col gap-1 px-4 py-3 sm:flex-row sm:gap-4">
-                <div className="w-28 shrink-0">
+                <div className="w-36 shrink-0">
                   <Badge tone={badge.tone} icon={badge.icon}>
                     {badge.label}
                   </Badge>
