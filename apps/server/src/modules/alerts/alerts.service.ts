@@ -66,7 +66,7 @@ export interface AlertsServiceOptions {
   logger?: Logger;
   /** Called after messages were queued (the outbox worker uses it to send promptly). */
   onQueued?: () => void;
-  /** Lapsing reservations; the reservation rule stays off until a source is given. */
+  /** Where lapsing reservations come from; by default the plans' reservations table. */
   reservations?: ReservationSource;
   claims?: ClaimSource;
 }
@@ -146,7 +146,7 @@ function presentCondition(condition: Condition): Alert {
       container: { id: r.containerId, labelCode: r.labelCode, locationPath: r.locationPath },
       title: `Reservation lapsing: ${chemical.name}`,
       message: `${amount(r.quantity, r.unit)} in ${r.labelCode} reserved for “${r.planTitle}” lapses at ${r.lapsesAt}.`,
-      link: `/plans/${r.planId}`,
+      link: `/preparations/plans/${r.planId}`,
     };
   }
   const where = `${container!.labelCode} (${amount(container!.quantity, container!.unit)}, ${container!.locationPath})`;
@@ -179,12 +179,10 @@ export function alertsService(store: Store, config: Config, options: AlertsServi
       low.map((c) => c.id),
     );
     const dated = await repos.alerts.datedContainers(until, chemicalIds);
+    const cutoff = new Date(now.getTime() + reservationLeadHours * 3600_000).toISOString();
     const reservations = options.reservations
-      ? await options.reservations.lapsingBefore(
-          new Date(now.getTime() + reservationLeadHours * 3600_000).toISOString(),
-          chemicalIds,
-        )
-      : [];
+      ? await options.reservations.lapsingBefore(cutoff, chemicalIds)
+      : await repos.plans.lapsingBetween(today, cutoff.slice(0, 10), chemicalIds);
     return sortConditions([
       ...lowStockConditions(low, usable),
       ...datedConditions(dated, today, until),

@@ -203,7 +203,7 @@ function datedMessage(topic: MailTopic, publicUrl: string): MessageContent {
 
 function reservationMessage(topic: MailTopic, publicUrl: string): MessageContent {
   const r = topic.conditions[0]!.reservation!;
-  const link = `${publicUrl}/plans/${r.planId}`;
+  const link = `${publicUrl}/preparations/plans/${r.planId}`;
   const subject = `Reservation lapsing: ${r.chemicalName} for ${r.planTitle}`;
   const line = `${r.labelCode} · ${amount(r.quantity, r.unit)} reserved · ${r.locationPath} · lapses ${r.lapsesAt.slice(0, 16).replace('T', ' ')} UTC`;
   const intro = `Your reservation of ${r.chemicalName} for “${r.planTitle}” lapses soon; after that the stock is free for others.`;

@@ -110,7 +110,7 @@ describe('dated rules', () => {
   });
 });
 
-describe('reservation rule (source pending in the plans module)', () => {
+describe('reservation rule', () => {
   it('when a reservation lapses soon, then only the person who made it is addressed', () => {
     const [condition] = reservationConditions([
       {
@@ -131,7 +131,7 @@ describe('reservation rule (source pending in the plans module)', () => {
     expect(condition).toMatchObject({ kind: 'reservation-lapsing', userIds: [21] });
     const [topic] = mailTopics([condition!]);
     expect(topicMessage(topic!, 'http://lab.example.test').link).toBe(
-      'http://lab.example.test/plans/4',
+      'http://lab.example.test/preparations/plans/4',
     );
   });
 });

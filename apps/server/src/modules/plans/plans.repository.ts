@@ -5,6 +5,7 @@ import {
   type StockUnit,
 } from '@lotwise/shared';
 import type { EntityManager } from 'typeorm';
+import type { LapsingReservation } from '../alerts/rules';
 import { PlanEntity, type PlanRow } from './plan.entity';
 import { ReservationEntity, type ReleaseReason, type ReservationRow } from './reservation.entity';
 
@@ -187,6 +188,49 @@ export function plansRepository(manager: EntityManager) {
         { planId, status: 'active' },
         { status: 'released', releasedReason: reason, releasedAt: now },
       );
+    },
+    /**
+     * Active reservations still in force on `today` whose until-date (held to the end of that
+     * day, UTC) falls on or before `cutoffDay`: the alert rule warns their owners.
+     */
+    async lapsingBetween(
+      today: string,
+      cutoffDay: string,
+      chemicalIds?: number[],
+    ): Promise<LapsingReservation[]> {
+      const query = reservationView()
+        .addSelect('pr.title', 'planTitle')
+        .addSelect('p.created_by_id', 'userId')
+        .innerJoin('prep_plans', 'p', 'p.id = r.plan_id')
+        .innerJoin('procedures', 'pr', 'pr.id = p.procedure_id')
+        .where("r.status = 'active' AND r.until >= :today AND r.until <= :cutoffDay", {
+          today,
+          cutoffDay,
+        })
+        .orderBy('r.until', 'ASC')
+        .addOrderBy('r.id', 'ASC');
+      if (chemicalIds) {
+        if (chemicalIds.length === 0) return [];
+        query.andWhere('c.chemical_id IN (:...chemicalIds)', { chemicalIds });
+      }
+      const rows = await query.getRawMany<Record<string, unknown>>();
+      return rows.map((raw) => {
+        const view = toReservation(raw);
+        return {
+          id: view.id,
+          planId: view.planId,
+          planTitle: String(raw.planTitle),
+          userId: raw.userId === null || raw.userId === undefined ? null : Number(raw.userId),
+          containerId: view.containerId,
+          labelCode: view.labelCode,
+          locationPath: view.locationPath,
+          chemicalId: view.chemicalId,
+          chemicalName: view.chemicalName,
+          quantity: view.quantity,
+          unit: view.unit as LapsingReservation['unit'],
+          lapsesAt: `${view.until}T23:59:59.999Z`,
+        };
+      });
     },
     /** Reserved plans none of whose active reservations is still in force on `today`. */
     async lapsedPlanIds(today: string): Promise<number[]> {

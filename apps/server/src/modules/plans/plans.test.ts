@@ -247,6 +247,24 @@ describe('reservations', () => {
     );
   });
 
+  it('when a reservation runs out within two days, then the alerts list it for the plan', async () => {
+    const s = await stockedAspirin();
+    const detail = await plan({
+      procedureId: s.procedure.id,
+      scaleFactor: 0.5,
+      benches: 1,
+      plannedOn: today,
+    });
+    await post(`/api/plans/${detail.id}/reservations`, { until: today }).expect(201);
+    const alerts = (await get('/api/alerts?kind=reservation-lapsing', member).expect(200)).body;
+    const mine = alerts.items.filter((a: { link: string }) => a.link.includes(`${detail.id}`));
+    expect(mine.length).toBeGreaterThan(0);
+    expect(mine[0]).toMatchObject({ kind: 'reservation-lapsing' });
+    expect(mine.map((a: { message: string }) => a.message).join(' ')).toContain(
+      s.open100.labelCode,
+    );
+  });
+
   it('when the dispensing sheet is asked for, then each bench gets rounded amounts with containers, hazards and cautions', async () => {
     const s = await stockedAspirin();
     const detail = await plan({
