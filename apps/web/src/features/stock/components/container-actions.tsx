@@ -148,30 +148,16 @@ function AdjustDialog({ container, onClose }: { container: ContainerDetail; onCl
               {errorMessage(adjust.error)}
             </Notice>
           )}
-          <div className="grid gap-3 sm:grid-cols-[1fr_7rem]">
-            <Field
-              label="Counted amount"
-              error={fieldMessage('Counted amount', errors.countedQuantity)}
-            >
-              {(c) => (
-                <Input
-                  {...c}
-                  inputMode="decimal"
-                  value={counted}
-                  onChange={(e) => setCounted(e.target.value)}
-                />
-              )}
-            </Field>
-            <Field label="Unit" error={fieldMessage('Unit', errors.unit)}>
-              {(c) => (
-                <Select {...c} value={unit} onChange={(e) => setUnit(e.target.value)}>
-                  {drawUnits(container.chemical).map((u) => (
-                    <option key={u}>{u}</option>
-                  ))}
-                </Select>
-              )}
-            </Field>
-          </div>
+          <AmountWithUnit
+            label="Counted amount"
+            error={fieldMessage('Counted amount', errors.countedQuantity)}
+            unitError={fieldMessage('Unit', errors.unit)}
+            value={counted}
+            onValueChange={setCounted}
+            unit={unit}
+            onUnitChange={setUnit}
+            units={drawUnits(container.chemical)}
+          />
           <Field
             label="Reason"
             error={fieldMessage('Reason', errors.note)}
@@ -247,31 +233,17 @@ function SplitDialog({ container, onClose }: { container: ContainerDetail; onClo
               {errorMessage(split.error)}
             </Notice>
           )}
-          <div className="grid gap-3 sm:grid-cols-[1fr_7rem]">
-            <Field
-              label="Amount to pour off"
-              error={fieldMessage('Amount', errors.quantity)}
-              hint={`At most ${formatAmount(container.quantity, container.unit)}`}
-            >
-              {(c) => (
-                <Input
-                  {...c}
-                  inputMode="decimal"
-                  value={quantity}
-                  onChange={(e) => setQuantity(e.target.value)}
-                />
-              )}
-            </Field>
-            <Field label="Unit" error={fieldMessage('Unit', errors.unit)}>
-              {(c) => (
-                <Select {...c} value={unit} onChange={(e) => setUnit(e.target.value)}>
-                  {drawUnits(container.chemical).map((u) => (
-                    <option key={u}>{u}</option>
-                  ))}
-                </Select>
-              )}
-            </Field>
-          </div>
+          <AmountWithUnit
+            label="Amount to pour off"
+            error={fieldMessage('Amount', errors.quantity)}
+            hint={`At most ${formatAmount(container.quantity, container.unit)}`}
+            unitError={fieldMessage('Unit', errors.unit)}
+            value={quantity}
+            onValueChange={setQuantity}
+            unit={unit}
+            onUnitChange={setUnit}
+            units={drawUnits(container.chemical)}
+          />
           <Field
             label="Where the new container goes"
             error={fieldMessage('Location', errors.locationId)}
@@ -457,5 +429,52 @@ export function ContainerActions({ container }: { container: ContainerDetail }) 
       {open === 'transfer' && <TransferDialog container={container} onClose={close} />}
       {open === 'dispose' && <DisposeDialog container={container} onClose={close} />}
     </>
+  );
+}
+
+/** An amount typed as a decimal, with the unit it is in beside it. */
+function AmountWithUnit({
+  label,
+  error,
+  hint,
+  unitError,
+  value,
+  onValueChange,
+  unit,
+  onUnitChange,
+  units,
+}: {
+  label: string;
+  error: string | undefined;
+  hint?: string;
+  unitError: string | undefined;
+  value: string;
+  onValueChange: (value: string) => void;
+  unit: string;
+  onUnitChange: (unit: string) => void;
+  units: readonly string[];
+}) {
+  return (
+    <div className="grid gap-3 sm:grid-cols-[1fr_7rem]">
+      <Field label={label} error={error} hint={hint}>
+        {(c) => (
+          <Input
+            {...c}
+            inputMode="decimal"
+            value={value}
+            onChange={(e) => onValueChange(e.target.value)}
+          />
+        )}
+      </Field>
+      <Field label="Unit" error={unitError}>
+        {(c) => (
+          <Select {...c} value={unit} onChange={(e) => onUnitChange(e.target.value)}>
+            {units.map((u) => (
+              <option key={u}>{u}</option>
+            ))}
+          </Select>
+        )}
+      </Field>
+    </div>
   );
 }
