@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { amountSchema } from './amounts';
 import { tryMolarMass, validateCasNumber } from '@lotwise/chem';
 import {
   ghsCodeSchema,
@@ -38,8 +39,7 @@ const formulaSchema = z
     if (!result.ok) ctx.addIssue({ code: 'custom', message: result.error.message });
   });
 
-const nonNegative = (what: string) =>
-  z.number({ message: `${what} must be a number` }).nonnegative(`${what} cannot be negative`);
+const nonNegative = (what: string) => amountSchema(what, 'nonNegative');
 
 function uniqueList<T extends z.ZodType>(item: T, what: string) {
   return z

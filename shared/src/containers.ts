@@ -1,5 +1,6 @@
 import { tryParseUnit } from '@lotwise/chem';
 import { z } from 'zod';
+import { amountSchema, quantityUnitSchema } from './amounts';
 import { stockUnitSchema } from './chemicals';
 import { isoDateSchema } from './dates';
 import { ghsCodeSchema, peroxideClassSchema, storageGroupSchema } from './hazards';
@@ -40,23 +41,8 @@ export function normalizeLabelCode(text: string): string | null {
   return n === null ? null : formatLabelCode(n);
 }
 
-/** A unit of mass or volume a person may enter (g, mg, kg, mL, L, µL…). */
-export const quantityUnitSchema = z.string().superRefine((unit, ctx) => {
-  const parsed = tryParseUnit(unit);
-  if (!parsed.ok) ctx.addIssue({ code: 'custom', message: parsed.error.message });
-  else if (parsed.value.dimension === 'amount') {
-    ctx.addIssue({ code: 'custom', message: 'must be a mass or volume unit such as g or mL' });
-  }
-});
-
-const amountSchema = (what: string) =>
-  z
-    .number({ message: `${what} must be a number` })
-    .refine(Number.isFinite, `${what} must be a number`);
-const positive = (what: string) =>
-  amountSchema(what).refine((v) => v > 0, `${what} must be more than 0`);
-const nonNegative = (what: string) =>
-  amountSchema(what).refine((v) => v >= 0, `${what} cannot be negative`);
+const positive = (what: string) => amountSchema(what, 'positive');
+const nonNegative = (what: string) => amountSchema(what, 'nonNegative');
 
 const noteSchema = z.string().trim().max(1000, 'is at most 1000 characters');
 
@@ -142,9 +128,7 @@ export type DrawParsed = z.output<typeof drawSchema>;
 export const adjustmentSchema = z
   .object({
     countedQuantity: nonNegative('counted quantity').optional(),
-    correction: amountSchema('correction')
-      .refine((v) => v !== 0, 'correction cannot be 0')
-      .optional(),
+    correction: amountSchema('correction', 'signed').optional(),
     unit: quantityUnitSchema,
     note: noteSchema.min(1, 'say why the amount is corrected'),
   })

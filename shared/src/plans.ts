@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { amountSchema, quantityUnitSchema } from './amounts';
 import { stockUnitSchema } from './chemicals';
 import { containerStatusSchema } from './containers';
 import { isoDateSchema } from './dates';
@@ -89,9 +90,9 @@ export const reservationCreateSchema = z
         z
           .object({
             containerId: z.number({ message: 'must be a container id' }).int().positive(),
-            quantity: z.number({ message: 'must be a number' }).positive('must be more than 0'),
+            quantity: amountSchema('quantity', 'positive'),
             /** Default: the container's unit. */
-            unit: z.string().optional(),
+            unit: quantityUnitSchema.optional(),
             requirementIndex: z.number().int().min(0).nullable().optional(),
           })
           .strict(),

@@ -8,13 +8,13 @@ import {
   parseScaleFactor,
   computeStoichiometry,
   tryComputeStoichiometry,
-  tryParseUnit,
   type LineRole,
   type ProcedureLine,
   type Result,
   type StoichiometryResult,
 } from '@lotwise/chem';
 import { z } from 'zod';
+import { amountSchema, coercedAmountSchema, quantityUnitSchema, unitSchema } from './amounts';
 import { stockUnitSchema } from './chemicals';
 import { ghsCodeSchema } from './hazards';
 import { listQuerySchema } from './list';
@@ -30,19 +30,10 @@ export type { LineRole };
 export const coefficientRoles: readonly LineRole[] = ['limiting-reagent', 'reagent', 'product'];
 
 /** A unit of mass, volume or amount of substance (g, mL, mmol…). */
-export const procedureUnitSchema = z.string().superRefine((unit, ctx) => {
-  const parsed = tryParseUnit(unit);
-  if (!parsed.ok) ctx.addIssue({ code: 'custom', message: parsed.error.message });
-});
+export const procedureUnitSchema = unitSchema();
 
 /** A unit of mass or volume (what is measured from a bottle). */
-const measuredUnitSchema = z.string().superRefine((unit, ctx) => {
-  const parsed = tryParseUnit(unit);
-  if (!parsed.ok) ctx.addIssue({ code: 'custom', message: parsed.error.message });
-  else if (parsed.value.dimension === 'amount') {
-    ctx.addIssue({ code: 'custom', message: 'must be a mass or volume unit such as g or mL' });
-  }
-});
+const measuredUnitSchema = quantityUnitSchema;
 
 /**
  * A line measured as a solution of known strength: the line's chemical is what is in the
@@ -67,7 +58,7 @@ export type LineConcentration = z.infer<typeof lineConcentrationSchema>;
 export const dissolvedInSchema = z
   .object({
     chemicalId: z.number({ message: 'must be a chemical id' }).int().positive(),
-    quantity: z.number({ message: 'must be a number' }).positive('must be more than 0'),
+    quantity: amountSchema('quantity', 'positive'),
     unit: measuredUnitSchema,
   })
   .strict();
@@ -79,11 +70,7 @@ export const procedureLineInputSchema = z
     chemicalId: z.number({ message: 'must be a chemical id' }).int().positive(),
     role: lineRoleSchema,
     /** At base scale; optional only on product lines. */
-    quantity: z
-      .number({ message: 'must be a number' })
-      .positive('must be more than 0')
-      .nullable()
-      .default(null),
+    quantity: amountSchema('quantity', 'positive').nullable().default(null),
     unit: procedureUnitSchema.nullable().default(null),
     /** ν in the balanced equation, for reagents and products; default 1. */
     coefficient: z
@@ -479,8 +466,8 @@ export const scaleFactorInputSchema = z.union([z.number(), z.string()]).transfor
 export const scaledQuerySchema = z
   .object({
     factor: scaleFactorInputSchema.optional(),
-    targetLimitingMass: z.coerce.number().positive('must be more than 0').optional(),
-    targetProductMass: z.coerce.number().positive('must be more than 0').optional(),
+    targetLimitingMass: coercedAmountSchema('targetLimitingMass', 'positive').optional(),
+    targetProductMass: coercedAmountSchema('targetProductMass', 'positive').optional(),
     unit: procedureUnitSchema.optional().default('g'),
     basis: z.enum(['theoretical', 'expected']).optional().default('theoretical'),
   })

@@ -1,5 +1,6 @@
 import { tryParseUnit } from '@lotwise/chem';
 import { z } from 'zod';
+import { amountSchema, quantityUnitSchema } from './amounts';
 import { stockUnitSchema } from './chemicals';
 import { isoDateSchema } from './dates';
 import { listQuerySchema } from './list';
@@ -15,13 +16,7 @@ export const runStatuses = ['open', 'recorded'] as const;
 export const runStatusSchema = z.enum(runStatuses);
 export type RunStatus = (typeof runStatuses)[number];
 
-const measuredUnit = z.string().superRefine((unit, ctx) => {
-  const parsed = tryParseUnit(unit);
-  if (!parsed.ok) ctx.addIssue({ code: 'custom', message: parsed.error.message });
-  else if (parsed.value.dimension === 'amount') {
-    ctx.addIssue({ code: 'custom', message: 'must be a mass or volume unit such as g or mL' });
-  }
-});
+const measuredUnit = quantityUnitSchema;
 
 /**
  * `POST /api/runs`: from a plan (procedure and scale from it: the plan's factor × benches)
@@ -50,9 +45,9 @@ export type RunCreateParsed = z.output<typeof runCreateSchema>;
 export const runDrawSchema = z
   .object({
     containerId: z.number({ message: 'must be a container id' }).int().positive(),
-    amount: z.number({ message: 'must be a number' }).positive('must be more than 0').optional(),
-    grossMassBefore: z.number({ message: 'must be a number' }).nonnegative().optional(),
-    grossMassAfter: z.number({ message: 'must be a number' }).nonnegative().optional(),
+    amount: amountSchema('amount', 'positive').optional(),
+    grossMassBefore: amountSchema('gross mass', 'nonNegative').optional(),
+    grossMassAfter: amountSchema('gross mass', 'nonNegative').optional(),
     unit: measuredUnit,
     note: z.string().trim().max(1000).default(''),
   })
@@ -99,11 +94,11 @@ export const runPortionSchema = z
   .object({
     /** e.g. "first crop", "second crop (from the mother liquor)". */
     label: z.string().trim().min(1, 'name the portion, e.g. first crop').max(80),
-    quantity: z.number({ message: 'must be a number' }).positive('must be more than 0'),
+    quantity: amountSchema('quantity', 'positive'),
     /** Mass (or, for a liquid or solution product, volume). */
     unit: measuredUnit,
     locationId: z.number({ message: 'must be a location id' }).int().positive(),
-    tareMass: z.number().nonnegative().nullable().default(null),
+    tareMass: amountSchema('tare mass', 'nonNegative').nullable().default(null),
     expiresOn: isoDateSchema.nullable().default(null),
     notes: z.string().max(2000).default(''),
   })
@@ -114,7 +109,7 @@ export const runProductSchema = z
     /** The product line; default the procedure's first. */
     lineIndex: z.number().int().min(0).optional(),
     /** Weighed before purification, g; recorded for the crude yield, not stocked. */
-    crudeMassG: z.number().positive('must be more than 0').nullable().default(null),
+    crudeMassG: amountSchema('crude mass', 'positive').nullable().default(null),
     portions: z.array(runPortionSchema).max(10).default([]),
   })
   .strict();

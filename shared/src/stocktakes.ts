@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { stockUnitSchema } from './chemicals';
-import { containerStatusSchema, quantityUnitSchema } from './containers';
+import { amountSchema, quantityUnitSchema } from './amounts';
+import { containerStatusSchema } from './containers';
 import { listQuerySchema, queryFlagSchema } from './list';
 
 /** `GET /api/locations/:id/stocktake`: what should be there. */
@@ -33,10 +34,7 @@ export const stocktakeCountSchema = z
     containerId: z.number({ message: 'must be a container id' }).int().positive(),
     /** confirmed: the balance is right; counted: `countedQuantity` is there; missing: not found (disposed). */
     outcome: z.enum(stocktakeOutcomes, { message: 'must be confirmed, counted or missing' }),
-    countedQuantity: z
-      .number({ message: 'must be a number' })
-      .nonnegative('cannot be negative')
-      .optional(),
+    countedQuantity: amountSchema('counted quantity', 'nonNegative').optional(),
     unit: quantityUnitSchema.optional(),
   })
   .strict()

@@ -7,7 +7,12 @@ import {
   type StockUnit,
 } from '@lotwise/shared';
 import { In, type EntityManager, type SelectQueryBuilder } from 'typeorm';
-import { usableSql } from '../containers/containers.repository';
+import { fromMicro } from '../../db/quantities';
+import {
+  atOrBelowReorderPointCondition,
+  usableSql,
+  usableTotalMicroSql,
+} from '../containers/containers.repository';
 import { AlertPreferenceEntity, type AlertPreferenceRow } from './alert-preference.entity';
 import { OutboxMessageEntity, type OutboxRow } from './outbox-message.entity';
 
@@ -77,7 +82,7 @@ export function alertsRepository(manager: EntityManager) {
       .addSelect('ch.name', 'chemicalName')
       .addSelect('ch.ghs_pictograms', 'ghsPictograms')
       .addSelect('c.status', 'status')
-      .addSelect('c.quantity', 'quantity')
+      .addSelect('c.quantity_micro', 'quantity')
       .addSelect('c.unit', 'unit')
       .addSelect('c.expires_on', 'expiresOn')
       .addSelect('c.peroxide_due_on', 'peroxideDueOn')
@@ -92,7 +97,7 @@ export function alertsRepository(manager: EntityManager) {
       ...raw,
       id: Number(raw.id),
       chemicalId: Number(raw.chemicalId),
-      quantity: Number(raw.quantity),
+      quantity: fromMicro(raw.quantity),
       ghsPictograms: parseJsonList<GhsCode>(raw.ghsPictograms),
     }) as AlertContainerFacts;
 
@@ -248,7 +253,7 @@ export function alertsRepository(manager: EntityManager) {
     },
     /** Chemicals whose usable total is at or below their reorder point. */
     async lowStock(today: string, chemicalIds?: number[]): Promise<LowStockFacts[]> {
-      const totalSql = `COALESCE((SELECT SUM(u.quantity) FROM containers u WHERE u.chemical_id = ch.id AND ${usableSql('u')}), 0)`;
+      const totalSql = usableTotalMicroSql('ch');
       const qb = manager
         .createQueryBuilder()
         .select('ch.id', 'id')
@@ -259,7 +264,7 @@ export function alertsRepository(manager: EntityManager) {
         .addSelect('ch.ghs_pictograms', 'ghsPictograms')
         .addSelect(totalSql, 'total')
         .from('chemicals', 'ch')
-        .where(`ch.reorder_point IS NOT NULL AND ${totalSql} <= ch.reorder_point * (1 + 1e-6)`)
+        .where(atOrBelowReorderPointCondition('ch', totalSql))
         .setParameter('today', today);
       if (chemicalIds) {
         if (chemicalIds.length === 0) return [];
@@ -273,7 +278,7 @@ export function alertsRepository(manager: EntityManager) {
             id: Number(row.id),
             reorderPoint: Number(row.reorderPoint),
             reorderQuantity: row.reorderQuantity === null ? null : Number(row.reorderQuantity),
-            total: Number(row.total),
+            total: fromMicro(row.total),
             ghsPictograms: parseJsonList<GhsCode>(row.ghsPictograms),
           }) as LowStockFacts,
       );

@@ -1,5 +1,6 @@
 import type { ContainerStatus, StockUnit } from '@lotwise/shared';
 import { EntitySchema } from 'typeorm';
+import { microQuantity } from '../../db/quantities';
 
 /**
  * A row of `containers`. `quantity` is the running balance of its ledger entries, written
@@ -43,7 +44,8 @@ export const ContainerEntity = new EntitySchema<ContainerRow>({
     chemicalId: { name: 'chemical_id', type: 'integer' },
     locationId: { name: 'location_id', type: 'integer' },
     status: { type: 'varchar', length: 10 },
-    quantity: { type: 'double precision' },
+    /** Whole millionths of the unit in the database; g or mL here (see db/quantities). */
+    quantity: { name: 'quantity_micro', type: 'bigint', transformer: microQuantity },
     unit: { type: 'varchar', length: 4 },
     tareMass: { name: 'tare_mass', type: 'double precision', nullable: true },
     capacity: { type: 'double precision', nullable: true },

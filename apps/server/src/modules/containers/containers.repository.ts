@@ -10,6 +10,7 @@ import {
   type StorageGroup,
 } from '@lotwise/shared';
 import type { EntityManager, SelectQueryBuilder } from 'typeorm';
+import { fromMicro, microPerUnit } from '../../db/quantities';
 import { containsPattern } from '../../db/sql';
 import { ContainerEntity, type ContainerRow } from './container.entity';
 import { LedgerEntryEntity, type LedgerEntryRow } from './ledger-entry.entity';
@@ -49,7 +50,7 @@ const viewColumns: [string, keyof ContainerView][] = [
   ['c.chemical_id', 'chemicalId'],
   ['c.location_id', 'locationId'],
   ['c.status', 'status'],
-  ['c.quantity', 'quantity'],
+  ['c.quantity_micro', 'quantity'],
   ['c.unit', 'unit'],
   ['c.tare_mass', 'tareMass'],
   ['c.capacity', 'capacity'],
@@ -96,13 +97,14 @@ function toView(raw: Record<string, unknown>): ContainerView {
     view[key] = typeof text === 'string' && text ? JSON.parse(text) : [];
   }
   for (const key of numberColumns) view[key] = Number(raw[key]);
+  view.quantity = fromMicro(raw.quantity);
   return view as unknown as ContainerView;
 }
 
 const sortColumns: Record<string, string> = {
   labelCode: 'c.label_code',
   chemical: 'LOWER(ch.name)',
-  quantity: 'c.quantity',
+  quantity: 'c.quantity_micro',
   expiresOn: 'c.expires_on',
   location: 'LOWER(loc.path)',
   updatedAt: 'c.updated_at',
@@ -112,8 +114,19 @@ const sortColumns: Record<string, string> = {
 export const usableSql = (alias: string) =>
   `${alias}.status IN ('sealed', 'open') AND (${alias}.expires_on IS NULL OR ${alias}.expires_on >= :today)`;
 
+/**
+ * SQL for a chemical's usable total in whole millionths (see db/quantities), `chemical` being
+ * the alias of its row in `chemicals`. Needs `:today`.
+ */
+export const usableTotalMicroSql = (chemical: string) =>
+  `COALESCE((SELECT SUM(u.quantity_micro) FROM containers u WHERE u.chemical_id = ${chemical}.id AND ${usableSql('u')}), 0)`;
+
+/** SQL: the usable total (whole millionths) of `chemical` is at or below its reorder point. */
+export const atOrBelowReorderPointCondition = (chemical: string, totalMicroSql: string) =>
+  `${chemical}.reorder_point IS NOT NULL AND ${totalMicroSql} <= ROUND(${chemical}.reorder_point * ${microPerUnit})`;
+
 /** Chemicals at or below their reorder point (usable total). Needs `:today`. */
-export const atOrBelowReorderPointSql = `SELECT rc.id FROM chemicals rc WHERE rc.reorder_point IS NOT NULL AND COALESCE((SELECT SUM(u.quantity) FROM containers u WHERE u.chemical_id = rc.id AND ${usableSql('u')}), 0) <= rc.reorder_point * (1 + 1e-6)`;
+export const atOrBelowReorderPointSql = `SELECT rc.id FROM chemicals rc WHERE ${atOrBelowReorderPointCondition('rc', usableTotalMicroSql('rc'))}`;
 
 /** Extra filter data the service works out: dates relative to today, a place's subtree. */
 export interface ContainerFilterContext {
@@ -134,9 +147,9 @@ function toEntry(raw: RawEntry): LedgerEntry {
     id: Number(raw.id),
     containerId: Number(raw.containerId),
     reason: raw.reason,
-    quantity: Number(raw.quantity),
+    quantity: fromMicro(raw.quantity),
     unit: raw.unit,
-    balanceAfter: Number(raw.balanceAfter),
+    balanceAfter: fromMicro(raw.balanceAfter),
     note: raw.note,
     user:
       raw.userId === null || raw.userId === undefined
@@ -150,6 +163,11 @@ function toEntry(raw: RawEntry): LedgerEntry {
     relatedContainerId: n(raw.relatedContainerId),
     createdAt: raw.createdAt,
   };
+}
+
+/** A stored count of millionths read as text: a bigint, or null when it is not a whole number. */
+function wholeMicro(text: unknown): bigint | null {
+  return typeof text === 'string' && /^-?\d+$/.test(text) ? BigInt(text) : null;
 }
 
 /** Data access for `containers` and `ledger_entries`; answers plain objects. */
@@ -175,9 +193,9 @@ export function containersRepository(manager: EntityManager) {
       .select('e.id', 'id')
       .addSelect('e.container_id', 'containerId')
       .addSelect('e.reason', 'reason')
-      .addSelect('e.quantity', 'quantity')
+      .addSelect('e.quantity_micro', 'quantity')
       .addSelect('e.unit', 'unit')
-      .addSelect('e.balance_after', 'balanceAfter')
+      .addSelect('e.balance_after_micro', 'balanceAfter')
       .addSelect('e.note', 'note')
       .addSelect('e.user_id', 'userId')
       .addSelect('u.display_name', 'userDisplayName')
@@ -394,47 +412,49 @@ export function containersRepository(manager: EntityManager) {
       return { items: rows.map(toEntry), total };
     },
 
-    /** Every container's balance with the sum and count of its entries. */
+    /**
+     * Every container's stored balance, in whole millionths of its unit (see db/quantities),
+     * read as text into a bigint so even a value past 2^53 compares exactly.
+     */
     async balances(): Promise<
-      { id: number; labelCode: string; quantity: number; entrySum: number; entryCount: number }[]
+      { id: number; labelCode: string; unit: StockUnit; quantityMicro: bigint | null }[]
     > {
       const rows = await manager
         .createQueryBuilder()
         .select('c.id', 'id')
         .addSelect('c.label_code', 'labelCode')
-        .addSelect('c.quantity', 'quantity')
-        .addSelect('COALESCE(SUM(e.quantity), 0)', 'entrySum')
-        .addSelect('COUNT(e.id)', 'entryCount')
+        .addSelect('c.unit', 'unit')
+        .addSelect('CAST(c.quantity_micro AS TEXT)', 'quantityMicro')
         .from('containers', 'c')
-        .leftJoin('ledger_entries', 'e', 'e.container_id = c.id')
-        .groupBy('c.id')
-        .addGroupBy('c.label_code')
-        .addGroupBy('c.quantity')
         .orderBy('c.id', 'ASC')
         .getRawMany();
       return rows.map((row) => ({
         id: Number(row.id),
         labelCode: row.labelCode,
-        quantity: Number(row.quantity),
-        entrySum: Number(row.entrySum),
-        entryCount: Number(row.entryCount),
+        unit: row.unit,
+        quantityMicro: wholeMicro(row.quantityMicro),
       }));
     },
-    /** Every entry's container, change and balance after, in the order written. */
-    async chain(): Promise<{ containerId: number; quantity: number; balanceAfter: number }[]> {
+    /**
+     * Every entry's container, change and balance after, in whole millionths as bigints, in
+     * the order written.
+     */
+    async chain(): Promise<
+      { containerId: number; quantityMicro: bigint | null; balanceAfterMicro: bigint | null }[]
+    > {
       const rows = await manager
         .createQueryBuilder()
         .select('e.container_id', 'containerId')
-        .addSelect('e.quantity', 'quantity')
-        .addSelect('e.balance_after', 'balanceAfter')
+        .addSelect('CAST(e.quantity_micro AS TEXT)', 'quantityMicro')
+        .addSelect('CAST(e.balance_after_micro AS TEXT)', 'balanceAfterMicro')
         .from('ledger_entries', 'e')
         .orderBy('e.container_id', 'ASC')
         .addOrderBy('e.id', 'ASC')
         .getRawMany();
       return rows.map((row) => ({
         containerId: Number(row.containerId),
-        quantity: Number(row.quantity),
-        balanceAfter: Number(row.balanceAfter),
+        quantityMicro: wholeMicro(row.quantityMicro),
+        balanceAfterMicro: wholeMicro(row.balanceAfterMicro),
       }));
     },
   };

@@ -1,6 +1,8 @@
 import { addDays, ChemError, convert, dimensionOf, toMass, toVolume } from '@lotwise/chem';
 import {
+  amountProblem,
   formatLabelCode,
+  maxStockAmount,
   normalizeLabelCode,
   todayIso,
   type Container,
@@ -26,6 +28,7 @@ import {
 import type { z } from 'zod';
 import { AppError } from '../../lib/app-error';
 import { noteLedgerChange, type Repositories, type Store } from '../../db/store';
+import { fromMicro, roundToStored, toMicro } from '../../db/quantities';
 import { nowIso } from '../../db/sql';
 import type { ChemicalRow } from '../chemicals/chemical.entity';
 import { requireLocation } from '../locations/locations.service';
@@ -63,8 +66,26 @@ function show(value: number): string {
 /**
  * A quantity a person entered, in the chemical's stock unit: units of the same kind convert
  * directly, a volume of a mass-counted chemical (and the other way round) through the density.
+ * The result must be within the amount bounds too (10 000 000 kg is 10^10 g: refused, 400
+ * naming `field`).
  */
 export function toStockUnit(
+  value: number,
+  unit: string,
+  chemical: ChemicalFacts,
+  field: string,
+): number {
+  const converted = convertToStockUnit(value, unit, chemical, field);
+  const problem =
+    converted === 0 ? null : amountProblem(Math.abs(converted), 'positive', chemical.stockUnit);
+  if (problem) {
+    const message = `${show(value)} ${unit} is ${show(converted)} ${chemical.stockUnit}, which ${problem}.`;
+    throw AppError.validation(message, { [field]: message });
+  }
+  return converted;
+}
+
+function convertToStockUnit(
   value: number,
   unit: string,
   chemical: ChemicalFacts,
@@ -166,7 +187,10 @@ interface Movement {
 
 /**
  * Appends one entry and stores the new balance on the container in the same transaction.
- * Refuses (409, nothing written) when the balance would fall below zero.
+ * The change and the balance are worked out in whole millionths (what is stored, see
+ * db/quantities), so the balance is exactly the sum of the entries. Refuses (409, nothing
+ * written) when the balance would fall below zero, and (400) when it would pass the largest
+ * amount a container may hold.
  */
 export async function appendEntry(
   repos: Repositories,
@@ -175,8 +199,14 @@ export async function appendEntry(
   actor: User | null,
   changes: Partial<ContainerRow> = {},
 ): Promise<{ entry: LedgerEntry; container: ContainerRow }> {
-  let delta = roundQuantity(movement.delta);
-  let balance = roundQuantity(container.quantity + delta);
+  let delta = roundToStored(movement.delta);
+  let balance = fromMicro(toMicro(container.quantity) + toMicro(delta));
+  if (balance > maxStockAmount) {
+    const message = `${container.labelCode} would hold ${show(balance)} ${container.unit}; one container holds at most ${show(maxStockAmount)} ${container.unit}.`;
+    throw AppError.validation(message, {
+      [movement.reason === 'adjusted' ? 'correction' : 'quantity']: message,
+    });
+  }
   if (balance < 0 && balance >= -epsilon) {
     // Rounding noise on a draw to exactly nothing: take out precisely what is left.
     delta = -container.quantity;
@@ -476,7 +506,7 @@ export function containersService(store: Store) {
         } else {
           drawn = toStockUnit(input.amount!, input.unit, chemical, 'amount');
         }
-        if (drawn <= epsilon) {
+        if (roundToStored(drawn) <= 0) {
           throw AppError.validation('Nothing was drawn: the amount works out to 0.', {
             [input.grossMass !== undefined ? 'grossMass' : 'amount']: 'works out to no change',
           });

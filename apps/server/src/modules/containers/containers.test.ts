@@ -435,7 +435,7 @@ describe('ledger', () => {
 
   it('when a balance is tampered with behind the ledger, then the check reports it', async () => {
     const { container } = await solidContainer();
-    await testContext().dataSource.query('UPDATE containers SET quantity = 1 WHERE id = ?', [
+    await testContext().dataSource.query('UPDATE containers SET quantity_micro = 1 WHERE id = ?', [
       container.id,
     ]);
     const result = await ledgerCheck();
@@ -447,8 +447,9 @@ describe('ledger', () => {
         kind: 'balance_mismatch',
       }),
     );
-    await testContext().dataSource.query('UPDATE containers SET quantity = 500 WHERE id = ?', [
-      container.id,
-    ]);
+    await testContext().dataSource.query(
+      'UPDATE containers SET quantity_micro = 500000000 WHERE id = ?',
+      [container.id],
+    );
   });
 });

@@ -1,5 +1,6 @@
 import type { LedgerReason, StockUnit } from '@lotwise/shared';
 import { EntitySchema } from 'typeorm';
+import { microQuantity } from '../../db/quantities';
 
 /** A row of `ledger_entries`: append-only, never updated or deleted. */
 export interface LedgerEntryRow {
@@ -30,9 +31,10 @@ export const LedgerEntryEntity = new EntitySchema<LedgerEntryRow>({
     id: { type: 'integer', primary: true, generated: 'increment' },
     containerId: { name: 'container_id', type: 'integer' },
     reason: { type: 'varchar', length: 12 },
-    quantity: { type: 'double precision' },
+    /** Whole millionths of the unit in the database; g or mL here (see db/quantities). */
+    quantity: { name: 'quantity_micro', type: 'bigint', transformer: microQuantity },
     unit: { type: 'varchar', length: 4 },
-    balanceAfter: { name: 'balance_after', type: 'double precision' },
+    balanceAfter: { name: 'balance_after_micro', type: 'bigint', transformer: microQuantity },
     note: { type: 'text' },
     userId: { name: 'user_id', type: 'integer', nullable: true },
     runId: { name: 'run_id', type: 'integer', nullable: true },

@@ -1,5 +1,6 @@
 import { convert } from '@lotwise/chem';
 import {
+  amountProblem,
   chemicalCreateSchema,
   importColumns,
   type ChemicalCreateParsed,
@@ -497,6 +498,16 @@ export async function planImport(
         stockUnit === 'g'
           ? convert(c.quantity, c.unit, 'mL') * density
           : convert(c.quantity, c.unit, 'g') / density;
+    }
+    const outOfBounds = quantity === 0 ? null : amountProblem(quantity, 'positive', stockUnit);
+    if (outOfBounds) {
+      fail(
+        row,
+        'quantity',
+        c.quantity,
+        `${c.quantity} ${c.unit} is ${Number(quantity.toPrecision(6))} ${stockUnit} (${chemicalName} is counted in ${stockUnit}), which ${outOfBounds}`,
+      );
+      continue;
     }
     quantity = roundQuantity(quantity);
     let status: ContainerStatus = c.status ?? (c.openedOn ? 'open' : 'sealed');

@@ -1,5 +1,6 @@
 import { formatCasNumber, tryMolarMass, tryParseUnit, validateCasNumber } from '@lotwise/chem';
 import {
+  amountProblem,
   containerStatuses,
   formatLabelCode,
   ghsCodes,
@@ -12,6 +13,7 @@ import {
   physicalStates,
   storageGroupCodes,
   storageGroups,
+  type AmountSign,
   type ContainerStatus,
   type GhsCode,
   type ImportColumnKey,
@@ -203,6 +205,11 @@ export function readRow(
     }
     return n;
   };
+  /** The amount bounds every amount in Lotwise has (see @lotwise/shared `amountProblem`). */
+  const outOfBounds = (key: ImportColumnKey, value: number, sign: AmountSign) => {
+    const problem = amountProblem(value, sign);
+    if (problem) fail(key, problem);
+  };
   const date = (key: ImportColumnKey): string | null => {
     const value = cell(key);
     if (value === '') return null;
@@ -362,13 +369,16 @@ export function readRow(
     fail('quantity', 'is required: what the container holds now (0 or more)');
   if (quantity !== null && quantity < 0)
     fail('quantity', 'cannot be negative: give what the container holds now (0 or more)');
+  else if (quantity !== null) outOfBounds('quantity', quantity, 'nonNegative');
   const unit = massOrVolumeUnit('unit');
   if (unit === null && cell('unit') === '') fail('unit', 'is required: µg, mg, g, kg, µL, mL or L');
   const tareMass = number('tareMass');
   if (tareMass !== null && tareMass < 0)
     fail('tareMass', 'cannot be negative (the empty container with cap, in g)');
+  else if (tareMass !== null) outOfBounds('tareMass', tareMass, 'nonNegative');
   const capacity = number('capacity');
   if (capacity !== null && capacity <= 0) fail('capacity', 'must be more than 0');
+  else if (capacity !== null) outOfBounds('capacity', capacity, 'positive');
   const capacityUnit =
     massOrVolumeUnit('capacityUnit') ?? (cell('capacityUnit') === '' ? unit : null);
   if (capacity !== null && cell('capacityUnit') === '' && !unit) {

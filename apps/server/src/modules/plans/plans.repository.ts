@@ -5,6 +5,7 @@ import {
   type StockUnit,
 } from '@lotwise/shared';
 import type { EntityManager } from 'typeorm';
+import { fromMicro } from '../../db/quantities';
 import type { LapsingReservation } from '../alerts/rules';
 import { PlanEntity, type PlanRow } from './plan.entity';
 import { ReservationEntity, type ReleaseReason, type ReservationRow } from './reservation.entity';
@@ -53,7 +54,7 @@ export function plansRepository(manager: EntityManager) {
       .addSelect('r.plan_id', 'planId')
       .addSelect('r.container_id', 'containerId')
       .addSelect('r.requirement_index', 'requirementIndex')
-      .addSelect('r.quantity', 'quantity')
+      .addSelect('r.quantity_micro', 'quantity')
       .addSelect('r.unit', 'unit')
       .addSelect('r.until', 'until')
       .addSelect('r.status', 'status')
@@ -76,7 +77,7 @@ export function plansRepository(manager: EntityManager) {
     planId: Number(raw.planId),
     containerId: Number(raw.containerId),
     chemicalId: Number(raw.chemicalId),
-    quantity: Number(raw.quantity),
+    quantity: fromMicro(raw.quantity),
     requirementIndex:
       raw.requirementIndex === null || raw.requirementIndex === undefined
         ? null
@@ -138,7 +139,7 @@ export function plansRepository(manager: EntityManager) {
         .addSelect('c.location_id', 'locationId')
         .addSelect('loc.path', 'locationPath')
         .addSelect('c.status', 'status')
-        .addSelect('c.quantity', 'quantity')
+        .addSelect('c.quantity_micro', 'quantity')
         .addSelect('c.unit', 'unit')
         .addSelect('c.expires_on', 'expiresOn')
         .addSelect('COALESCE(l.purity_percent, ch.default_purity_percent)', 'purityPercent')
@@ -147,7 +148,7 @@ export function plansRepository(manager: EntityManager) {
         .innerJoin('chemicals', 'ch', 'ch.id = c.chemical_id')
         .innerJoin('locations', 'loc', 'loc.id = c.location_id')
         .where('c.chemical_id IN (:...chemicalIds)', { chemicalIds })
-        .andWhere("c.status IN ('sealed', 'open') AND c.quantity > 0")
+        .andWhere("c.status IN ('sealed', 'open') AND c.quantity_micro > 0")
         .andWhere('(c.expires_on IS NULL OR c.expires_on >= :asOf)', { asOf })
         .orderBy('c.id', 'ASC')
         .getRawMany<Record<string, unknown>>();
@@ -157,7 +158,7 @@ export function plansRepository(manager: EntityManager) {
         lotId: Number(raw.lotId),
         chemicalId: Number(raw.chemicalId),
         locationId: Number(raw.locationId),
-        quantity: Number(raw.quantity),
+        quantity: fromMicro(raw.quantity),
         purityPercent: Number(raw.purityPercent),
       }));
     },

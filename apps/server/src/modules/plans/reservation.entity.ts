@@ -1,6 +1,7 @@
 import type { StockUnit } from '@lotwise/shared';
 import { EntitySchema } from 'typeorm';
 import { foreignKey } from '../../db/entity-relations';
+import { microQuantity } from '../../db/quantities';
 
 export type ReservationStatus = 'active' | 'released';
 export type ReleaseReason = 'recorded' | 'cancelled' | 'lapsed' | 'replaced';
@@ -36,7 +37,8 @@ export const ReservationEntity = new EntitySchema<ReservationRow>({
     planId: { name: 'plan_id', type: 'integer' },
     containerId: { name: 'container_id', type: 'integer' },
     requirementIndex: { name: 'requirement_index', type: 'integer', nullable: true },
-    quantity: { type: 'double precision' },
+    /** Whole millionths of the unit in the database; g or mL here (see db/quantities). */
+    quantity: { name: 'quantity_micro', type: 'bigint', transformer: microQuantity },
     unit: { type: 'varchar', length: 4 },
     until: { type: 'varchar', length: 10 },
     status: { type: 'varchar', length: 10 },

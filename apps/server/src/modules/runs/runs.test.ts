@@ -53,7 +53,7 @@ async function openRun(body: object, cookie = member): Promise<Run> {
 async function counts() {
   const { dataSource } = testContext();
   const [row] = await dataSource.query(
-    'SELECT (SELECT COUNT(*) FROM ledger_entries) AS entries, (SELECT COUNT(*) FROM lots) AS lots, (SELECT COUNT(*) FROM containers) AS containers, (SELECT COUNT(*) FROM run_inputs) AS inputs, (SELECT COUNT(*) FROM run_products) AS products, (SELECT SUM(quantity) FROM containers) AS total',
+    'SELECT (SELECT COUNT(*) FROM ledger_entries) AS entries, (SELECT COUNT(*) FROM lots) AS lots, (SELECT COUNT(*) FROM containers) AS containers, (SELECT COUNT(*) FROM run_inputs) AS inputs, (SELECT COUNT(*) FROM run_products) AS products, (SELECT SUM(quantity_micro) FROM containers) AS total',
   );
   return row;
 }

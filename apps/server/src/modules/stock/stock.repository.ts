@@ -1,7 +1,8 @@
 import { parseSort, type StockListQuery, type StockUnit, type StorageGroup } from '@lotwise/shared';
 import type { EntityManager } from 'typeorm';
+import { fromMicro } from '../../db/quantities';
 import { containsPattern } from '../../db/sql';
-import { usableSql } from '../containers/containers.repository';
+import { atOrBelowReorderPointCondition, usableSql } from '../containers/containers.repository';
 import { StocktakeEntity, type StocktakeRow } from './stocktake.entity';
 
 export interface StockRow {
@@ -44,7 +45,7 @@ export function stockRepository(manager: EntityManager) {
       const perChemical = manager
         .createQueryBuilder()
         .select('c.chemical_id', 'chemical_id')
-        .addSelect(`SUM(CASE WHEN ${usable} THEN c.quantity ELSE 0 END)`, 'total')
+        .addSelect(`SUM(CASE WHEN ${usable} THEN c.quantity_micro ELSE 0 END)`, 'total')
         .addSelect('COUNT(*)', 'container_count')
         .addSelect(`SUM(CASE WHEN ${usable} THEN 1 ELSE 0 END)`, 'usable_count')
         .addSelect(
@@ -99,11 +100,9 @@ export function stockRepository(manager: EntityManager) {
         qb.andWhere('ch.storage_group = :group', { group: query.storageGroup });
       if (context.locationIdPath) qb.andWhere('s.container_count > 0');
       if (query.belowReorderPoint === true) {
-        qb.andWhere(
-          `ch.reorder_point IS NOT NULL AND ${totalSql} <= ch.reorder_point * (1 + 1e-6)`,
-        );
+        qb.andWhere(atOrBelowReorderPointCondition('ch', totalSql));
       } else if (query.belowReorderPoint === false) {
-        qb.andWhere(`(ch.reorder_point IS NULL OR ${totalSql} > ch.reorder_point * (1 + 1e-6))`);
+        qb.andWhere(`NOT (${atOrBelowReorderPointCondition('ch', totalSql)})`);
       }
       if (context.expiringBefore) qb.andWhere('s.expiring_count > 0');
       // Without filters on the sums, the count needs only the chemicals (no pass over containers).
@@ -137,7 +136,7 @@ export function stockRepository(manager: EntityManager) {
         rows: rows.map((row) => ({
           ...row,
           id: Number(row.id),
-          total: Number(row.total),
+          total: fromMicro(row.total),
           containerCount: Number(row.containerCount),
           usableContainerCount: Number(row.usableContainerCount ?? 0),
           expiredContainerCount: Number(row.expiredContainerCount ?? 0),
@@ -155,7 +154,7 @@ export function stockRepository(manager: EntityManager) {
     ): Promise<{ before: number; days: { date: string; change: number }[] }> {
       const before = await manager
         .createQueryBuilder()
-        .select('COALESCE(SUM(e.quantity), 0)', 'n')
+        .select('COALESCE(SUM(e.quantity_micro), 0)', 'n')
         .from('ledger_entries', 'e')
         .innerJoin('containers', 'c', 'c.id = e.container_id')
         .where('c.chemical_id = :chemicalId', { chemicalId })
@@ -164,7 +163,7 @@ export function stockRepository(manager: EntityManager) {
       const days = await manager
         .createQueryBuilder()
         .select('SUBSTR(e.created_at, 1, 10)', 'date')
-        .addSelect('SUM(e.quantity)', 'change')
+        .addSelect('SUM(e.quantity_micro)', 'change')
         .from('ledger_entries', 'e')
         .innerJoin('containers', 'c', 'c.id = e.container_id')
         .where('c.chemical_id = :chemicalId', { chemicalId })
@@ -173,8 +172,8 @@ export function stockRepository(manager: EntityManager) {
         .orderBy('date', 'ASC')
         .getRawMany<{ date: string; change: number }>();
       return {
-        before: Number(before?.n ?? 0),
-        days: days.map((d) => ({ date: d.date, change: Number(d.change) })),
+        before: fromMicro(before?.n ?? 0),
+        days: days.map((d) => ({ date: d.date, change: fromMicro(d.change) })),
       };
     },
 
