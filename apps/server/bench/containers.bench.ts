@@ -156,6 +156,8 @@ await dataSource.transaction(async () => {
     const lot = (i % (chemicalCount * 4)) + 1;
     const chemical = ((lot - 1) % chemicalCount) + 1;
     const quantity = (i % 997) + 1;
+    // Stored as whole millionths of the unit (see src/db/quantities.ts).
+    const quantityMicro = quantity * 1_000_000;
     const expires = addDays(today, -60 + (((lot - 1) * 7) % 900));
     containers.push([
       formatLabelCode(i + 1),
@@ -164,7 +166,7 @@ await dataSource.transaction(async () => {
       chemical,
       (i % (locationCount - 3)) + 2,
       statuses[i % statuses.length],
-      quantity,
+      quantityMicro,
       chemical % 2 === 0 ? 'mL' : 'g',
       150,
       expires,
@@ -172,7 +174,15 @@ await dataSource.transaction(async () => {
       now,
       now,
     ]);
-    entries.push([i + 1, 'received', quantity, chemical % 2 === 0 ? 'mL' : 'g', quantity, '', now]);
+    entries.push([
+      i + 1,
+      'received',
+      quantityMicro,
+      chemical % 2 === 0 ? 'mL' : 'g',
+      quantityMicro,
+      '',
+      now,
+    ]);
   }
   await insertRows(
     'containers',
@@ -183,7 +193,7 @@ await dataSource.transaction(async () => {
       'chemical_id',
       'location_id',
       'status',
-      'quantity',
+      'quantity_micro',
       'unit',
       'tare_mass',
       'expires_on',
@@ -195,7 +205,15 @@ await dataSource.transaction(async () => {
   );
   await insertRows(
     'ledger_entries',
-    ['container_id', 'reason', 'quantity', 'unit', 'balance_after', 'note', 'created_at'],
+    [
+      'container_id',
+      'reason',
+      'quantity_micro',
+      'unit',
+      'balance_after_micro',
+      'note',
+      'created_at',
+    ],
     entries,
   );
 });

@@ -357,6 +357,27 @@ describe('problems in the file', () => {
     expect(checked.errorCount).toBe(checked.errors.length);
   });
 
+  it('when a quantity is a barcode, too large once converted, or below a millionth, then the row is refused on Quantity and nothing is written', async () => {
+    const checked = await preview(
+      csv([
+        row({ Quantity: '4006381333931' }),
+        row({ Quantity: '1e308' }),
+        row({ Quantity: '10001', Unit: 'kg' }),
+        row({ Quantity: '0.0000001' }),
+        row({ Quantity: '10000', Unit: 'kg' }),
+        row({ 'Tare (g)': '9007199254740993' }),
+      ]),
+    );
+    const byRow = new Map(checked.errors.map((e) => [`${e.row} ${e.field}`, e.message]));
+    expect(byRow.get('2 quantity')).toMatch(/at most 10 000 000/);
+    expect(byRow.get('3 quantity')).toMatch(/at most 10 000 000/);
+    expect(byRow.get('4 quantity')).toMatch(/10001 kg is 10001000 g .* at most 10 000 000 g/);
+    expect(byRow.get('5 quantity')).toMatch(/too small/);
+    expect(byRow.has('6 quantity')).toBe(false);
+    expect(byRow.get('7 tareMass')).toMatch(/at most 10 000 000/);
+    expect(checked.status).toBe('invalid');
+  });
+
   it('when label codes repeat in the file or are already in Lotwise, then those rows are named', async () => {
     const shelf = await make.location();
     const lot = await make.lot((await make.chemical()).id);
