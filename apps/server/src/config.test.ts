@@ -14,6 +14,8 @@ describe('configuration', () => {
     const { env } = tempEnv();
     const config = loadConfig(env);
     expect(config).toMatchObject({
+      env: 'development',
+      production: false,
       port: 3000,
       host: '127.0.0.1',
       seedDemo: true,
@@ -81,5 +83,17 @@ describe('configuration', () => {
     expect(loadConfig(env).jwtSecret).toBe(first.jwtSecret);
     const { env: otherEnv } = tempEnv();
     expect(loadConfig(otherEnv).jwtSecret).not.toBe(first.jwtSecret);
+  });
+
+  it('when NODE_ENV is production, then the configuration says so; an unknown NODE_ENV is refused', () => {
+    const { env } = tempEnv();
+    expect(loadConfig({ ...env, NODE_ENV: 'production' })).toMatchObject({
+      env: 'production',
+      production: true,
+    });
+    expect(loadConfig({ ...env, NODE_ENV: 'test' })).toMatchObject({ production: false });
+    expect(() => loadConfig({ ...env, NODE_ENV: 'prod' })).toThrow(
+      /^Invalid configuration: NODE_ENV /,
+    );
   });
 });

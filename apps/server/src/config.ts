@@ -25,6 +25,12 @@ const wholeNumber = (min: number, max: number) =>
 
 /** Every key the server reads from the environment, with its default and a one-line doc. */
 const envSchema = z.object({
+  /** `production` for a real lab: no demo data, no dev mail inbox, no new database without --init. */
+  NODE_ENV: z
+    .enum(['development', 'production', 'test'], {
+      message: 'must be development, production or test',
+    })
+    .default('development'),
   /** TCP port the HTTP server listens on. */
   PORT: wholeNumber(1, 65535).default(3000),
   /** Interface to bind; 127.0.0.1 keeps Lotwise on this machine, 0.0.0.0 opens it to the network. */
@@ -117,7 +123,14 @@ export interface AlertConfig {
   outboxMaxAttempts: number;
 }
 
+/** How the server runs: `production` for a real lab, `development` for `npm start` and `npm run dev`. */
+export type RunEnvironment = 'development' | 'production' | 'test';
+
 export interface Config {
+  /** NODE_ENV; `test` is what vitest sets. */
+  env: RunEnvironment;
+  /** True when NODE_ENV=production: a real lab's data, never demo data or development helpers. */
+  production: boolean;
   port: number;
   host: string;
   databasePath: string;
@@ -207,6 +220,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const databasePath = resolveFromRoot(values.DATABASE_PATH);
   mkdirSync(path.dirname(databasePath), { recursive: true });
   return {
+    env: values.NODE_ENV,
+    production: values.NODE_ENV === 'production',
     port: values.PORT,
     host: values.HOST,
     databasePath,
