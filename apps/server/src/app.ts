@@ -106,7 +106,7 @@ export function createApp({
   const routes = [
     ...healthRoutes(store, logger),
     ...authRoutes(authService(store, config), session, config.loginRateLimit),
-    ...userRoutes(usersService(store, config)),
+    ...userRoutes(usersService(store, config), session),
     ...auditRoutes(auditService(store)),
     ...chemicalRoutes(chemicalsService(store, files)),
     ...locationRoutes(locationsService(store)),

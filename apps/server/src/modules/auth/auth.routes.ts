@@ -1,4 +1,8 @@
-import { acceptInviteBodySchema, loginBodySchema } from '@lotwise/shared';
+import {
+  acceptInviteBodySchema,
+  changePasswordBodySchema,
+  loginBodySchema,
+} from '@lotwise/shared';
 import type { RequestHandler } from 'express';
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
 import { z } from 'zod';
@@ -43,7 +47,7 @@ export function authRoutes(auth: AuthService, session: Sessions, loginRateLimit:
       body: loginBodySchema,
       handle: async ({ body, res }) => {
         const user = await auth.login(body);
-        session.issue(res, user.id);
+        await session.issue(res, user.id);
         res.json({ user });
       },
     }),
@@ -51,9 +55,24 @@ export function authRoutes(auth: AuthService, session: Sessions, loginRateLimit:
       method: 'post',
       path: '/api/auth/logout',
       access: 'public',
-      handle: ({ res }) => {
+      // Signing out ends every session of the user, not only this browser's cookie.
+      handle: async ({ req, res }) => {
+        const user = await session.resolve(req, res);
+        if (user) await auth.endSessions(user.id);
         session.clear(res);
         res.status(204).end();
+      },
+    }),
+    defineRoute({
+      method: 'post',
+      path: '/api/auth/password',
+      access: 'signed-in',
+      body: changePasswordBodySchema,
+      handle: async ({ body, res, actor }) => {
+        const user = await auth.changePassword(actor().id, body);
+        // Other browsers are signed out; this one continues on a fresh session.
+        await session.issue(res, user.id);
+        res.json({ user });
       },
     }),
     defineRoute({
@@ -80,7 +99,7 @@ export function authRoutes(auth: AuthService, session: Sessions, loginRateLimit:
       body: acceptInviteBodySchema,
       handle: async ({ body, res }) => {
         const user = await auth.acceptInvite(body);
-        session.issue(res, user.id);
+        await session.issue(res, user.id);
         res.json({ user });
       },
     }),

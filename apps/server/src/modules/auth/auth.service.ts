@@ -1,4 +1,4 @@
-import type { AcceptInviteBody, LoginBody, User } from '@lotwise/shared';
+import type { AcceptInviteBody, ChangePasswordBody, LoginBody, User } from '@lotwise/shared';
 import type { Config } from '../../config';
 import type { Store } from '../../db/store';
 import { nowIso } from '../../db/sql';
@@ -39,6 +39,42 @@ export function authService(store: Store, config: AuthConfig) {
       return presentUser(await users.update(row.id, { lastLoginAt: nowIso() }));
     },
 
+    /** Signs the user out everywhere: every session token they hold stops working. */
+    async endSessions(userId: number): Promise<void> {
+      await users.endSessions(userId);
+    },
+
+    /**
+     * Changes the signed-in user's own password after checking the current one, and ends
+     * every session they hold (the caller starts a fresh one for this browser).
+     */
+    async changePassword(userId: number, body: ChangePasswordBody): Promise<User> {
+      const row = await users.findById(userId);
+      if (!row?.passwordHash || !(await verifyPassword(body.currentPassword, row.passwordHash))) {
+        throw AppError.validation('The current password is not right.', {
+          currentPassword: 'is not right',
+        });
+      }
+      const passwordHash = await hashPassword(body.newPassword, config.bcryptCost);
+      return store.transaction(async (repos) => {
+        const now = nowIso();
+        const updated = await repos.users.update(userId, {
+          passwordHash,
+          sessionVersion: row.sessionVersion + 1,
+          updatedAt: now,
+        });
+        await repos.audit.insert({
+          actorId: userId,
+          action: 'user.password_set',
+          targetType: 'user',
+          targetId: userId,
+          detail: { by: 'self' },
+          createdAt: now,
+        });
+        return presentUser(updated);
+      });
+    },
+
     /** Who an invitation is for, to greet them before they choose a password. */
     async invitation(token: string): Promise<{ email: string; displayName: string }> {
       const row = await pendingInvite(token);
@@ -55,6 +91,7 @@ export function authService(store: Store, config: AuthConfig) {
           passwordHash,
           inviteTokenHash: null,
           inviteExpiresAt: null,
+          sessionVersion: row.sessionVersion + 1,
           lastLoginAt: now,
           updatedAt: now,
         }),
