@@ -1,8 +1,4 @@
-import {
-  acceptInviteBodySchema,
-  changePasswordBodySchema,
-  loginBodySchema,
-} from '@lotwise/shared';
+import { acceptInviteBodySchema, changePasswordBodySchema, loginBodySchema } from '@lotwise/shared';
 import type { RequestHandler } from 'express';
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
 import { z } from 'zod';
