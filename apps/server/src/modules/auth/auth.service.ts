@@ -5,7 +5,7 @@ import { nowIso } from '../../db/sql';
 import { AppError } from '../../lib/app-error';
 import { presentUser } from '../users/users.service';
 import type { UserRow } from '../users/user.entity';
-import { hashPassword, tokenHash, verifyPassword } from './passwords';
+import { hashPassword, needsRehash, tokenHash, verifyPassword } from './passwords';
 
 const wrongCredentials = 'The e-mail address or the password is not right.';
 const invalidInvite =
@@ -36,7 +36,11 @@ export function authService(store: Store, config: AuthConfig) {
       if (!row.active) {
         throw AppError.forbidden('This account has been deactivated. Ask an admin of your lab.');
       }
-      return presentUser(await users.update(row.id, { lastLoginAt: nowIso() }));
+      // A hash made at another cost is replaced, so every sign-in costs what BCRYPT_COST says.
+      const rehashed = needsRehash(row.passwordHash, config.bcryptCost)
+        ? { passwordHash: await hashPassword(password, config.bcryptCost) }
+        : {};
+      return presentUser(await users.update(row.id, { ...rehashed, lastLoginAt: nowIso() }));
     },
 
     /** Signs the user out everywhere: every session token they hold stops working. */
