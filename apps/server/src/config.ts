@@ -52,7 +52,7 @@ const envSchema = z.object({
   /** Failed sign-in attempts allowed per IP address and e-mail in 15 minutes. */
   LOGIN_RATE_LIMIT: wholeNumber(1, 100000).default(10),
   /** Failed sign-in attempts allowed per IP address, whatever the e-mail, in 15 minutes. */
-  LOGIN_RATE_LIMIT_PER_ADDRESS: wholeNumber(1, 100000).default(30),
+  LOGIN_RATE_LIMIT_IP: wholeNumber(1, 100000).default(30),
   /** Reverse proxies in front of Lotwise whose X-Forwarded-For is believed: a count or addresses. */
   TRUST_PROXY: z
     .string()
@@ -328,7 +328,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
           : 'new-file',
     cookieSecure: values.COOKIE_SECURE,
     loginRateLimit: values.LOGIN_RATE_LIMIT,
-    loginRateLimitPerAddress: values.LOGIN_RATE_LIMIT_PER_ADDRESS,
+    loginRateLimitPerAddress: values.LOGIN_RATE_LIMIT_IP,
     trustProxy: values.TRUST_PROXY ?? false,
     publicUrl: (values.PUBLIC_URL ?? `http://localhost:${values.PORT}`).replace(/\/+$/, ''),
     webDist: resolveFromRoot(values.WEB_DIST),
