@@ -49,6 +49,7 @@ export default defineConfig({
       DATABASE_PATH: path.join(dataDir, 'lotwise.sqlite'),
       SEED_DEMO: 'true',
       LOGIN_RATE_LIMIT: '1000',
+      LOGIN_RATE_LIMIT_IP: '1000',
       PUBLIC_URL: baseURL,
       // the dev inbox on ports of its own, so a developer's running Lotwise does not clash
       DEV_MAIL_SMTP_PORT: String(port + 1),

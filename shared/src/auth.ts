@@ -43,3 +43,10 @@ export const acceptInviteBodySchema = z.object({
   password: passwordSchema,
 });
 export type AcceptInviteBody = z.infer<typeof acceptInviteBodySchema>;
+
+/** A signed-in user changes their own password; every other session of theirs ends. */
+export const changePasswordBodySchema = z.object({
+  currentPassword: z.string().min(1, 'is required'),
+  newPassword: passwordSchema,
+});
+export type ChangePasswordBody = z.infer<typeof changePasswordBodySchema>;

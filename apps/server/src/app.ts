@@ -7,6 +7,7 @@ import { createStore } from './db/store';
 import { errorMiddleware, notFoundMiddleware } from './lib/error-middleware';
 import { createLogger, type Logger } from './lib/logger';
 import { mountRoutes, type ApiRoute } from './lib/route-table';
+import { sameOriginWrites } from './lib/same-origin';
 import { fileStore } from './lib/uploads';
 import { serveWebApp } from './lib/web-app';
 import { alertRoutes } from './modules/alerts/alerts.routes';
@@ -68,6 +69,8 @@ export function createApp({
 }: AppOptions) {
   const app = express();
   app.disable('x-powered-by');
+  // Behind a reverse proxy, req.ip (and so the sign-in limits) comes from X-Forwarded-For.
+  app.set('trust proxy', config.trustProxy);
   app.use(
     helmet({
       // Over plain HTTP (localhost, a lab's LAN) upgrading requests would break the page.
@@ -90,6 +93,12 @@ export function createApp({
     });
     next();
   });
+  app.use(sameOriginWrites(config.publicUrl));
+  // API answers carry people's data and sessions: no browser or proxy cache keeps them.
+  app.use('/api', (_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
   app.use(express.json({ limit: '1mb' }));
   app.use(cookieParser());
 
@@ -105,8 +114,8 @@ export function createApp({
   store.onLedgerChange((repos, chemicalIds) => alerts.ledgerChanged(repos, chemicalIds));
   const routes = [
     ...healthRoutes(store, logger),
-    ...authRoutes(authService(store, config), session, config.loginRateLimit),
-    ...userRoutes(usersService(store, config)),
+    ...authRoutes(authService(store, config), session, config),
+    ...userRoutes(usersService(store, config), session),
     ...auditRoutes(auditService(store)),
     ...chemicalRoutes(chemicalsService(store, files)),
     ...locationRoutes(locationsService(store)),

@@ -1,8 +1,8 @@
-import { mkdtempSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { ConfigError, loadConfig, repoRoot } from './config';
+import { ConfigError, StartupError, loadConfig, repoRoot } from './config';
 
 function tempEnv(env: NodeJS.ProcessEnv = {}) {
   const dir = mkdtempSync(path.join(tmpdir(), 'lotwise-config-'));
@@ -14,14 +14,19 @@ describe('configuration', () => {
     const { env } = tempEnv();
     const config = loadConfig(env);
     expect(config).toMatchObject({
+      env: 'development',
+      production: false,
       port: 3000,
       host: '127.0.0.1',
-      seedDemo: true,
+      databaseInit: true,
+      seedDemo: 'new-file',
       cookieSecure: false,
       loginRateLimit: 10,
+      loginRateLimitPerAddress: 30,
+      trustProxy: false,
       publicUrl: 'http://localhost:3000',
       webDist: path.join(repoRoot, 'apps/web/dist'),
-      bcryptCost: 11,
+      bcryptCost: 9,
       logLevel: 'info',
     });
   });
@@ -64,7 +69,7 @@ describe('configuration', () => {
     });
     expect(config).toMatchObject({
       port: 8080,
-      seedDemo: false,
+      seedDemo: 'never',
       cookieSecure: true,
       publicUrl: 'https://lab.example.test',
       jwtSecret: 's'.repeat(40),
@@ -81,5 +86,63 @@ describe('configuration', () => {
     expect(loadConfig(env).jwtSecret).toBe(first.jwtSecret);
     const { env: otherEnv } = tempEnv();
     expect(loadConfig(otherEnv).jwtSecret).not.toBe(first.jwtSecret);
+  });
+
+  it('when NODE_ENV is production, then the configuration says so; an unknown NODE_ENV is refused', () => {
+    const { env } = tempEnv();
+    expect(loadConfig({ ...env, NODE_ENV: 'production', DATABASE_INIT: 'true' })).toMatchObject({
+      env: 'production',
+      production: true,
+      databaseInit: true,
+      seedDemo: 'never',
+    });
+    expect(loadConfig({ ...env, NODE_ENV: 'test' })).toMatchObject({ production: false });
+    expect(() => loadConfig({ ...env, NODE_ENV: 'prod' })).toThrow(
+      /^Invalid configuration: NODE_ENV /,
+    );
+  });
+
+  it('when production starts on a missing or empty database file, then loading stops naming the file and writes nothing', () => {
+    const { dir, env } = tempEnv({ NODE_ENV: 'production' });
+    const file = env.DATABASE_PATH as string;
+    const attempt = () => loadConfig(env);
+    expect(attempt).toThrow(StartupError);
+    expect(attempt).toThrow(new RegExp(`no database file at ${file.replace(/[.]/g, '\\.')}`, 'i'));
+    expect(attempt).toThrow(/restore the file from your latest backup/);
+    expect(attempt).toThrow(/--init/);
+    expect(existsSync(path.join(dir, 'sub'))).toBe(false);
+
+    mkdirSync(path.join(dir, 'sub'));
+    writeFileSync(file, '');
+    expect(attempt).toThrow(/database file is empty/);
+    expect(existsSync(path.join(dir, 'sub', 'jwt-secret'))).toBe(false);
+    expect(loadConfig({ ...env, DATABASE_INIT: 'true' }).databaseInit).toBe(true);
+  });
+
+  it('when SEED_DEMO is true in production, then loading stops naming SEED_DEMO', () => {
+    const { env } = tempEnv({ NODE_ENV: 'production', DATABASE_INIT: 'true', SEED_DEMO: 'true' });
+    expect(() => loadConfig(env)).toThrow(/^Invalid configuration: SEED_DEMO /);
+  });
+
+  it('when SEED_DEMO is set outside production, then true fills an empty database and false never seeds', () => {
+    const { env } = tempEnv();
+    expect(loadConfig({ ...env, SEED_DEMO: 'true' }).seedDemo).toBe('empty-database');
+    expect(loadConfig({ ...env, SEED_DEMO: 'false' }).seedDemo).toBe('never');
+  });
+
+  it('when TRUST_PROXY is a count or addresses, then Express gets them; true or junk is refused', () => {
+    const { env } = tempEnv();
+    expect(loadConfig({ ...env, TRUST_PROXY: '1' }).trustProxy).toBe(1);
+    expect(loadConfig({ ...env, TRUST_PROXY: 'false' }).trustProxy).toBe(false);
+    expect(loadConfig({ ...env, TRUST_PROXY: 'loopback, 10.0.0.0/8, ::1' }).trustProxy).toEqual([
+      'loopback',
+      '10.0.0.0/8',
+      '::1',
+    ]);
+    for (const value of ['true', 'everyone', '10.0.0.0/99', '1.2.3']) {
+      expect(() => loadConfig({ ...env, TRUST_PROXY: value }), value).toThrow(
+        /^Invalid configuration: TRUST_PROXY /,
+      );
+    }
   });
 });

@@ -1,5 +1,6 @@
 import { randomBytes } from 'node:crypto';
-import { chmodSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { chmodSync, existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { isIP } from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
@@ -25,26 +26,55 @@ const wholeNumber = (min: number, max: number) =>
 
 /** Every key the server reads from the environment, with its default and a one-line doc. */
 const envSchema = z.object({
+  /** `production` for a real lab: no demo data, no dev mail inbox, no new database without --init. */
+  NODE_ENV: z
+    .enum(['development', 'production', 'test'], {
+      message: 'must be development, production or test',
+    })
+    .default('development'),
   /** TCP port the HTTP server listens on. */
   PORT: wholeNumber(1, 65535).default(3000),
   /** Interface to bind; 127.0.0.1 keeps Lotwise on this machine, 0.0.0.0 opens it to the network. */
   HOST: z.string().min(1).default('127.0.0.1'),
   /** SQLite database file; its folder is created when missing. */
   DATABASE_PATH: z.string().min(1).default('data/lotwise.sqlite'),
+  /** In production, allow this start to create a new, empty database file (same as `--init`). */
+  DATABASE_INIT: flag.default(false),
   /** Secret that signs session tokens (32+ characters); generated and kept beside the database when unset. */
   JWT_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
-  /** Fill an empty database with the demo lab on start-up. */
-  SEED_DEMO: flag.default(true),
+  /**
+   * Demo lab: unset, a database file this start creates is filled with it (development only);
+   * true also fills an existing empty database; false never. Refused in production.
+   */
+  SEED_DEMO: flag.optional(),
   /** Mark the session cookie Secure (turn on when Lotwise is served over HTTPS). */
   COOKIE_SECURE: flag.default(false),
   /** Failed sign-in attempts allowed per IP address and e-mail in 15 minutes. */
   LOGIN_RATE_LIMIT: wholeNumber(1, 100000).default(10),
+  /** Failed sign-in attempts allowed per IP address, whatever the e-mail, in 15 minutes. */
+  LOGIN_RATE_LIMIT_IP: wholeNumber(1, 100000).default(30),
+  /** Reverse proxies in front of Lotwise whose X-Forwarded-For is believed: a count or addresses. */
+  TRUST_PROXY: z
+    .string()
+    .transform((value, ctx) => {
+      const parsed = trustProxySetting(value);
+      if (parsed === null) {
+        ctx.addIssue({
+          code: 'custom',
+          message:
+            'must be false, the number of proxies in front of Lotwise (e.g. 1), or their addresses (e.g. loopback or 10.0.0.0/8); true is refused because anyone could then choose their address',
+        });
+        return z.NEVER;
+      }
+      return parsed;
+    })
+    .optional(),
   /** Address people open Lotwise at, used in invitation links; defaults to http://localhost:PORT. */
   PUBLIC_URL: z.url({ message: 'must be a URL such as https://lab.example.test' }).optional(),
   /** Folder of the built web app served beside the API. */
   WEB_DIST: z.string().min(1).default('apps/web/dist'),
-  /** bcrypt cost for password hashes; 10 to 12 in use, tests go as low as 4. */
-  BCRYPT_COST: wholeNumber(4, 15).default(11),
+  /** bcrypt cost for new password hashes (see docs/decisions.md for the timings); tests use 4. */
+  BCRYPT_COST: wholeNumber(4, 15).default(9),
   /** Largest upload (CSV import, SDS, certificate) in MB. */
   UPLOAD_MAX_MB: wholeNumber(1, 1024).default(20),
   /** Folder for uploaded files, outside the web root; defaults to `uploads` beside the database. */
@@ -89,6 +119,28 @@ const envSchema = z.object({
   OUTBOX_MAX_ATTEMPTS: wholeNumber(1, 100).default(10),
 });
 
+const proxyRanges = new Set(['loopback', 'linklocal', 'uniquelocal']);
+
+/**
+ * TRUST_PROXY as Express takes it: false, a hop count, or a list of addresses, subnets and the
+ * named ranges. `true` is refused (null): it would believe any client's X-Forwarded-For.
+ */
+function trustProxySetting(value: string): TrustProxy | null {
+  const text = value.trim().toLowerCase();
+  if (['false', '0', 'no'].includes(text)) return false;
+  if (/^\d+$/.test(text)) return Number(text) <= 10 ? Number(text) : null;
+  const entries = text.split(',').map((entry) => entry.trim());
+  const valid = entries.every((entry) => {
+    if (proxyRanges.has(entry)) return true;
+    const [address = '', prefix, extra] = entry.split('/');
+    if (extra !== undefined || isIP(address) === 0) return false;
+    if (prefix === undefined) return true;
+    const bits = isIP(address) === 4 ? 32 : 128;
+    return /^\d+$/.test(prefix) && Number(prefix) <= bits;
+  });
+  return valid && entries.length > 0 ? entries : null;
+}
+
 /** Where outgoing mail goes: a real server, the local fake, or nowhere (messages stay queued). */
 export type SmtpSettings =
   | { kind: 'url'; url: string }
@@ -117,14 +169,38 @@ export interface AlertConfig {
   outboxMaxAttempts: number;
 }
 
+/** How the server runs: `production` for a real lab, `development` for `npm start` and `npm run dev`. */
+export type RunEnvironment = 'development' | 'production' | 'test';
+
+/** Express's `trust proxy`: off, the number of proxies, or their addresses and named ranges. */
+export type TrustProxy = false | number | string[];
+
+/** When the demo lab is loaded into the database at start-up. */
+export type SeedDemo = 'new-file' | 'empty-database' | 'never';
+
 export interface Config {
+  /** NODE_ENV; `test` is what vitest sets. */
+  env: RunEnvironment;
+  /** True when NODE_ENV=production: a real lab's data, never demo data or development helpers. */
+  production: boolean;
   port: number;
   host: string;
   databasePath: string;
+  /** This start may create a new database file (always outside production; `--init` in it). */
+  databaseInit: boolean;
   jwtSecret: string;
-  seedDemo: boolean;
+  /**
+   * `new-file`: only a database file this start created gets the demo lab (the default outside
+   * production); `empty-database`: also an existing database without users (SEED_DEMO=true);
+   * `never`: production, or SEED_DEMO=false.
+   */
+  seedDemo: SeedDemo;
   cookieSecure: boolean;
+  /** Failed sign-ins per IP address and e-mail in 15 minutes. */
   loginRateLimit: number;
+  /** Failed sign-ins per IP address across e-mails in 15 minutes (password spraying). */
+  loginRateLimitPerAddress: number;
+  trustProxy: TrustProxy;
   publicUrl: string;
   webDist: string;
   bcryptCost: number;
@@ -137,9 +213,31 @@ export interface Config {
   alerts: AlertConfig;
 }
 
+/** Lotwise cannot start as set up; the message says what is wrong and what to do. */
+export class StartupError extends Error {
+  override name = 'StartupError';
+}
+
 /** A setting in the environment is not usable; the message names the variable. */
-export class ConfigError extends Error {
+export class ConfigError extends StartupError {
   override name = 'ConfigError';
+}
+
+/**
+ * In production a missing or empty database file is not replaced by a new one unless this
+ * start was told to (`--init`, DATABASE_INIT=true): a lost volume must be noticed. Checked
+ * before anything is written beside the database.
+ */
+function refuseNewDatabaseFile(databasePath: string): void {
+  const size = existsSync(databasePath) ? statSync(databasePath).size : null;
+  if (size !== null && size > 0) return;
+  const found = size === null ? 'There is no database file at' : 'The database file is empty:';
+  throw new StartupError(
+    `${found} ${databasePath}\n` +
+      'Lotwise runs with NODE_ENV=production and does not create a new database on its own.\n' +
+      '- If Lotwise has run here before, its data is missing: restore the file from your latest backup (or mount the volume that holds it) and start again.\n' +
+      '- If this is a new installation, start once with --init (or DATABASE_INIT=true) to create an empty database, then add the first admin with npm run user:create.',
+  );
 }
 
 function resolveFromRoot(value: string): string {
@@ -204,16 +302,34 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     );
   }
   const values = parsed.data;
+  const production = values.NODE_ENV === 'production';
+  if (production && values.SEED_DEMO === true) {
+    throw new ConfigError(
+      'Invalid configuration: SEED_DEMO cannot be true with NODE_ENV=production (the demo lab has a published admin password)',
+    );
+  }
   const databasePath = resolveFromRoot(values.DATABASE_PATH);
+  const databaseInit = !production || values.DATABASE_INIT;
+  if (!databaseInit) refuseNewDatabaseFile(databasePath);
   mkdirSync(path.dirname(databasePath), { recursive: true });
   return {
+    env: values.NODE_ENV,
+    production,
     port: values.PORT,
     host: values.HOST,
     databasePath,
+    databaseInit,
     jwtSecret: values.JWT_SECRET ?? storedJwtSecret(databasePath),
-    seedDemo: values.SEED_DEMO,
+    seedDemo:
+      production || values.SEED_DEMO === false
+        ? 'never'
+        : values.SEED_DEMO === true
+          ? 'empty-database'
+          : 'new-file',
     cookieSecure: values.COOKIE_SECURE,
     loginRateLimit: values.LOGIN_RATE_LIMIT,
+    loginRateLimitPerAddress: values.LOGIN_RATE_LIMIT_IP,
+    trustProxy: values.TRUST_PROXY ?? false,
     publicUrl: (values.PUBLIC_URL ?? `http://localhost:${values.PORT}`).replace(/\/+$/, ''),
     webDist: resolveFromRoot(values.WEB_DIST),
     bcryptCost: values.BCRYPT_COST,

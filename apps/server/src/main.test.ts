@@ -1,5 +1,5 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -29,9 +29,9 @@ interface Started {
 }
 
 /** Starts `tsx src/main.ts` from the repository root, as the e2e config does. */
-function start(env: NodeJS.ProcessEnv): Started {
+function start(env: NodeJS.ProcessEnv, args: string[] = []): Started {
   let output = '';
-  const child = spawn(tsx, ['apps/server/src/main.ts'], {
+  const child = spawn(tsx, ['apps/server/src/main.ts', ...args], {
     cwd: path.resolve(serverDir, '../..'),
     env: { ...process.env, BCRYPT_COST: '4', ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -97,5 +97,58 @@ describe('src/main.ts', () => {
     running.push(started);
     expect(await started.exited).toBe(1);
     expect(started.output()).toMatch(/Invalid configuration: PORT/);
+  });
+
+  it('when production starts on a missing database file, then it exits 1 naming the file and creates nothing', async () => {
+    const file = path.join(dir, 'lost-volume', 'lotwise.sqlite');
+    const started = start({
+      NODE_ENV: 'production',
+      PORT: String(await freePort()),
+      DATABASE_PATH: file,
+    });
+    running.push(started);
+    expect(await started.exited).toBe(1);
+    expect(started.output()).toContain(`There is no database file at ${file}`);
+    expect(started.output()).toMatch(/restore the file from your latest backup/);
+    expect(existsSync(file)).toBe(false);
+  });
+
+  it('when production starts with --init, then it creates an empty database without the demo lab', async () => {
+    const port = await freePort();
+    const url = `http://127.0.0.1:${port}`;
+    const file = path.join(dir, 'new-lab.sqlite');
+    const started = start(
+      { NODE_ENV: 'production', PORT: String(port), DATABASE_PATH: file, DEV_MAIL: 'false' },
+      ['--init'],
+    );
+    running.push(started);
+    await waitForHealth(url, started);
+    expect(existsSync(file)).toBe(true);
+    const login = await fetch(`${url}/api/auth/login`, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json' },
+      body: JSON.stringify({ email: 'instructor@example.test', password: demoPassword }),
+    });
+    expect(login.status).toBe(401);
+    expect(started.output()).not.toContain(demoPassword);
+    expect(started.output()).toMatch(
+      /no users yet: create the first admin with npm run user:create/,
+    );
+    started.child.kill('SIGTERM');
+    expect(await started.exited).toBe(0);
+  });
+
+  it('when the database file is damaged, then the process exits 1 with a message naming the file', async () => {
+    const file = path.join(dir, 'damaged.sqlite');
+    writeFileSync(file, Buffer.alloc(8192, 0x5a));
+    const started = start({
+      PORT: String(await freePort()),
+      DATABASE_PATH: file,
+      DEV_MAIL: 'false',
+    });
+    running.push(started);
+    expect(await started.exited).toBe(1);
+    expect(started.output()).toContain(`The database file ${file} cannot be used`);
+    expect(started.output()).not.toMatch(/\n\s+at /);
   });
 });

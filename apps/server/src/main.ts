@@ -1,11 +1,14 @@
 import path from 'node:path';
-import { ConfigError, loadConfig } from './config';
+import { StartupError, loadConfig } from './config';
 import { startDevMail, type DevMailServer } from './modules/alerts/dev-mail';
 import { startServer } from './server';
 
 let devMail: DevMailServer | null = null;
 try {
-  const config = loadConfig();
+  // `--init` lets a production start create a new, empty database (like DATABASE_INIT=true).
+  const config = loadConfig(
+    process.argv.includes('--init') ? { ...process.env, DATABASE_INIT: 'true' } : process.env,
+  );
   // Without a real SMTP server, a local fake one with a web inbox catches every e-mail.
   if (config.mail.smtp.kind === 'dev') {
     devMail = startDevMail({
@@ -26,7 +29,7 @@ try {
   process.once('SIGINT', stop);
   process.once('SIGTERM', stop);
 } catch (error) {
-  console.error(error instanceof ConfigError ? error.message : error);
+  console.error(error instanceof StartupError ? error.message : error);
   devMail?.stop();
   process.exit(1);
 }

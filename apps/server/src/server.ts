@@ -2,9 +2,9 @@ import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
 import type { Config } from './config';
-import { createDataSource } from './db/data-source';
+import { hasDemoAccounts, openDatabase } from './db/database-file';
 import { createStore } from './db/store';
-import { demoAccounts, demoPassword, seedDemo } from './db/seed/demo-seed';
+import { demoAccounts, demoPassword } from './db/seed/demo-seed';
 import { createLogger } from './lib/logger';
 import { alertScheduler } from './modules/alerts/alerts-scheduler';
 import { alertsService } from './modules/alerts/alerts.service';
@@ -16,15 +16,14 @@ export interface RunningServer {
   close(): Promise<void>;
 }
 
-/** Opens and migrates the database, seeds the demo lab when allowed, and listens. */
+/**
+ * Opens, checks and migrates the database, seeds the demo lab when allowed (see
+ * db/database-file.ts), and listens. A StartupError says why the database cannot be used.
+ */
 export async function startServer(config: Config): Promise<RunningServer> {
   const logger = createLogger(config.logLevel);
-  const dataSource = createDataSource(config.databasePath);
-  await dataSource.initialize();
-  const applied = await dataSource.runMigrations({ transaction: 'all' });
-  if (applied.length) logger.info(`Applied migrations: ${applied.map((m) => m.name).join(', ')}`);
-
-  const seeded = config.seedDemo ? await seedDemo(dataSource, config.bcryptCost) : false;
+  const { dataSource, applied, seeded } = await openDatabase(config, logger);
+  if (applied.length) logger.info(`Applied migrations: ${applied.join(', ')}`);
   if (seeded) logger.info('Seeded the demo lab');
 
   let worker: OutboxWorker | null = null;
@@ -52,15 +51,14 @@ export async function startServer(config: Config): Promise<RunningServer> {
   const url = `http://${config.host === '0.0.0.0' ? 'localhost' : config.host}:${port}`;
 
   console.log(`Lotwise is running at ${url}`);
-  if (config.seedDemo) {
-    const demoAdmin = await createStore(dataSource).repos.users.findByEmail(
-      demoAccounts[0]?.email ?? '',
+  if (config.production && (await hasDemoAccounts(dataSource))) {
+    logger.warn(
+      `This database holds the demo accounts, whose password "${demoPassword}" is published: deactivate them or change their passwords.`,
     );
-    if (demoAdmin) {
-      console.log(`Demo sign-in accounts (password "${demoPassword}" unless changed):`);
-      for (const account of demoAccounts) {
-        console.log(`  ${account.role.padEnd(8)} ${account.email}`);
-      }
+  } else if (await hasDemoAccounts(dataSource)) {
+    console.log(`Demo sign-in accounts (password "${demoPassword}" unless changed):`);
+    for (const account of demoAccounts) {
+      console.log(`  ${account.role.padEnd(8)} ${account.email}`);
     }
   }
 

@@ -26,6 +26,7 @@ import { Preparations1796500000000 } from './migrations/1796500000000-preparatio
 import { ImportsAndFiles1796340000000 } from './migrations/1796340000000-imports-and-files';
 import { Alerts1796420000000 } from './migrations/1796420000000-alerts';
 import { ExactQuantities1796600000000 } from './migrations/1796600000000-exact-quantities';
+import { SessionVersion1796650000000 } from './migrations/1796650000000-session-version';
 
 export const entities = [
   UserEntity,
@@ -56,6 +57,7 @@ export const migrations = [
   Alerts1796420000000,
   Preparations1796500000000,
   ExactQuantities1796600000000,
+  SessionVersion1796650000000,
 ];
 
 /**

@@ -37,7 +37,7 @@ export type Repositories = ReturnType<typeof repositoriesFor>;
 export interface Store {
   repos: Repositories;
   transaction<T>(work: (repos: Repositories) => Promise<T>): Promise<T>;
-  /** Throws when the database does not answer. */
+  /** Throws when the database does not answer a read of the users table. */
   ping(): Promise<void>;
   /**
    * Runs `listener` at the end of every transaction of this store that appended ledger
@@ -130,7 +130,8 @@ export function createStore(dataSource: DataSource): Store {
       listeners.push(listener);
     },
     async ping() {
-      await serialized(dataSource, () => dataSource.query('SELECT 1'));
+      // A real table, so a database that lost its tables (or was swapped) does not look healthy.
+      await serialized(dataSource, () => dataSource.query('SELECT id FROM users LIMIT 1'));
     },
   };
 }

@@ -25,6 +25,7 @@ export function testConfig(dir: string, env: NodeJS.ProcessEnv = {}): Config {
     BCRYPT_COST: '4',
     LOG_LEVEL: 'silent',
     LOGIN_RATE_LIMIT: '1000',
+    LOGIN_RATE_LIMIT_IP: '1000',
     PUBLIC_URL: 'http://lotwise.example.test',
     WEB_DIST: path.join(dir, 'no-web-build'),
     ...env,

@@ -207,6 +207,12 @@ export const routes: RouteObject[] = [
             }),
           },
           {
+            path: paths.account,
+            lazy: async () => ({
+              Component: (await import('../features/auth/pages/account-page')).AccountPage,
+            }),
+          },
+          {
             path: paths.adminOutbox,
             lazy: async () => {
               const { OutboxPage } = await import('../features/alerts/pages/outbox-page');

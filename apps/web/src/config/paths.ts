@@ -46,4 +46,6 @@ export const paths = {
   alertPreferences: '/alerts/preferences',
   adminOutbox: '/admin/outbox',
   adminUsers: '/admin/users',
+  /** The signed-in person's own account: change password. */
+  account: '/account',
 } as const;

@@ -1,5 +1,6 @@
-import { acceptInviteBodySchema, loginBodySchema } from '@lotwise/shared';
-import type { RequestHandler } from 'express';
+import { acceptInviteBodySchema, changePasswordBodySchema, loginBodySchema } from '@lotwise/shared';
+import type { Request, RequestHandler } from 'express';
+import type { Config } from '../../config';
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
 import { z } from 'zod';
 import { AppError } from '../../lib/app-error';
@@ -8,42 +9,65 @@ import type { AuthService } from './auth.service';
 import type { Sessions } from './session';
 
 const windowMinutes = 15;
+const windowMs = windowMinutes * 60 * 1000;
 
-/** Failed sign-ins per IP address and e-mail address in 15 minutes; successes do not count. */
-function loginLimiter(limit: number): RequestHandler {
+function normalisedEmail(body: unknown): string {
+  const email: unknown = (body as { email?: unknown } | undefined)?.email;
+  return typeof email === 'string' ? email.trim().toLowerCase() : '';
+}
+
+/** Counts failed sign-ins under `key` in 15-minute windows; successes do not count. */
+function failedSignInLimiter(
+  limit: number,
+  key: (req: Request) => string,
+  message: string,
+): RequestHandler {
   return rateLimit({
-    windowMs: windowMinutes * 60 * 1000,
+    windowMs,
     limit,
     skipSuccessfulRequests: true,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    keyGenerator: (req) => {
-      const email: unknown = req.body?.email;
-      const who = typeof email === 'string' ? email.trim().toLowerCase() : '';
-      return `${ipKeyGenerator(req.ip ?? '')}|${who}`;
-    },
+    keyGenerator: key,
     handler: (_req, _res, next) => {
-      next(
-        new AppError(
-          'rate_limited',
-          `Too many sign-in attempts. Wait ${windowMinutes} minutes and try again.`,
-        ),
-      );
+      next(new AppError('rate_limited', message));
     },
   });
 }
 
-export function authRoutes(auth: AuthService, session: Sessions, loginRateLimit: number) {
+type LoginLimits = Pick<Config, 'loginRateLimit' | 'loginRateLimitPerAddress'>;
+
+/**
+ * Two limits on failed sign-ins: per network address across every e-mail (one password tried
+ * on many accounts), and per address and e-mail (many passwords on one account).
+ */
+function loginLimiters(limits: LoginLimits): RequestHandler[] {
+  const address = (req: Request) => ipKeyGenerator(req.ip ?? '');
+  return [
+    failedSignInLimiter(
+      limits.loginRateLimitPerAddress,
+      address,
+      `Too many failed sign-ins from this network address. Wait ${windowMinutes} minutes and try again.`,
+    ),
+    failedSignInLimiter(
+      limits.loginRateLimit,
+      (req) => `${address(req)}|${normalisedEmail(req.body)}`,
+      `Too many sign-in attempts. Wait ${windowMinutes} minutes and try again.`,
+    ),
+  ];
+}
+
+export function authRoutes(auth: AuthService, session: Sessions, limits: LoginLimits) {
   return [
     defineRoute({
       method: 'post',
       path: '/api/auth/login',
       access: 'public',
-      before: [loginLimiter(loginRateLimit)],
+      before: loginLimiters(limits),
       body: loginBodySchema,
       handle: async ({ body, res }) => {
         const user = await auth.login(body);
-        session.issue(res, user.id);
+        await session.issue(res, user.id);
         res.json({ user });
       },
     }),
@@ -51,9 +75,24 @@ export function authRoutes(auth: AuthService, session: Sessions, loginRateLimit:
       method: 'post',
       path: '/api/auth/logout',
       access: 'public',
-      handle: ({ res }) => {
+      // Signing out ends every session of the user, not only this browser's cookie.
+      handle: async ({ req, res }) => {
+        const user = await session.resolve(req, res);
+        if (user) await auth.endSessions(user.id);
         session.clear(res);
         res.status(204).end();
+      },
+    }),
+    defineRoute({
+      method: 'post',
+      path: '/api/auth/password',
+      access: 'signed-in',
+      body: changePasswordBodySchema,
+      handle: async ({ body, res, actor }) => {
+        const user = await auth.changePassword(actor().id, body);
+        // Other browsers are signed out; this one continues on a fresh session.
+        await session.issue(res, user.id);
+        res.json({ user });
       },
     }),
     defineRoute({
@@ -80,7 +119,7 @@ export function authRoutes(auth: AuthService, session: Sessions, loginRateLimit:
       body: acceptInviteBodySchema,
       handle: async ({ body, res }) => {
         const user = await auth.acceptInvite(body);
-        session.issue(res, user.id);
+        await session.issue(res, user.id);
         res.json({ user });
       },
     }),

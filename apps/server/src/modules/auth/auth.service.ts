@@ -1,11 +1,11 @@
-import type { AcceptInviteBody, LoginBody, User } from '@lotwise/shared';
+import type { AcceptInviteBody, ChangePasswordBody, LoginBody, User } from '@lotwise/shared';
 import type { Config } from '../../config';
 import type { Store } from '../../db/store';
 import { nowIso } from '../../db/sql';
 import { AppError } from '../../lib/app-error';
 import { presentUser } from '../users/users.service';
 import type { UserRow } from '../users/user.entity';
-import { hashPassword, tokenHash, verifyPassword } from './passwords';
+import { hashPassword, needsRehash, tokenHash, verifyPassword } from './passwords';
 
 const wrongCredentials = 'The e-mail address or the password is not right.';
 const invalidInvite =
@@ -36,7 +36,47 @@ export function authService(store: Store, config: AuthConfig) {
       if (!row.active) {
         throw AppError.forbidden('This account has been deactivated. Ask an admin of your lab.');
       }
-      return presentUser(await users.update(row.id, { lastLoginAt: nowIso() }));
+      // A hash made at another cost is replaced, so every sign-in costs what BCRYPT_COST says.
+      const rehashed = needsRehash(row.passwordHash, config.bcryptCost)
+        ? { passwordHash: await hashPassword(password, config.bcryptCost) }
+        : {};
+      return presentUser(await users.update(row.id, { ...rehashed, lastLoginAt: nowIso() }));
+    },
+
+    /** Signs the user out everywhere: every session token they hold stops working. */
+    async endSessions(userId: number): Promise<void> {
+      await users.endSessions(userId);
+    },
+
+    /**
+     * Changes the signed-in user's own password after checking the current one, and ends
+     * every session they hold (the caller starts a fresh one for this browser).
+     */
+    async changePassword(userId: number, body: ChangePasswordBody): Promise<User> {
+      const row = await users.findById(userId);
+      if (!row?.passwordHash || !(await verifyPassword(body.currentPassword, row.passwordHash))) {
+        throw AppError.validation('The current password is not right.', {
+          currentPassword: 'is not right',
+        });
+      }
+      const passwordHash = await hashPassword(body.newPassword, config.bcryptCost);
+      return store.transaction(async (repos) => {
+        const now = nowIso();
+        const updated = await repos.users.update(userId, {
+          passwordHash,
+          sessionVersion: row.sessionVersion + 1,
+          updatedAt: now,
+        });
+        await repos.audit.insert({
+          actorId: userId,
+          action: 'user.password_set',
+          targetType: 'user',
+          targetId: userId,
+          detail: { by: 'self' },
+          createdAt: now,
+        });
+        return presentUser(updated);
+      });
     },
 
     /** Who an invitation is for, to greet them before they choose a password. */
@@ -55,6 +95,7 @@ export function authService(store: Store, config: AuthConfig) {
           passwordHash,
           inviteTokenHash: null,
           inviteExpiresAt: null,
+          sessionVersion: row.sessionVersion + 1,
           lastLoginAt: now,
           updatedAt: now,
         }),

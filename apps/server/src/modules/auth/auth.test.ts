@@ -1,7 +1,7 @@
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
 import { createApp } from '../../app';
-import { tokenHash } from './passwords';
+import { hashPassword, tokenHash } from './passwords';
 import { createUser, signIn, signedIn, testPassword, uniqueEmail } from '../../test/factories';
 import { testContext } from '../../test/harness';
 
@@ -95,6 +95,59 @@ describe('sign-in', () => {
       .post('/api/auth/login')
       .send({ email: other.email, password: testPassword })
       .expect(200);
+  });
+
+  it('when one address tries 11 e-mails, then the per-address limit answers 429 (password spraying)', async () => {
+    const { dataSource, config } = testContext();
+    const limitedApp = createApp({
+      dataSource,
+      config: { ...config, loginRateLimit: 10, loginRateLimitPerAddress: 10 },
+    });
+    for (let attempt = 0; attempt < 10; attempt++) {
+      await request(limitedApp)
+        .post('/api/auth/login')
+        .send({ email: uniqueEmail('sprayed'), password: 'Summer2026!' })
+        .expect(401);
+    }
+    const blocked = await request(limitedApp)
+      .post('/api/auth/login')
+      .send({ email: uniqueEmail('sprayed'), password: 'Summer2026!' })
+      .expect(429);
+    expect(blocked.body.error).toMatchObject({ code: 'rate_limited' });
+    expect(blocked.body.error.message).toMatch(/from this network address/);
+    // Without a trusted proxy, a made-up X-Forwarded-For does not give a fresh address.
+    await request(limitedApp)
+      .post('/api/auth/login')
+      .set('X-Forwarded-For', '203.0.113.7')
+      .send({ email: uniqueEmail('sprayed'), password: 'Summer2026!' })
+      .expect(429);
+  });
+
+  it('when TRUST_PROXY names the proxy, then each forwarded client address has its own limit', async () => {
+    const { dataSource, config } = testContext();
+    const proxiedApp = createApp({
+      dataSource,
+      config: { ...config, loginRateLimitPerAddress: 2, trustProxy: ['loopback'] },
+    });
+    const attempt = (client: string) =>
+      request(proxiedApp)
+        .post('/api/auth/login')
+        .set('X-Forwarded-For', client)
+        .send({ email: uniqueEmail('proxied'), password: 'wrong-guess' });
+    await attempt('198.51.100.1').expect(401);
+    await attempt('198.51.100.1').expect(401);
+    await attempt('198.51.100.1').expect(429);
+    await attempt('198.51.100.2').expect(401);
+  });
+
+  it('when a stored hash was made at another bcrypt cost, then signing in replaces it at BCRYPT_COST', async () => {
+    const { store, config } = testContext();
+    const { email, user } = await createUser();
+    await store.repos.users.update(user.id, { passwordHash: await hashPassword(testPassword, 5) });
+    await signIn(app(), email);
+    const row = await store.repos.users.findById(user.id);
+    expect(row?.passwordHash).toMatch(new RegExp(`^\\$2[ab]\\$0${config.bcryptCost}\\$`));
+    await signIn(app(), email);
   });
 
   it('when sign-ins succeed, then they do not count against the limit', async () => {

@@ -9,6 +9,15 @@ export function verifyPassword(password: string, hash: string): Promise<boolean>
   return bcrypt.compare(password, hash);
 }
 
+/** True when the hash was made at another cost than the configured one (rehash at sign-in). */
+export function needsRehash(hash: string, cost: number): boolean {
+  try {
+    return bcrypt.getRounds(hash) !== cost;
+  } catch {
+    return false;
+  }
+}
+
 /** A random token for a link (256 bits, URL-safe). */
 export function newToken(): string {
   return randomBytes(32).toString('base64url');

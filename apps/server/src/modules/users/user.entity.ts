@@ -13,6 +13,8 @@ export interface UserRow {
   inviteTokenHash: string | null;
   inviteExpiresAt: string | null;
   lastLoginAt: string | null;
+  /** Carried by every session token; raising it ends all of this user's sessions. */
+  sessionVersion: number;
   createdAt: string;
   updatedAt: string;
 }
@@ -30,6 +32,7 @@ export const UserEntity = new EntitySchema<UserRow>({
     inviteTokenHash: { name: 'invite_token_hash', type: 'varchar', length: 64, nullable: true },
     inviteExpiresAt: { name: 'invite_expires_at', type: 'varchar', length: 24, nullable: true },
     lastLoginAt: { name: 'last_login_at', type: 'varchar', length: 24, nullable: true },
+    sessionVersion: { name: 'session_version', type: 'integer', default: 0 },
     createdAt: { name: 'created_at', type: 'varchar', length: 24 },
     updatedAt: { name: 'updated_at', type: 'varchar', length: 24 },
   },

@@ -11,7 +11,8 @@ const sortColumns: Record<string, string> = {
   lastLoginAt: 'u.lastLoginAt',
 };
 
-export type NewUser = Omit<UserRow, 'id'>;
+/** A row to insert; a new user starts at session version 0. */
+export type NewUser = Omit<UserRow, 'id' | 'sessionVersion'> & { sessionVersion?: number };
 
 /** Data access for `users`; answers plain rows. */
 export function usersRepository(manager: EntityManager) {
@@ -40,6 +41,10 @@ export function usersRepository(manager: EntityManager) {
     async update(id: number, changes: Partial<NewUser>): Promise<UserRow> {
       await repo.update({ id }, changes);
       return (await this.findById(id)) as UserRow;
+    },
+    /** Ends every session of the user: tokens carrying the old session version are refused. */
+    async endSessions(id: number): Promise<void> {
+      await repo.increment({ id }, 'sessionVersion', 1);
     },
     countActiveAdmins() {
       return repo.countBy({ role: 'admin', active: true });

@@ -1,13 +1,14 @@
 import { userCreateSchema, userListQuerySchema, userPatchSchema } from '@lotwise/shared';
 import { defineRoute } from '../../lib/route-table';
 import { idParamsSchema } from '../../lib/validate';
+import type { Sessions } from '../auth/session';
 import type { UsersService } from './users.service';
 
 // Unknown fields are refused here as they are for chemicals (the shared schemas strip them).
 const createBody = userCreateSchema.strict();
 const patchBody = userPatchSchema.strict();
 
-export function userRoutes(users: UsersService) {
+export function userRoutes(users: UsersService, session: Sessions) {
   return [
     defineRoute({
       method: 'get',
@@ -43,7 +44,10 @@ export function userRoutes(users: UsersService) {
       params: idParamsSchema,
       body: patchBody,
       handle: async ({ params, body, res, actor }) => {
-        res.json(await users.update(params.id, body, actor().id));
+        const user = await users.update(params.id, body, actor().id);
+        // A change to one's own password or role ends one's other sessions, not this one.
+        if (params.id === actor().id) await session.issue(res, user.id);
+        res.json(user);
       },
     }),
     defineRoute({

@@ -162,11 +162,18 @@ export function usersService(store: Store, config: UsersConfig) {
           Object.assign(changes, { passwordHash, inviteTokenHash: null, inviteExpiresAt: null });
           await audit(repos, actorId, 'user.password_set', id, {});
         }
+        // A new password, role or active flag ends every session the user had open.
+        if (passwordHash || changes.role !== undefined || changes.active !== undefined) {
+          changes.sessionVersion = current.sessionVersion + 1;
+        }
         return presentUser(await repos.users.update(id, changes));
       });
     },
 
-    /** A fresh invitation link (the old one stops working); also serves as a password reset. */
+    /**
+     * A fresh invitation link (the old one stops working); also serves as a password reset, so
+     * it ends the user's sessions.
+     */
     async reissueInvite(id: number, actorId: number): Promise<{ user: User; inviteUrl: string }> {
       return store.transaction(async (repos) => {
         const current = await repos.users.findById(id);
@@ -175,7 +182,12 @@ export function usersService(store: Store, config: UsersConfig) {
           throw AppError.conflict('This account is deactivated; reactivate it before inviting.');
         }
         const invite = invitation();
-        const row = await repos.users.update(id, { ...invite.columns, updatedAt: nowIso() });
+        // A reset: whoever holds a session of this account now must sign in again.
+        const row = await repos.users.update(id, {
+          ...invite.columns,
+          sessionVersion: current.sessionVersion + 1,
+          updatedAt: nowIso(),
+        });
         await audit(repos, actorId, 'user.invite_issued', id, {});
         return { user: presentUser(row), inviteUrl: invite.url };
       });

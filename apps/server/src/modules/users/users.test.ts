@@ -6,11 +6,13 @@ import { testContext } from '../../test/harness';
 const app = () => testContext().app;
 let adminCookie = '';
 let adminId = 0;
+let adminEmail = '';
 
 beforeAll(async () => {
   const admin = await signedIn('admin');
   adminCookie = admin.cookie;
   adminId = admin.user.id;
+  adminEmail = admin.email;
 });
 
 const asAdmin = {
@@ -185,8 +187,9 @@ describe('changing users', () => {
       .send({ role: 'member' })
       .expect(409);
     expect(lastOne.body.error.message).toMatch(/at least one active admin/);
-    // Restore the file's admin for the other tests.
+    // Restore the file's admin for the other tests; deactivating ended their session.
     await store.repos.users.update(adminId, { active: true });
+    adminCookie = await signIn(app(), adminEmail);
   });
 
   it('when the patch has an unknown field, then it answers 400 naming it', async () => {

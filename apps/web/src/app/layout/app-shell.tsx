@@ -31,10 +31,14 @@ export function AppShell({ user }: { user: User }) {
           </div>
         )}
         <div className="flex shrink-0 items-center gap-3 text-sm">
-          <span className="hidden text-right sm:block">
+          <Link
+            to={paths.account}
+            title="Your account: change your password"
+            className="hidden rounded text-right hover:underline sm:block"
+          >
             <span className="block leading-5 font-medium text-ink-900">{user.displayName}</span>
             <span className="block text-xs leading-4 text-ink-600">{user.email}</span>
-          </span>
+          </Link>
           <Badge tone="accent">{roleLabels[user.role]}</Badge>
           <Button
             variant="ghost"

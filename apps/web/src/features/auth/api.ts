@@ -1,5 +1,10 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { meResponseSchema, type AcceptInviteBody, type LoginBody } from '@lotwise/shared';
+import {
+  meResponseSchema,
+  type AcceptInviteBody,
+  type ChangePasswordBody,
+  type LoginBody,
+} from '@lotwise/shared';
 import { z } from 'zod';
 import { apiRequest } from '../../lib/api-client';
 import { sessionKeys } from '../../lib/auth';
@@ -77,6 +82,18 @@ export function useAcceptInvite() {
       apiRequest('/api/auth/accept-invite', { method: 'POST', body, allowUnauthenticated: true }),
     onSuccess: async () => {
       await queryClient.invalidateQueries({ queryKey: sessionKeys.all });
+    },
+  });
+}
+
+/** Changes one's own password; the server ends every other session and renews this one. */
+export function useChangePassword() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (body: ChangePasswordBody) =>
+      apiRequest('/api/auth/password', { method: 'POST', body, schema: meResponseSchema }),
+    onSuccess: ({ user }) => {
+      queryClient.setQueryData(sessionKeys.me(), user);
     },
   });
 }

@@ -1,0 +1,133 @@
+import { existsSync, statSync } from 'node:fs';
+import type { DataSource } from 'typeorm';
+import { StartupError, type Config } from '../config';
+import type { Logger } from '../lib/logger';
+import { createDataSource } from './data-source';
+import { demoAccounts, seedDemo } from './seed/demo-seed';
+
+/** What was at the database path before this start opened it. */
+export type DatabaseFileState = 'missing' | 'empty' | 'present';
+
+export interface OpenedDatabase {
+  dataSource: DataSource;
+  /** The file as this start found it. */
+  found: DatabaseFileState;
+  /** Migrations this start applied, by name. */
+  applied: string[];
+  /** True when this start loaded the demo lab. */
+  seeded: boolean;
+}
+
+type DatabaseConfig = Pick<
+  Config,
+  'databasePath' | 'databaseInit' | 'production' | 'seedDemo' | 'bcryptCost'
+>;
+
+const restoreAdvice =
+  'Stop here and restore the file from your latest backup (or point DATABASE_PATH at the right file), then start Lotwise again.';
+
+function fileState(databasePath: string): DatabaseFileState {
+  if (!existsSync(databasePath)) return 'missing';
+  const stats = statSync(databasePath);
+  if (!stats.isFile()) {
+    throw new StartupError(
+      `The database path ${databasePath} is not a file. Point DATABASE_PATH at the Lotwise database file.`,
+    );
+  }
+  return stats.size === 0 ? 'empty' : 'present';
+}
+
+async function tableNames(dataSource: DataSource): Promise<string[]> {
+  const rows: { name: string }[] = await dataSource.query(
+    "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%'",
+  );
+  return rows.map((row) => row.name);
+}
+
+/** Opens the file and runs SQLite's quick integrity check; a damaged file stops start-up. */
+async function openChecked(databasePath: string): Promise<DataSource> {
+  const dataSource = createDataSource(databasePath);
+  try {
+    await dataSource.initialize();
+    const rows: { quick_check: string }[] = await dataSource.query('PRAGMA quick_check');
+    const problems = rows.map((row) => row.quick_check).filter((line) => line !== 'ok');
+    if (problems.length > 0) {
+      throw new Error(`the integrity check found: ${problems.slice(0, 5).join('; ')}`);
+    }
+    return dataSource;
+  } catch (error) {
+    if (dataSource.isInitialized) await dataSource.destroy().catch(() => undefined);
+    const reason = error instanceof Error ? error.message : String(error);
+    throw new StartupError(
+      `The database file ${databasePath} cannot be used: ${reason}.\n${restoreAdvice}`,
+    );
+  }
+}
+
+/**
+ * Opens the database for the server: checks the file (quick_check), refuses a file that is
+ * not Lotwise's, applies migrations and loads the demo lab only when the configuration allows
+ * it for what was found. Production never seeds, and creates a file only when told to (the
+ * missing-file case is refused earlier, in loadConfig, before anything is written).
+ */
+export async function openDatabase(
+  config: DatabaseConfig,
+  logger: Logger,
+): Promise<OpenedDatabase> {
+  const found = fileState(config.databasePath);
+  if (found !== 'present' && !config.databaseInit) {
+    throw new StartupError(
+      `The database file ${config.databasePath} is missing or empty. ${restoreAdvice}`,
+    );
+  }
+  const dataSource = await openChecked(config.databasePath);
+  try {
+    const tables = await tableNames(dataSource);
+    if (tables.length > 0 && !tables.includes('migrations')) {
+      throw new StartupError(
+        `The file ${config.databasePath} is an SQLite database but not a Lotwise one (it has no migrations table). Point DATABASE_PATH at the Lotwise database file.`,
+      );
+    }
+    if (tables.length === 0 && !config.databaseInit) {
+      throw new StartupError(
+        `The database file ${config.databasePath} holds no tables. ${restoreAdvice} For a new installation start once with --init (or DATABASE_INIT=true).`,
+      );
+    }
+    const applied = (await dataSource.runMigrations({ transaction: 'all' })).map((m) => m.name);
+    const seeded = await seedIfAllowed(dataSource, config, found);
+    if (!seeded && (await dataSource.query('SELECT id FROM users LIMIT 1')).length === 0) {
+      logger.warn(
+        `The database ${config.databasePath} has no users yet: create the first admin with npm run user:create -- --email <address> --role admin` +
+          (config.production || found === 'missing'
+            ? ''
+            : ' (or start once with SEED_DEMO=true to fill it with the demo lab)'),
+      );
+    }
+    return { dataSource, found, applied, seeded };
+  } catch (error) {
+    await dataSource.destroy().catch(() => undefined);
+    throw error;
+  }
+}
+
+function seedIfAllowed(
+  dataSource: DataSource,
+  config: DatabaseConfig,
+  found: DatabaseFileState,
+): Promise<boolean> {
+  if (config.production) return Promise.resolve(false);
+  switch (config.seedDemo) {
+    case 'never':
+      return Promise.resolve(false);
+    case 'new-file':
+      return found === 'missing' ? seedDemo(dataSource, config.bcryptCost) : Promise.resolve(false);
+    case 'empty-database':
+      return seedDemo(dataSource, config.bcryptCost);
+  }
+}
+
+/** True when the demo admin exists, so the start-up banner may list the demo accounts. */
+export async function hasDemoAccounts(dataSource: DataSource): Promise<boolean> {
+  const email = demoAccounts[0]?.email ?? '';
+  return (await dataSource.query('SELECT id FROM users WHERE email = ?', [email])).length > 0;
+}
