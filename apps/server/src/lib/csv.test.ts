@@ -55,7 +55,12 @@ describe('RFC 4180 fields', () => {
   });
 
   it('when several records are written, then each ends in CRLF', () => {
-    expect(csvLines([['a', 1], ['b', 2]])).toBe('a,1\r\nb,2\r\n');
+    expect(
+      csvLines([
+        ['a', 1],
+        ['b', 2],
+      ]),
+    ).toBe('a,1\r\nb,2\r\n');
     expect(csvLines([])).toBe('');
   });
 
