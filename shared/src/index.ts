@@ -1,6 +1,7 @@
 export * from './errors';
 export * from './roles';
 export * from './list';
+export * from './names';
 export * from './hazards';
 export * from './auth';
 export * from './users';
