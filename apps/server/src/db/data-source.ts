@@ -1,4 +1,5 @@
 import 'reflect-metadata';
+import { chmodSync, existsSync } from 'node:fs';
 import path from 'node:path';
 import { DataSource } from 'typeorm';
 import { repoRoot } from '../config';
@@ -56,9 +57,27 @@ export const migrations = [
   Preparations1796500000000,
 ];
 
+/** The database file and the WAL and shared-memory files SQLite keeps beside it. */
+export function databaseFiles(databasePath: string): string[] {
+  return [databasePath, `${databasePath}-wal`, `${databasePath}-shm`];
+}
+
+/**
+ * Makes the database and its WAL/SHM files readable by this user only (0600). Called right
+ * after SQLite opened the file and before WAL mode creates the other two, which SQLite then
+ * creates with the database file's mode; files left by an older version are tightened too.
+ */
+function restrictDatabaseFiles(databasePath: string) {
+  if (databasePath === ':memory:' || databasePath === '') return;
+  for (const file of databaseFiles(databasePath)) {
+    if (existsSync(file)) chmodSync(file, 0o600);
+  }
+}
+
 /**
  * A DataSource on the SQLite file at `databasePath` (not yet initialized): WAL journal,
- * foreign keys enforced, never `synchronize` — the schema only changes through migrations.
+ * foreign keys enforced, files mode 0600, never `synchronize` — the schema only changes
+ * through migrations.
  */
 export function createDataSource(databasePath: string): DataSource {
   return new DataSource({
@@ -70,6 +89,7 @@ export function createDataSource(databasePath: string): DataSource {
     migrationsRun: false,
     enableWAL: true,
     prepareDatabase: (db: { pragma(sql: string): unknown }) => {
+      restrictDatabaseFiles(databasePath);
       db.pragma('journal_mode = WAL');
       db.pragma('foreign_keys = ON');
       db.pragma('busy_timeout = 5000');
