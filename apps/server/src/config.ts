@@ -69,7 +69,7 @@ const envSchema = z.object({
   SMTP_SECURE: flag.default(false),
   /** Sender of every e-mail. */
   MAIL_FROM: z.string().min(3).default('Lotwise <lotwise@example.test>'),
-  /** Start a local fake mail server with a web inbox when no SMTP server is configured. */
+  /** Start a local fake mail server with a web inbox when no SMTP server is configured (development only). */
   DEV_MAIL: flag.default(true),
   /** SMTP port of the local fake mail server. */
   DEV_MAIL_SMTP_PORT: wholeNumber(1, 65535).default(1025),
@@ -134,6 +134,8 @@ export interface Config {
   uploadDir: string;
   logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
   mail: MailConfig;
+  /** NODE_ENV as given, `development` when unset; the dev mail inbox runs only in development. */
+  nodeEnv: string;
   alerts: AlertConfig;
 }
 
@@ -162,7 +164,12 @@ function storedJwtSecret(databasePath: string): string {
   return secret;
 }
 
-function smtpSettings(values: z.output<typeof envSchema>): SmtpSettings {
+/**
+ * Where mail goes: SMTP_URL, else SMTP_HOST; without either, the local fake mail server only
+ * in development (`DEV_MAIL` on) — never in production or tests, where e-mails wait in the
+ * outbox until a real server is configured.
+ */
+function smtpSettings(values: z.output<typeof envSchema>, development: boolean): SmtpSettings {
   if (values.SMTP_URL) return { kind: 'url', url: values.SMTP_URL };
   if (values.SMTP_HOST) {
     return {
@@ -174,7 +181,7 @@ function smtpSettings(values: z.output<typeof envSchema>): SmtpSettings {
       pass: values.SMTP_PASS ?? null,
     };
   }
-  if (values.DEV_MAIL) {
+  if (values.DEV_MAIL && development) {
     return {
       kind: 'dev',
       host: '127.0.0.1',
@@ -204,6 +211,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     );
   }
   const values = parsed.data;
+  const nodeEnv = env.NODE_ENV?.trim() || 'development';
   const databasePath = resolveFromRoot(values.DATABASE_PATH);
   mkdirSync(path.dirname(databasePath), { recursive: true });
   return {
@@ -223,7 +231,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       ? resolveFromRoot(values.UPLOAD_DIR)
       : path.join(path.dirname(databasePath), 'uploads'),
     logLevel: values.LOG_LEVEL,
-    mail: { smtp: smtpSettings(values), from: values.MAIL_FROM },
+    mail: { smtp: smtpSettings(values, nodeEnv === 'development'), from: values.MAIL_FROM },
+    nodeEnv,
     alerts: {
       intervalSeconds: values.ALERT_INTERVAL_SECONDS,
       expiryDays: values.ALERT_EXPIRY_DAYS,
