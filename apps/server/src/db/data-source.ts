@@ -79,7 +79,11 @@ function restrictDatabaseFiles(databasePath: string) {
  * foreign keys enforced, files mode 0600, never `synchronize` — the schema only changes
  * through migrations.
  */
-export function createDataSource(databasePath: string): DataSource {
+export function createDataSource(
+  databasePath: string,
+  /** How long a statement waits for another connection's write lock before SQLITE_BUSY. */
+  { busyTimeoutMs = 5000 }: { busyTimeoutMs?: number } = {},
+): DataSource {
   return new DataSource({
     type: 'better-sqlite3',
     database: databasePath,
@@ -92,7 +96,7 @@ export function createDataSource(databasePath: string): DataSource {
       restrictDatabaseFiles(databasePath);
       db.pragma('journal_mode = WAL');
       db.pragma('foreign_keys = ON');
-      db.pragma('busy_timeout = 5000');
+      db.pragma(`busy_timeout = ${Math.max(0, Math.round(busyTimeoutMs))}`);
     },
   });
 }
