@@ -8,6 +8,7 @@ import {
   storageGroupSchema,
 } from './hazards';
 import { listQuerySchema } from './list';
+import { nameSchema } from './names';
 import { storedFileSchema } from './uploads';
 
 export const physicalStates = ['solid', 'liquid', 'gas', 'solution'] as const;
@@ -50,8 +51,8 @@ function uniqueList<T extends z.ZodType>(item: T, what: string) {
 
 /** The fields a person edits on a chemical, without defaults (a patch never fills them). */
 const chemicalFields = {
-  name: z.string().trim().min(1, 'is required').max(200, 'is at most 200 characters'),
-  synonyms: uniqueList(z.string().trim().min(1).max(200), 'synonym'),
+  name: nameSchema(200),
+  synonyms: uniqueList(nameSchema(200), 'synonym'),
   casNumber: casNumberSchema.nullable(),
   formula: formulaSchema.nullable(),
   physicalState: physicalStateSchema,

@@ -2,6 +2,7 @@ export * from './errors';
 export * from './roles';
 export * from './list';
 export * from './amounts';
+export * from './names';
 export * from './hazards';
 export * from './auth';
 export * from './users';

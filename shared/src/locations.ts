@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { storageGroupSchema } from './hazards';
 import { listQuerySchema, maxPageSize } from './list';
+import { nameSchema } from './names';
 import { segregationWarningSchema } from './segregation';
 
 /** What kind of place a location is; any depth is allowed (room > cabinet > shelf > box…). */
@@ -14,12 +15,10 @@ export type LocationKind = (typeof locationKinds)[number];
 export const locationPathSeparator = ' › ';
 
 const locationFields = {
-  name: z
-    .string()
-    .trim()
-    .min(1, 'is required')
-    .max(120, 'is at most 120 characters')
-    .refine((name) => !name.includes('›'), 'cannot contain › (it separates path parts)'),
+  name: nameSchema(120).refine(
+    (name) => !name.includes('›'),
+    'cannot contain › (it separates path parts)',
+  ),
   kind: locationKindSchema,
   /** The place this one sits in; null for a top-level place (a room). */
   parentId: z.number({ message: 'must be a location id' }).int().positive().nullable(),

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { isoDateSchema } from './dates';
 import { listQuerySchema } from './list';
+import { refuseControlCharacters } from './names';
 import { storedFileSchema } from './uploads';
 
 /** Bought from a supplier, or made in-house by a run. */
@@ -9,10 +10,7 @@ export const lotSourceSchema = z.enum(lotSources, { message: 'must be purchased 
 export type LotSource = (typeof lotSources)[number];
 
 const optionalText = (max: number) =>
-  z
-    .string()
-    .trim()
-    .max(max, `is at most ${max} characters`)
+  refuseControlCharacters(z.string().trim().max(max, `is at most ${max} characters`))
     .transform((text) => (text === '' ? null : text))
     .nullable();
 

@@ -18,6 +18,7 @@ import { amountSchema, coercedAmountSchema, quantityUnitSchema, unitSchema } fro
 import { stockUnitSchema } from './chemicals';
 import { ghsCodeSchema } from './hazards';
 import { listQuerySchema } from './list';
+import { nameSchema } from './names';
 
 /** What a line of a procedure is for (see @lotwise/chem `LINE_ROLES`). */
 export const lineRoles = LINE_ROLES;
@@ -171,7 +172,7 @@ function lineRules(
 }
 
 const procedureFields = {
-  title: z.string().trim().min(1, 'is required').max(200, 'is at most 200 characters'),
+  title: nameSchema(200),
   /** Literature reference as free text. */
   reference: z.string().trim().max(2000, 'is at most 2000 characters'),
   /** What the base scale is, e.g. "one bench: 2.0 g salicylic acid". */

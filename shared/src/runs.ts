@@ -5,6 +5,7 @@ import { stockUnitSchema } from './chemicals';
 import { isoDateSchema } from './dates';
 import { listQuerySchema } from './list';
 import { lotSourceSchema } from './lots';
+import { nameSchema } from './names';
 import {
   chemWarningSchema,
   scaleFactorInputSchema,
@@ -93,7 +94,7 @@ export type RunDraw = z.input<typeof runDrawSchema>;
 export const runPortionSchema = z
   .object({
     /** e.g. "first crop", "second crop (from the mother liquor)". */
-    label: z.string().trim().min(1, 'name the portion, e.g. first crop').max(80),
+    label: nameSchema(80, 'name the portion, e.g. first crop'),
     quantity: amountSchema('quantity', 'positive'),
     /** Mass (or, for a liquid or solution product, volume). */
     unit: measuredUnit,

@@ -1,12 +1,9 @@
 import { z } from 'zod';
 import { emailSchema, passwordSchema, roleSchema, userSchema } from './auth';
 import { listQuerySchema } from './list';
+import { nameSchema } from './names';
 
-const displayNameSchema = z
-  .string()
-  .trim()
-  .min(1, 'is required')
-  .max(120, 'is at most 120 characters');
+const displayNameSchema = nameSchema(120);
 
 /**
  * Create a user. With a password the account is ready at once; without one Lotwise

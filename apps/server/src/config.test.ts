@@ -146,3 +146,39 @@ describe('configuration', () => {
     }
   });
 });
+
+describe('the development mail inbox', () => {
+  it('when no SMTP server is set in development, then the local fake mail server is used', () => {
+    const { env } = tempEnv();
+    for (const nodeEnv of [undefined, '', 'development']) {
+      expect(loadConfig({ ...env, NODE_ENV: nodeEnv }).mail.smtp).toEqual({
+        kind: 'dev',
+        host: '127.0.0.1',
+        port: 1025,
+        webPort: 1080,
+      });
+    }
+  });
+
+  it('when SMTP_URL or SMTP_HOST is set, then the dev inbox is off, even in development', () => {
+    const { env } = tempEnv();
+    const url = loadConfig({ ...env, SMTP_URL: 'smtp://mail.example.test:587', DEV_MAIL: 'true' });
+    expect(url.mail.smtp).toEqual({ kind: 'url', url: 'smtp://mail.example.test:587' });
+    const host = loadConfig({ ...env, SMTP_HOST: 'mail.example.test', DEV_MAIL: 'true' });
+    expect(host.mail.smtp).toMatchObject({ kind: 'host', host: 'mail.example.test', port: 587 });
+  });
+
+  it('when NODE_ENV is production (or test), then the dev inbox is off and e-mails wait in the outbox', () => {
+    const { env } = tempEnv();
+    for (const nodeEnv of ['production', 'test']) {
+      const config = loadConfig({ ...env, NODE_ENV: nodeEnv, DEV_MAIL: 'true' });
+      expect(config.mail.smtp).toEqual({ kind: 'none' });
+      expect(config.env).toBe(nodeEnv);
+    }
+  });
+
+  it('when DEV_MAIL is false, then there is no dev inbox in development either', () => {
+    const { env } = tempEnv();
+    expect(loadConfig({ ...env, DEV_MAIL: 'false' }).mail.smtp).toEqual({ kind: 'none' });
+  });
+});

@@ -99,7 +99,7 @@ const envSchema = z.object({
   SMTP_SECURE: flag.default(false),
   /** Sender of every e-mail. */
   MAIL_FROM: z.string().min(3).default('Lotwise <lotwise@example.test>'),
-  /** Start a local fake mail server with a web inbox when no SMTP server is configured. */
+  /** Start a local fake mail server with a web inbox when no SMTP server is configured (development only). */
   DEV_MAIL: flag.default(true),
   /** SMTP port of the local fake mail server. */
   DEV_MAIL_SMTP_PORT: wholeNumber(1, 65535).default(1025),
@@ -260,7 +260,12 @@ function storedJwtSecret(databasePath: string): string {
   return secret;
 }
 
-function smtpSettings(values: z.output<typeof envSchema>): SmtpSettings {
+/**
+ * Where mail goes: SMTP_URL, else SMTP_HOST; without either, the local fake mail server only
+ * in development (`DEV_MAIL` on) — never in production or tests, where e-mails wait in the
+ * outbox until a real server is configured.
+ */
+function smtpSettings(values: z.output<typeof envSchema>, development: boolean): SmtpSettings {
   if (values.SMTP_URL) return { kind: 'url', url: values.SMTP_URL };
   if (values.SMTP_HOST) {
     return {
@@ -272,7 +277,7 @@ function smtpSettings(values: z.output<typeof envSchema>): SmtpSettings {
       pass: values.SMTP_PASS ?? null,
     };
   }
-  if (values.DEV_MAIL) {
+  if (values.DEV_MAIL && development) {
     return {
       kind: 'dev',
       host: '127.0.0.1',
@@ -339,7 +344,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       ? resolveFromRoot(values.UPLOAD_DIR)
       : path.join(path.dirname(databasePath), 'uploads'),
     logLevel: values.LOG_LEVEL,
-    mail: { smtp: smtpSettings(values), from: values.MAIL_FROM },
+    mail: { smtp: smtpSettings(values, values.NODE_ENV === 'development'), from: values.MAIL_FROM },
     alerts: {
       intervalSeconds: values.ALERT_INTERVAL_SECONDS,
       expiryDays: values.ALERT_EXPIRY_DAYS,

@@ -1,6 +1,7 @@
 import { parseArgs } from 'node:util';
 import type { Config } from '../config';
 import { createDataSource } from '../db/data-source';
+import { isDatabaseBusy, retryWhenBusy } from '../db/busy-retry';
 import { createStore } from '../db/store';
 import { createLogger } from '../lib/logger';
 import { alertsService } from '../modules/alerts/alerts.service';
@@ -17,8 +18,29 @@ const usage = `Usage: npm run alerts:evaluate [-- --send]
 Runs every alert rule once and queues the e-mails in the outbox (the same as the scheduler
 and the admin's "evaluate now"). With --send, also sends what is due in the outbox once.`;
 
-/** `npm run alerts:evaluate`: answers the exit code. */
-export async function runAlertsEvaluate(argv: string[], config: Config, io: Io): Promise<number> {
+/** How the command waits for a database the server is writing to (tests shorten it). */
+export interface BusyOptions {
+  /** SQLite's own wait for the lock per statement. */
+  busyTimeoutMs?: number;
+  /** Waits before each further attempt when the database stayed busy. */
+  retryDelaysMs?: readonly number[];
+}
+
+function busyMessage(databasePath: string): string {
+  return `The database ${databasePath} stayed busy (another process kept it locked); nothing was changed. Try again in a minute.`;
+}
+
+/**
+ * `npm run alerts:evaluate`: answers the exit code. When the running server holds the
+ * database's write lock, each step is tried again a few times with growing waits instead
+ * of failing at once.
+ */
+export async function runAlertsEvaluate(
+  argv: string[],
+  config: Config,
+  io: Io,
+  { busyTimeoutMs, retryDelaysMs }: BusyOptions = {},
+): Promise<number> {
   let send: boolean;
   try {
     const { values } = parseArgs({
@@ -36,12 +58,20 @@ export async function runAlertsEvaluate(argv: string[], config: Config, io: Io):
     return 1;
   }
 
-  const dataSource = createDataSource(config.databasePath);
-  await dataSource.initialize();
+  const whenBusy = <T>(work: () => Promise<T>) =>
+    retryWhenBusy(work, {
+      delaysMs: retryDelaysMs,
+      onRetry: (attempt, waitMs) =>
+        io.err(
+          `The database is busy (the server is writing); trying again in ${(waitMs / 1000).toFixed(1)} s (attempt ${attempt + 1}).`,
+        ),
+    });
+  const dataSource = createDataSource(config.databasePath, { busyTimeoutMs });
   try {
-    await dataSource.runMigrations({ transaction: 'all' });
+    await dataSource.initialize();
+    await whenBusy(() => dataSource.runMigrations({ transaction: 'all' }));
     const store = createStore(dataSource);
-    const result = await alertsService(store, config).evaluateNow();
+    const result = await whenBusy(() => alertsService(store, config).evaluateNow());
     io.out(
       `Conditions found: ${result.conditions}; e-mails queued: ${result.queued}; already sent within the window: ${result.duplicates}`,
     );
@@ -52,12 +82,14 @@ export async function runAlertsEvaluate(argv: string[], config: Config, io: Io):
         return 1;
       }
       try {
-        const sent = await outboxWorker({
+        const worker = outboxWorker({
           store,
           transport,
           config,
           logger: createLogger(config.logLevel),
-        }).drain();
+        });
+        // A claimed message carries a lease, so running again never sends it twice.
+        const sent = await whenBusy(() => worker.drain());
         io.out(
           `Sent: ${sent.sent}; to retry later: ${sent.retrying}; given up (resend from the outbox page): ${sent.failed}`,
         );
@@ -66,7 +98,11 @@ export async function runAlertsEvaluate(argv: string[], config: Config, io: Io):
       }
     }
     return 0;
+  } catch (error) {
+    if (!isDatabaseBusy(error)) throw error;
+    io.err(busyMessage(config.databasePath));
+    return 1;
   } finally {
-    await dataSource.destroy();
+    if (dataSource.isInitialized) await dataSource.destroy();
   }
 }

@@ -1,6 +1,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
+import Database from 'better-sqlite3';
 import { afterAll, describe, expect, it } from 'vitest';
 import { createDataSource } from '../db/data-source';
 import { seedDemo } from '../db/seed/demo-seed';
@@ -41,6 +42,53 @@ describe('npm run alerts:evaluate', () => {
       expect(await runAlertsEvaluate(['--nope'], config, bad)).toBe(1);
     } finally {
       await sink.close();
+    }
+  });
+
+  it('when the server holds the write lock for a moment, then the command waits, tries again and succeeds', async () => {
+    const config = testConfig(dir);
+    const lock = new Database(config.databasePath);
+    lock.exec('DELETE FROM outbox'); // so the evaluation has e-mails to write again
+    lock.exec('BEGIN IMMEDIATE'); // the write lock a server's transaction holds
+    const released = new Promise<void>((resolve) =>
+      setTimeout(() => {
+        lock.exec('COMMIT');
+        resolve();
+      }, 400),
+    );
+    const out = io();
+    try {
+      const code = await runAlertsEvaluate([], config, out, {
+        busyTimeoutMs: 20,
+        retryDelaysMs: [100, 200, 400, 800, 1600],
+      });
+      expect(out.lines.join('\n')).toMatch(/ERR The database is busy .* trying again in 0\.1 s/);
+      expect(code).toBe(0);
+      expect(out.lines.join('\n')).toMatch(/Conditions found: \d+/);
+    } finally {
+      await released;
+      lock.close();
+    }
+  });
+
+  it('when the lock is never released, then it gives up after a bounded number of tries with a clear message', async () => {
+    const config = testConfig(dir);
+    const lock = new Database(config.databasePath);
+    lock.exec('DELETE FROM outbox'); // so the evaluation has e-mails to write again
+    lock.exec('BEGIN IMMEDIATE');
+    const out = io();
+    try {
+      const code = await runAlertsEvaluate([], config, out, {
+        busyTimeoutMs: 10,
+        retryDelaysMs: [20, 40],
+      });
+      expect(code).toBe(1);
+      const errors = out.lines.filter((line) => line.startsWith('ERR'));
+      expect(errors).toHaveLength(3); // two waits, then the message
+      expect(errors.at(-1)).toMatch(/stayed busy .* nothing was changed/);
+    } finally {
+      lock.exec('ROLLBACK');
+      lock.close();
     }
   });
 });

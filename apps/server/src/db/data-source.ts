@@ -1,4 +1,5 @@
 import 'reflect-metadata';
+import { chmodSync, existsSync } from 'node:fs';
 import path from 'node:path';
 import { DataSource } from 'typeorm';
 import { repoRoot } from '../config';
@@ -60,11 +61,33 @@ export const migrations = [
   SessionVersion1796650000000,
 ];
 
+/** The database file and the WAL and shared-memory files SQLite keeps beside it. */
+export function databaseFiles(databasePath: string): string[] {
+  return [databasePath, `${databasePath}-wal`, `${databasePath}-shm`];
+}
+
+/**
+ * Makes the database and its WAL/SHM files readable by this user only (0600). Called right
+ * after SQLite opened the file and before WAL mode creates the other two, which SQLite then
+ * creates with the database file's mode; files left by an older version are tightened too.
+ */
+function restrictDatabaseFiles(databasePath: string) {
+  if (databasePath === ':memory:' || databasePath === '') return;
+  for (const file of databaseFiles(databasePath)) {
+    if (existsSync(file)) chmodSync(file, 0o600);
+  }
+}
+
 /**
  * A DataSource on the SQLite file at `databasePath` (not yet initialized): WAL journal,
- * foreign keys enforced, never `synchronize` — the schema only changes through migrations.
+ * foreign keys enforced, files mode 0600, never `synchronize` — the schema only changes
+ * through migrations.
  */
-export function createDataSource(databasePath: string): DataSource {
+export function createDataSource(
+  databasePath: string,
+  /** How long a statement waits for another connection's write lock before SQLITE_BUSY. */
+  { busyTimeoutMs = 5000 }: { busyTimeoutMs?: number } = {},
+): DataSource {
   return new DataSource({
     type: 'better-sqlite3',
     database: databasePath,
@@ -74,9 +97,10 @@ export function createDataSource(databasePath: string): DataSource {
     migrationsRun: false,
     enableWAL: true,
     prepareDatabase: (db: { pragma(sql: string): unknown }) => {
+      restrictDatabaseFiles(databasePath);
       db.pragma('journal_mode = WAL');
       db.pragma('foreign_keys = ON');
-      db.pragma('busy_timeout = 5000');
+      db.pragma(`busy_timeout = ${Math.max(0, Math.round(busyTimeoutMs))}`);
     },
   });
 }

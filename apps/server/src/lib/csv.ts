@@ -1,33 +1,46 @@
 import { parse } from 'csv-parse/sync';
-
-/** Characters that make a spreadsheet read a cell as a formula (or hide what follows). */
-const formulaStart = /^[=+\-@\t\r]/;
+import { stringify } from 'csv-stringify/sync';
 
 /**
- * Makes a cell safe to open in a spreadsheet: one that starts with `=`, `+`, `-`, `@`, a tab
- * or a carriage return gets a leading `'`, so it is shown as text and never run.
+ * Characters that make a spreadsheet read a cell as a formula (or hide what follows): the
+ * set csv-stringify's `escape_formulas` prefixes with `'`, full-width forms included.
  */
-export function escapeFormula(cell: string): string {
-  return formulaStart.test(cell) ? `'${cell}` : cell;
-}
+const formulaStart = /^[=+\-@\t\r\uFF1D\uFF0B\uFF0D\uFF20]/;
 
-/** Undoes {@link escapeFormula} on a cell read back from a file Lotwise wrote. */
+/** Undoes the formula escaping of the writer on a cell read back from a file Lotwise wrote. */
 export function unescapeFormula(cell: string): string {
   return cell.length > 1 && cell[0] === "'" && formulaStart.test(cell.slice(1))
     ? cell.slice(1)
     : cell;
 }
 
-/** A value as a CSV field (RFC 4180): quoted when it holds a comma, a quote or a line break. */
-export function csvField(value: string | number | boolean | null | undefined): string {
-  if (value === null || value === undefined) return '';
-  const text = escapeFormula(typeof value === 'string' ? value : String(value));
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
+export type CsvValue = string | number | boolean | null | undefined;
+
+/**
+ * RFC 4180 as spreadsheets read it: CRLF between records; fields holding a comma, a quote,
+ * a line break or a semicolon (the list separator of many locales, where a spreadsheet would
+ * split the cell) quoted with quotes doubled; a cell starting with `=`, `+`, `-`, `@`, a tab
+ * or a carriage return gets a leading `'` so it is shown as text and never run (a negative
+ * number stays a number).
+ */
+const writerOptions = {
+  record_delimiter: '\r\n',
+  // Also quote a lone CR or LF inside a field (an explicit record delimiter turns that off).
+  quote_record_delimiter: true,
+  quoted_match: /;/,
+  escape_formulas: true,
+  cast: { boolean: (value: boolean) => String(value) },
+} as const;
+
+/** CSV records, each ending in CRLF (csv-stringify). */
+export function csvLines(records: readonly (readonly CsvValue[])[]): string {
+  if (records.length === 0) return '';
+  return stringify(records as CsvValue[][], writerOptions);
 }
 
 /** One CSV record ending in CRLF. */
-export function csvLine(values: readonly (string | number | boolean | null | undefined)[]): string {
-  return `${values.map(csvField).join(',')}\r\n`;
+export function csvLine(values: readonly CsvValue[]): string {
+  return csvLines([values]);
 }
 
 /** Written first so spreadsheet programs read the file as UTF-8. */

@@ -1,24 +1,37 @@
-import { describe, expect, it } from 'vitest';
-import { describeTypes, detectContentType, safeFileName } from './uploads';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { exeBytes, jpegBytes, tinyPdf, tinyPng } from '../test/sample-files';
+import { describeTypes, detectFileType, safeFileName, withExtension } from './uploads';
 
 const bytes = (...values: number[]) => Uint8Array.from(values);
 const ascii = (text: string) => new TextEncoder().encode(text);
 
+const dir = mkdtempSync(path.join(tmpdir(), 'lotwise-file-type-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+let n = 0;
+/** The type detected for a file holding `content`. */
+async function typeOf(content: Uint8Array) {
+  const file = path.join(dir, `f${n++}`);
+  writeFileSync(file, content);
+  return detectFileType(file);
+}
+
 describe('file type by content', () => {
-  it('when the first bytes are a PDF, PNG or JPEG signature, then that type is detected', () => {
-    expect(detectContentType(ascii('%PDF-1.7\n'))).toBe('application/pdf');
-    expect(detectContentType(bytes(0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0))).toBe(
-      'image/png',
-    );
-    expect(detectContentType(bytes(0xff, 0xd8, 0xff, 0xe0))).toBe('image/jpeg');
+  it('when the first bytes are a PDF, PNG or JPEG signature, then that type is detected', async () => {
+    expect(await typeOf(tinyPdf())).toEqual({ mime: 'application/pdf', ext: 'pdf' });
+    expect(await typeOf(tinyPng())).toEqual({ mime: 'image/png', ext: 'png' });
+    expect(await typeOf(jpegBytes())).toEqual({ mime: 'image/jpeg', ext: 'jpg' });
   });
 
-  it('when the file is a program, a zip or text, then nothing is detected', () => {
-    expect(detectContentType(ascii('MZ\x90\x00'))).toBeNull();
-    expect(detectContentType(bytes(0x50, 0x4b, 0x03, 0x04))).toBeNull();
-    expect(detectContentType(ascii('%PD'))).toBeNull();
-    expect(detectContentType(ascii(' %PDF-'))).toBeNull();
-    expect(detectContentType(new Uint8Array())).toBeNull();
+  it('when the file is a program, a zip or text, then it is not taken for a document', async () => {
+    expect((await typeOf(exeBytes()))?.mime ?? null).not.toMatch(/pdf|image/);
+    const zip = await typeOf(bytes(0x50, 0x4b, 0x03, 0x04, ...new Array<number>(60).fill(0)));
+    expect(zip?.mime ?? null).not.toMatch(/pdf|image/);
+    expect(await typeOf(ascii('%PD'))).toBeNull();
+    expect(await typeOf(ascii(' %PDF-'))).toBeNull();
+    expect(await typeOf(new Uint8Array())).toBeNull();
   });
 
   it('when accepted types are named, then the message reads naturally', () => {
@@ -26,6 +39,20 @@ describe('file type by content', () => {
     expect(describeTypes(['application/pdf', 'image/png', 'image/jpeg'])).toBe(
       'a PDF, PNG or JPEG',
     );
+  });
+});
+
+describe('extensions follow the detected type', () => {
+  it('when the name already ends in the type (any case, jpeg for jpg), then it is kept', () => {
+    expect(withExtension('CoA lot 7.png', 'png')).toBe('CoA lot 7.png');
+    expect(withExtension('scan.JPEG', 'jpg')).toBe('scan.JPEG');
+    expect(withExtension('SDS.PDF', 'pdf')).toBe('SDS.PDF');
+  });
+
+  it('when the name ends in another type, then that extension is replaced; with none, one is added', () => {
+    expect(withExtension('coa.pdf', 'png')).toBe('coa.png');
+    expect(withExtension('certificate', 'pdf')).toBe('certificate.pdf');
+    expect(withExtension('.pdf', 'png')).toBe('.pdf.png');
   });
 });
 

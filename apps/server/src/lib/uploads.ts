@@ -1,34 +1,56 @@
 import { randomBytes } from 'node:crypto';
 import { createReadStream, type ReadStream } from 'node:fs';
-import { mkdir, open, rename, rm, stat } from 'node:fs/promises';
+import { mkdir, rename, rm, stat } from 'node:fs/promises';
 import path from 'node:path';
 import { pipeline } from 'node:stream/promises';
 import type { Request, RequestHandler, Response } from 'express';
+import { fileTypeFromFile } from 'file-type/node';
 import multer from 'multer';
 import { uploadFieldName, type UploadContentType } from '@lotwise/shared';
 import { AppError } from './app-error';
 
-/** What a file is, read from its first bytes; null when it is none of the accepted kinds. */
-export function detectContentType(head: Uint8Array): UploadContentType | null {
-  const starts = (bytes: number[]) => bytes.every((byte, i) => head[i] === byte);
-  if (starts([0x25, 0x50, 0x44, 0x46, 0x2d])) return 'application/pdf'; // %PDF-
-  if (starts([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a])) return 'image/png';
-  if (starts([0xff, 0xd8, 0xff])) return 'image/jpeg';
-  return null;
+/** What a file's content says it is (file-type reads its signature and structure). */
+export interface DetectedType {
+  /** e.g. `application/pdf`. */
+  mime: string;
+  /** The usual extension, without the dot: `pdf`, `png`, `jpg`. */
+  ext: string;
 }
 
-const extensions: Record<UploadContentType, string> = {
-  'application/pdf': 'pdf',
-  'image/png': 'png',
-  'image/jpeg': 'jpg',
+/** The type of the file at `filePath` from its content; null when file-type knows none. */
+export async function detectFileType(filePath: string): Promise<DetectedType | null> {
+  const found = await fileTypeFromFile(filePath);
+  return found ? { mime: found.mime, ext: found.ext } : null;
+}
+
+const typeNames: Record<UploadContentType, string> = {
+  'application/pdf': 'PDF',
+  'image/png': 'PNG',
+  'image/jpeg': 'JPEG',
 };
 
 /** Describes accepted types for a message: "a PDF", "a PDF, PNG or JPEG". */
 export function describeTypes(types: readonly UploadContentType[]): string {
-  const names = types.map((type) => extensions[type].replace('jpg', 'jpeg').toUpperCase());
+  const names = types.map((type) => typeNames[type]);
   return names.length === 1
     ? `a ${names[0]}`
     : `a ${names.slice(0, -1).join(', ')} or ${names.at(-1)}`;
+}
+
+/** Extensions that name the same type as the one file-type answers. */
+const sameExtension: Record<string, string[]> = { jpg: ['jpeg', 'jpe'], tif: ['tiff'] };
+
+/**
+ * The name with the extension of its detected type: kept when it already says so
+ * (`scan.JPEG` for a JPEG), replaced when it names another type (`coa.pdf` holding a PNG
+ * becomes `coa.png`), added when there is none. A download then opens in the right program.
+ */
+export function withExtension(fileName: string, ext: string): string {
+  const match = /\.([A-Za-z0-9]{1,5})$/.exec(fileName);
+  const current = match?.[1]?.toLowerCase();
+  if (current === ext || (current && sameExtension[ext]?.includes(current))) return fileName;
+  const stem = match && match.index > 0 ? fileName.slice(0, match.index) : fileName;
+  return `${stem}.${ext}`;
 }
 
 /**
@@ -153,7 +175,8 @@ export function fileStore(options: { dir: string; maxBytes: number; maxMb: numbe
 
     /**
      * Checks the temporary file's content against `accepted` (415 otherwise, naming what is
-     * accepted) and moves it into the store. Answers the random stored name and details.
+     * accepted) and moves it into the store. Answers the random stored name and details; the
+     * kept name ends in the extension of the detected type.
      */
     async keep(
       file: Express.Multer.File,
@@ -162,33 +185,27 @@ export function fileStore(options: { dir: string; maxBytes: number; maxMb: numbe
       fallbackName: string,
     ): Promise<ReceivedFile & { storedName: string; contentType: UploadContentType }> {
       try {
-        const handle = await open(file.path, 'r');
-        const head = new Uint8Array(16);
-        try {
-          await handle.read(head, 0, head.length, 0);
-        } finally {
-          await handle.close();
-        }
-        const contentType = detectContentType(head);
-        if (!contentType || !accepted.includes(contentType)) {
+        const detected = await detectFileType(file.path);
+        const contentType = accepted.find((type) => type === detected?.mime);
+        if (!detected || !contentType) {
           throw new AppError(
             'unsupported_media_type',
             `${what} must be ${describeTypes(accepted)} file; ${
-              contentType
-                ? `this one is ${describeTypes([contentType]).slice(2)}`
+              detected
+                ? `this one is ${detected.ext.toUpperCase()} (${detected.mime})`
                 : 'the content of this one is not'
             } (the type is read from the file itself, not from its name).`,
             { [uploadFieldName]: `must be ${describeTypes(accepted)}` },
           );
         }
         const { size } = await stat(file.path);
-        const storedName = `${randomBytes(16).toString('hex')}.${extensions[contentType]}`;
+        const storedName = `${randomBytes(16).toString('hex')}.${detected.ext}`;
         await rename(file.path, path.join(options.dir, storedName));
         return {
           storedName,
           contentType,
           size,
-          fileName: safeFileName(file.originalname, fallbackName),
+          fileName: withExtension(safeFileName(file.originalname, fallbackName), detected.ext),
         };
       } finally {
         await discard(file);
@@ -221,7 +238,8 @@ export function fileStore(options: { dir: string; maxBytes: number; maxMb: numbe
         );
       }
       res.status(200);
-      res.attachment(file.fileName);
+      // Files stored before names followed the detected type still download as what they are.
+      res.attachment(withExtension(file.fileName, path.extname(file.storedName).slice(1)));
       res.setHeader('Content-Type', file.contentType);
       res.setHeader('Content-Length', String(size));
       res.setHeader('Cache-Control', 'private, no-store');

@@ -1,5 +1,4 @@
 import {
-  alertKindLabels,
   alertListQuerySchema,
   alertPreferencesBodySchema,
   outboxListQuerySchema,
@@ -9,39 +8,20 @@ import { z } from 'zod';
 import { defineRoute } from '../../lib/route-table';
 import { idParamsSchema } from '../../lib/validate';
 import type { AlertsService } from './alerts.service';
-import { escapeHtml, htmlDocument } from './messages';
+import {
+  brokenLinkPage,
+  confirmPage,
+  unsubscribedPage,
+  type UnsubscribePage,
+} from './unsubscribe-pages';
 
 const tokenQuerySchema = z.object({ token: z.string().max(400).optional() });
 
-function page(res: Response, status: number, title: string, lines: string[]) {
-  const body = [
-    `<h1 style="font-size:20px;margin:0 0 12px 0;">${escapeHtml(title)}</h1>`,
-    ...lines.map((line) => `<p style="margin:0 0 12px 0;">${line}</p>`),
-  ].join('');
-  res.status(status).type('html').send(htmlDocument(title, body));
+function send(res: Response, page: UnsubscribePage) {
+  res.status(page.status).type('html').send(page.html);
 }
 
 export function alertRoutes(alerts: AlertsService) {
-  async function unsubscribe(token: string | undefined, res: Response) {
-    const done = token ? await alerts.unsubscribe(token) : null;
-    if (!done) {
-      page(res, 400, 'This unsubscribe link does not work', [
-        'The link is incomplete or was changed. Open it again from the e-mail, or sign in to Lotwise and change your alert settings.',
-        `<a href="${escapeHtml(alerts.preferencesUrl)}">Alert settings</a>`,
-      ]);
-      return;
-    }
-    const what =
-      done.kind === 'all'
-        ? 'You will get no more alert e-mails from Lotwise.'
-        : `You will get no more e-mails about: ${escapeHtml(alertKindLabels[done.kind].toLowerCase())}.`;
-    page(res, 200, 'Unsubscribed', [
-      `${what} (${escapeHtml(done.email)})`,
-      'Current alerts stay visible on the Alerts page in Lotwise. You can turn e-mails back on in your alert settings.',
-      `<a href="${escapeHtml(alerts.preferencesUrl)}">Alert settings</a>`,
-    ]);
-  }
-
   return [
     defineRoute({
       method: 'get',
@@ -83,17 +63,31 @@ export function alertRoutes(alerts: AlertsService) {
       access: 'public',
       query: tokenQuerySchema,
       handle: async ({ query, res }) => {
-        await unsubscribe(query.token, res);
+        const found = query.token ? await alerts.readUnsubscribe(query.token) : null;
+        if (!found) return send(res, brokenLinkPage(alerts.preferencesUrl));
+        send(
+          res,
+          confirmPage({
+            ...found,
+            actionPath: `/api/alerts/unsubscribe?token=${encodeURIComponent(query.token!)}`,
+            preferencesUrl: alerts.preferencesUrl,
+          }),
+        );
       },
     }),
-    /** One-click unsubscribe from a mail client (List-Unsubscribe-Post); same effect. */
+    /**
+     * Unsubscribes: the confirmation page's button, and a mail client's one-click
+     * unsubscribe (RFC 8058 List-Unsubscribe-Post, body `List-Unsubscribe=One-Click`).
+     */
     defineRoute({
       method: 'post',
       path: '/api/alerts/unsubscribe',
       access: 'public',
       query: tokenQuerySchema,
       handle: async ({ query, res }) => {
-        await unsubscribe(query.token, res);
+        const done = query.token ? await alerts.unsubscribe(query.token) : null;
+        if (!done) return send(res, brokenLinkPage(alerts.preferencesUrl));
+        send(res, unsubscribedPage({ ...done, preferencesUrl: alerts.preferencesUrl }));
       },
     }),
     defineRoute({

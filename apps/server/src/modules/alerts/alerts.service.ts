@@ -393,7 +393,26 @@ export function alertsService(store: Store, config: Config, options: AlertsServi
       return this.preferences(user);
     },
 
-    /** Applies an unsubscribe link; null when the token is not one Lotwise signed. */
+    /**
+     * What an unsubscribe link would stop, without changing anything (the page a GET shows);
+     * null when the token is not one Lotwise signed or the person is gone. `alreadyOff` when
+     * they get none of those e-mails any more.
+     */
+    async readUnsubscribe(
+      token: string,
+    ): Promise<(UnsubscribeClaim & { email: string; alreadyOff: boolean }) | null> {
+      const claim = readUnsubscribeToken(config.jwtSecret, token);
+      if (!claim) return null;
+      const user = await store.repos.users.findById(claim.userId);
+      if (!user) return null;
+      const [row] = await store.repos.alerts.findPreferences([user.id]);
+      const current = row?.kinds ?? defaultKinds(user.role);
+      const alreadyOff =
+        claim.kind === 'all' ? current.length === 0 : !current.includes(claim.kind);
+      return { ...claim, email: user.email, alreadyOff };
+    },
+
+    /** Applies an unsubscribe link (a POST); null when the token is not one Lotwise signed. */
     async unsubscribe(
       token: string,
     ): Promise<(UnsubscribeClaim & { email: string; kinds: AlertKind[] }) | null> {

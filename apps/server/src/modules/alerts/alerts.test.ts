@@ -217,12 +217,44 @@ describe('preferences', () => {
 describe('unsubscribe links', () => {
   const pathOf = (url: string) => url.replace('http://lotwise.example.test', '');
 
-  it('when the link is opened without signing in, then that kind stops and a page confirms it', async () => {
+  it('when the link is opened (GET), then a page asks to confirm and nothing changes', async () => {
     const alerts = alertsService(testContext().store, testContext().config);
-    const response = await request(app())
-      .get(pathOf(alerts.unsubscribeUrl(member.user.id, 'low-stock')))
+    const url = pathOf(alerts.unsubscribeUrl(member.user.id, 'low-stock'));
+    for (let i = 0; i < 3; i++) {
+      // a link scanner may open it several times, with HEAD too
+      const response = await request(app()).get(url).expect(200);
+      expect(response.headers['content-type']).toMatch(/text\/html/);
+      expect(response.text).toContain('Stop these e-mails?');
+      expect(response.text).toContain('Nothing has changed yet');
+      expect(response.text).toContain(member.email);
+      expect(response.text).toMatch(
+        /<form method="post" action="\/api\/alerts\/unsubscribe\?token=/,
+      );
+      expect(response.text).toContain(
+        'Stop e-mails about: stock at or below its reorder point</button>',
+      );
+      await request(app()).head(url).expect(200);
+    }
+    const preferences = await request(app())
+      .get('/api/alerts/preferences')
+      .set('Cookie', member.cookie)
       .expect(200);
-    expect(response.headers['content-type']).toMatch(/text\/html/);
+    expect(preferences.body.isDefault).toBe(true);
+    expect(preferences.body.kinds).toContain('low-stock');
+  });
+
+  it('when the confirmation button posts the form, then that kind stops and a page confirms it', async () => {
+    const alerts = alertsService(testContext().store, testContext().config);
+    const url = pathOf(alerts.unsubscribeUrl(member.user.id, 'low-stock'));
+    const page = await request(app()).get(url).expect(200);
+    const action = /<form method="post" action="([^"]+)"/
+      .exec(page.text)![1]!
+      .replace(/&amp;/g, '&');
+    const response = await request(app())
+      .post(action)
+      .type('form')
+      .send('List-Unsubscribe=One-Click')
+      .expect(200);
     expect(response.text).toContain('Unsubscribed');
     expect(response.text).toContain(member.email);
     const preferences = await request(app())
@@ -231,6 +263,10 @@ describe('unsubscribe links', () => {
       .expect(200);
     expect(preferences.body.kinds).not.toContain('low-stock');
     expect(preferences.body.kinds).toContain('expired');
+    // Opening the link again says so instead of offering the button.
+    const again = await request(app()).get(url).expect(200);
+    expect(again.text).toContain('Already unsubscribed');
+    expect(again.text).not.toContain('<form');
 
     // And the member is no longer mailed about low stock of chemicals they drew.
     const { chemical, container } = await stocked(150);
@@ -247,10 +283,14 @@ describe('unsubscribe links', () => {
     const [, signature] = token.split('.');
     const forged = `${Buffer.from(JSON.stringify({ u: admin.user.id, k: 'all' })).toString('base64url')}.${signature}`;
     for (const bad of [forged, `${token}x`, 'nonsense', '']) {
-      const response = await request(app())
-        .get(`/api/alerts/unsubscribe?token=${encodeURIComponent(bad)}`)
-        .expect(400);
-      expect(response.text).toContain('does not work');
+      for (const method of ['get', 'post'] as const) {
+        const target = `/api/alerts/unsubscribe?token=${encodeURIComponent(bad)}`;
+        const agent = request(app());
+        const response = await (method === 'get' ? agent.get(target) : agent.post(target)).expect(
+          400,
+        );
+        expect(response.text).toContain('does not work');
+      }
     }
     await request(app()).get('/api/alerts/unsubscribe').expect(400);
     const adminPreferences = await request(app())
@@ -260,13 +300,18 @@ describe('unsubscribe links', () => {
     expect(adminPreferences.body.isDefault).toBe(true);
   });
 
-  it('when a mail client posts the one-click form, then it unsubscribes too', async () => {
+  it('when a mail client posts the one-click form (RFC 8058), then it unsubscribes at once', async () => {
     const alerts = alertsService(testContext().store, testContext().config);
     await request(app())
-      .post(pathOf(alerts.unsubscribeUrl(viewer.user.id, 'all')))
+      .post(pathOf(alerts.unsubscribeUrl(otherMember.user.id, 'all')))
       .type('form')
       .send('List-Unsubscribe=One-Click')
       .expect(200);
+    const preferences = await request(app())
+      .get('/api/alerts/preferences')
+      .set('Cookie', otherMember.cookie)
+      .expect(200);
+    expect(preferences.body.kinds).toEqual([]);
   });
 });
 

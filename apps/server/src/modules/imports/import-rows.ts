@@ -8,6 +8,7 @@ import {
   importColumnForHeader,
   importColumns,
   isIsoDate,
+  nameCharacterProblem,
   normalizeHeader,
   parseLabelCode,
   physicalStates,
@@ -192,7 +193,8 @@ export function readRow(
     if (value === '') return null;
     if (value.length > max)
       return fail(key, `is ${value.length} characters long; at most ${max} fit`);
-    return value;
+    const problem = nameCharacterProblem(value);
+    return problem ? fail(key, problem) : value;
   };
   const number = (key: ImportColumnKey, suffix?: RegExp): number | null => {
     let value = cell(key).replace(/[\s\u00a0]/g, '');
@@ -420,6 +422,8 @@ export function readRow(
       );
     else if (location.some((part) => part.length > 120))
       fail('location', 'has a place name longer than 120 characters');
+    else if (nameCharacterProblem(location.join(' › ')))
+      fail('location', nameCharacterProblem(location.join(' › '))!);
     else if (location.length > 12) fail('location', 'is more than 12 places deep');
   }
 

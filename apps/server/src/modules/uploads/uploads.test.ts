@@ -7,6 +7,7 @@ import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { signedIn, stockFactory } from '../../test/factories';
 import { testContext } from '../../test/harness';
+import { exeBytes, jpegBytes, tinyPdf, tinyPng } from '../../test/sample-files';
 
 const app = () => testContext().app;
 let manager = '';
@@ -19,37 +20,6 @@ beforeAll(async () => {
   viewer = (await signedIn('viewer')).cookie;
   member = (await signedIn('member')).cookie;
 });
-
-/** A small but real PDF: header, one empty page, cross-reference table, trailer. */
-function tinyPdf(): Buffer {
-  const objects = [
-    '1 0 obj\n<< /Type /Catalog /Pages 2 0 R >>\nendobj\n',
-    '2 0 obj\n<< /Type /Pages /Kids [3 0 R] /Count 1 >>\nendobj\n',
-    '3 0 obj\n<< /Type /Page /Parent 2 0 R /MediaBox [0 0 200 200] >>\nendobj\n',
-  ];
-  let body = '%PDF-1.4\n%\u00e2\u00e3\u00cf\u00d3\n';
-  const offsets: number[] = [];
-  for (const object of objects) {
-    offsets.push(Buffer.byteLength(body, 'latin1'));
-    body += object;
-  }
-  const xref = Buffer.byteLength(body, 'latin1');
-  body += `xref\n0 ${objects.length + 1}\n0000000000 65535 f \n`;
-  for (const offset of offsets) body += `${String(offset).padStart(10, '0')} 00000 n \n`;
-  body += `trailer\n<< /Size ${objects.length + 1} /Root 1 0 R >>\nstartxref\n${xref}\n%%EOF\n`;
-  // Every byte value once, so a text-mode mix-up would show.
-  return Buffer.concat([
-    Buffer.from(body, 'latin1'),
-    Buffer.from(Array.from({ length: 256 }, (_, i) => i)),
-  ]);
-}
-const exeBytes = () =>
-  Buffer.concat([Buffer.from('MZ\x90\x00\x03\x00\x00\x00', 'latin1'), Buffer.alloc(512, 7)]);
-const pngBytes = () =>
-  Buffer.concat([
-    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
-    Buffer.alloc(64, 1),
-  ]);
 
 function binaryParser(
   res: { on(event: string, listener: (chunk: Buffer) => void): unknown },
@@ -159,7 +129,7 @@ describe('safety data sheets', () => {
     const chemical = await make.chemical();
     const response = await uploadTo(
       `/api/chemicals/${chemical.id}/sds`,
-      pngBytes(),
+      tinyPng(),
       'scan.pdf',
     ).expect(415);
     expect(response.body.error.message).toMatch(/must be a PDF file; this one is PNG/);
@@ -229,7 +199,7 @@ describe('safety data sheets', () => {
 describe('certificates of analysis', () => {
   it('when a PNG scan is uploaded for a lot, then the lot names it and it downloads as uploaded', async () => {
     const lot = await make.lot((await make.chemical()).id);
-    const png = pngBytes();
+    const png = tinyPng();
     const uploaded = await uploadTo(`/api/lots/${lot.id}/certificate`, png, 'CoA lot 7.png').expect(
       201,
     );
@@ -256,9 +226,33 @@ describe('certificates of analysis', () => {
     expect(after).toMatchObject({ certificateFileName: null, certificate: null });
   });
 
+  it('when a PNG is uploaded under a .pdf name, then it is kept and downloads as .png', async () => {
+    const lot = await make.lot((await make.chemical()).id);
+    const uploaded = await uploadTo(
+      `/api/lots/${lot.id}/certificate`,
+      tinyPng(),
+      'CoA lot 9.pdf',
+    ).expect(201);
+    expect(lotSchema.parse(uploaded.body).certificateFileName).toBe('CoA lot 9.png');
+    const response = await download(`/api/lots/${lot.id}/certificate`).expect(200);
+    expect(response.headers['content-type']).toBe('image/png');
+    expect(response.headers['content-disposition']).toMatch(/filename="CoA lot 9\.png"/);
+  });
+
+  it('when a file was recorded under a name of another type, then the download still ends in its type', async () => {
+    const lot = await make.lot((await make.chemical()).id);
+    await uploadTo(`/api/lots/${lot.id}/certificate`, tinyPng(), 'scan.png').expect(201);
+    await testContext().dataSource.query(
+      "UPDATE lots SET certificate_file_name = 'old scan.pdf' WHERE id = ?",
+      [lot.id],
+    );
+    const response = await download(`/api/lots/${lot.id}/certificate`).expect(200);
+    expect(response.headers['content-disposition']).toMatch(/filename="old scan\.png"/);
+  });
+
   it('when a JPEG is uploaded, then it is accepted; a viewer may download but not upload', async () => {
     const lot = await make.lot((await make.chemical()).id);
-    const jpeg = Buffer.concat([Buffer.from([0xff, 0xd8, 0xff, 0xe0]), Buffer.alloc(32, 2)]);
+    const jpeg = jpegBytes();
     await uploadTo(`/api/lots/${lot.id}/certificate`, jpeg, 'coa.jpg', viewer).expect(403);
     await uploadTo(`/api/lots/${lot.id}/certificate`, jpeg, 'coa.jpg').expect(201);
     const response = await download(`/api/lots/${lot.id}/certificate`, viewer).expect(200);
