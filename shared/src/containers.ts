@@ -4,6 +4,7 @@ import { amountSchema, quantityUnitSchema } from './amounts';
 import { stockUnitSchema } from './chemicals';
 import { isoDateSchema } from './dates';
 import { ghsCodeSchema, peroxideClassSchema, storageGroupSchema } from './hazards';
+import { confirmFieldSchema, containerHoldSchema } from './confirmations';
 import { ledgerEntrySchema } from './ledger';
 import { listQuerySchema, queryFlagSchema } from './list';
 import { lotSourceSchema } from './lots';
@@ -64,6 +65,8 @@ export const containerCreateSchema = z
     status: z.enum(['sealed', 'open'], { message: 'must be sealed or open' }).default('sealed'),
     openedOn: isoDateSchema.nullable().default(null),
     notes: z.string().max(2000, 'is at most 2000 characters').default(''),
+    /** Store it even where it breaks a storage rule (answered 409 `confirmation_required` otherwise). */
+    confirm: confirmFieldSchema,
   })
   .strict()
   .refine((c) => c.capacity === null || c.capacityUnit !== null, {
@@ -97,6 +100,8 @@ export const drawSchema = z
     grossMass: nonNegative('gross mass').optional(),
     unit: quantityUnitSchema,
     note: noteSchema.default(''),
+    /** Draw even when it takes from what is held for a plan (409 `confirmation_required` otherwise). */
+    confirm: confirmFieldSchema,
   })
   .strict()
   .superRefine((draw, ctx) => {
@@ -149,6 +154,8 @@ export const splitSchema = z
     capacity: positive('capacity').nullable().default(null),
     capacityUnit: quantityUnitSchema.nullable().default(null),
     note: noteSchema.default(''),
+    /** Place the new container even where it breaks a storage rule. */
+    confirm: confirmFieldSchema,
   })
   .strict();
 export type Split = z.input<typeof splitSchema>;
@@ -158,6 +165,8 @@ export const transferSchema = z
   .object({
     locationId: z.number({ message: 'must be a location id' }).int().positive(),
     note: noteSchema.default(''),
+    /** Move it even where it breaks a storage rule. */
+    confirm: confirmFieldSchema,
   })
   .strict();
 export type Transfer = z.input<typeof transferSchema>;
@@ -217,6 +226,8 @@ export const containerSchema = z.object({
     expiresOn: z.string().nullable(),
   }),
   location: z.object({ id: z.number().int(), name: z.string(), path: z.string() }),
+  /** What plans hold of it now (reservations in force), oldest first. */
+  holds: z.array(containerHoldSchema),
   createdAt: z.string(),
   updatedAt: z.string(),
 });

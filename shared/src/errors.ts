@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { confirmationWarningSchema } from './confirmations';
 
 /**
  * The closed set of error codes the API answers with. The web client switches on these,
@@ -10,6 +11,7 @@ export const errorCodes = [
   'forbidden',
   'not_found',
   'conflict',
+  'confirmation_required',
   'payload_too_large',
   'unsupported_media_type',
   'rate_limited',
@@ -24,19 +26,23 @@ export const errorStatus: Record<ErrorCode, number> = {
   forbidden: 403,
   not_found: 404,
   conflict: 409,
+  /** The write needs a person's confirmation: see `error.warnings`, then send it again with `confirm: true`. */
+  confirmation_required: 409,
   payload_too_large: 413,
   unsupported_media_type: 415,
   rate_limited: 429,
   internal: 500,
 };
 
-/** Body of every error response: `{ error: { code, message, fields? } }`. */
+/** Body of every error response: `{ error: { code, message, fields?, warnings? } }`. */
 export const errorBodySchema = z.object({
   error: z.object({
     code: z.enum(errorCodes),
     message: z.string(),
     /** Field path (dot-separated, e.g. `ghsPictograms.1`) -> what is wrong with it. */
     fields: z.record(z.string(), z.string()).optional(),
+    /** With `confirmation_required`: what the person is asked to confirm. */
+    warnings: z.array(confirmationWarningSchema).optional(),
   }),
 });
 export type ErrorBody = z.infer<typeof errorBodySchema>;

@@ -1,4 +1,5 @@
 export * from './errors';
+export * from './confirmations';
 export * from './roles';
 export * from './list';
 export * from './amounts';

@@ -65,8 +65,13 @@ export const reservationSchema = z.object({
   locationPath: z.string(),
   /** Row of the stock check it was made for, when known. */
   requirementIndex: z.number().int().nullable(),
-  /** As supplied, in the container's unit. */
+  /**
+   * Held now, as supplied, in the container's unit: never more than is left of it in the
+   * container (draws since the reservation take from the newest holds first).
+   */
   quantity: z.number(),
+  /** What was reserved; more than `quantity` when the container was drawn down since. */
+  reservedQuantity: z.number(),
   unit: stockUnitSchema,
   until: z.string(),
   status: z.enum(reservationStatuses),

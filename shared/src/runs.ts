@@ -2,6 +2,7 @@ import { tryParseUnit } from '@lotwise/chem';
 import { z } from 'zod';
 import { amountSchema, quantityUnitSchema } from './amounts';
 import { stockUnitSchema } from './chemicals';
+import { confirmFieldSchema } from './confirmations';
 import { isoDateSchema } from './dates';
 import { listQuerySchema } from './list';
 import { lotSourceSchema } from './lots';
@@ -148,6 +149,8 @@ export const runRecordSchema = z
       .default([]),
     products: z.array(runProductSchema).max(5).default([]),
     observations: runObservationsSchema.default({ meltingRangeC: null, appearance: '', notes: '' }),
+    /** Record even when a draw takes from what another plan holds (409 `confirmation_required` otherwise). */
+    confirm: confirmFieldSchema,
   })
   .strict();
 export type RunRecord = z.input<typeof runRecordSchema>;

@@ -1,4 +1,4 @@
-import { errorStatus, type ErrorCode } from '@lotwise/shared';
+import { errorStatus, type ConfirmationWarning, type ErrorCode } from '@lotwise/shared';
 
 /** Field path (dot-separated) -> what is wrong with it. */
 export type FieldErrors = Record<string, string>;
@@ -11,6 +11,8 @@ export class AppError extends Error {
     public readonly code: ErrorCode,
     message: string,
     public readonly fields?: FieldErrors,
+    /** With `confirmation_required`: what the person is asked to confirm. */
+    public readonly warnings?: ConfirmationWarning[],
   ) {
     super(message);
   }
@@ -33,5 +35,9 @@ export class AppError extends Error {
   }
   static conflict(message: string, fields?: FieldErrors) {
     return new AppError('conflict', message, fields);
+  }
+  /** 409: nothing was written; the same request with `confirm: true` goes ahead. */
+  static confirmationRequired(message: string, warnings: ConfirmationWarning[]) {
+    return new AppError('confirmation_required', message, undefined, warnings);
   }
 }

@@ -29,7 +29,7 @@ function toAppError(error: unknown): AppError | null {
   return null;
 }
 
-/** Maps every error to `{ error: { code, message, fields? } }`; never sends a stack trace. */
+/** Maps every error to `{ error: { code, message, fields?, warnings? } }`; never sends a stack trace. */
 export function errorMiddleware(logger: Logger): ErrorRequestHandler {
   return (error, req, res, _next) => {
     const known = toAppError(error);
@@ -46,6 +46,7 @@ export function errorMiddleware(logger: Logger): ErrorRequestHandler {
         code: appError.code,
         message: appError.message,
         ...(appError.fields ? { fields: appError.fields } : {}),
+        ...(appError.warnings ? { warnings: appError.warnings } : {}),
       },
     };
     if (res.headersSent) return;

@@ -1,7 +1,12 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { z } from 'zod';
 import { mockFetch } from '../test/fetch-mock';
-import { ApiError, apiRequest, setUnauthenticatedHandler } from './api-client';
+import {
+  ApiError,
+  apiRequest,
+  sendWithConfirmation,
+  setUnauthenticatedHandler,
+} from './api-client';
 
 afterEach(() => setUnauthenticatedHandler(() => {}));
 
@@ -99,5 +104,59 @@ describe('apiRequest', () => {
     expect(init).toMatchObject({ credentials: 'same-origin', method: 'PATCH' });
     expect(init?.headers).toMatchObject({ 'Content-Type': 'application/json' });
     expect(requests[0]?.body).toEqual({ role: 'viewer' });
+  });
+});
+
+describe('sendWithConfirmation', () => {
+  const warning = {
+    kind: 'hold',
+    message: 'Held for plan #3.',
+    planId: 3,
+    planTitle: 'Aspirin',
+    plannedOn: '2026-12-10',
+    until: '2026-12-10',
+    containerId: 42,
+    labelCode: 'LW-00042',
+    heldBefore: 65,
+    heldAfter: 15,
+    loses: 50,
+    unit: 'mL',
+  };
+
+  function confirmingServer() {
+    return mockFetch({
+      'POST /api/containers/42/draws': (request) =>
+        (request.body as { confirm?: boolean }).confirm
+          ? { status: 201, body: { ok: true } }
+          : {
+              status: 409,
+              body: {
+                error: { code: 'confirmation_required', message: 'Confirm.', warnings: [warning] },
+              },
+            },
+    });
+  }
+  const send = (confirm: boolean) =>
+    apiRequest('/api/containers/42/draws', {
+      method: 'POST',
+      body: confirm ? { amount: 55, confirm } : { amount: 55 },
+    });
+
+  it('when the server asks for confirmation and the person goes ahead, then the same request is sent again with confirm', async () => {
+    const { requests } = confirmingServer();
+    const asked: unknown[] = [];
+    const result = await sendWithConfirmation(send, async (warnings) => {
+      asked.push(...warnings);
+      return true;
+    });
+    expect(result).toEqual({ ok: true });
+    expect(asked).toEqual([warning]);
+    expect(requests.map((r) => r.body)).toEqual([{ amount: 55 }, { amount: 55, confirm: true }]);
+  });
+
+  it('when the person declines, then nothing more is sent and the result is null', async () => {
+    const { requests } = confirmingServer();
+    expect(await sendWithConfirmation(send, async () => false)).toBeNull();
+    expect(requests).toHaveLength(1);
   });
 });

@@ -1,4 +1,4 @@
-import { errorBodySchema, type ErrorCode } from '@lotwise/shared';
+import { errorBodySchema, type ConfirmationWarning, type ErrorCode } from '@lotwise/shared';
 import type { z } from 'zod';
 
 /** An error answered by the Lotwise API (or a failure to reach it), carrying the uniform body. */
@@ -11,6 +11,8 @@ export class ApiError extends Error {
     message: string,
     /** Field path (e.g. `ghsPictograms.1`) -> what is wrong with it. */
     readonly fields: Record<string, string> = {},
+    /** With `confirmation_required`: what the person is asked to confirm before sending again. */
+    readonly warnings: ConfirmationWarning[] = [],
   ) {
     super(message);
   }
@@ -43,8 +45,8 @@ export async function toApiError(response: Response): Promise<ApiError> {
   }
   const parsed = errorBodySchema.safeParse(body);
   if (parsed.success) {
-    const { code, message, fields } = parsed.data.error;
-    return new ApiError(response.status, code, message, fields ?? {});
+    const { code, message, fields, warnings } = parsed.data.error;
+    return new ApiError(response.status, code, message, fields ?? {}, warnings ?? []);
   }
   const fallback =
     response.status >= 500
@@ -144,6 +146,31 @@ export function withQuery(
   }
   const query = search.toString();
   return query ? `${path}?${query}` : path;
+}
+
+/** Shows the warnings of a `confirmation_required` answer; resolves true when the person goes ahead. */
+export type AskConfirmation = (
+  warnings: ConfirmationWarning[],
+  message: string,
+) => Promise<boolean>;
+
+/**
+ * Send → confirm → send again: runs `send(false)`; when the server answers 409
+ * `confirmation_required`, asks the person with the warnings it named and, if they go ahead,
+ * runs `send(true)` (the same request with `confirm: true`). Resolves null when they decline:
+ * nothing was written. Any other error is thrown as it came.
+ */
+export async function sendWithConfirmation<T>(
+  send: (confirm: boolean) => Promise<T>,
+  ask: AskConfirmation,
+): Promise<T | null> {
+  try {
+    return await send(false);
+  } catch (error) {
+    if (!isApiError(error) || error.code !== 'confirmation_required') throw error;
+    if (!(await ask(error.warnings, error.message))) return null;
+    return send(true);
+  }
 }
 
 /** A person-readable sentence for any error a query or mutation throws. */

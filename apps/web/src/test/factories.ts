@@ -89,6 +89,7 @@ export function makeContainer(overrides: Partial<ContainerDetail> = {}): Contain
       expiresOn: '2028-06-30',
     },
     location: { id: 5, name: 'Shelf 2', path: 'Room 101 › Cabinet A › Shelf 2' },
+    holds: [],
     createdAt: '2026-08-20T09:00:00.000Z',
     updatedAt: '2026-09-01T09:00:00.000Z',
     warnings: [],

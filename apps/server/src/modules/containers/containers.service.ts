@@ -7,6 +7,7 @@ import {
   todayIso,
   type Container,
   type ContainerChange,
+  type ContainerHold,
   type ContainerCreateParsed,
   type ContainerDetail,
   type ContainerListQuery,
@@ -34,6 +35,7 @@ import type { ChemicalRow } from '../chemicals/chemical.entity';
 import { requireLocation } from '../locations/locations.service';
 import type { LocationRow } from '../locations/location.entity';
 import { requireLot } from '../lots/lots.service';
+import { holdsOfContainers, requireHoldsConfirmed } from '../plans/holds';
 import { segregationService } from '../segregation/segregation.service';
 import type { ContainerRow } from './container.entity';
 import { peroxideDueOf } from './peroxide-dates';
@@ -115,8 +117,12 @@ function convertToStockUnit(
   }
 }
 
-/** The API shape of a container. */
-export function presentContainer(view: ContainerView, today = todayIso()): Container {
+/** The API shape of a container, with what plans hold of it. */
+export function presentContainer(
+  view: ContainerView,
+  holds: ContainerHold[],
+  today = todayIso(),
+): Container {
   const due = peroxideDueOf(
     view.chemicalPeroxideClass,
     view.openedOn,
@@ -161,6 +167,7 @@ export function presentContainer(view: ContainerView, today = todayIso()): Conta
       expiresOn: view.lotExpiresOn,
     },
     location: { id: view.locationId, name: view.locationName, path: view.locationPath },
+    holds,
     createdAt: view.createdAt,
     updatedAt: view.updatedAt,
   };
@@ -298,7 +305,9 @@ export function containersService(store: Store) {
   async function detail(repos: Repositories, id: number): Promise<ContainerDetail> {
     const view = await repos.containers.findView(id);
     if (!view) throw notFound(id);
-    const container = presentContainer(view);
+    const today = todayIso();
+    const holds = await holdsOfContainers(repos, [{ id, quantity: Number(view.quantity) }], today);
+    const container = presentContainer(view, holds.get(id) ?? [], today);
     const location = (await repos.locations.findRow(view.locationId))!;
     const warnings =
       view.status === 'disposed'
@@ -392,8 +401,13 @@ export function containersService(store: Store) {
             : addDays(today, query.expiringWithinDays),
         peroxideBefore: addDays(today, query.peroxideDueWithinDays),
       });
+      const holds = await holdsOfContainers(
+        store.repos,
+        items.map((view) => ({ id: view.id, quantity: Number(view.quantity) })),
+        today,
+      );
       return {
-        items: items.map((view) => presentContainer(view, today)),
+        items: items.map((view) => presentContainer(view, holds.get(view.id) ?? [], today)),
         total,
         page: query.page,
         pageSize: query.pageSize,
@@ -422,6 +436,12 @@ export function containersService(store: Store) {
         const chemical = await chemicalOf(repos, lot.chemicalId);
         const quantity = roundQuantity(
           toStockUnit(input.quantity, input.unit, chemical, 'quantity'),
+        );
+        await segregationService(repos).requireStorageConfirmed(
+          { id: null },
+          chemical,
+          location,
+          input.confirm,
         );
         const row = await createContainer(repos, {
           lotId: lot.id,
@@ -521,6 +541,10 @@ export function containersService(store: Store) {
           );
         }
         const today = todayIso();
+        await requireHoldsConfirmed(repos, [{ container, drawn }], {
+          today,
+          confirmed: input.confirm,
+        });
         const next = statusAfter(
           container.status,
           container.quantity - drawn,
@@ -583,6 +607,15 @@ export function containersService(store: Store) {
             },
           );
         }
+        // A bottle poured off onto the shelf its source stands on adds no new conflict.
+        if (location.id !== container.locationId) {
+          await segregationService(repos).requireStorageConfirmed(
+            { id: null },
+            chemical,
+            location,
+            input.confirm,
+          );
+        }
         const today = todayIso();
         const created = await createContainer(repos, {
           lotId: container.lotId,
@@ -643,7 +676,7 @@ export function containersService(store: Store) {
 
     async transfer(id: number, input: TransferParsed, actor: User): Promise<ContainerChange> {
       return store.transaction(async (repos) => {
-        const { container } = await loadForWrite(repos, id);
+        const { container, chemical } = await loadForWrite(repos, id);
         refuseDisposed(container);
         const to = await requireLocation(repos, input.locationId);
         if (to.id === container.locationId) {
@@ -651,6 +684,12 @@ export function containersService(store: Store) {
             locationId: 'is where the container already is',
           });
         }
+        await segregationService(repos).requireStorageConfirmed(
+          { id: container.id },
+          chemical,
+          to,
+          input.confirm,
+        );
         const from = (await repos.locations.findRow(container.locationId))!;
         const { entry } = await appendEntry(
           repos,

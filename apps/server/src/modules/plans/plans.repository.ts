@@ -32,9 +32,23 @@ export interface StockRow {
 /** A reservation with what the plan and the stock check show of its container. */
 export interface ReservationView extends ReservationRow {
   labelCode: string;
+  /** What the container holds now. */
+  containerQuantity: number;
   chemicalId: number;
   chemicalName: string;
   locationPath: string;
+}
+
+/** An active reservation in force, with the plan it holds for. */
+export interface HoldRow {
+  id: number;
+  planId: number;
+  containerId: number;
+  quantity: number;
+  unit: StockUnit;
+  until: string;
+  plannedOn: string;
+  planTitle: string;
 }
 
 const sortColumns: Record<string, string> = {
@@ -63,6 +77,7 @@ export function plansRepository(manager: EntityManager) {
       .addSelect('r.created_by_id', 'createdById')
       .addSelect('r.created_at', 'createdAt')
       .addSelect('c.label_code', 'labelCode')
+      .addSelect('c.quantity', 'containerQuantity')
       .addSelect('c.chemical_id', 'chemicalId')
       .addSelect('ch.name', 'chemicalName')
       .addSelect('loc.path', 'locationPath')
@@ -78,6 +93,7 @@ export function plansRepository(manager: EntityManager) {
     containerId: Number(raw.containerId),
     chemicalId: Number(raw.chemicalId),
     quantity: fromMicro(raw.quantity),
+    containerQuantity: fromMicro(raw.containerQuantity),
     requirementIndex:
       raw.requirementIndex === null || raw.requirementIndex === undefined
         ? null
@@ -171,6 +187,37 @@ export function plansRepository(manager: EntityManager) {
         .where('r.container_id IN (:...containerIds)', { containerIds })
         .andWhere("r.status = 'active' AND r.until >= :today", { today })
         .getMany();
+    },
+    /** Reservations in force on `today` on these containers, with their plan, oldest first. */
+    async holdsOn(containerIds: number[], today: string): Promise<HoldRow[]> {
+      if (containerIds.length === 0) return [];
+      const rows = await manager
+        .createQueryBuilder()
+        .select('r.id', 'id')
+        .addSelect('r.plan_id', 'planId')
+        .addSelect('r.container_id', 'containerId')
+        .addSelect('r.quantity', 'quantity')
+        .addSelect('r.unit', 'unit')
+        .addSelect('r.until', 'until')
+        .addSelect('p.planned_on', 'plannedOn')
+        .addSelect('pr.title', 'planTitle')
+        .from('reservations', 'r')
+        .innerJoin('prep_plans', 'p', 'p.id = r.plan_id')
+        .innerJoin('procedures', 'pr', 'pr.id = p.procedure_id')
+        .where('r.container_id IN (:...containerIds)', { containerIds })
+        .andWhere("r.status = 'active' AND r.until >= :today", { today })
+        .orderBy('r.id', 'ASC')
+        .getRawMany<Record<string, unknown>>();
+      return rows.map((raw) => ({
+        id: Number(raw.id),
+        planId: Number(raw.planId),
+        containerId: Number(raw.containerId),
+        quantity: Number(raw.quantity),
+        unit: raw.unit as StockUnit,
+        until: String(raw.until),
+        plannedOn: String(raw.plannedOn),
+        planTitle: String(raw.planTitle),
+      }));
     },
     async reservationsOf(planId: number): Promise<ReservationView[]> {
       const rows = await reservationView()

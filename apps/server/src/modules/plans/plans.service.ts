@@ -1,5 +1,6 @@
 import { displayQuantity, lineAmounts } from '@lotwise/chem';
 import {
+  allocateHolds,
   can,
   hazardStatementTexts,
   roundingRules,
@@ -26,6 +27,7 @@ import { toStockUnit } from '../containers/containers.service';
 import { chemLinesOf, loadProcedure, type LoadedProcedure } from '../procedures/procedures.service';
 import type { PlanRow } from './plan.entity';
 import type { ReservationView } from './plans.repository';
+import { heldNowOf } from './holds';
 import { planChemicals, stockCheckOf, tidy } from './stock-check';
 
 type ReservationCreateParsed = z.output<typeof reservationCreateSchema>;
@@ -65,7 +67,8 @@ function hazardsOf(chemicals: Iterable<ChemicalRow>) {
     }));
 }
 
-function presentReservation(view: ReservationView): Reservation {
+/** `heldNow`: what the reservation holds now, when it is in force (see `heldNowOf`). */
+function presentReservation(view: ReservationView, heldNow: number | undefined): Reservation {
   return {
     id: view.id,
     planId: view.planId,
@@ -75,7 +78,8 @@ function presentReservation(view: ReservationView): Reservation {
     chemicalName: view.chemicalName,
     locationPath: view.locationPath,
     requirementIndex: view.requirementIndex,
-    quantity: view.quantity,
+    quantity: tidy(heldNow ?? view.quantity),
+    reservedQuantity: view.quantity,
     unit: view.unit,
     until: view.until,
     status: view.status,
@@ -83,6 +87,20 @@ function presentReservation(view: ReservationView): Reservation {
     releasedAt: view.releasedAt,
     createdAt: view.createdAt,
   };
+}
+
+async function presentReservations(
+  repos: Repositories,
+  planId: number,
+  today: string,
+): Promise<Reservation[]> {
+  const views = await repos.plans.reservationsOf(planId);
+  const held = await heldNowOf(
+    repos,
+    views.filter((v) => v.status === 'active'),
+    today,
+  );
+  return views.map((view) => presentReservation(view, held.get(view.id)));
 }
 
 /** Plans whose reservations have all run out become `lapsed`, releasing what they held. */
@@ -183,7 +201,7 @@ export function plansService(store: Store) {
         items: cautionItems(procedure.row.cautionFlags),
       },
       safetyDeferral,
-      reservations: (await repos.plans.reservationsOf(id)).map(presentReservation),
+      reservations: await presentReservations(repos, id, today),
     };
   }
 
@@ -344,7 +362,8 @@ export function plansService(store: Store) {
             );
           }
           const others = inForce.filter((r) => r.containerId === containerId && r.planId !== id);
-          const held = others.reduce((sum, r) => sum + r.quantity, 0);
+          const heldNow = allocateHolds(container.quantity, others);
+          const held = [...heldNow.values()].reduce((sum, amount) => sum + amount, 0);
           const free = Math.max(0, container.quantity - held);
           const want = parts.reduce((sum, part) => sum + part.quantity, 0);
           if (want > free + epsilon) {

@@ -5,12 +5,13 @@ import {
   lineAmounts,
   type ProcedureLine,
 } from '@lotwise/chem';
-import type {
-  StockCheck,
-  StockCheckLine,
-  StockSuggestion,
-  StockTake,
-  StockUnit,
+import {
+  allocateHolds,
+  type StockCheck,
+  type StockCheckLine,
+  type StockSuggestion,
+  type StockTake,
+  type StockUnit,
 } from '@lotwise/shared';
 import type { Repositories } from '../../db/store';
 import type { ChemicalRow } from '../chemicals/chemical.entity';
@@ -221,13 +222,19 @@ export async function stockCheckOf(
     stock.map((row) => row.id),
     today,
   );
+  // What each reservation holds now: never more than is left in its container.
+  const heldNow = new Map<number, number>();
+  for (const row of stock) {
+    const claims = reservations.filter((r) => r.containerId === row.id);
+    for (const [id, amount] of allocateHolds(row.quantity, claims)) heldNow.set(id, amount);
+  }
   const reservedByOthers = new Map<number, number>();
   const reservedByThis = new Map<number, number>();
   for (const reservation of reservations) {
     const map = reservation.planId === plan.id ? reservedByThis : reservedByOthers;
     map.set(
       reservation.containerId,
-      (map.get(reservation.containerId) ?? 0) + reservation.quantity,
+      (map.get(reservation.containerId) ?? 0) + (heldNow.get(reservation.id) ?? 0),
     );
   }
   // What is still free in each container as the rows take from it, in order.

@@ -34,6 +34,7 @@ import {
   toStockUnit,
 } from '../containers/containers.service';
 import { peroxideDueOf } from '../containers/peroxide-dates';
+import { requireHoldsConfirmed } from '../plans/holds';
 import { markPlanRecorded, requireOwnPlan } from '../plans/plans.service';
 import { chemLinesOf, loadProcedure, type LoadedProcedure } from '../procedures/procedures.service';
 import type { RunRow } from './run.entity';
@@ -458,6 +459,13 @@ export async function recordRunWith(
       drawnByLine.set(draw.lineIndex, list);
     }
   }
+
+  // Another plan's hold is taken only with the person's confirmation (the transaction rolls back).
+  await requireHoldsConfirmed(
+    repos,
+    inputs.map((item) => ({ container: item.container, drawn: item.quantity })),
+    { today, exceptPlanId: run.planId, confirmed: input.confirm },
+  );
 
   // 2. The products: portions in the product's stock unit.
   const productIndexes = procedure.lines.flatMap((line, index) =>

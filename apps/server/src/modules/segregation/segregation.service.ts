@@ -7,8 +7,10 @@ import {
   type LocationConflictPair,
   type SegregationConflictsResponse,
   type SegregationWarning,
+  type StorageConflictWarning,
   type StorageGroup,
 } from '@lotwise/shared';
+import { AppError } from '../../lib/app-error';
 import type { Repositories } from '../../db/store';
 import type { LocationRow } from '../locations/location.entity';
 import type { PlacedContainer } from './segregation.repository';
@@ -77,7 +79,61 @@ function conflictsAmong(location: LocationRow, here: PlacedContainer[]): Locatio
   };
 }
 
+/** The chemical of a container being placed, with its groups. */
+interface PlacedChemical {
+  id: number;
+  name: string;
+  storageGroup: StorageGroup;
+  extraHazardGroups: StorageGroup[] | null;
+}
+
+/** A group in a sentence: "Nitric acid (mineral acid) and ethanol (flammable)". */
+const groupNouns: Record<StorageGroup, string> = {
+  flammable: 'flammable',
+  'organic-acid': 'organic acid',
+  'inorganic-acid': 'mineral acid',
+  base: 'base',
+  oxidizer: 'oxidizer',
+  reducer: 'reducing metal',
+  'water-reactive': 'water-reactive',
+  'gas-with-acid': 'gives toxic gas with acids',
+  'low-hazard': 'general',
+};
+
+/** "Ethanol" in the middle of a sentence reads "ethanol"; "EDTA" stays as it is. */
+function midSentence(name: string): string {
+  return /^[A-Z][a-z]/.test(name) ? name[0]!.toLowerCase() + name.slice(1) : name;
+}
+
 export function segregationService(repos: Repositories) {
+  /**
+   * The rules a container of `chemical` at `location` breaks with the other containers there
+   * (bottles of the same chemical never warn about each other), and whether the place is
+   * meant for other groups.
+   */
+  async function conflictsFor(
+    container: { id: number | null },
+    chemical: PlacedChemical,
+    location: LocationRow,
+  ) {
+    const others = (await repos.segregation.placedAt([location.id])).filter(
+      (c) => c.id !== container.id && c.chemicalId !== chemical.id,
+    );
+    const mine = hazardGroupsOf(chemical);
+    const byRule = new Map<IncompatiblePair, PlacedContainer[]>();
+    for (const other of others) {
+      for (const rule of rulesBetween(mine, hazardGroupsOf(other))) {
+        byRule.set(rule, [...(byRule.get(rule) ?? []), other]);
+      }
+    }
+    return {
+      rules: [...byRule.entries()].map(([rule, found]) => ({ rule, others: found })),
+      mismatch:
+        location.storageGroups.length > 0 &&
+        !location.storageGroups.includes(chemical.storageGroup),
+    };
+  }
+
   return {
     /**
      * Warnings for a container (of `chemical`) at `location`: incompatible groups among the
@@ -85,39 +141,21 @@ export function segregationService(repos: Repositories) {
      */
     async warningsFor(
       container: { id: number | null; labelCode: string },
-      chemical: {
-        id: number;
-        name: string;
-        storageGroup: StorageGroup;
-        extraHazardGroups: StorageGroup[] | null;
-      },
+      chemical: PlacedChemical,
       location: LocationRow,
     ): Promise<SegregationWarning[]> {
-      // Bottles of one chemical never warn about each other (sodium nitrite's two groups).
-      const others = (await repos.segregation.placedAt([location.id])).filter(
-        (c) => c.id !== container.id && c.chemicalId !== chemical.id,
-      );
-      const mine = hazardGroupsOf(chemical);
-      const byRule = new Map<IncompatiblePair, PlacedContainer[]>();
-      for (const other of others) {
-        for (const rule of rulesBetween(mine, hazardGroupsOf(other))) {
-          byRule.set(rule, [...(byRule.get(rule) ?? []), other]);
-        }
-      }
-      const warnings: SegregationWarning[] = [...byRule.entries()].map(([rule, found]) => ({
+      const found = await conflictsFor(container, chemical, location);
+      const warnings: SegregationWarning[] = found.rules.map(({ rule, others }) => ({
         code: 'incompatible_groups',
-        message: `${container.labelCode} (${chemical.name}) shares ${location.path} with ${found
+        message: `${container.labelCode} (${chemical.name}) shares ${location.path} with ${others
           .map((c) => `${c.labelCode} (${c.chemicalName})`)
           .join(', ')}: ${label(rule.a)} and ${label(rule.b)} are stored apart.`,
         reason: rule.reason,
         source: rule.source,
         groups: [rule.a, rule.b],
-        labelCodes: found.map((c) => c.labelCode),
+        labelCodes: others.map((c) => c.labelCode),
       }));
-      if (
-        location.storageGroups.length > 0 &&
-        !location.storageGroups.includes(chemical.storageGroup)
-      ) {
+      if (found.mismatch) {
         warnings.push({
           code: 'location_group_mismatch',
           message: `${location.path} is meant for ${location.storageGroups.map(label).join(', ')}; ${container.labelCode} (${chemical.name}) is ${label(chemical.storageGroup)}.`,
@@ -128,6 +166,69 @@ export function segregationService(repos: Repositories) {
         });
       }
       return warnings;
+    },
+
+    /**
+     * What putting a container of `chemical` at `location` would break, asked before the write:
+     * each incompatible pair says which chemicals "must be kept apart" and why.
+     */
+    async confirmationsFor(
+      container: { id: number | null },
+      chemical: PlacedChemical,
+      location: LocationRow,
+    ): Promise<StorageConflictWarning[]> {
+      const found = await conflictsFor(container, chemical, location);
+      const mine = hazardGroupsOf(chemical);
+      const warnings: StorageConflictWarning[] = found.rules.map(({ rule, others }) => {
+        const [myGroup, theirGroup] = mine.includes(rule.a) ? [rule.a, rule.b] : [rule.b, rule.a];
+        const names = [...new Set(others.map((c) => midSentence(c.chemicalName)))].join(', ');
+        return {
+          kind: 'storage_conflict',
+          message: `${chemical.name} (${groupNouns[myGroup]}) and ${names} (${groupNouns[theirGroup]}, ${others
+            .map((c) => c.labelCode)
+            .join(', ')} at ${location.path}) must be kept apart: ${rule.reason}`,
+          code: 'incompatible_groups',
+          reason: rule.reason,
+          source: rule.source,
+          groups: [myGroup, theirGroup],
+          locationId: location.id,
+          locationPath: location.path,
+          labelCodes: others.map((c) => c.labelCode),
+        };
+      });
+      if (found.mismatch) {
+        warnings.push({
+          kind: 'storage_conflict',
+          message: `${location.path} is meant for ${location.storageGroups.map(label).join(', ')}; ${chemical.name} is ${groupNouns[chemical.storageGroup]} and belongs with its own group.`,
+          code: 'location_group_mismatch',
+          reason: 'The place was set up for other storage groups.',
+          source: null,
+          groups: [chemical.storageGroup],
+          locationId: location.id,
+          locationPath: location.path,
+          labelCodes: [],
+        });
+      }
+      return warnings;
+    },
+
+    /**
+     * Refuses (409 `confirmation_required`, nothing written) putting a container where it
+     * breaks a storage rule, unless the person confirmed.
+     */
+    async requireStorageConfirmed(
+      container: { id: number | null },
+      chemical: PlacedChemical,
+      location: LocationRow,
+      confirmed: boolean,
+    ): Promise<void> {
+      if (confirmed) return;
+      const warnings = await this.confirmationsFor(container, chemical, location);
+      if (warnings.length === 0) return;
+      throw AppError.confirmationRequired(
+        `${warnings.map((w) => w.message).join(' ')} Nothing was saved: confirm to store it there anyway. ${safetyDeferral}`,
+        warnings,
+      );
     },
 
     /** Conflicts at one place, as warnings (for the location page). */

@@ -338,6 +338,7 @@ describe('segregation', () => {
       locationId: shelf.id,
       quantity: 500,
       unit: 'mL',
+      confirm: true,
     }).expect(201);
     const codes = response.body.warnings.map((w: { code: string }) => w.code).sort();
     expect(codes).toEqual(['incompatible_groups', 'location_group_mismatch']);
@@ -387,6 +388,7 @@ describe('segregation', () => {
       locationId: shelf.id,
       quantity: 100,
       unit: 'g',
+      confirm: true,
     }).expect(201);
     const groups = response.body.warnings
       .map((w: { groups: string[] }) => w.groups.join('+'))

@@ -2,6 +2,7 @@ import { useId } from 'react';
 import { massToVolume, weighByDifference } from '@lotwise/chem';
 import type { Container } from '@lotwise/shared';
 import { Calculator, CircleAlert, Trash2 } from 'lucide-react';
+import { ContainerHolds } from '../../../components/holds/container-holds';
 import { Button } from '../../../components/ui/button';
 import { Field } from '../../../components/ui/field';
 import { Input, Select } from '../../../components/ui/input';
@@ -107,7 +108,8 @@ function weighingPreview(draw: DrawValues, container: Container | undefined): Pr
 }
 
 function containerLabel(container: Container) {
-  return `${container.labelCode} · ${formatAmount(container.quantity, container.unit)} · ${container.location.path} (${container.status})`;
+  const held = container.holds.length > 0 ? ' · held for a plan' : '';
+  return `${container.labelCode} · ${formatAmount(container.quantity, container.unit)} · ${container.location.path} (${container.status})${held}`;
 }
 
 /** One draw from a named container: an amount, or gross masses weighed on the balance. */
@@ -195,6 +197,7 @@ export function ContainerDraw({
           </Button>
         )}
       </div>
+      {container && <ContainerHolds container={container} compact />}
       {value.mode === 'amount' ? (
         <div className="flex flex-wrap items-end gap-3">
           <Field label="Amount" hint={plannedHint} className="w-40">

@@ -210,6 +210,12 @@ function PlanView({ plan }: { plan: PlanDetail }) {
                     <td className="px-3 py-1.5 text-ink-700">{r.locationPath}</td>
                     <td className="px-3 py-1.5 text-right">
                       <StockAmount value={r.quantity} unit={r.unit} />
+                      {r.reservedQuantity > r.quantity && (
+                        <span className="block text-xs text-warn-700">
+                          of <StockAmount value={r.reservedQuantity} unit={r.unit} /> reserved:
+                          drawn since
+                        </span>
+                      )}
                     </td>
                     <td className="px-3 py-1.5 whitespace-nowrap">{formatDate(r.until)}</td>
                   </tr>

@@ -9,11 +9,12 @@ import {
   type RunRecord,
 } from '@lotwise/shared';
 import { Button } from '../../../components/ui/button';
+import { useConfirmation } from '../../../components/ui/confirmation-dialog';
 import { Field } from '../../../components/ui/field';
 import { Input, Select, Textarea } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { PageSpinner } from '../../../components/ui/spinner';
-import { errorMessage, isApiError } from '../../../lib/api-client';
+import { errorMessage, isApiError, sendWithConfirmation } from '../../../lib/api-client';
 import { todayIsoDate } from '../../../lib/dates';
 import { parseDecimal } from '../../../lib/numbers';
 import { paths } from '../../../config/paths';
@@ -95,6 +96,7 @@ function RecordForm({
 }) {
   const navigate = useNavigate();
   const record = useRecordRun(run.id);
+  const confirmation = useConfirmation();
   const locations = useLocations();
   const product = procedure.lines.find((line) => line.role === 'product');
   const productUnit = product?.chemical.stockUnit ?? 'g';
@@ -172,7 +174,12 @@ function RecordForm({
     }
     setProblems([]);
     try {
-      await record.mutateAsync(body);
+      // A draw into another plan's hold is asked about first; going back records nothing.
+      const recorded = await sendWithConfirmation(
+        (confirm) => record.mutateAsync(confirm ? { ...body, confirm } : body),
+        confirmation.ask,
+      );
+      if (!recorded) return record.reset();
       navigate(`${paths.run(run.id)}?recorded=1`);
     } catch (error) {
       if (isApiError(error)) {
@@ -548,6 +555,7 @@ function RecordForm({
       >
         Record the run
       </Button>
+      {confirmation.dialog}
     </form>
   );
 }

@@ -9,11 +9,12 @@ import {
   type ContainerDetail,
 } from '@lotwise/shared';
 import { Button } from '../../../components/ui/button';
+import { useConfirmation } from '../../../components/ui/confirmation-dialog';
 import { ConfirmDialog, Dialog } from '../../../components/ui/dialog';
 import { Field, fieldMessage } from '../../../components/ui/field';
 import { Input, Select } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
-import { errorMessage, isApiError } from '../../../lib/api-client';
+import { errorMessage, isApiError, sendWithConfirmation } from '../../../lib/api-client';
 import { formatAmount } from '../../../lib/format';
 import { parseDecimal } from '../../../lib/numbers';
 import { paths } from '../../../config/paths';
@@ -40,6 +41,32 @@ function issuesOf(issues: { path: PropertyKey[]; message: string }[]): Errors {
 function serverErrors(error: unknown): { errors: Errors; message: string } {
   if (!isApiError(error)) return { errors: {}, message: errorMessage(error) };
   return { errors: error.fields, message: error.message };
+}
+
+/**
+ * Sends a write that may break a storage rule: the server's warnings are shown in the
+ * confirmation dialog first, and the write is sent again with `confirm: true` if the person
+ * goes ahead. Going back saves nothing and clears the error.
+ */
+function useConfirmedWrite<TBody extends object>(mutation: {
+  mutateAsync: (body: TBody & { confirm?: boolean }) => Promise<ContainerChange>;
+  reset: () => void;
+}) {
+  const confirmation = useConfirmation();
+  function send(
+    body: TBody,
+    onSaved: (change: ContainerChange) => void,
+    onErrors: (errors: Errors) => void,
+  ) {
+    sendWithConfirmation(
+      (confirm) => mutation.mutateAsync(confirm ? { ...body, confirm } : body),
+      confirmation.ask,
+    ).then(
+      (change) => (change ? onSaved(change) : mutation.reset()),
+      (error: unknown) => onErrors(serverErrors(error).errors),
+    );
+  }
+  return { send, dialog: confirmation.dialog };
 }
 
 function number(text: string): number | undefined {
@@ -173,6 +200,7 @@ function AdjustDialog({ container, onClose }: { container: ContainerDetail; onCl
 
 function SplitDialog({ container, onClose }: { container: ContainerDetail; onClose: () => void }) {
   const split = useSplitContainer(container.id);
+  const write = useConfirmedWrite(split);
   const [quantity, setQuantity] = useState('');
   const [unit, setUnit] = useState<string>(container.unit);
   const [locationId, setLocationId] = useState<number | undefined>(container.location.id);
@@ -193,84 +221,84 @@ function SplitDialog({ container, onClose }: { container: ContainerDetail; onClo
     const checked = splitSchema.safeParse(body);
     if (!checked.success) return setErrors(issuesOf(checked.error.issues));
     setErrors({});
-    split.mutate(body, {
-      onSuccess: setResult,
-      onError: (error) => setErrors(serverErrors(error).errors),
-    });
+    write.send(body, setResult, setErrors);
   }
 
   return (
-    <ActionDialog
-      open
-      title={`Split ${container.labelCode}`}
-      description="Pour part of this container into a new labelled one, e.g. a working bottle. Both sides are written to the ledger."
-      onClose={onClose}
-      onSubmit={handleSubmit}
-      submitLabel="Split into new container"
-      busy={split.isPending}
-      done={result !== null}
-    >
-      {result?.newContainer ? (
-        <div className="flex flex-col gap-3">
-          <Notice tone="ok" title={`New container ${result.newContainer.labelCode}`}>
-            It holds {formatAmount(result.newContainer.quantity, result.newContainer.unit)} at{' '}
-            {result.newContainer.location.path}. Label it with{' '}
-            <strong className="font-mono">{result.newContainer.labelCode}</strong>.{' '}
-            <Link
-              to={paths.stockContainer(result.newContainer.id)}
-              className="text-accent-700 underline underline-offset-2"
-              onClick={onClose}
-            >
-              Open it
-            </Link>
-          </Notice>
-          <SegregationWarnings warnings={result.warnings} />
-        </div>
-      ) : (
-        <>
-          {split.isError && (
-            <Notice tone="danger" title="Not split">
-              {errorMessage(split.error)}
+    <>
+      <ActionDialog
+        open
+        title={`Split ${container.labelCode}`}
+        description="Pour part of this container into a new labelled one, e.g. a working bottle. Both sides are written to the ledger."
+        onClose={onClose}
+        onSubmit={handleSubmit}
+        submitLabel="Split into new container"
+        busy={split.isPending}
+        done={result !== null}
+      >
+        {result?.newContainer ? (
+          <div className="flex flex-col gap-3">
+            <Notice tone="ok" title={`New container ${result.newContainer.labelCode}`}>
+              It holds {formatAmount(result.newContainer.quantity, result.newContainer.unit)} at{' '}
+              {result.newContainer.location.path}. Label it with{' '}
+              <strong className="font-mono">{result.newContainer.labelCode}</strong>.{' '}
+              <Link
+                to={paths.stockContainer(result.newContainer.id)}
+                className="text-accent-700 underline underline-offset-2"
+                onClick={onClose}
+              >
+                Open it
+              </Link>
             </Notice>
-          )}
-          <AmountWithUnit
-            label="Amount to pour off"
-            error={fieldMessage('Amount', errors.quantity)}
-            hint={`At most ${formatAmount(container.quantity, container.unit)}`}
-            unitError={fieldMessage('Unit', errors.unit)}
-            value={quantity}
-            onValueChange={setQuantity}
-            unit={unit}
-            onUnitChange={setUnit}
-            units={drawUnits(container.chemical)}
-          />
-          <Field
-            label="Where the new container goes"
-            error={fieldMessage('Location', errors.locationId)}
-          >
-            {(c) => <LocationSelect {...c} value={locationId} onChange={setLocationId} />}
-          </Field>
-          <Field
-            label="Tare of the new container (g)"
-            optional
-            error={fieldMessage('Tare', errors.tareMass)}
-            hint="Empty with cap; lets people record draws by weighing."
-          >
-            {(c) => (
-              <Input
-                {...c}
-                inputMode="decimal"
-                value={tare}
-                onChange={(e) => setTare(e.target.value)}
-              />
+            <SegregationWarnings warnings={result.warnings} />
+          </div>
+        ) : (
+          <>
+            {split.isError && (
+              <Notice tone="danger" title="Not split">
+                {errorMessage(split.error)}
+              </Notice>
             )}
-          </Field>
-          <Field label="Note" optional error={fieldMessage('Note', errors.note)}>
-            {(c) => <Input {...c} value={note} onChange={(e) => setNote(e.target.value)} />}
-          </Field>
-        </>
-      )}
-    </ActionDialog>
+            <AmountWithUnit
+              label="Amount to pour off"
+              error={fieldMessage('Amount', errors.quantity)}
+              hint={`At most ${formatAmount(container.quantity, container.unit)}`}
+              unitError={fieldMessage('Unit', errors.unit)}
+              value={quantity}
+              onValueChange={setQuantity}
+              unit={unit}
+              onUnitChange={setUnit}
+              units={drawUnits(container.chemical)}
+            />
+            <Field
+              label="Where the new container goes"
+              error={fieldMessage('Location', errors.locationId)}
+            >
+              {(c) => <LocationSelect {...c} value={locationId} onChange={setLocationId} />}
+            </Field>
+            <Field
+              label="Tare of the new container (g)"
+              optional
+              error={fieldMessage('Tare', errors.tareMass)}
+              hint="Empty with cap; lets people record draws by weighing."
+            >
+              {(c) => (
+                <Input
+                  {...c}
+                  inputMode="decimal"
+                  value={tare}
+                  onChange={(e) => setTare(e.target.value)}
+                />
+              )}
+            </Field>
+            <Field label="Note" optional error={fieldMessage('Note', errors.note)}>
+              {(c) => <Input {...c} value={note} onChange={(e) => setNote(e.target.value)} />}
+            </Field>
+          </>
+        )}
+      </ActionDialog>
+      {write.dialog}
+    </>
   );
 }
 
@@ -282,6 +310,7 @@ function TransferDialog({
   onClose: () => void;
 }) {
   const transfer = useTransferContainer(container.id);
+  const write = useConfirmedWrite(transfer);
   const [locationId, setLocationId] = useState<number | undefined>();
   const [note, setNote] = useState('');
   const [errors, setErrors] = useState<Errors>({});
@@ -292,60 +321,60 @@ function TransferDialog({
     const checked = transferSchema.safeParse(body);
     if (!checked.success) return setErrors(issuesOf(checked.error.issues));
     setErrors({});
-    transfer.mutate(body, {
-      onSuccess: setResult,
-      onError: (error) => setErrors(serverErrors(error).errors),
-    });
+    write.send(body, setResult, setErrors);
   }
 
   return (
-    <ActionDialog
-      open
-      title={`Move ${container.labelCode}`}
-      description={`Now at ${container.location.path}.`}
-      onClose={onClose}
-      onSubmit={handleSubmit}
-      submitLabel="Move container"
-      busy={transfer.isPending}
-      done={result !== null}
-    >
-      {result ? (
-        <div className="flex flex-col gap-3">
-          <Notice tone="ok" title="Moved">
-            {result.container.labelCode} is now at {result.container.location.path}.
-          </Notice>
-          {result.warnings.length > 0 ? (
-            <SegregationWarnings warnings={result.warnings} title="Check the storage there" />
-          ) : (
-            <p className="text-sm text-ink-700">
-              Lotwise found no storage rule broken at the new place. That is not a safety approval:
-              the SDS and your local rules decide.
-            </p>
-          )}
-        </div>
-      ) : (
-        <>
-          {transfer.isError && (
-            <Notice tone="danger" title="Not moved">
-              {errorMessage(transfer.error)}
+    <>
+      <ActionDialog
+        open
+        title={`Move ${container.labelCode}`}
+        description={`Now at ${container.location.path}.`}
+        onClose={onClose}
+        onSubmit={handleSubmit}
+        submitLabel="Move container"
+        busy={transfer.isPending}
+        done={result !== null}
+      >
+        {result ? (
+          <div className="flex flex-col gap-3">
+            <Notice tone="ok" title="Moved">
+              {result.container.labelCode} is now at {result.container.location.path}.
             </Notice>
-          )}
-          <Field label="Move to" error={fieldMessage('Location', errors.locationId)}>
-            {(c) => (
-              <LocationSelect
-                {...c}
-                value={locationId}
-                onChange={setLocationId}
-                exclude={new Set([container.location.id])}
-              />
+            {result.warnings.length > 0 ? (
+              <SegregationWarnings warnings={result.warnings} title="Check the storage there" />
+            ) : (
+              <p className="text-sm text-ink-700">
+                Lotwise found no storage rule broken at the new place. That is not a safety
+                approval: the SDS and your local rules decide.
+              </p>
             )}
-          </Field>
-          <Field label="Note" optional error={fieldMessage('Note', errors.note)}>
-            {(c) => <Input {...c} value={note} onChange={(e) => setNote(e.target.value)} />}
-          </Field>
-        </>
-      )}
-    </ActionDialog>
+          </div>
+        ) : (
+          <>
+            {transfer.isError && (
+              <Notice tone="danger" title="Not moved">
+                {errorMessage(transfer.error)}
+              </Notice>
+            )}
+            <Field label="Move to" error={fieldMessage('Location', errors.locationId)}>
+              {(c) => (
+                <LocationSelect
+                  {...c}
+                  value={locationId}
+                  onChange={setLocationId}
+                  exclude={new Set([container.location.id])}
+                />
+              )}
+            </Field>
+            <Field label="Note" optional error={fieldMessage('Note', errors.note)}>
+              {(c) => <Input {...c} value={note} onChange={(e) => setNote(e.target.value)} />}
+            </Field>
+          </>
+        )}
+      </ActionDialog>
+      {write.dialog}
+    </>
   );
 }
 

@@ -2,11 +2,13 @@ import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { Calculator, CircleCheck, Scale } from 'lucide-react';
 import { drawSchema, type ContainerDetail, type Draw } from '@lotwise/shared';
+import { ContainerHolds, freeOf } from '../../../components/holds/container-holds';
 import { Button } from '../../../components/ui/button';
+import { useConfirmation } from '../../../components/ui/confirmation-dialog';
 import { Field, fieldMessage } from '../../../components/ui/field';
 import { Input, Select } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
-import { isApiError } from '../../../lib/api-client';
+import { isApiError, sendWithConfirmation } from '../../../lib/api-client';
 import { cn } from '../../../lib/cn';
 import { formatAmount } from '../../../lib/format';
 import { parseDecimal } from '../../../lib/numbers';
@@ -33,6 +35,7 @@ const modeLabels: Record<Mode, string> = {
  */
 export function DrawForm({ container }: { container: ContainerDetail }) {
   const draw = useRecordDraw(container.id);
+  const confirmation = useConfirmation();
   const [mode, setMode] = useState<Mode>(container.tareMass !== null ? 'gross' : 'amount');
   const [done, setDone] = useState<string | null>(null);
   const units = drawUnits(container.chemical);
@@ -99,7 +102,15 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
       return;
     }
     try {
-      const change = await draw.mutateAsync(body);
+      const change = await sendWithConfirmation(
+        (confirm) => draw.mutateAsync(confirm ? { ...body, confirm } : body),
+        confirmation.ask,
+      );
+      if (!change) {
+        draw.reset();
+        setError('root.server', { message: 'You went back: nothing was drawn from the hold.' });
+        return;
+      }
       const drawn = change.entries.find((entry) => entry.reason === 'drawn');
       setDone(
         `Drawn ${formatAmount(Math.abs(drawn?.quantity ?? 0), change.container.unit)} from ${change.container.labelCode}. Balance now ${formatAmount(change.container.quantity, change.container.unit)}.`,
@@ -244,8 +255,11 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
       {mode === 'amount' && (
         <p className="text-sm text-ink-600 tabular-nums">
           Available: {formatAmount(container.quantity, container.unit)}
+          {container.holds.length > 0 &&
+            `, of which ${formatAmount(freeOf(container), container.unit)} is not held for a plan`}
         </p>
       )}
+      <ContainerHolds container={container} compact />
 
       <Field label="Note" optional error={errors.note?.message} hint="e.g. what it was for">
         {(c) => <Input {...c} autoComplete="off" {...register('note')} />}
@@ -261,6 +275,7 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
           Record draw
         </Button>
       </div>
+      {confirmation.dialog}
     </form>
   );
 }

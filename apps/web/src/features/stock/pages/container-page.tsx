@@ -3,6 +3,7 @@ import { Link, Navigate, useParams } from 'react-router';
 import { ChevronLeft, Lock, Printer } from 'lucide-react';
 import type { ContainerDetail } from '@lotwise/shared';
 import { Formula } from '../../../components/chem/formula';
+import { freeOf, HoldList } from '../../../components/holds/container-holds';
 import { buttonClasses } from '../../../components/ui/button';
 import { ErrorState } from '../../../components/ui/error-state';
 import { Notice } from '../../../components/ui/notice';
@@ -93,6 +94,18 @@ function ContainerView({ container: c }: { container: ContainerDetail }) {
           <dl>
             <Property term="Balance">
               <span className="font-semibold tabular-nums">{formatAmount(c.quantity, c.unit)}</span>
+            </Property>
+            <Property term="Held for plans">
+              {c.holds.length === 0 ? (
+                'Nothing held: free to draw'
+              ) : (
+                <>
+                  <HoldList holds={c.holds} />
+                  <span className="mt-0.5 block text-xs text-ink-600 tabular-nums">
+                    Free: {formatAmount(freeOf(c), c.unit)}. Drawing into a hold asks first.
+                  </span>
+                </>
+              )}
             </Property>
             <Property term="Status">
               <ContainerStatusBadge status={c.status} />

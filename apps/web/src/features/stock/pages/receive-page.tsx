@@ -16,10 +16,17 @@ import {
 } from '@lotwise/shared';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { Button, buttonClasses } from '../../../components/ui/button';
+import { useConfirmation } from '../../../components/ui/confirmation-dialog';
 import { Field, fieldMessage } from '../../../components/ui/field';
 import { Input, Select } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
-import { api, errorMessage, isApiError, withQuery } from '../../../lib/api-client';
+import {
+  api,
+  errorMessage,
+  isApiError,
+  sendWithConfirmation,
+  withQuery,
+} from '../../../lib/api-client';
 import { formatAmount, formatDate, formatPercent } from '../../../lib/format';
 import { parseDecimal } from '../../../lib/numbers';
 import { paths } from '../../../config/paths';
@@ -208,6 +215,7 @@ export function ReceivePage() {
   const [received, setReceived] = useState<Received | null>(null);
   const [partial, setPartial] = useState<{ done: ContainerChange[]; message: string } | null>(null);
   const queryClient = useQueryClient();
+  const confirmation = useConfirmation();
   const lots = useChemicalLots(chemical?.id);
   const defaultUnit = chemical?.stockUnit ?? 'g';
 
@@ -234,8 +242,29 @@ export function ReceivePage() {
     mutationFn: async ({ lot, bodies }: { lot: LotCreate | Lot; bodies: ContainerRow[] }) => {
       const saved = 'id' in lot ? lot : await createLot(lot);
       const done: ContainerChange[] = [];
+      // A place confirmed once is not asked about again for the next lines of this delivery.
+      const confirmedPlaces = new Set<string>();
       try {
-        for (const row of bodies) done.push(await createContainer(containerBody(saved.id, row)));
+        for (const row of bodies) {
+          const body = containerBody(saved.id, row);
+          const change = await sendWithConfirmation(
+            (confirm) =>
+              createContainer(
+                confirm || confirmedPlaces.has(row.locationId) ? { ...body, confirm: true } : body,
+              ),
+            async (warnings, message) => {
+              const yes = await confirmation.ask(warnings, message);
+              if (yes) confirmedPlaces.add(row.locationId);
+              return yes;
+            },
+          );
+          if (!change) {
+            throw new Error(
+              'You went back at a storage warning: that container and the ones after it were not received.',
+            );
+          }
+          done.push(change);
+        }
       } catch (error) {
         throw Object.assign(new Error(errorMessage(error)), { lot: saved, done, cause: error });
       }
@@ -652,6 +681,7 @@ export function ReceivePage() {
           )}
         </div>
       </form>
+      {confirmation.dialog}
     </div>
   );
 }
