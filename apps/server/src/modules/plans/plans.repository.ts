@@ -77,7 +77,7 @@ export function plansRepository(manager: EntityManager) {
       .addSelect('r.created_by_id', 'createdById')
       .addSelect('r.created_at', 'createdAt')
       .addSelect('c.label_code', 'labelCode')
-      .addSelect('c.quantity', 'containerQuantity')
+      .addSelect('c.quantity_micro', 'containerQuantity')
       .addSelect('c.chemical_id', 'chemicalId')
       .addSelect('ch.name', 'chemicalName')
       .addSelect('loc.path', 'locationPath')
@@ -196,7 +196,7 @@ export function plansRepository(manager: EntityManager) {
         .select('r.id', 'id')
         .addSelect('r.plan_id', 'planId')
         .addSelect('r.container_id', 'containerId')
-        .addSelect('r.quantity', 'quantity')
+        .addSelect('r.quantity_micro', 'quantity')
         .addSelect('r.unit', 'unit')
         .addSelect('r.until', 'until')
         .addSelect('p.planned_on', 'plannedOn')
@@ -212,7 +212,7 @@ export function plansRepository(manager: EntityManager) {
         id: Number(raw.id),
         planId: Number(raw.planId),
         containerId: Number(raw.containerId),
-        quantity: Number(raw.quantity),
+        quantity: fromMicro(raw.quantity),
         unit: raw.unit as StockUnit,
         until: String(raw.until),
         plannedOn: String(raw.plannedOn),
