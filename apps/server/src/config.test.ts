@@ -171,7 +171,7 @@ describe('the development mail inbox', () => {
   it('when NODE_ENV is production (or test), then the dev inbox is off and e-mails wait in the outbox', () => {
     const { env } = tempEnv();
     for (const nodeEnv of ['production', 'test']) {
-      const config = loadConfig({ ...env, NODE_ENV: nodeEnv, DEV_MAIL: 'true' });
+      const config = loadConfig({ ...env, NODE_ENV: nodeEnv, DEV_MAIL: 'true', DATABASE_INIT: 'true' });
       expect(config.mail.smtp).toEqual({ kind: 'none' });
       expect(config.env).toBe(nodeEnv);
     }

@@ -25,7 +25,13 @@ describe('exact quantities migration', () => {
     await dataSource.initialize();
     try {
       await dataSource.runMigrations({ transaction: 'all' });
-      await dataSource.undoLastMigration({ transaction: 'all' });
+      // Back to the schema just before the exact-quantities migration, whatever came after it.
+      const later = dataSource.migrations.length - dataSource.migrations.findIndex(
+        (migration) => migration.name === 'ExactQuantities1796600000000',
+      );
+      for (let undo = 0; undo < later; undo += 1) {
+        await dataSource.undoLastMigration({ transaction: 'all' });
+      }
       // The data of an older database, written straight in, foreign keys enforced.
       const stamps = [now, now];
       await dataSource.query(
@@ -98,7 +104,9 @@ describe('exact quantities migration', () => {
 
       // As `migration:run` does: foreign keys off while the tables are rebuilt.
       await dataSource.query('PRAGMA foreign_keys = OFF');
-      await dataSource.undoLastMigration({ transaction: 'all' });
+      for (let undo = 0; undo < later; undo += 1) {
+        await dataSource.undoLastMigration({ transaction: 'all' });
+      }
       await dataSource.query('PRAGMA foreign_keys = ON');
       const back: { quantity: number; balance_after: number }[] = await dataSource.query(
         'SELECT quantity, balance_after FROM ledger_entries ORDER BY id',
