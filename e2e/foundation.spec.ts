@@ -15,6 +15,32 @@ test.describe('sign-in and roles', () => {
     await expect(page).toHaveURL(/sign-in/);
   });
 
+  test('when a person changes their password, then their other browser is signed out and this one stays', async ({
+    page,
+    browser,
+  }) => {
+    // member.three is used by no other spec, so its new password disturbs nothing.
+    const email = 'member.three@example.test';
+    const other = await browser.newContext();
+    const otherPage = await other.newPage();
+    await signIn(otherPage, email);
+    await signIn(page, email);
+
+    await page.getByRole('link', { name: /your account/i }).click();
+    await expect(page.getByRole('heading', { name: 'Your password' })).toBeVisible();
+    await page.getByLabel('Current password').fill(demo.password);
+    await page.getByLabel('New password', { exact: true }).fill('a-new-bench-password');
+    await page.getByLabel('New password again').fill('a-new-bench-password');
+    await page.getByRole('button', { name: 'Save new password' }).click();
+    await expect(page.getByText('Your new password is saved')).toBeVisible();
+
+    await page.goto('/chemicals');
+    await expect(page.getByRole('navigation', { name: /main/i })).toBeVisible();
+    await otherPage.goto('/chemicals');
+    await expect(otherPage).toHaveURL(/sign-in/);
+    await other.close();
+  });
+
   test('when a viewer signs in, then there is no admin and no way to edit', async ({ page }) => {
     await signIn(page, demo.viewer);
     const nav = page.getByRole('navigation', { name: 'Main' });

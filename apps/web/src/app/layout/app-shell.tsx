@@ -36,6 +36,7 @@ export function AppShell({ user }: { user: User }) {
             title="Your account: change your password"
             className="hidden rounded text-right hover:underline sm:block"
           >
+            <span className="sr-only">Your account: </span>
             <span className="block leading-5 font-medium text-ink-900">{user.displayName}</span>
             <span className="block text-xs leading-4 text-ink-600">{user.email}</span>
           </Link>
