@@ -26,6 +26,7 @@ import { Stock1796250000000 } from './migrations/1796250000000-stock';
 import { Preparations1796500000000 } from './migrations/1796500000000-preparations';
 import { ImportsAndFiles1796340000000 } from './migrations/1796340000000-imports-and-files';
 import { Alerts1796420000000 } from './migrations/1796420000000-alerts';
+import { OutboxLeases1796660000000 } from './migrations/1796660000000-outbox-leases';
 
 export const entities = [
   UserEntity,
@@ -55,6 +56,7 @@ export const migrations = [
   ImportsAndFiles1796340000000,
   Alerts1796420000000,
   Preparations1796500000000,
+  OutboxLeases1796660000000,
 ];
 
 /** The database file and the WAL and shared-memory files SQLite keeps beside it. */
