@@ -28,6 +28,7 @@ import { ImportsAndFiles1796340000000 } from './migrations/1796340000000-imports
 import { Alerts1796420000000 } from './migrations/1796420000000-alerts';
 import { ExactQuantities1796600000000 } from './migrations/1796600000000-exact-quantities';
 import { SessionVersion1796650000000 } from './migrations/1796650000000-session-version';
+import { OutboxLeases1796660000000 } from './migrations/1796660000000-outbox-leases';
 
 export const entities = [
   UserEntity,
@@ -59,6 +60,7 @@ export const migrations = [
   Preparations1796500000000,
   ExactQuantities1796600000000,
   SessionVersion1796650000000,
+  OutboxLeases1796660000000,
 ];
 
 /** The database file and the WAL and shared-memory files SQLite keeps beside it. */

@@ -133,20 +133,73 @@ export function alertsRepository(manager: EntityManager) {
       return Boolean(row);
     },
     /**
-     * Messages the worker should send now: queued and due, or left `sending` by a process
-     * that stopped before it finished (older than `staleBefore`).
+     * Claims up to `limit` messages that are due for the sender `claimId`, until
+     * `leaseUntil`: queued and due, or `sending` under a lease that ran out (its sender
+     * stopped). The UPDATE repeats the due condition, so a message another sender claimed in
+     * the meantime is not taken twice. Answers the claimed rows, oldest first.
      */
-    async dueMessages(now: string, staleBefore: string, limit: number): Promise<OutboxRow[]> {
-      const rows = await outbox
+    async claimDue(
+      claimId: string,
+      now: string,
+      leaseUntil: string,
+      limit: number,
+    ): Promise<OutboxRow[]> {
+      const due =
+        "((status = 'queued' AND next_attempt_at <= :now) OR (status = 'sending' AND (lease_until IS NULL OR lease_until <= :now)))";
+      const candidates: { id: number }[] = await outbox
         .createQueryBuilder('o')
-        .where(
-          "(o.status = 'queued' AND o.nextAttemptAt <= :now) OR (o.status = 'sending' AND o.updatedAt < :staleBefore)",
-          { now, staleBefore },
-        )
+        .select('o.id', 'id')
+        .where(due.replace(/\b(status|next_attempt_at|lease_until)\b/g, 'o.$1'), { now })
         .orderBy('o.id', 'ASC')
         .limit(limit)
-        .getMany();
+        .getRawMany();
+      if (candidates.length === 0) return [];
+      await outbox
+        .createQueryBuilder()
+        .update()
+        .set({ status: 'sending', claimedBy: claimId, leaseUntil, updatedAt: now })
+        .where('id IN (:...ids)', { ids: candidates.map((c) => Number(c.id)) })
+        .andWhere(due, { now })
+        .execute();
+      const rows = await outbox.find({
+        where: { claimedBy: claimId, status: 'sending' },
+        order: { id: 'ASC' },
+      });
       return rows.map((row) => ({ ...row }));
+    },
+    /**
+     * Extends the lease of messages `claimId` still holds; answers how many it holds (fewer
+     * than `ids` when another sender took some over after the lease ran out).
+     */
+    async renewClaim(ids: number[], claimId: string, leaseUntil: string): Promise<number> {
+      if (ids.length === 0) return 0;
+      const result = await outbox
+        .createQueryBuilder()
+        .update()
+        .set({ leaseUntil })
+        .where("id IN (:...ids) AND claimed_by = :claimId AND status = 'sending'", {
+          ids,
+          claimId,
+        })
+        .execute();
+      return result.affected ?? 0;
+    },
+    /**
+     * Records the outcome of a send and lets go of the claim, only if `claimId` still holds
+     * the message; answers false when it does not (the outcome is then not written).
+     */
+    async finishClaim(
+      id: number,
+      claimId: string,
+      changes: Partial<OutboxValues>,
+    ): Promise<boolean> {
+      const result = await outbox
+        .createQueryBuilder()
+        .update()
+        .set({ ...changes, claimedBy: null, leaseUntil: null })
+        .where("id = :id AND claimed_by = :claimId AND status = 'sending'", { id, claimId })
+        .execute();
+      return (result.affected ?? 0) > 0;
     },
     async listMessages(query: OutboxListQuery): Promise<{ rows: OutboxListRow[]; total: number }> {
       const qb = manager

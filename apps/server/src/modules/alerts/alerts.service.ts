@@ -239,6 +239,8 @@ export function alertsService(store: Store, config: Config, options: AlertsServi
       lastError: null,
       nextAttemptAt:
         person.delivery === 'digest' ? nextDigestAt(now, settings.digestHour).toISOString() : at,
+      claimedBy: null,
+      leaseUntil: null,
       createdAt: at,
       updatedAt: at,
       sentAt: null,
@@ -460,6 +462,8 @@ export function alertsService(store: Store, config: Config, options: AlertsServi
           status: 'queued',
           attempts: 0,
           nextAttemptAt: now.toISOString(),
+          claimedBy: null,
+          leaseUntil: null,
           updatedAt: now.toISOString(),
         });
       });

@@ -25,6 +25,10 @@ export interface OutboxRow {
   lastError: string | null;
   /** When the worker picks it up next; null once sent or failed. */
   nextAttemptAt: string | null;
+  /** The claim of the sender that took it (`sending`); null when no sender holds it. */
+  claimedBy: string | null;
+  /** Until when that claim holds; after it, another sender may take the message again. */
+  leaseUntil: string | null;
   createdAt: string;
   updatedAt: string;
   sentAt: string | null;
@@ -50,6 +54,8 @@ export const OutboxMessageEntity = new EntitySchema<OutboxRow>({
     attempts: { type: 'integer' },
     lastError: { name: 'last_error', type: 'text', nullable: true },
     nextAttemptAt: { name: 'next_attempt_at', type: 'varchar', length: 24, nullable: true },
+    claimedBy: { name: 'claimed_by', type: 'varchar', length: 64, nullable: true },
+    leaseUntil: { name: 'lease_until', type: 'varchar', length: 24, nullable: true },
     createdAt: { name: 'created_at', type: 'varchar', length: 24 },
     updatedAt: { name: 'updated_at', type: 'varchar', length: 24 },
     sentAt: { name: 'sent_at', type: 'varchar', length: 24, nullable: true },
@@ -67,5 +73,6 @@ export const OutboxMessageEntity = new EntitySchema<OutboxRow>({
     { name: 'outbox_status_next_idx', columns: ['status', 'nextAttemptAt'] },
     { name: 'outbox_dedup_idx', columns: ['recipientEmail', 'dedupKey', 'createdAt'] },
     { name: 'outbox_created_at_idx', columns: ['createdAt'] },
+    { name: 'outbox_status_lease_idx', columns: ['status', 'leaseUntil'] },
   ],
 });

@@ -1,6 +1,6 @@
 import { safetyDeferral } from '@lotwise/shared';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { signedIn, stockFactory } from '../../test/factories';
 import { testConfig, testContext } from '../../test/harness';
 import { startSmtpSink, type SmtpSink } from '../../test/smtp-sink';
@@ -51,7 +51,17 @@ async function row(id: number) {
     last_error: string | null;
     next_attempt_at: string | null;
     sent_at: string | null;
+    claimed_by: string | null;
+    lease_until: string | null;
   };
+}
+
+/** The failure notices written about outbox message `id`. */
+async function notices(id: number) {
+  return (await testContext().dataSource.query(
+    'SELECT recipient_email, kind, status FROM outbox WHERE dedup_key = ? ORDER BY id',
+    [`outbox-failed:${id}`],
+  )) as { recipient_email: string; kind: string; status: string }[];
 }
 
 /** Queues one message to `person` through the general message API, as an order would. */
@@ -145,15 +155,31 @@ describe('outbox worker', () => {
     await back.close();
   });
 
-  it('when every attempt fails, then it is marked failed with its error, and an admin resend delivers it', async () => {
+  it('when every attempt fails, then the last one tells the admins as it marks it failed, and an admin resend delivers it', async () => {
     const start = new Date();
-    const id = await notifyOne(admin, start, 'Order #9 was cancelled');
+    const id = await notifyOne(manager, start, 'Order #9 was cancelled');
     const { worker, advance, close } = workerAt(start, { OUTBOX_MAX_ATTEMPTS: '2' });
     sink.refuseNext(2);
     await worker.runOnce();
+    expect(await notices(id)).toEqual([]); // not yet: one attempt is left
     advance(31);
     expect(await worker.runOnce()).toMatchObject({ failed: 1 });
     expect(await row(id)).toMatchObject({ status: 'failed', attempts: 2, next_attempt_at: null });
+    // Written in the same transaction that marked it failed: one notice per admin.
+    const queuedNotices = await notices(id);
+    expect(queuedNotices.map((n) => n.recipient_email)).toEqual([admin.email]);
+    expect(queuedNotices[0]).toMatchObject({ status: 'queued', kind: 'outbox-failed' });
+
+    const before = sink.messages.length;
+    advance(1);
+    expect(await worker.runOnce()).toMatchObject({ sent: 1, failed: 0 });
+    const notice = sink.messages.at(-1)!;
+    expect(sink.messages).toHaveLength(before + 1);
+    expect(notice.subject).toBe('E-mail not delivered: “Order #9 was cancelled”');
+    expect(notice.to && 'text' in notice.to ? notice.to.text : '').toContain(admin.email);
+    expect(notice.text).toContain(`To: ${manager.email}`);
+    expect(notice.text).toMatch(/Last error: .*451/);
+    expect(notice.text).toContain('http://lotwise.example.test/admin/outbox');
     advance(100_000);
     expect(await worker.runOnce()).toMatchObject({ sent: 0, failed: 0 });
 
@@ -165,6 +191,84 @@ describe('outbox worker', () => {
     expect(await worker.runOnce()).toMatchObject({ sent: 1 });
     expect(await row(id)).toMatchObject({ status: 'sent' });
     close();
+  });
+
+  it('when a sender stops after claiming a message, then another takes it once the lease runs out and it is sent once', async () => {
+    const start = new Date('2026-03-04T09:00:00.000Z');
+    const id = await notifyOne(admin, start, 'Order #12 is open');
+    // The first sender claims it and never finishes (the process stopped mid-send).
+    let now = start;
+    const stuck = outboxWorker({
+      store: testContext().store,
+      transport: { sendMail: () => new Promise(() => {}) },
+      config: testContext().config,
+      clock: () => now,
+    });
+    void stuck.runOnce();
+    await vi.waitFor(async () => expect((await row(id)).status).toBe('sending'));
+    const claim = await row(id);
+    expect(claim.claimed_by).toMatch(/^\d+:[0-9a-f-]{36}$/);
+    expect(claim.lease_until).toBe(new Date(start.getTime() + 45_000).toISOString());
+
+    const before = sink.messages.length;
+    const { worker, advance, close } = workerAt(new Date(start.getTime() + 30_000));
+    expect(await worker.runOnce()).toMatchObject({ claimed: 0 }); // the lease still holds
+    advance(16); // 46 s after the claim: within a minute
+    expect(await worker.runOnce()).toMatchObject({ claimed: 1, sent: 1 });
+    advance(60);
+    expect(await worker.runOnce()).toMatchObject({ claimed: 0, sent: 0 });
+    const delivered = sink.messages.slice(before).filter((m) => m.subject === 'Order #12 is open');
+    expect(delivered).toHaveLength(1);
+    expect(await row(id)).toMatchObject({ status: 'sent', claimed_by: null, lease_until: null });
+    now = new Date(start.getTime() + 10 * 60_000);
+    close();
+  });
+
+  it('when two senders run at the same time, then each message is claimed by one of them and sent once', async () => {
+    const start = new Date('2026-03-06T09:00:00.000Z');
+    const subjects = Array.from({ length: 6 }, (_, i) => `Order #${20 + i} is funded`);
+    for (const subject of subjects) await notifyOne(admin, start, subject);
+    const before = sink.messages.length;
+    const first = workerAt(start);
+    const second = workerAt(start);
+    const results = await Promise.all([first.worker.runOnce(), second.worker.runOnce()]);
+    expect(results[0]!.claimed + results[1]!.claimed).toBe(6);
+    expect(results[0]!.sent + results[1]!.sent).toBe(6);
+    const delivered = sink.messages.slice(before).map((m) => m.subject);
+    expect(delivered.sort()).toEqual([...subjects].sort());
+    first.close();
+    second.close();
+  });
+
+  it('when a slow sender lost its lease before it got to a message, then it neither sends nor records that one', async () => {
+    const start = new Date('2026-03-07T09:00:00.000Z');
+    const first = await notifyOne(admin, start, 'Order #30 is ready');
+    const second = await notifyOne(admin, start, 'Order #31 is ready');
+    const { dataSource, store, config } = testContext();
+    const sent: string[] = [];
+    const worker = outboxWorker({
+      store,
+      config,
+      clock: () => start,
+      transport: {
+        async sendMail(mail) {
+          sent.push(mail.subject);
+          // Meanwhile this sender's lease on the second ran out and another sender took it.
+          await dataSource.query(
+            "UPDATE outbox SET claimed_by = 'other:claim', lease_until = ? WHERE id = ?",
+            [new Date(start.getTime() + 90_000).toISOString(), second],
+          );
+        },
+      },
+    });
+    expect(await worker.runOnce()).toMatchObject({ claimed: 2, sent: 1, lost: 1 });
+    expect(sent).toEqual(['Order #30 is ready']);
+    expect(await row(first)).toMatchObject({ status: 'sent', claimed_by: null });
+    expect(await row(second)).toMatchObject({ status: 'sending', claimed_by: 'other:claim' });
+    await dataSource.query(
+      "UPDATE outbox SET status = 'sent', claimed_by = NULL, lease_until = NULL WHERE id = ?",
+      [second],
+    );
   });
 
   it('when someone chose the daily digest, then their messages wait for the digest hour and go out as one e-mail', async () => {

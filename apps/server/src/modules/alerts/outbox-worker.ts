@@ -1,8 +1,16 @@
+import { randomUUID } from 'node:crypto';
 import { alertKinds, type AlertKind } from '@lotwise/shared';
 import type { Config } from '../../config';
-import type { Store } from '../../db/store';
+import type { Repositories, Store } from '../../db/store';
 import { createLogger, type Logger } from '../../lib/logger';
-import { digestContent, footer, htmlDocument, kindLabel, type FooterLinks } from './messages';
+import {
+  digestContent,
+  footer,
+  htmlDocument,
+  kindLabel,
+  textToHtml,
+  type FooterLinks,
+} from './messages';
 import type { OutboxRow } from './outbox-message.entity';
 import { unsubscribeToken } from './unsubscribe-token';
 
@@ -25,8 +33,15 @@ export function retryDelaySeconds(failedAttempts: number): number {
   return retryDelays[Math.min(Math.max(failedAttempts, 1), retryDelays.length) - 1]!;
 }
 
-/** A message left `sending` this long was interrupted (the process stopped) and is sent again. */
-const staleSendingMs = 10 * 60_000;
+/**
+ * How long a sender's claim on a message holds. A sender renews it before each e-mail; when
+ * it stops (crash, restart) the lease runs out and the next run — within the send interval —
+ * takes the message again, so it goes out within about a minute.
+ */
+export const defaultLeaseSeconds = 45;
+
+/** The kind of the notice an admin gets when a message is given up; never itself noticed. */
+export const failedMailKind = 'outbox-failed';
 
 export interface OutboxWorkerOptions {
   store: Store;
@@ -36,6 +51,8 @@ export interface OutboxWorkerOptions {
   /** The time; tests move it forward instead of waiting. */
   clock?: () => Date;
   batchSize?: number;
+  /** How long a claim holds without renewal; see {@link defaultLeaseSeconds}. */
+  leaseSeconds?: number;
 }
 
 export interface OutboxRunResult {
@@ -44,12 +61,46 @@ export interface OutboxRunResult {
   sent: number;
   retrying: number;
   failed: number;
+  /** Claimed but taken over by another sender before this one got to them (not sent here). */
+  lost: number;
+}
+
+const emptyResult = (): OutboxRunResult => ({
+  claimed: 0,
+  sent: 0,
+  retrying: 0,
+  failed: 0,
+  lost: 0,
+});
+
+/**
+ * The notice every admin gets, in the same transaction that marks a message failed: what
+ * was not delivered, to whom, why, and where to resend it.
+ */
+export function failedMailNotice(
+  row: OutboxRow,
+  attempts: number,
+  error: string,
+  publicUrl: string,
+) {
+  const link = `${publicUrl}/admin/outbox`;
+  const subject = `E-mail not delivered: “${row.subject}”`.slice(0, 300);
+  const text = [
+    `Lotwise gave up sending an e-mail after ${attempts} attempt${attempts === 1 ? '' : 's'}.`,
+    `To: ${row.recipientEmail}\nSubject: ${row.subject}\nLast error: ${error}`,
+    'The message stays in the outbox as failed. Fix the cause (the address, or the mail server settings), then resend it from the outbox page. The alert it carried is still shown on the Alerts page.',
+    `Open in Lotwise: ${link}`,
+  ].join('\n\n');
+  return { subject, text, html: textToHtml(subject, text, link), link };
 }
 
 /**
  * Sends what the outbox holds: immediate messages one by one, digest messages of one person
- * together in one e-mail. A failed send keeps its error and is tried again after a growing
- * delay; after `outboxMaxAttempts` it is marked failed (an admin can resend it).
+ * together in one e-mail. Messages are claimed with a lease (`claimed_by`, `lease_until`) in
+ * one UPDATE, so two senders never take the same message and a stopped sender's messages are
+ * taken again once the lease runs out. A failed send keeps its error and is tried again after
+ * a growing delay; the attempt that reaches `outboxMaxAttempts` marks it failed and, in the
+ * same transaction, queues a notice to every admin (an admin can resend it).
  */
 export function outboxWorker({
   store,
@@ -58,7 +109,9 @@ export function outboxWorker({
   logger = createLogger(config.logLevel),
   clock = () => new Date(),
   batchSize = 50,
+  leaseSeconds = defaultLeaseSeconds,
 }: OutboxWorkerOptions) {
+  const leaseFrom = (at: Date) => new Date(at.getTime() + leaseSeconds * 1000).toISOString();
   let timer: NodeJS.Timeout | null = null;
   let running: Promise<OutboxRunResult> | null = null;
   let again = false;
@@ -114,21 +167,46 @@ export function outboxWorker({
     };
   }
 
-  async function runOnce(): Promise<OutboxRunResult> {
-    const result: OutboxRunResult = { claimed: 0, sent: 0, retrying: 0, failed: 0 };
-    const now = clock();
-    const claimed = await store.transaction(async (repos) => {
-      const due = await repos.alerts.dueMessages(
-        now.toISOString(),
-        new Date(now.getTime() - staleSendingMs).toISOString(),
-        batchSize,
-      );
-      await repos.alerts.updateMessages(
-        due.map((r) => r.id),
-        { status: 'sending', updatedAt: now.toISOString() },
-      );
-      return due;
+  /** Queues the failure notice to every active admin, in the caller's transaction. */
+  async function tellAdmins(repos: Repositories, row: OutboxRow, attempts: number, error: string) {
+    if (row.kind === failedMailKind) return; // a notice that fails is not noticed again
+    const notice = failedMailNotice(row, attempts, error, config.publicUrl);
+    const at = clock().toISOString();
+    const admins = (await repos.alerts.recipients()).filter((p) => p.role === 'admin');
+    for (const admin of admins) {
+      await repos.alerts.insertMessage({
+        userId: admin.id,
+        recipientEmail: admin.email,
+        kind: failedMailKind,
+        ...notice,
+        dedupKey: `${failedMailKind}:${row.id}`,
+        delivery: 'immediate',
+        status: 'queued',
+        attempts: 0,
+        lastError: null,
+        nextAttemptAt: at,
+        claimedBy: null,
+        leaseUntil: null,
+        createdAt: at,
+        updatedAt: at,
+        sentAt: null,
+      });
+    }
+    logger.warn('Gave up sending an e-mail; admins were told', {
+      id: row.id,
+      to: row.recipientEmail,
+      admins: admins.length,
     });
+  }
+
+  async function runOnce(): Promise<OutboxRunResult> {
+    const result = emptyResult();
+    const now = clock();
+    // One id per claim: the rows this run took are exactly those carrying it.
+    const claimId = `${process.pid}:${randomUUID()}`;
+    const claimed = await store.transaction((repos) =>
+      repos.alerts.claimDue(claimId, now.toISOString(), leaseFrom(now), batchSize),
+    );
     result.claimed = claimed.length;
     // Immediate messages alone; digest messages grouped per recipient.
     const groups: OutboxRow[][] = [];
@@ -145,21 +223,17 @@ export function outboxWorker({
 
     for (const rows of groups) {
       const ids = rows.map((r) => r.id);
+      // Renew the lease right before sending; a message taken over meanwhile is not sent here.
+      const held = await store.transaction((repos) =>
+        repos.alerts.renewClaim(ids, claimId, leaseFrom(clock())),
+      );
+      if (held < ids.length) {
+        result.lost += rows.length;
+        logger.warn('Another sender took over these e-mails; not sending them here', { ids });
+        continue;
+      }
       try {
         await transport.sendMail(compose(rows));
-        const at = clock().toISOString();
-        await store.transaction(async (repos) => {
-          for (const row of rows) {
-            await repos.alerts.updateMessages([row.id], {
-              status: 'sent',
-              attempts: row.attempts + 1,
-              sentAt: at,
-              nextAttemptAt: null,
-              updatedAt: at,
-            });
-          }
-        });
-        result.sent += rows.length;
       } catch (error) {
         const message = (error instanceof Error ? error.message : String(error)).slice(0, 2000);
         const at = clock();
@@ -167,7 +241,7 @@ export function outboxWorker({
           for (const row of rows) {
             const attempts = row.attempts + 1;
             const givingUp = attempts >= config.alerts.outboxMaxAttempts;
-            await repos.alerts.updateMessages([row.id], {
+            const recorded = await repos.alerts.finishClaim(row.id, claimId, {
               status: givingUp ? 'failed' : 'queued',
               attempts,
               lastError: message,
@@ -176,8 +250,11 @@ export function outboxWorker({
                 : new Date(at.getTime() + retryDelaySeconds(attempts) * 1000).toISOString(),
               updatedAt: at.toISOString(),
             });
-            if (givingUp) result.failed++;
-            else result.retrying++;
+            if (!recorded) result.lost++;
+            else if (givingUp) {
+              await tellAdmins(repos, row, attempts, message);
+              result.failed++;
+            } else result.retrying++;
           }
         });
         logger.warn('Could not send e-mail; it stays in the outbox', {
@@ -185,7 +262,22 @@ export function outboxWorker({
           to: rows[0]!.recipientEmail,
           error: message,
         });
+        continue;
       }
+      const at = clock().toISOString();
+      await store.transaction(async (repos) => {
+        for (const row of rows) {
+          const recorded = await repos.alerts.finishClaim(row.id, claimId, {
+            status: 'sent',
+            attempts: row.attempts + 1,
+            sentAt: at,
+            nextAttemptAt: null,
+            updatedAt: at,
+          });
+          if (recorded) result.sent++;
+          else result.lost++;
+        }
+      });
     }
     return result;
   }
@@ -201,7 +293,7 @@ export function outboxWorker({
         logger.error('Outbox worker failed', {
           error: error instanceof Error ? error.message : String(error),
         });
-        return { claimed: 0, sent: 0, retrying: 0, failed: 0 };
+        return emptyResult();
       })
       .finally(() => {
         running = null;
@@ -215,13 +307,14 @@ export function outboxWorker({
 
   /** Runs until less than a full batch was due (what fails waits for its next attempt). */
   async function drain(): Promise<OutboxRunResult> {
-    const total: OutboxRunResult = { claimed: 0, sent: 0, retrying: 0, failed: 0 };
+    const total = emptyResult();
     for (;;) {
       const one = await runOnce();
       total.claimed += one.claimed;
       total.sent += one.sent;
       total.retrying += one.retrying;
       total.failed += one.failed;
+      total.lost += one.lost;
       if (one.claimed < batchSize) return total;
     }
   }
