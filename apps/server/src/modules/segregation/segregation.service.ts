@@ -100,6 +100,13 @@ const groupNouns: Record<StorageGroup, string> = {
   'low-hazard': 'general',
 };
 
+/** "an organic acid", "a base"; "flammable" and "general" stay as they are. */
+function article(noun: string): string {
+  if (noun === 'flammable' || noun === 'general') return noun;
+  if (noun.startsWith('gives')) return `one that ${noun}`;
+  return /^[aeiou]/.test(noun) ? `an ${noun}` : `a ${noun}`;
+}
+
 /** "Ethanol" in the middle of a sentence reads "ethanol"; "EDTA" stays as it is. */
 function midSentence(name: string): string {
   return /^[A-Z][a-z]/.test(name) ? name[0]!.toLowerCase() + name.slice(1) : name;
@@ -199,7 +206,7 @@ export function segregationService(repos: Repositories) {
       if (found.mismatch) {
         warnings.push({
           kind: 'storage_conflict',
-          message: `${location.path} is meant for ${location.storageGroups.map(label).join(', ')}; ${chemical.name} is ${groupNouns[chemical.storageGroup]} and belongs with its own group.`,
+          message: `${location.path} is meant for ${location.storageGroups.map(label).join(', ')}; ${chemical.name} is ${article(groupNouns[chemical.storageGroup])}: store it with its own group.`,
           code: 'location_group_mismatch',
           reason: 'The place was set up for other storage groups.',
           source: null,

@@ -17,7 +17,8 @@ function HoldLine({ hold }: { hold: ContainerHold }) {
       <Link to={paths.plan(hold.planId)} className="text-accent-700 underline underline-offset-2">
         plan #{hold.planId} · {hold.planTitle}
       </Link>
-      , planned for {formatDate(hold.plannedOn)} (held until {formatDate(hold.until)})
+      , planned for {formatDate(hold.plannedOn)}
+      {hold.until !== hold.plannedOn && <> (held until {formatDate(hold.until)})</>}
       {hold.reservedQuantity > hold.quantity && (
         <span className="text-ink-600">
           {' '}
