@@ -18,7 +18,8 @@ export const minStockAmount = 0.000001;
 /** How an amount may be signed. */
 export type AmountSign = 'positive' | 'nonNegative' | 'signed';
 
-const maxText = '10 000 000';
+/** {@link maxStockAmount} as messages write it, kept on one line (no-break spaces). */
+export const maxStockAmountText = '10\u00a0000\u00a0000';
 
 /**
  * What is wrong with an amount, or null when it is fine: a finite number, within
@@ -34,7 +35,7 @@ export function amountProblem(value: unknown, sign: AmountSign, unit?: string): 
   if (sign === 'signed' && value === 0) return 'cannot be 0';
   const size = Math.abs(value);
   if (size > maxStockAmount) {
-    return `must be at most ${maxText}${inUnit || ' in the unit given'}: no container holds more (was a code typed into the amount?)`;
+    return `must be at most ${maxStockAmountText}${inUnit || ' in the unit given'}: no container holds more (was a code typed into the amount?)`;
   }
   if (size !== 0 && size < minStockAmount) {
     return `is too small: Lotwise records amounts down to 0.000001${inUnit || ' of the unit'}`;

@@ -3,6 +3,7 @@ import {
   amountProblem,
   formatLabelCode,
   maxStockAmount,
+  maxStockAmountText,
   normalizeLabelCode,
   todayIso,
   type Container,
@@ -209,7 +210,7 @@ export async function appendEntry(
   let delta = roundToStored(movement.delta);
   let balance = fromMicro(toMicro(container.quantity) + toMicro(delta));
   if (balance > maxStockAmount) {
-    const message = `${container.labelCode} would hold ${show(balance)} ${container.unit}; one container holds at most ${show(maxStockAmount)} ${container.unit}.`;
+    const message = `${container.labelCode} would hold ${show(balance)} ${container.unit}; one container holds at most ${maxStockAmountText} ${container.unit}.`;
     throw AppError.validation(message, {
       [movement.reason === 'adjusted' ? 'correction' : 'quantity']: message,
     });
