@@ -1,6 +1,6 @@
 import { tryParseUnit } from '@lotwise/chem';
 import { z } from 'zod';
-import { stockUnitSchema } from './chemicals';
+import { physicalStateSchema, stockUnitSchema } from './chemicals';
 import { isoDateSchema } from './dates';
 import { ghsCodeSchema, peroxideClassSchema, storageGroupSchema } from './hazards';
 import { ledgerEntrySchema } from './ledger';
@@ -189,6 +189,9 @@ export const containerChemicalSchema = z.object({
   formula: z.string().nullable(),
   casNumber: z.string().nullable(),
   density: z.number().nullable(),
+  /** Always sent by the server: a solid crosses mass and volume only through `bulkDensity`. */
+  physicalState: physicalStateSchema.optional(),
+  bulkDensity: z.number().nullable().optional(),
   storageGroup: storageGroupSchema,
   extraHazardGroups: z.array(storageGroupSchema),
   ghsPictograms: z.array(ghsCodeSchema),

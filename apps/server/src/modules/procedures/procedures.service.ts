@@ -46,6 +46,8 @@ export function factsOf(chemical: ChemicalRow): LineChemicalFacts {
     molarMass: chemical.molarMass,
     density: chemical.density,
     defaultPurityPercent: chemical.defaultPurityPercent,
+    physicalState: chemical.physicalState,
+    bulkDensity: chemical.bulkDensity,
   };
 }
 
@@ -207,6 +209,8 @@ export async function presentProcedure(
           molarMass: chemical.molarMass,
           density: chemical.density,
           defaultPurityPercent: chemical.defaultPurityPercent,
+          physicalState: chemical.physicalState,
+          bulkDensity: chemical.bulkDensity,
           stockUnit: chemical.stockUnit,
           ghsPictograms: chemical.ghsPictograms,
           hazardStatements: chemical.hazardStatements,
