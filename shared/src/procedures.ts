@@ -560,6 +560,13 @@ export const scaledProcedureSchema = z.object({
   factor: z.number(),
   /** How the factor was chosen. */
   basis: z.enum(['factor', 'limiting-reagent', 'product']),
+  /**
+   * With `basis` product: the yield the target was reached at — `expected` (the procedure's
+   * expected yield) or `theoretical`; null for the other bases.
+   */
+  yieldBasis: z.enum(['theoretical', 'expected']).nullable(),
+  /** What a person must know about how the factor was found, e.g. a fallback to theory. */
+  notice: z.string().nullable(),
   lines: z.array(scaledLineSchema),
   stoichiometry: stoichiometrySchema,
   /** The first product line's theoretical yield at this scale, in grams; null without one. */

@@ -27,6 +27,7 @@ export const CHEM_ERROR_CODES = [
   'quantity_missing',
   'conflicting_inputs',
   'invalid_factor',
+  'factor_too_small',
   'impossible_dilution',
   'no_limiting_reagent',
   'invalid_weights',
