@@ -242,7 +242,7 @@ export function ChemicalForm({
             label="Formula"
             optional
             {...hint('formula')}
-            hint="Hill or common notation; hydrates with · . or * (e.g. CuSO4·5H2O)."
+            hint="Hill or common notation; hydrates with ·, a spaced . or * (e.g. CuSO4·5H2O, CuSO4 . 5H2O)."
             live={errors.formula ? undefined : <MolarMassPreview formula={formula} />}
           >
             {(c) => (
