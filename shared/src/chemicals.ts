@@ -56,8 +56,13 @@ const chemicalFields = {
   casNumber: casNumberSchema.nullable(),
   formula: formulaSchema.nullable(),
   physicalState: physicalStateSchema,
-  /** g/mL at 20 °C. */
+  /** g/mL at 20 °C (for a solid, of the crystal). */
   density: z.number().positive('must be greater than 0 g/mL').max(25).nullable(),
+  /**
+   * g/mL of a poured solid, air included: what a volume of a solid is weighed with (10 mL of
+   * table salt is about 12 g, not the 21.65 g its crystal density gives).
+   */
+  bulkDensity: z.number().positive('must be greater than 0 g/mL').max(25).nullable(),
   /** Purity a new lot gets unless its certificate says otherwise, in %. */
   defaultPurityPercent: z
     .number()
@@ -86,6 +91,7 @@ export const chemicalCreateSchema = z
     casNumber: chemicalFields.casNumber.default(null),
     formula: chemicalFields.formula.default(null),
     density: chemicalFields.density.default(null),
+    bulkDensity: chemicalFields.bulkDensity.default(null),
     defaultPurityPercent: chemicalFields.defaultPurityPercent.default(100),
     ghsPictograms: chemicalFields.ghsPictograms.default([]),
     hazardStatements: chemicalFields.hazardStatements.default([]),
@@ -117,6 +123,8 @@ export const chemicalSchema = z.object({
   molarMass: z.number().nullable(),
   physicalState: physicalStateSchema,
   density: z.number().nullable(),
+  /** g/mL of the poured solid; a volume of a solid is converted with this, never `density`. */
+  bulkDensity: z.number().nullable(),
   defaultPurityPercent: z.number(),
   ghsPictograms: z.array(ghsCodeSchema),
   hazardStatements: z.array(z.string()),

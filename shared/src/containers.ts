@@ -1,7 +1,7 @@
 import { tryParseUnit } from '@lotwise/chem';
 import { z } from 'zod';
 import { amountSchema, quantityUnitSchema } from './amounts';
-import { stockUnitSchema } from './chemicals';
+import { physicalStateSchema, stockUnitSchema } from './chemicals';
 import { isoDateSchema } from './dates';
 import { ghsCodeSchema, peroxideClassSchema, storageGroupSchema } from './hazards';
 import { confirmFieldSchema, containerHoldSchema } from './confirmations';
@@ -182,6 +182,9 @@ export const containerChemicalSchema = z.object({
   formula: z.string().nullable(),
   casNumber: z.string().nullable(),
   density: z.number().nullable(),
+  /** Always sent by the server: a solid crosses mass and volume only through `bulkDensity`. */
+  physicalState: physicalStateSchema.optional(),
+  bulkDensity: z.number().nullable().optional(),
   storageGroup: storageGroupSchema,
   extraHazardGroups: z.array(storageGroupSchema),
   ghsPictograms: z.array(ghsCodeSchema),

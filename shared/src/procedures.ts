@@ -5,6 +5,7 @@ import {
   GLASSWARE_RULE,
   LINE_ROLES,
   checkScaleFactor,
+  measuringDensity,
   parseScaleFactor,
   computeStoichiometry,
   tryComputeStoichiometry,
@@ -15,7 +16,7 @@ import {
 } from '@lotwise/chem';
 import { z } from 'zod';
 import { amountSchema, coercedAmountSchema, quantityUnitSchema, unitSchema } from './amounts';
-import { stockUnitSchema } from './chemicals';
+import { physicalStateSchema, stockUnitSchema, type PhysicalState } from './chemicals';
 import { ghsCodeSchema } from './hazards';
 import { listQuerySchema } from './list';
 import { nameSchema } from './names';
@@ -222,10 +223,14 @@ export interface LineChemicalFacts {
   name: string;
   /** g/mol; null when the chemical has no formula. */
   molarMass: number | null;
-  /** g/mL; null when unknown. */
+  /** g/mL; null when unknown. For a solid, of the crystal: never used to measure it. */
   density: number | null;
   /** The purity the procedure's amounts assume (the chemical's default), %. */
   defaultPurityPercent: number;
+  /** "solid": a volume of it goes through `bulkDensity`. Left out: read as not a solid. */
+  physicalState?: PhysicalState;
+  /** g/mL of the poured solid; null or left out when unknown. */
+  bulkDensity?: number | null;
 }
 
 /** A line while it is being typed: everything but the role may still be missing. */
@@ -256,6 +261,8 @@ function lookup(facts: FactsLookup, id: number | null | undefined) {
  * - a neat line carries its chemical's default purity (a 37 % acid counts 37 % of its mass);
  * - a solution line (`concentration`) carries the solution's density (`solutionDensity`, or
  *   the chemical's) and no purity;
+ * - a solid carries its bulk (poured) density, never its crystal density: a volume of a solid
+ *   without one cannot be weighed out (@lotwise/chem `measuringDensity`);
  * - a line without a chemical yet is named "line N" and has no molar mass.
  */
 export function procedureLinesFor(
@@ -281,9 +288,9 @@ export function procedureLinesFor(
       const density = line.solutionDensity ?? chemical?.density ?? null;
       if (density !== null) result.density = density;
     } else {
-      if (chemical?.density !== null && chemical?.density !== undefined) {
-        result.density = chemical.density;
-      }
+      if (chemical?.physicalState === 'solid') result.solid = true;
+      const density = chemical ? measuringDensity(chemical) : null;
+      if (density !== null) result.density = density;
       if (chemical && chemical.defaultPurityPercent !== 100) {
         result.purityPercent = chemical.defaultPurityPercent;
       }
@@ -368,6 +375,9 @@ export const lineChemicalSchema = z.object({
   molarMass: z.number().nullable(),
   density: z.number().nullable(),
   defaultPurityPercent: z.number(),
+  /** Always sent by the server: a solid is measured by volume through `bulkDensity`. */
+  physicalState: physicalStateSchema.optional(),
+  bulkDensity: z.number().nullable().optional(),
   stockUnit: stockUnitSchema,
   ghsPictograms: z.array(ghsCodeSchema),
   hazardStatements: z.array(z.string()),
@@ -538,6 +548,13 @@ export const scaledProcedureSchema = z.object({
   factor: z.number(),
   /** How the factor was chosen. */
   basis: z.enum(['factor', 'limiting-reagent', 'product']),
+  /**
+   * With `basis` product: the yield the target was reached at — `expected` (the procedure's
+   * expected yield) or `theoretical`; null for the other bases.
+   */
+  yieldBasis: z.enum(['theoretical', 'expected']).nullable(),
+  /** What a person must know about how the factor was found, e.g. a fallback to theory. */
+  notice: z.string().nullable(),
   lines: z.array(scaledLineSchema),
   stoichiometry: stoichiometrySchema,
   /** The first product line's theoretical yield at this scale, in grams; null without one. */

@@ -33,6 +33,7 @@ function chemical(i: number): ChemicalCreateParsed {
     formula: formulas[i % formulas.length]!,
     physicalState: state,
     density: state === 'solid' ? null : 0.8 + (i % 50) / 100,
+    bulkDensity: null,
     defaultPurityPercent: 100,
     ghsPictograms: i % 3 === 0 ? ['GHS02', 'GHS07'] : ['GHS05'],
     hazardStatements: ['H225'],

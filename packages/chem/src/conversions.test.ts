@@ -4,6 +4,7 @@ import {
   amountToMass,
   massToAmount,
   massToVolume,
+  measuringDensity,
   toAmount,
   toMass,
   toVolume,
@@ -11,6 +12,7 @@ import {
 } from './conversions';
 import { ChemError } from './errors';
 import { molarMass } from './molar-mass';
+import { computeStoichiometry, lineAmounts } from './stoichiometry';
 import { sig } from './testing/numbers';
 
 function errorOf(fn: () => unknown): ChemError {
@@ -164,5 +166,66 @@ describe('conversions: errors', () => {
       'incompatible_units',
     );
     expect(errorOf(() => toMass({ value: 5, unit: 'cups' })).code).toBe('unknown_unit');
+  });
+});
+
+describe('conversions: a solid measured by volume', () => {
+  // from memory: poured table salt weighs about 1.2 g/mL; its crystal density is 2.165 g/mL
+  // (chemicals.tsv, also from memory)
+  const tableSalt = {
+    physicalState: 'solid',
+    density: 2.165,
+    bulkDensity: 1.2,
+    molarMass: molarMass('NaCl'),
+  };
+
+  it('when 10 mL of table salt is converted, then the bulk density gives about 12 g, never the crystal 21.65 g', () => {
+    const grams = toMass({ value: 10, unit: 'mL' }, tableSalt);
+    expect(grams).toBeCloseTo(12, 12);
+    expect(grams).not.toBeCloseTo(21.65, 1);
+    // second opinion: js-quantities 1.8.0 (independent-libraries.md)
+    expect(grams).toBeCloseTo(Qty('10 ml').mul(Qty('1.2 g/ml')).to('g').scalar, 12);
+    expect(toVolume({ value: 12, unit: 'g' }, tableSalt)).toBeCloseTo(10, 12);
+    // calc: 12 g / 58.440 g/mol (CIAAW2021) = 0.20534 mol
+    expect(toAmount({ value: 10, unit: 'mL' }, tableSalt)).toBeCloseTo(0.20534, 5);
+  });
+
+  it('when a solid has no bulk density, then a volume is refused with the reason, even with a crystal density', () => {
+    const salt = { physicalState: 'solid', density: 2.165 };
+    const byVolume = errorOf(() => toMass({ value: 10, unit: 'mL' }, salt));
+    expect(byVolume.code).toBe('bulk_density_missing');
+    expect(byVolume.message).toContain('bulk (poured) density');
+    expect(byVolume.message).toContain('10 mL');
+    expect(errorOf(() => toVolume({ value: 12, unit: 'g' }, salt)).code).toBe(
+      'bulk_density_missing',
+    );
+    // weighing a solid needs no density at all
+    expect(toMass({ value: 12, unit: 'g' }, salt)).toBe(12);
+  });
+
+  it('when the material is a liquid or a solution, then its density is used as before', () => {
+    expect(measuringDensity({ physicalState: 'liquid', density: 1.082, bulkDensity: 3 })).toBe(
+      1.082,
+    );
+    expect(measuringDensity({ physicalState: 'solution', density: 1.04 })).toBe(1.04);
+    expect(measuringDensity({ physicalState: 'solid', density: 2.165 })).toBeNull();
+    expect(measuringDensity({ physicalState: 'solid', density: 2.165, bulkDensity: 1.2 })).toBe(
+      1.2,
+    );
+  });
+
+  it('when a procedure line is a volume of a solid without a bulk density, then its moles are unknown and the warning asks for the bulk density', () => {
+    const line = {
+      name: 'sodium chloride',
+      role: 'reagent' as const,
+      quantity: { value: 10, unit: 'mL' },
+      molarMass: molarMass('NaCl'),
+      solid: true,
+    };
+    expect(lineAmounts(line).missing).toEqual(['bulk density']);
+    const result = computeStoichiometry([line]);
+    expect(result.warnings[0]?.message).toContain('bulk (poured) density');
+    // with one, 10 mL weighs 12 g (from memory, as above)
+    expect(lineAmounts({ ...line, density: 1.2 }).massG).toBeCloseTo(12, 12);
   });
 });

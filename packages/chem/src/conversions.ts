@@ -6,10 +6,42 @@ import { requireNonNegative, requirePercent, requirePositive, show } from './val
 export interface ChemicalProperties {
   /** g/mol of the pure substance. */
   molarMass?: number;
-  /** g/mL of the material as measured (at 20 °C by convention). */
+  /** g/mL of the material as measured (at 20 °C by convention); for a solid, of the crystal. */
   density?: number;
   /** Mass % of the substance in the material as weighed; 100 when left out. */
   purityPercent?: number;
+  /** "solid" makes a volume go through `bulkDensity`, never `density`. */
+  physicalState?: string;
+  /** g/mL of the poured solid, air between the grains included. */
+  bulkDensity?: number;
+}
+
+/** What {@link measuringDensity} looks at; nulls read as unknown. */
+export interface MeasuredMaterial {
+  physicalState?: string | null;
+  density?: number | null;
+  bulkDensity?: number | null;
+}
+
+/**
+ * The density that turns a measured volume of a material into a mass and back: for a solid
+ * its bulk (poured) density, since a spoonful of powder holds air and its crystal density
+ * would weigh out far too much (10 mL of table salt is about 12 g, not 21.65 g); for
+ * anything else its density. Null when that density is not known: a solid without a bulk
+ * density cannot be measured by volume. // common practice, no source
+ */
+export function measuringDensity(material: MeasuredMaterial): number | null {
+  const density = material.physicalState === 'solid' ? material.bulkDensity : material.density;
+  return density === undefined || density === null ? null : density;
+}
+
+/**
+ * Why a volume of a solid cannot be turned into a mass (or a mass into a volume) without a
+ * bulk density: `amount` is what was asked ("10 mL of sodium chloride"), `target` what it
+ * was to become ("g", "a mass").
+ */
+export function bulkDensityMissingMessage(amount: string, target: string): string {
+  return `bulk density missing: ${amount} cannot be turned into ${target}, since a solid measured by volume needs its bulk (poured) density in g/mL; the crystal density is not used, as it would count the air between the grains as solid. Weigh it instead, or record the bulk density on the chemical`;
 }
 
 /**
@@ -72,6 +104,16 @@ function checkedQuantity(quantity: Quantity) {
 }
 
 function needDensity(quantity: Quantity, target: string, properties: ChemicalProperties): number {
+  if (properties.physicalState === 'solid') {
+    const bulk = measuringDensity(properties);
+    if (bulk === null) {
+      throw new ChemError(
+        'bulk_density_missing',
+        bulkDensityMissingMessage(`${show(quantity.value)} ${quantity.unit} of a solid`, target),
+      );
+    }
+    return bulk;
+  }
   if (properties.density === undefined || properties.density === null) {
     throw new ChemError(
       'density_missing',

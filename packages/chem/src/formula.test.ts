@@ -2,7 +2,8 @@ import { MF } from 'mf-parser';
 import { describe, expect, it } from 'vitest';
 import { ELEMENTS } from './elements';
 import { ChemError } from './errors';
-import { hillFormula, hillOrder, parseFormula, tryParseFormula } from './formula';
+import { canonicalFormula, hillFormula, hillOrder, parseFormula, tryParseFormula } from './formula';
+import { molarMass as molarMassOf } from './molar-mass';
 
 function errorOf(formula: string): ChemError {
   const result = tryParseFormula(formula);
@@ -28,32 +29,22 @@ describe('parseFormula: compositions', () => {
     expect(parseFormula(formula).elements).toEqual(elements);
   });
 
-  it.each([
-    'CuSO4·5H2O',
-    'CuSO4.5H2O',
-    'CuSO4*5H2O',
-    'CuSO4•5H2O',
-    'CuSO4 . 5H2O',
-    'CuSO4 · 5 H2O',
-  ])('when the hydrate is written "%s", then it is the pentahydrate CuSO4·5H2O', (formula) => {
-    const parsed = parseFormula(formula);
-    expect(parsed.elements).toEqual({ Cu: 1, H: 10, O: 9, S: 1 });
-    expect(parsed.normalized).toBe('CuSO4·5H2O');
-    expect(parsed.parts.map((part) => part.multiplier)).toEqual([1, 5]);
-  });
-
-  it('when "CuSO4.5H2O" is parsed, then the dot joins parts, unlike mf-parser which reads O4.5', () => {
-    // second opinion: mf-parser 3.9.3 documents that "CuSO4.5H2O" is not read as a hydrate
-    const ours = parseFormula('CuSO4.5H2O').elements;
-    const mfSpaced = new MF('CuSO4 . 5H2O').getInfo().atoms as Record<string, number>;
-    expect(ours).toEqual({ Cu: mfSpaced.Cu, H: mfSpaced.H, O: mfSpaced.O, S: mfSpaced.S });
-  });
+  it.each(['CuSO4·5H2O', 'CuSO4*5H2O', 'CuSO4•5H2O', 'CuSO4 . 5H2O', 'CuSO4 · 5 H2O'])(
+    'when the hydrate is written "%s", then it is the pentahydrate CuSO4·5H2O',
+    (formula) => {
+      const parsed = parseFormula(formula);
+      expect(parsed.elements).toEqual({ Cu: 1, H: 10, O: 9, S: 1 });
+      expect(parsed.normalized).toBe('CuSO4·5H2O');
+      expect(parsed.parts.map((part) => part.multiplier)).toEqual([1, 5]);
+    },
+  );
 
   it('when a part has a decimal or two-digit multiplier, then it multiplies the whole part', () => {
     expect(parseFormula('CaSO4·0.5H2O').elements).toEqual({ Ca: 1, H: 1, O: 4.5, S: 1 });
-    expect(parseFormula('CaSO4.0.5H2O').elements).toEqual({ Ca: 1, H: 1, O: 4.5, S: 1 });
+    expect(parseFormula('CaSO4 . 0.5H2O').elements).toEqual({ Ca: 1, H: 1, O: 4.5, S: 1 });
     expect(parseFormula('Na2CO3·10H2O').elements).toEqual({ C: 1, H: 20, Na: 2, O: 13 });
-    expect(parseFormula('2H2O').elements).toEqual({ H: 4, O: 2 });
+    // sodium percarbonate: a leading number on the first part of an adduct is read
+    expect(parseFormula('2Na2CO3·3H2O2').elements).toEqual({ C: 2, H: 6, Na: 4, O: 12 });
   });
 
   it.each([
@@ -90,6 +81,61 @@ describe('parseFormula: compositions', () => {
     for (const element of ELEMENTS) {
       expect(parseFormula(`${element.symbol}2`).elements).toEqual({ [element.symbol]: 2 });
     }
+  });
+});
+
+describe('parseFormula: readings it refuses rather than guesses', () => {
+  it('when a "." stands between two digits, then the formula is refused with the position of the dot', () => {
+    // second opinion: mf-parser 3.9.3 reads "CuSO4.5H2O" as O4.5 while a hydrate reading gives
+    // CuSO4·5H2O; the two differ, so Lotwise asks instead of picking one
+    const mfDecimal = new MF('CuSO4.5H2O').getInfo().atoms as Record<string, number>;
+    const mfHydrate = new MF('CuSO4 . 5H2O').getInfo().atoms as Record<string, number>;
+    expect(mfDecimal.O).not.toBe(mfHydrate.O);
+    for (const [formula, position] of [
+      ['C1.5H3', 3],
+      ['C2H4.5O', 5],
+      ['CuSO4.5H2O', 6],
+      ['Ca(OH)2.5', 8],
+      ['CaSO4.0.5H2O', 6],
+    ] as const) {
+      const error = errorOf(formula);
+      expect(error.code).toBe('decimal_count');
+      expect(error.position).toBe(position);
+      expect(error.message).toContain(`"." at position ${position} stands between two digits`);
+    }
+    expect(errorOf('CuSO4.5H2O').message).toContain('"CuSO4·5H2O"');
+    expect(errorOf('C1.5H3').message).toContain('counts in a formula are whole numbers');
+  });
+
+  it('when a number leads a formula with no hydrate or adduct part, then it is refused, not doubled', () => {
+    const error = errorOf('2H2O');
+    expect(error.code).toBe('leading_multiplier');
+    expect(error.position).toBe(1);
+    expect(error.message).toContain('write "H2O"');
+    expect(errorOf('0.5H2O').message).toContain('write "H2O"');
+    expect(errorOf('  3 NaCl (s)').position).toBe(3);
+    // the same number on a hydrate part is read as usual
+    expect(molarMassOf('BaCl2·2H2O')).toBeCloseTo(244.26, 2); // formula-masses.tsv (calc, CIAAW2021)
+  });
+
+  it('when a hydrate is a dot with spaces, "*", "•" or subscripts, then it is stored in one form', () => {
+    for (const typed of [
+      'CuSO₄·5H₂O',
+      'CuSO4 . 5H2O',
+      'CuSO4*5H2O',
+      'CuSO4 · 5 H2O',
+      'CuSO4•5H2O',
+    ]) {
+      expect(canonicalFormula(typed)).toBe('CuSO4·5H2O');
+    }
+    expect(canonicalFormula('HCl (aq)')).toBe('HCl(aq)');
+    expect(canonicalFormula('C1H4')).toBe('CH4');
+    expect(canonicalFormula('CaSO4 . 0.5 H2O')).toBe('CaSO4·0.5H2O');
+    expect(canonicalFormula('CuSO4·1H2O')).toBe('CuSO4·H2O');
+    expect(canonicalFormula('[Cu(NH3)4]SO4 · H2O')).toBe('[Cu(NH3)4]SO4·H2O');
+    // second opinion: mf-parser 3.9.3 gives the stored form the pentahydrate's mass
+    expect(new MF('CuSO4 . 5H2O').getInfo().mass).toBeCloseTo(249.677, 1); // formula-masses.tsv (calc)
+    expect(molarMassOf(canonicalFormula('CuSO₄ . 5H₂O'))).toBeCloseTo(249.677, 3); // formula-masses.tsv (calc, CIAAW2021)
   });
 });
 

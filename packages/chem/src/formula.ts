@@ -146,7 +146,20 @@ class Parser {
         start,
       );
     }
-    return { value, text: String(value) };
+    // "C1.5H3", "C2H4.5O", "CuSO4.5H2O": a dot between two digits is either a decimal count
+    // or a hydrate dot, and the two readings give different substances. Neither is guessed.
+    if (this.s[this.i] === '.' && digitValue(this.s[this.i + 1]) >= 0) {
+      const dot = this.i;
+      const before = this.s.slice(0, dot);
+      const after = this.s.slice(dot + 1);
+      throw this.fail(
+        'decimal_count',
+        `"." at position ${dot + 1} stands between two digits ("${digits}.${this.s[dot + 1] ?? ''}"), so it could be a decimal count or a hydrate dot: counts in a formula are whole numbers, and a hydrate or adduct part is joined with "·", " . " or "*", e.g. "${before}·${after}"`,
+        dot,
+      );
+    }
+    // A written count of 1 ("C1H4") is left out of the normalized text.
+    return { value, text: value === 1 ? '' : String(value) };
   }
 
   /** An optional leading multiplier of a part: "5" in "5H2O", "0.5" in "0.5H2O". */
@@ -175,7 +188,7 @@ class Parser {
         start,
       );
     }
-    return { value, text: String(value) };
+    return { value, text: value === 1 ? '' : String(value) };
   }
 
   private readSymbol(): string {
@@ -197,6 +210,7 @@ class Parser {
 
   parse(): { parts: FormulaPart[] } {
     const parts: FormulaPart[] = [];
+    let multiplierWritten = false;
     this.skipSpace();
     if (this.i >= this.end)
       throw new ChemError('empty_formula', 'formula is empty: enter one such as H2O');
@@ -204,6 +218,7 @@ class Parser {
       this.skipSpace();
       const partStart = this.i;
       const multiplier = this.readMultiplier();
+      if (parts.length === 0) multiplierWritten = multiplier !== null;
       this.skipSpace();
       const part = this.readPart(partStart, multiplier);
       parts.push(part);
@@ -219,6 +234,16 @@ class Parser {
           separatorIndex,
         );
       }
+    }
+    const only = parts[0];
+    if (parts.length === 1 && only !== undefined && multiplierWritten) {
+      const start = only.position - 1;
+      const bare = only.text.replace(/^[\d.]+/, '');
+      throw this.fail(
+        'leading_multiplier',
+        `the number at position ${only.position} multiplies the whole formula ("${this.s.slice(start).trim()}" is ${String(only.multiplier)} formula units): a chemical's formula is one formula unit, so write "${bare}"; a leading number is read only on a hydrate or adduct part, as in "CuSO4·5H2O"`,
+        start,
+      );
     }
     return { parts };
   }
@@ -424,15 +449,18 @@ function suggestCapitals(formula: string): string | undefined {
  *
  * Accepts element symbols of the whole periodic table (and D for deuterium), counts,
  * nested (), [] and {} groups with counts, hydrate and adduct parts joined by "·", ".", "*",
- * "•" (e.g. "CuSO4·5H2O", "CuSO4 . 5H2O", "CaSO4·0.5H2O"), a leading multiplier on any part,
- * subscript digits (H₂O), whitespace between tokens, and a trailing state label "(s)",
- * "(l)", "(g)" or "(aq)", which is ignored. A "." is always a part separator, never a
- * decimal point inside an element count.
+ * "•" (e.g. "CuSO4·5H2O", "CuSO4 . 5H2O", "CaSO4·0.5H2O"), a leading multiplier on a
+ * hydrate or adduct part, subscript digits (H₂O), whitespace between tokens, and a trailing
+ * state label "(s)", "(l)", "(g)" or "(aq)", which is ignored. Two readings are refused
+ * rather than guessed: a "." between two digits ("C1.5H3", "CuSO4.5H2O": a decimal count or
+ * a hydrate dot?) and a leading number on a formula without other parts ("2H2O": a
+ * chemical's formula is one formula unit).
  *
  * @throws ChemError with a 1-based `position`: `empty_formula`, `unknown_element`
  *   (`unknown element "Xx" at position 5`), `lowercase_element` (with a `suggestion`
  *   such as "NaCl" for "nacl"), `unbalanced_parenthesis`, `empty_group`, `empty_part`,
- *   `zero_count`, `invalid_count`, `unexpected_character`.
+ *   `zero_count`, `invalid_count`, `decimal_count`, `leading_multiplier`,
+ *   `unexpected_character`.
  */
 export function parseFormula(formula: string): ParsedFormula {
   try {
@@ -452,6 +480,18 @@ export function parseFormula(formula: string): ParsedFormula {
     }
     throw error;
   }
+}
+
+/**
+ * The one form a formula is stored in: ASCII digits, no spaces, counts of 1 left out, hydrate
+ * and adduct parts joined by "·", and a trailing state label kept as "(aq)". "CuSO₄ . 5H₂O",
+ * "CuSO4*5H2O" and "CuSO4 · 5 H2O" all become "CuSO4·5H2O"; "HCl (aq)" becomes "HCl(aq)".
+ *
+ * @throws ChemError as {@link parseFormula}
+ */
+export function canonicalFormula(formula: string): string {
+  const parsed = parseFormula(formula);
+  return parsed.state === undefined ? parsed.normalized : `${parsed.normalized}(${parsed.state})`;
 }
 
 /** {@link parseFormula} as a {@link Result} instead of a throw. */

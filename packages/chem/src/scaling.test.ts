@@ -4,6 +4,7 @@ import { molarMass } from './molar-mass';
 import {
   AMOUNT_RULE,
   BALANCE_RULE,
+  checkMeasurableFactor,
   checkScaleFactor,
   displayQuantity,
   factorForLimitingReagent,
@@ -14,6 +15,7 @@ import {
   roundMassForDisplay,
   roundVolumeForDisplay,
   scaleFactorFor,
+  scaleFloor,
   scaleLines,
   scaleQuantity,
 } from './scaling';
@@ -202,5 +204,56 @@ describe('rounding for display (common practice, no source)', () => {
     expect(displayQuantity({ value: 2500, unit: 'mg' }).text).toBe('2.50 g');
     expect(displayQuantity({ value: 0.25, unit: 'L' }).text).toBe('250 mL');
     expect(displayQuantity({ value: 9.521, unit: 'mmol' }).text).toBe('9.52 mmol');
+  });
+});
+
+describe('scale factor floor', () => {
+  // worked-examples.md aspirin: 2.0 g salicylic acid, 5.0 mL acetic anhydride (1.082 g/mL)
+  const aspirin: ProcedureLine[] = [
+    {
+      role: 'limiting-reagent',
+      quantity: { value: 2.0, unit: 'g' },
+      molarMass: molarMass('C7H6O3'),
+    },
+    {
+      role: 'reagent',
+      quantity: { value: 5.0, unit: 'mL' },
+      molarMass: molarMass('C4H6O3'),
+      density: 1.082,
+    },
+    { role: 'product', molarMass: molarMass('C9H8O4') },
+  ];
+
+  it('when the lines are 2.0 g and 5.0 mL, then the floor is 0.1 mg / 2.0 g and 0.01 mL / 5.0 mL', () => {
+    // calc: 0.0001 / 2.0 = 0.00005 and 0.01 / 5.0 = 0.002 (finest steps of the rounding rules,
+    // common practice, no source)
+    expect(scaleFloor(aspirin)).toEqual({ anyLine: 0.00005, everyLine: 0.002 });
+  });
+
+  it('when every line rounds to zero, then the factor is refused stating the floor; otherwise it is kept', () => {
+    let error: unknown;
+    try {
+      checkMeasurableFactor(aspirin, 0.00001);
+    } catch (caught) {
+      error = caught;
+    }
+    expect(error).toBeInstanceOf(ChemError);
+    expect((error as ChemError).code).toBe('factor_too_small');
+    expect((error as ChemError).message).toBe(
+      'at ×0.00001 every amount rounds to zero on the balance (finest 0.1 mg) and the glassware (finest 0.01 mL): the lowest factor they allow is ×0.00005; from ×0.002 every line can be measured',
+    );
+    // at the floor each line is confirmed non-zero by the display rules themselves
+    expect(roundMassForDisplay(2.0 * 0.00005).text).toBe('0.0001 g');
+    expect(checkMeasurableFactor(aspirin, 0.00005)).toBe(0.00005);
+    expect(checkMeasurableFactor(aspirin, 0.001)).toBe(0.001); // the volume rounds to 0, the mass does not
+  });
+
+  it('when a line is given in mmol, then its mass on the balance counts', () => {
+    const lines: ProcedureLine[] = [
+      { role: 'reagent', quantity: { value: 1, unit: 'mmol' }, molarMass: molarMass('NaCl') },
+    ];
+    // calc: 1 mmol x 58.440 g/mol = 0.05844 g; 0.0001 / 0.05844 = 0.001711 -> 0.0018
+    expect(scaleFloor(lines)).toEqual({ anyLine: 0.0018, everyLine: 0.0018 });
+    expect(scaleFloor([{ role: 'product', molarMass: 18 }])).toBeNull();
   });
 });

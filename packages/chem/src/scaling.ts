@@ -1,5 +1,10 @@
 import { ChemError } from './errors';
-import { computeStoichiometry, type LineResult, type ProcedureLine } from './stoichiometry';
+import {
+  computeStoichiometry,
+  lineAmounts,
+  type LineResult,
+  type ProcedureLine,
+} from './stoichiometry';
 import { type Quantity, toBaseUnit } from './units';
 import { requireFinite, requirePercent, show } from './validation';
 
@@ -132,6 +137,87 @@ export function parseScaleFactor(text: string): number {
     );
   }
   return value;
+}
+
+/** The finest mass the balance reads, in g: 0.1 mg ({@link BALANCE_RULE}). */
+export const FINEST_MASS_G = 0.0001;
+/** The finest volume the glassware reads, in mL: 0.01 mL ({@link GLASSWARE_RULE}). */
+export const FINEST_VOLUME_ML = 0.01;
+
+/** What a line has a person measure at base scale: a mass on the balance or a volume. */
+function measured(line: ProcedureLine): { massG?: number; volumeMl?: number } | null {
+  if (line.role === 'product' || !line.quantity) return null;
+  const base = toBaseUnit(line.quantity);
+  if (base.value <= 0) return null;
+  if (base.dimension === 'mass') return { massG: base.value };
+  if (base.dimension === 'volume') return { volumeMl: base.value };
+  // Given in mol: what is weighed or poured for it, when that can be worked out.
+  const amounts = lineAmounts(line);
+  if (amounts.massG !== undefined && amounts.massG > 0) return { massG: amounts.massG };
+  if (amounts.volumeMl !== undefined && amounts.volumeMl > 0) return { volumeMl: amounts.volumeMl };
+  return null;
+}
+
+function roundsToZero(amount: { massG?: number; volumeMl?: number }, factor: number): boolean {
+  return amount.massG !== undefined
+    ? roundMassForDisplay(amount.massG * factor).value === 0
+    : roundVolumeForDisplay((amount.volumeMl ?? 0) * factor).value === 0;
+}
+
+/** Up to two significant figures, rounded up: a floor a person can type. */
+function upTo2(value: number): number {
+  const magnitude = 10 ** (Math.floor(Math.log10(value)) - 1);
+  return Number((Math.ceil(value / magnitude - 1e-9) * magnitude).toPrecision(2));
+}
+
+/** The lowest scale factors the balance and glassware allow, see {@link scaleFloor}. */
+export interface ScaleFloor {
+  /** Below this, every measured line rounds to zero: nothing could be weighed or poured. */
+  anyLine: number;
+  /** From this, every measured line reads at least one step (0.1 mg or 0.01 mL). */
+  everyLine: number;
+}
+
+/**
+ * The lowest factors at which procedure lines (at base scale) can be measured with the
+ * balance (finest 0.1 mg) and glassware (finest 0.01 mL) of {@link BALANCE_RULE} and
+ * {@link GLASSWARE_RULE}, rounded up to two significant figures. Products and lines without
+ * a measurable amount are left out; null when no line is left.
+ */
+export function scaleFloor(lines: readonly ProcedureLine[]): ScaleFloor | null {
+  const floors = lines
+    .map((line) => measured(line))
+    .filter((amount): amount is { massG?: number; volumeMl?: number } => amount !== null)
+    .map((amount) =>
+      amount.massG !== undefined
+        ? FINEST_MASS_G / amount.massG
+        : FINEST_VOLUME_ML / (amount.volumeMl ?? 1),
+    );
+  if (floors.length === 0) return null;
+  return { anyLine: upTo2(Math.min(...floors)), everyLine: upTo2(Math.max(...floors)) };
+}
+
+/**
+ * Refuse a scale factor at which every measured line rounds to zero on the balance and the
+ * glassware, stating the lowest factor they allow. Lines at base scale.
+ *
+ * @throws ChemError `factor_too_small`, and as {@link checkScaleFactor}
+ */
+export function checkMeasurableFactor(lines: readonly ProcedureLine[], factor: number): number {
+  checkScaleFactor(factor);
+  const amounts = lines
+    .map((line) => measured(line))
+    .filter((amount): amount is { massG?: number; volumeMl?: number } => amount !== null);
+  const floor = scaleFloor(lines);
+  if (floor === null || !amounts.every((amount) => roundsToZero(amount, factor))) return factor;
+  const every =
+    floor.everyLine > floor.anyLine
+      ? `; from ×${show(floor.everyLine)} every line can be measured`
+      : '';
+  throw new ChemError(
+    'factor_too_small',
+    `at ×${show(Number(factor.toPrecision(3)))} every amount rounds to zero on the balance (finest 0.1 mg) and the glassware (finest 0.01 mL): the lowest factor they allow is ×${show(floor.anyLine)}${every}`,
+  );
 }
 
 /** A quantity times a factor, at full precision, in the same unit. */

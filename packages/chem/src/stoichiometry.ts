@@ -35,8 +35,16 @@ export interface ProcedureLine {
   coefficient?: number;
   /** g/mol of the substance (the solute for a solution). */
   molarMass?: number;
-  /** g/mL of what is measured (the solution for a solution). */
+  /**
+   * g/mL of what is measured (the solution for a solution; for a solid, its bulk density —
+   * see `solid`).
+   */
   density?: number;
+  /**
+   * A solid: `density` is its bulk (poured) density, and a volume without one asks for the
+   * bulk density rather than the density.
+   */
+  solid?: boolean;
   /** Mass % of the substance in a neat material; default 100. Not used with `concentration`. */
   purityPercent?: number;
   /** Set when the line is measured as a solution. */
@@ -75,9 +83,17 @@ export interface LineAmounts {
   volumeMl?: number;
   /** mol of the substance itself (purity and concentration applied). */
   amountMol?: number;
+  /**
+   * g of the pure substance itself: the solute of a solution (88 mL of 1 M NaOH holds
+   * 3.52 g of NaOH), the pure part of a neat material at its purity.
+   */
+  pureMassG?: number;
   /** What is missing to work out the moles (empty when amountMol is known or no quantity). */
-  missing: ('density' | 'molar mass')[];
+  missing: LineMissing[];
 }
+
+/** A fact a line lacks to be worked out. */
+export type LineMissing = 'density' | 'bulk density' | 'molar mass';
 
 /** Theoretical yield of a product line. */
 export interface TheoreticalYield {
@@ -192,7 +208,8 @@ function atLine<T>(line: ProcedureLine, index: number, fn: () => T): T {
  *   `unknown_unit`, `conflicting_inputs` (purity below 100 % together with a concentration)
  */
 export function lineAmounts(line: ProcedureLine): LineAmounts {
-  const missing = new Set<'density' | 'molar mass'>();
+  const missing = new Set<LineMissing>();
+  const densityName = line.solid ? 'bulk density' : 'density';
   const result: LineAmounts = { missing: [] };
   if (!line.quantity) return result;
   const base = toBaseUnit(line.quantity);
@@ -236,9 +253,9 @@ export function lineAmounts(line: ProcedureLine): LineAmounts {
         volumeMl = massG / density;
       }
       if (volumeMl !== undefined) amountMol = (volumeMl / 1000) * molarity;
-      else missing.add('density');
+      else missing.add(densityName);
     } else if (massFraction !== undefined) {
-      if (massG === undefined) missing.add('density');
+      if (massG === undefined) missing.add(densityName);
       if (molar === undefined) missing.add('molar mass');
       if (massG !== undefined && molar !== undefined) amountMol = (massG * massFraction) / molar;
     }
@@ -259,6 +276,10 @@ export function lineAmounts(line: ProcedureLine): LineAmounts {
   if (massG !== undefined) result.massG = massG;
   if (volumeMl !== undefined) result.volumeMl = volumeMl;
   if (amountMol !== undefined) result.amountMol = amountMol;
+  // The pure substance: what the mass fraction leaves of the material, or for a solution
+  // of known molarity the solute its moles weigh — never the mass of the solution.
+  if (massFraction !== undefined && massG !== undefined) result.pureMassG = massG * massFraction;
+  else if (amountMol !== undefined && molar !== undefined) result.pureMassG = amountMol * molar;
   result.missing = [...missing];
   return result;
 }
@@ -305,7 +326,11 @@ export function computeStoichiometry(lines: readonly ProcedureLine[]): Stoichiom
       });
     } else if (lineAmount.amountMol === undefined) {
       const needs = lineAmount.missing.map((what) =>
-        what === 'density' ? 'the density (g/mL)' : 'the molar mass (g/mol)',
+        what === 'density'
+          ? 'the density (g/mL)'
+          : what === 'bulk density'
+            ? 'the bulk (poured) density (g/mL) of this solid'
+            : 'the molar mass (g/mol)',
       );
       warnings.push({
         code: 'amount_unknown',

@@ -29,6 +29,7 @@ import { Alerts1796420000000 } from './migrations/1796420000000-alerts';
 import { ExactQuantities1796600000000 } from './migrations/1796600000000-exact-quantities';
 import { SessionVersion1796650000000 } from './migrations/1796650000000-session-version';
 import { OutboxLeases1796660000000 } from './migrations/1796660000000-outbox-leases';
+import { ChemicalMeasures1796630000000 } from './migrations/1796630000000-chemical-measures';
 
 export const entities = [
   UserEntity,
@@ -61,6 +62,7 @@ export const migrations = [
   ExactQuantities1796600000000,
   SessionVersion1796650000000,
   OutboxLeases1796660000000,
+  ChemicalMeasures1796630000000,
 ];
 
 /** The database file and the WAL and shared-memory files SQLite keeps beside it. */

@@ -29,6 +29,7 @@ export function makeChemical(overrides: Partial<Chemical> = {}): Chemical {
     molarMass: null,
     physicalState: 'solid',
     density: null,
+    bulkDensity: null,
     defaultPurityPercent: 100,
     ghsPictograms: [],
     hazardStatements: [],

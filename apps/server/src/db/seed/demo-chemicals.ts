@@ -264,6 +264,8 @@ export const demoChemicals: ChemicalCreateBody[] = [
     formula: 'NaCl',
     physicalState: 'solid',
     density: 2.165,
+    // from memory: poured fine table salt is about 1.2 g/mL (10 mL weighs about 12 g)
+    bulkDensity: 1.2,
     storageGroup: 'low-hazard',
     stockUnit: 'g',
     reorderPoint: 250,

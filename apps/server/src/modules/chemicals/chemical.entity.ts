@@ -17,6 +17,8 @@ export interface ChemicalRow {
   molarMass: number | null;
   physicalState: PhysicalState;
   density: number | null;
+  /** g/mL of the poured solid (air included): what a volume of a solid is weighed with. */
+  bulkDensity: number | null;
   defaultPurityPercent: number;
   ghsPictograms: GhsCode[];
   hazardStatements: string[];
@@ -53,6 +55,7 @@ export const ChemicalEntity = new EntitySchema<ChemicalRow>({
     molarMass: { name: 'molar_mass', type: 'double precision', nullable: true },
     physicalState: { name: 'physical_state', type: 'varchar', length: 10 },
     density: { type: 'double precision', nullable: true },
+    bulkDensity: { name: 'bulk_density', type: 'double precision', nullable: true },
     defaultPurityPercent: { name: 'default_purity_percent', type: 'double precision' },
     ghsPictograms: { name: 'ghs_pictograms', type: 'simple-json' },
     hazardStatements: { name: 'hazard_statements', type: 'simple-json' },

@@ -1,4 +1,4 @@
-import { tryMolarMass } from '@lotwise/chem';
+import { canonicalFormula, tryMolarMass } from '@lotwise/chem';
 import type {
   Chemical,
   ChemicalCreateParsed,
@@ -19,6 +19,20 @@ export function molarMassOf(formula: string | null): number | null {
   return result.ok ? result.value : null;
 }
 
+/**
+ * The formula as stored: one normal form whatever was typed (subscripts, "." / "*" / spaced
+ * dots), so the same substance is always written the same way. A formula the contract let
+ * through always parses; anything else is kept as given.
+ */
+export function storedFormula(formula: string | null): string | null {
+  if (!formula) return formula;
+  try {
+    return canonicalFormula(formula);
+  } catch {
+    return formula;
+  }
+}
+
 /** What `q` matches: name, synonyms, CAS RN and formula, lower-cased (JS, so not ASCII only). */
 export function searchTextOf(chemical: {
   name: string;
@@ -37,11 +51,13 @@ export function newChemicalValues(
   input: ChemicalCreateParsed & { extraHazardGroups?: StorageGroup[] },
   now = nowIso(),
 ): ChemicalValues {
+  const formula = storedFormula(input.formula);
   return {
     ...input,
+    formula,
     extraHazardGroups: input.extraHazardGroups ?? [],
-    molarMass: molarMassOf(input.formula),
-    searchText: searchTextOf(input),
+    molarMass: molarMassOf(formula),
+    searchText: searchTextOf({ ...input, formula }),
     sdsFileName: null,
     sdsStoredName: null,
     sdsSize: null,
@@ -106,8 +122,10 @@ export function chemicalsService(store: Store, files?: StoredFiles) {
         }
       }
       if (patch.casNumber !== undefined) await assertCasFree(patch.casNumber, id);
-      const next = { ...current, ...patch };
-      const changes: Partial<ChemicalValues> = { ...patch, updatedAt: nowIso() };
+      const normalized =
+        patch.formula === undefined ? patch : { ...patch, formula: storedFormula(patch.formula) };
+      const next = { ...current, ...normalized };
+      const changes: Partial<ChemicalValues> = { ...normalized, updatedAt: nowIso() };
       if (patch.formula !== undefined) changes.molarMass = molarMassOf(next.formula);
       if (['name', 'synonyms', 'casNumber', 'formula'].some((key) => key in patch)) {
         changes.searchText = searchTextOf(next);

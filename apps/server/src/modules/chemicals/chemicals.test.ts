@@ -65,6 +65,32 @@ describe('creating chemicals', () => {
     expect(chemical.molarMass).toBeCloseTo(249.68, 1);
   });
 
+  it('when a formula is typed with subscripts or a spaced or starred dot, then it is stored in one form', async () => {
+    const subscripts = await created({ formula: 'CuSO₄ . 5H₂O' });
+    const starred = await created({ formula: 'CuSO4*5H2O' });
+    for (const chemical of [subscripts, starred]) {
+      expect(chemical.formula).toBe('CuSO4·5H2O');
+      expect(chemical.molarMass).toBeCloseTo(249.677, 3); // formula-masses.tsv (calc, CIAAW2021)
+    }
+    const patched = await api.patch(starred.id, { formula: 'BaCl₂ · 2 H₂O' }).expect(200);
+    expect(patched.body.formula).toBe('BaCl2·2H2O');
+    expect(patched.body.molarMass).toBeCloseTo(244.26, 2); // formula-masses.tsv (calc, CIAAW2021)
+    const found = await api.list(`q=${encodeURIComponent('bacl2·2h2o')}`).expect(200);
+    expect(found.body.items.map((c: Chemical) => c.id)).toContain(starred.id);
+  });
+
+  it('when a formula has a leading number or a dot between digits, then it answers 400 with the position', async () => {
+    const doubled = await api.create(chemicalInput({ formula: '2H2O' })).expect(400);
+    expect(doubled.body.error.fields.formula).toContain('write "H2O"');
+    for (const [formula, position] of [
+      ['C1.5H3', 3],
+      ['C2H4.5O', 5],
+    ] as const) {
+      const response = await api.create(chemicalInput({ formula })).expect(400);
+      expect(response.body.error.fields.formula).toContain(`"." at position ${position}`);
+    }
+  });
+
   it('when there is no formula, then the molar mass is null', async () => {
     const chemical = await created({ formula: null });
     expect(chemical.molarMass).toBeNull();

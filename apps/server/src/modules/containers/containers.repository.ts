@@ -6,6 +6,7 @@ import {
   type LedgerEntry,
   type LotSource,
   type PeroxideClass,
+  type PhysicalState,
   type StockUnit,
   type StorageGroup,
 } from '@lotwise/shared';
@@ -24,6 +25,8 @@ export interface ContainerView extends ContainerRow {
   chemicalFormula: string | null;
   chemicalCasNumber: string | null;
   chemicalDensity: number | null;
+  chemicalPhysicalState: PhysicalState;
+  chemicalBulkDensity: number | null;
   chemicalStorageGroup: StorageGroup;
   chemicalExtraHazardGroups: StorageGroup[];
   chemicalGhsPictograms: GhsCode[];
@@ -65,6 +68,8 @@ const viewColumns: [string, keyof ContainerView][] = [
   ['ch.formula', 'chemicalFormula'],
   ['ch.cas_number', 'chemicalCasNumber'],
   ['ch.density', 'chemicalDensity'],
+  ['ch.physical_state', 'chemicalPhysicalState'],
+  ['ch.bulk_density', 'chemicalBulkDensity'],
   ['ch.storage_group', 'chemicalStorageGroup'],
   ['ch.extra_hazard_groups', 'chemicalExtraHazardGroups'],
   ['ch.ghs_pictograms', 'chemicalGhsPictograms'],

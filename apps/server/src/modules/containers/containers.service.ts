@@ -1,4 +1,12 @@
-import { addDays, ChemError, convert, dimensionOf, toMass, toVolume } from '@lotwise/chem';
+import {
+  addDays,
+  bulkDensityMissingMessage,
+  ChemError,
+  convert,
+  dimensionOf,
+  toMass,
+  toVolume,
+} from '@lotwise/chem';
 import {
   amountProblem,
   formatLabelCode,
@@ -20,6 +28,7 @@ import {
   type LedgerReason,
   type Page,
   type SegregationWarning,
+  type PhysicalState,
   type StockUnit,
   type User,
   type adjustmentSchema,
@@ -60,6 +69,8 @@ interface ChemicalFacts {
   name: string;
   density: number | null;
   stockUnit: StockUnit;
+  physicalState: PhysicalState;
+  bulkDensity: number | null;
 }
 
 function show(value: number): string {
@@ -98,11 +109,26 @@ function convertToStockUnit(
     const dimension = dimensionOf(unit);
     const target = chemical.stockUnit;
     if (dimension === dimensionOf(target)) return convert(value, unit, target);
-    const properties = { density: chemical.density ?? undefined };
+    const properties = {
+      physicalState: chemical.physicalState,
+      ...(chemical.density === null ? {} : { density: chemical.density }),
+      ...(chemical.bulkDensity === null ? {} : { bulkDensity: chemical.bulkDensity }),
+    };
     return target === 'g'
       ? toMass({ value, unit }, properties)
       : toVolume({ value, unit }, properties);
   } catch (error) {
+    if (error instanceof ChemError && error.code === 'bulk_density_missing') {
+      const message = bulkDensityMissingMessage(
+        `${show(value)} ${unit} of ${chemical.name}`,
+        chemical.stockUnit,
+      );
+      const sentence = message.charAt(0).toUpperCase() + message.slice(1) + '.';
+      throw AppError.validation(sentence, {
+        bulkDensity: `is not recorded for ${chemical.name}: add it (g/mL of the poured solid) or weigh it`,
+        [field]: `${chemical.name} is a solid: enter the amount in ${chemical.stockUnit}, or record its bulk density`,
+      });
+    }
     if (error instanceof ChemError && error.code === 'density_missing') {
       throw AppError.validation(
         `${chemical.name} has no density, so ${show(value)} ${unit} cannot be turned into ${chemical.stockUnit}. Add its density (g/mL) to the chemical, or enter the amount in ${chemical.stockUnit}.`,
@@ -150,6 +176,8 @@ export function presentContainer(
       formula: view.chemicalFormula,
       casNumber: view.chemicalCasNumber,
       density: view.chemicalDensity,
+      physicalState: view.chemicalPhysicalState,
+      bulkDensity: view.chemicalBulkDensity,
       storageGroup: view.chemicalStorageGroup,
       extraHazardGroups: view.chemicalExtraHazardGroups,
       ghsPictograms: view.chemicalGhsPictograms,

@@ -172,7 +172,11 @@ describe('draws', () => {
   });
 
   it('when a volume is drawn from a chemical without density, then 400 names density and says what to do', async () => {
-    const chemical = await make.chemical({ physicalState: 'solid', stockUnit: 'g', density: null });
+    const chemical = await make.chemical({
+      physicalState: 'liquid',
+      stockUnit: 'g',
+      density: null,
+    });
     const lot = await make.lot(chemical.id);
     const shelf = await make.location();
     const container = await make.container(lot.id, shelf.id);

@@ -1,4 +1,4 @@
-import { convert } from '@lotwise/chem';
+import { convert, measuringDensity } from '@lotwise/chem';
 import {
   amountProblem,
   chemicalCreateSchema,
@@ -10,6 +10,7 @@ import {
   type ImportSummary,
   type LocationKind,
   type PeroxideClass,
+  type PhysicalState,
   type StockUnit,
 } from '@lotwise/shared';
 import { roundQuantity } from '../containers/containers.service';
@@ -22,6 +23,9 @@ export interface KnownChemical {
   casNumber: string | null;
   stockUnit: StockUnit;
   density: number | null;
+  physicalState: PhysicalState;
+  /** g/mL of the poured solid: what a volume of a solid is converted with. */
+  bulkDensity: number | null;
   peroxideClass: PeroxideClass | null;
 }
 export interface KnownLocation {
@@ -477,7 +481,15 @@ export async function planImport(
     const knownChemical = knownChemicals.get(chemicalKey);
     const draft = drafts.get(chemicalKey);
     const stockUnit = knownChemical?.stockUnit ?? draft!.stockUnit;
-    const density = knownChemical ? knownChemical.density : draft!.values.density;
+    // A solid crosses mass and volume only through its bulk density (never the crystal's).
+    const density = measuringDensity(
+      knownChemical ?? {
+        physicalState:
+          draft!.values.physicalState ?? (draft!.stockUnit === 'mL' ? 'liquid' : 'solid'),
+        density: draft!.values.density,
+      },
+    );
+    const solid = (knownChemical?.physicalState ?? draft!.values.physicalState) === 'solid';
     const chemicalName = knownChemical?.name ?? draft!.name;
     const c = row.container;
     let quantity: number;
@@ -488,9 +500,11 @@ export async function planImport(
         row,
         'unit',
         c.unit,
-        knownChemical
-          ? `${chemicalName} is counted in ${stockUnit} in Lotwise and has no density, so ${c.unit} cannot be converted: give the quantity in ${stockUnit}, or add the density to the chemical first`
-          : `${chemicalName} is counted in ${stockUnit} (from row ${draft!.row}) and no density is given, so ${c.unit} cannot be converted: give Density (g/mL), or the quantity in ${stockUnit}`,
+        solid
+          ? `${chemicalName} is a solid counted in ${stockUnit}, and a solid is converted between mass and volume only with its bulk (poured) density, which ${knownChemical ? 'is not recorded' : 'an import cannot give'}: give the quantity in ${stockUnit}${knownChemical ? ', or record the bulk density on the chemical first' : ''}`
+          : knownChemical
+            ? `${chemicalName} is counted in ${stockUnit} in Lotwise and has no density, so ${c.unit} cannot be converted: give the quantity in ${stockUnit}, or add the density to the chemical first`
+            : `${chemicalName} is counted in ${stockUnit} (from row ${draft!.row}) and no density is given, so ${c.unit} cannot be converted: give Density (g/mL), or the quantity in ${stockUnit}`,
       );
       continue;
     } else {

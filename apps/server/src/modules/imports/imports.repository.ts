@@ -103,6 +103,8 @@ export function importsRepository(manager: EntityManager) {
           'casNumber',
           'stockUnit',
           'density',
+          'physicalState',
+          'bulkDensity',
           'peroxideClass',
         ] as const),
       });
@@ -112,6 +114,8 @@ export function importsRepository(manager: EntityManager) {
         casNumber: row.casNumber,
         stockUnit: row.stockUnit,
         density: row.density,
+        physicalState: row.physicalState,
+        bulkDensity: row.bulkDensity,
         peroxideClass: row.peroxideClass,
       }));
     },

@@ -24,7 +24,12 @@ import type { Repositories, Store } from '../../db/store';
 import { nowIso } from '../../db/sql';
 import type { ChemicalRow } from '../chemicals/chemical.entity';
 import { toStockUnit } from '../containers/containers.service';
-import { chemLinesOf, loadProcedure, type LoadedProcedure } from '../procedures/procedures.service';
+import {
+  chemLinesOf,
+  loadProcedure,
+  requireMeasurableFactor,
+  type LoadedProcedure,
+} from '../procedures/procedures.service';
 import type { PlanRow } from './plan.entity';
 import type { ReservationView } from './plans.repository';
 import { heldNowOf } from './holds';
@@ -236,6 +241,11 @@ export function plansService(store: Store) {
             procedureId: `no procedure #${input.procedureId}`,
           });
         }
+        requireMeasurableFactor(
+          await loadProcedure(repos, input.procedureId),
+          input.scaleFactor,
+          'scaleFactor',
+        );
         const now = nowIso();
         const id = await repos.plans.insert({
           procedureId: input.procedureId,
@@ -259,6 +269,10 @@ export function plansService(store: Store) {
         const plan = await requirePlan(repos, id);
         requireOwnPlan(plan, actor);
         refuseClosed(plan, 'changed');
+        if (patch.scaleFactor !== undefined) {
+          const procedure = await loadProcedure(repos, plan.procedureId);
+          requireMeasurableFactor(procedure, patch.scaleFactor, 'scaleFactor');
+        }
         await repos.plans.update(id, { ...patch, updatedAt: nowIso() });
         return detail(repos, id);
       });

@@ -156,6 +156,49 @@ describe('prep plans: the stock check', () => {
   });
 });
 
+describe('prep plans: pure substance', () => {
+  it('when a plan needs 88 mL of 1 M NaOH, then the pure substance is 3.52 g of NaOH and the 13 mL on the shelf is counted as solution', async () => {
+    const solution = await make.chemical('Sodium hydroxide solution 1 M', 'NaOH', {
+      density: 1.04, // from memory: 1 M NaOH is about 1.04 g/mL
+      physicalState: 'solution',
+      stockUnit: 'mL',
+    });
+    const shelf = await make.location({
+      name: `Base shelf ${Math.random().toString(36).slice(2, 6)}`,
+    });
+    const lot = await make.lot(solution.id);
+    await make.container(lot.id, shelf.id, { quantity: 13, unit: 'mL' });
+    const procedure = await make.procedure({
+      title: 'Titration with NaOH 1 M',
+      lines: [
+        {
+          chemicalId: solution.id,
+          role: 'reagent',
+          quantity: 88,
+          unit: 'mL',
+          concentration: { molarity: 1 },
+        },
+      ],
+    });
+    const detail = await plan({
+      procedureId: procedure.id,
+      scaleFactor: 1,
+      benches: 1,
+      overagePercent: 0,
+      plannedOn: nextWeek,
+    });
+    const line = detail.stockCheck.lines[0]!;
+    // Availability and shortfall stay in mL of solution: 88 − 13 = 75 mL short.
+    expect(line).toMatchObject({ required: 88, available: 13, shortfall: 75, status: 'short' });
+    // worked-examples.md (250 mL of 1.00 M NaOH = 9.999 g, so 39.997 g/mol, CIAAW2021):
+    // 0.088 L x 1 mol/L x 39.997 g/mol = 3.5197 g of NaOH, not 88 x 1.04 = 91.52 g of solution
+    expect(line.requiredPureG).toBeCloseTo(3.5197, 4);
+    // calc: 13 mL -> 0.013 mol -> 0.51996 g; 75 mL short -> 2.9998 g
+    expect(line.availablePureG).toBeCloseTo(0.51996, 5);
+    expect(line.shortfallPureG).toBeCloseTo(2.99978, 5);
+  });
+});
+
 describe('reservations', () => {
   it('when two plans compete for one container, then the second sees less and cannot over-reserve; cancelling the first frees it', async () => {
     const s = await stockedAspirin();

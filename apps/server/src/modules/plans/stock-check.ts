@@ -3,6 +3,7 @@ import {
   displayQuantity,
   factorForProduct,
   lineAmounts,
+  measuringDensity,
   type ProcedureLine,
 } from '@lotwise/chem';
 import {
@@ -47,6 +48,12 @@ interface Requirement {
   optional: boolean;
   /** As supplied at the chemical's default purity, stock unit, per bench. */
   perBench: number | null;
+  /**
+   * Grams of pure substance in one stock unit of pure stock: the solute a millilitre of a
+   * 1 M NaOH solution holds (0.039997 g), the density of a neat liquid, 1 for a mass.
+   * Null when unknown.
+   */
+  gramsPerPureUnit: number | null;
   problem: string | null;
 }
 
@@ -58,11 +65,22 @@ function show(value: number): string {
 function stockAmountOf(
   line: ProcedureLine,
   chemical: ChemicalRow,
-): { value: number | null; problem: string | null } {
+): { value: number | null; gramsPerPureUnit: number | null; problem: string | null } {
   try {
     const amounts = lineAmounts(line);
     const value = chemical.stockUnit === 'g' ? amounts.massG : amounts.volumeMl;
-    if (value !== undefined) return { value, problem: null };
+    if (value !== undefined) {
+      // The pure substance is what packages/chem says the line holds of the substance itself
+      // (for a solution, its solute), not the mass of what is measured.
+      const purePerBench = value * (chemical.defaultPurityPercent / 100);
+      const gramsPerPureUnit =
+        amounts.pureMassG !== undefined && purePerBench > 0
+          ? amounts.pureMassG / purePerBench
+          : line.concentration
+            ? null // a solution's solute is unknown without its molar mass
+            : neatGramsPerUnit(chemical);
+      return { value, gramsPerPureUnit, problem: null };
+    }
     const need =
       chemical.stockUnit === 'mL' && amounts.massG !== undefined
         ? 'its density'
@@ -71,12 +89,20 @@ function stockAmountOf(
           : 'a molar mass or density';
     return {
       value: null,
+      gramsPerPureUnit: null,
       problem: `${chemical.name} is counted in ${chemical.stockUnit}: give ${need} to turn ${show(line.quantity?.value ?? 0)} ${line.quantity?.unit ?? ''} into ${chemical.stockUnit}`,
     };
   } catch (error) {
-    if (error instanceof ChemError) return { value: null, problem: error.message };
+    if (error instanceof ChemError) {
+      return { value: null, gramsPerPureUnit: null, problem: error.message };
+    }
     throw error;
   }
+}
+
+/** Grams per stock unit of a material taken as it is (a solvent): 1 for g, else its density. */
+function neatGramsPerUnit(chemical: ChemicalRow): number | null {
+  return chemical.stockUnit === 'g' ? 1 : measuringDensity(chemical);
 }
 
 /** What each bench needs, line by line (products are made, not drawn). */
@@ -94,6 +120,7 @@ export function requirementsOf(procedure: LoadedProcedure, scaleFactor: number):
       role: line.role,
       optional: line.optional,
       perBench: amount.value,
+      gramsPerPureUnit: amount.gramsPerPureUnit,
       problem: amount.problem,
     });
     if (line.dissolvedInChemicalId !== null) {
@@ -117,6 +144,7 @@ export function requirementsOf(procedure: LoadedProcedure, scaleFactor: number):
         role: 'solvent',
         optional: line.optional,
         perBench,
+        gramsPerPureUnit: neatGramsPerUnit(solvent),
         problem,
       });
     }
@@ -189,9 +217,11 @@ async function prepareSuggestions(
   return suggestions;
 }
 
-function pureGrams(pureStock: number, chemical: ChemicalRow): number | null {
-  if (chemical.stockUnit === 'g') return tidy(pureStock);
-  return chemical.density === null ? null : tidy(pureStock * chemical.density);
+/** Pure stock (in the stock unit) as grams of the substance itself; null when unknown. */
+function pureGrams(pureStock: number, requirement: Requirement): number | null {
+  return requirement.gramsPerPureUnit === null
+    ? null
+    : tidy(pureStock * requirement.gramsPerPureUnit);
 }
 
 function display(value: number | null, unit: StockUnit) {
@@ -318,12 +348,12 @@ export async function stockCheckOf(
       required: required === null ? null : tidy(required),
       requiredDisplay: display(required, chemical.stockUnit),
       requiredPure: requiredPure === null ? null : tidy(requiredPure),
-      requiredPureG: requiredPure === null ? null : pureGrams(requiredPure, chemical),
+      requiredPureG: requiredPure === null ? null : pureGrams(requiredPure, requirement),
       available: tidy(available),
       availablePure: tidy(availablePure),
-      availablePureG: pureGrams(availablePure, chemical),
+      availablePureG: pureGrams(availablePure, requirement),
       shortfall,
-      shortfallPureG: shortfall > 0 ? pureGrams(shortPure, chemical) : 0,
+      shortfallPureG: shortfall > 0 ? pureGrams(shortPure, requirement) : 0,
       status,
       problem: requirement.problem,
       take,

@@ -1,5 +1,6 @@
 import {
   ChemError,
+  checkMeasurableFactor,
   computeStoichiometry,
   displayQuantity,
   factorForLimitingReagent,
@@ -46,6 +47,8 @@ export function factsOf(chemical: ChemicalRow): LineChemicalFacts {
     molarMass: chemical.molarMass,
     density: chemical.density,
     defaultPurityPercent: chemical.defaultPurityPercent,
+    physicalState: chemical.physicalState,
+    bulkDensity: chemical.bulkDensity,
   };
 }
 
@@ -104,6 +107,27 @@ export function chemProblem(error: unknown, prefix = 'lines'): never {
     throw AppError.validation(error.message, { [field]: error.message });
   }
   throw error;
+}
+
+/**
+ * Refuse a scale factor at which every line of the procedure rounds to zero on the balance
+ * and the glassware (400 on `field`, stating the lowest factor they allow).
+ */
+export function requireMeasurableFactor(
+  procedure: LoadedProcedure,
+  factor: number,
+  field = 'factor',
+): number {
+  try {
+    return checkMeasurableFactor(chemLinesOf(procedure), factor);
+  } catch (error) {
+    if (error instanceof ChemError && error.code === 'factor_too_small') {
+      const message = `${error.message.charAt(0).toUpperCase()}${error.message.slice(1)}.`;
+      throw AppError.validation(message, { [field]: error.message });
+    }
+    if (error instanceof ChemError) return factor; // lines that cannot be worked out say so elsewhere
+    throw error;
+  }
 }
 
 function tryStoichiometry(procedure: LoadedProcedure, factor = 1) {
@@ -207,6 +231,8 @@ export async function presentProcedure(
           molarMass: chemical.molarMass,
           density: chemical.density,
           defaultPurityPercent: chemical.defaultPurityPercent,
+          physicalState: chemical.physicalState,
+          bulkDensity: chemical.bulkDensity,
           stockUnit: chemical.stockUnit,
           ghsPictograms: chemical.ghsPictograms,
           hazardStatements: chemical.hazardStatements,
@@ -355,6 +381,8 @@ export function proceduresService(store: Store) {
       const base = chemLinesOf(procedure);
       let factor: number;
       let basis: ScaledProcedure['basis'] = 'factor';
+      let yieldBasis: ScaledProcedure['yieldBasis'] = null;
+      let notice: string | null = null;
       try {
         if (query.factor !== undefined) factor = query.factor;
         else if (query.targetLimitingMass !== undefined) {
@@ -365,17 +393,32 @@ export function proceduresService(store: Store) {
           });
         } else {
           basis = 'product';
+          const expected = procedure.row.expectedYieldPercent;
+          yieldBasis = query.basis === 'expected' && expected !== null ? 'expected' : 'theoretical';
+          if (query.basis === 'expected' && expected === null) {
+            notice =
+              'This procedure states no expected yield, so the factor was worked out from the theoretical yield (100 %): expect less product than the target. Record runs or add an expected yield to the procedure to plan for the real one.';
+          }
           factor = factorForProduct(
             base,
             { value: query.targetProductMass!, unit: query.unit },
-            query.basis === 'expected' && procedure.row.expectedYieldPercent !== null
-              ? { expectedYieldPercent: procedure.row.expectedYieldPercent }
+            yieldBasis === 'expected' && expected !== null
+              ? { expectedYieldPercent: expected }
               : {},
           );
         }
       } catch (error) {
         chemProblem(error, query.factor !== undefined ? 'factor' : 'unit');
       }
+      requireMeasurableFactor(
+        procedure,
+        factor,
+        query.factor !== undefined
+          ? 'factor'
+          : query.targetLimitingMass !== undefined
+            ? 'targetLimitingMass'
+            : 'targetProductMass',
+      );
       const scaledLines = chemLinesOf(procedure, factor);
       let result: StoichiometryResult;
       try {
@@ -388,6 +431,8 @@ export function proceduresService(store: Store) {
         title: procedure.row.title,
         factor,
         basis,
+        yieldBasis,
+        notice,
         lines: procedure.lines.map((line, index) => {
           const chem = scaledLines[index]!;
           const computed = result.lines[index];

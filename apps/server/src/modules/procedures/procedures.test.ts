@@ -215,3 +215,54 @@ describe('procedures', () => {
       .expect(204);
   });
 });
+
+describe('scale factors', () => {
+  it('when every line would round to zero, then the factor is refused with the lowest factor the balance and glassware allow', async () => {
+    const { procedure } = await make.aspirin();
+    // 2.0 g, 5.0 mL and 0.25 mL at x0.00001: 0.02 mg, 0.00005 mL, 0.0000025 mL all read 0
+    const refused = await get(`/api/procedures/${procedure.id}/scaled?factor=0.00001`).expect(400);
+    // calc: 0.1 mg / 2.0 g = 0.00005 (finest balance step, common practice, no source);
+    // 0.01 mL / 0.25 mL = 0.04 (finest glassware step)
+    expect(refused.body.error.fields.factor).toContain('every amount rounds to zero');
+    expect(refused.body.error.fields.factor).toContain('the lowest factor they allow is ×0.00005');
+    expect(refused.body.error.fields.factor).toContain('from ×0.04 every line can be measured');
+    // at x0.00005 the salicylic acid reads 0.0001 g: allowed
+    const lowest = scaledProcedureSchema.parse(
+      (await get(`/api/procedures/${procedure.id}/scaled?factor=0.00005`).expect(200)).body,
+    );
+    expect(lowest.lines[0]!.display!.text).toBe('0.0001 g');
+    const plan = await request(app())
+      .post('/api/plans')
+      .set('Cookie', manager)
+      .send({
+        procedureId: procedure.id,
+        scaleFactor: 0.00001,
+        benches: 1,
+        plannedOn: '2099-01-01',
+      })
+      .expect(400);
+    expect(plan.body.error.fields.scaleFactor).toContain(
+      'the lowest factor they allow is ×0.00005',
+    );
+  });
+
+  it('when basis=expected is asked of a procedure without an expected yield, then the answer says it fell back to theory', async () => {
+    const { procedure } = await make.aspirin({ expectedYieldPercent: null });
+    const query = 'targetProductMass=2.609&unit=g&basis=expected';
+    const fallback = scaledProcedureSchema.parse(
+      (await get(`/api/procedures/${procedure.id}/scaled?${query}`).expect(200)).body,
+    );
+    // worked-examples.md: the theoretical yield at base scale is 2.609 g, so the factor is 1
+    expect(fallback.factor).toBeCloseTo(1, 3);
+    expect(fallback.yieldBasis).toBe('theoretical');
+    expect(fallback.notice).toContain('no expected yield');
+    expect(fallback.notice).toContain('theoretical yield');
+    const { procedure: withYield } = await make.aspirin({ expectedYieldPercent: 80 });
+    const expected = scaledProcedureSchema.parse(
+      (await get(`/api/procedures/${withYield.id}/scaled?${query}`).expect(200)).body,
+    );
+    // calc: 2.609 g / (2.609 g x 0.80) = 1.25
+    expect(expected.factor).toBeCloseTo(1.25, 3);
+    expect(expected).toMatchObject({ yieldBasis: 'expected', notice: null });
+  });
+});

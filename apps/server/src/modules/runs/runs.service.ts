@@ -2,6 +2,7 @@ import {
   ChemError,
   computeStoichiometry,
   convert,
+  measuringDensity,
   percentYield,
   YIELD_ABOVE_100_ADVICE,
   type ProcedureLine,
@@ -561,14 +562,12 @@ export async function recordRunWith(
       : null;
   const mainChemical =
     mainIndex === undefined ? undefined : chemicals.get(procedure.lines[mainIndex]!.chemicalId);
-  const toGrams = (stockQuantity: number, chemical: ChemicalRow | undefined) =>
-    !chemical
-      ? null
-      : chemical.stockUnit === 'g'
-        ? stockQuantity
-        : chemical.density === null
-          ? null
-          : stockQuantity * chemical.density;
+  const toGrams = (stockQuantity: number, chemical: ChemicalRow | undefined) => {
+    if (!chemical) return null;
+    if (chemical.stockUnit === 'g') return stockQuantity;
+    const density = measuringDensity(chemical); // a solid's bulk density, never its crystal's
+    return density === null ? null : stockQuantity * density;
+  };
   const productMassG = mainTotal > 0 ? toGrams(mainTotal, mainChemical) : null;
 
   // 4. Each portion becomes a prepared lot and a labelled container.

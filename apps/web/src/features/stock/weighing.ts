@@ -1,20 +1,25 @@
-import { type UnitSymbol, unitsOf, weighByDifference } from '@lotwise/chem';
+import { measuringDensity, type UnitSymbol, unitsOf, weighByDifference } from '@lotwise/chem';
 import type { StockUnit } from '@lotwise/shared';
 
-/** The chemical facts a draw needs: what it is counted in and, to cross mass and volume, its density. */
+/**
+ * The chemical facts a draw needs: what it is counted in and, to cross mass and volume, its
+ * density (for a solid, its bulk density only).
+ */
 export interface DrawChemical {
   stockUnit: StockUnit;
   density: number | null;
+  physicalState?: string;
+  bulkDensity?: number | null;
 }
 
 /**
  * Units a person may enter a draw in: the stock unit's kind, and the other kind when the
- * density allows converting (a liquid weighed, or a solid's volume never offered without one).
+ * density allows converting (a liquid weighed; a solid by volume only with a bulk density).
  */
 export function drawUnits(chemical: DrawChemical): UnitSymbol[] {
   const masses = unitsOf('mass').filter((u) => u !== 'µg');
   const volumes = unitsOf('volume');
-  if (chemical.density !== null)
+  if (measuringDensity(chemical) !== null)
     return chemical.stockUnit === 'mL' ? [...volumes, ...masses] : [...masses, ...volumes];
   return chemical.stockUnit === 'mL' ? volumes : masses;
 }
@@ -34,7 +39,7 @@ const problemMessages = {
     'This container has no tare mass recorded, so a gross mass cannot be turned into its contents. Enter the amount taken instead.',
   not_a_mass: 'A gross mass is weighed: use g, mg or kg.',
   no_density:
-    'The chemical has no density recorded, so a mass cannot be turned into mL. Enter the volume taken instead.',
+    'The chemical has no density recorded (for a solid: no bulk density), so a mass cannot be turned into mL. Enter the volume taken instead.',
   above_balance:
     'The container now holds more than its balance: a draw cannot add stock. Ask someone with the manager role to record an adjustment.',
 } as const;
@@ -58,7 +63,7 @@ export function previewWeighing(input: {
     tareMass,
     balance: input.balance,
     stockUnit: chemical.stockUnit,
-    density: chemical.density,
+    density: measuringDensity(chemical),
   });
   if (result.ok) return result;
   const { problem, netMass, net } = result;

@@ -55,6 +55,7 @@ export function chemicalToFormValues(chemical: Chemical): ChemicalFormValues {
     formula: chemical.formula,
     physicalState: chemical.physicalState,
     density: chemical.density,
+    bulkDensity: chemical.bulkDensity,
     defaultPurityPercent: chemical.defaultPurityPercent,
     ghsPictograms: chemical.ghsPictograms,
     hazardStatements: chemical.hazardStatements,
@@ -75,6 +76,7 @@ const labels: Record<keyof ChemicalFormValues, string> = {
   formula: 'Formula',
   physicalState: 'Physical state',
   density: 'Density',
+  bulkDensity: 'Bulk density',
   defaultPurityPercent: 'Default purity',
   ghsPictograms: 'Pictograms',
   hazardStatements: 'Hazard statements',
@@ -240,7 +242,7 @@ export function ChemicalForm({
             label="Formula"
             optional
             {...hint('formula')}
-            hint="Hill or common notation; hydrates with · . or * (e.g. CuSO4·5H2O)."
+            hint="Hill or common notation; hydrates with ·, a spaced . or * (e.g. CuSO4·5H2O, CuSO4 . 5H2O)."
             live={errors.formula ? undefined : <MolarMassPreview formula={formula} />}
           >
             {(c) => (
@@ -439,7 +441,7 @@ export function ChemicalForm({
             label="Density (g/mL at 20 °C)"
             optional
             {...hint('density')}
-            hint="Lets Lotwise convert between mass and volume."
+            hint="Lets Lotwise convert between mass and volume of a liquid or solution. For a solid, the density of the crystal: never used to measure it by volume."
           >
             {(c) => (
               <Input
@@ -447,6 +449,21 @@ export function ChemicalForm({
                 inputMode="decimal"
                 className="tabular-nums"
                 {...register('density', { setValueAs: toNumber })}
+              />
+            )}
+          </Field>
+          <Field
+            label="Bulk density of the poured solid (g/mL)"
+            optional
+            {...hint('bulkDensity')}
+            hint="Solids only: the mass of a loosely poured millilitre, air included. Without it a solid is weighed, never measured by volume."
+          >
+            {(c) => (
+              <Input
+                {...c}
+                inputMode="decimal"
+                className="tabular-nums"
+                {...register('bulkDensity', { setValueAs: toNumber })}
               />
             )}
           </Field>

@@ -154,9 +154,25 @@ export function ChemicalDetailPage() {
             <span className="tabular-nums">{formatMolarMass(c.molarMass)}</span>
           </Property>
           <Property term="Physical state">{physicalStateLabels[c.physicalState]}</Property>
-          <Property term="Density at 20 °C">
+          <Property term={c.physicalState === 'solid' ? 'Crystal density' : 'Density at 20 °C'}>
             <span className="tabular-nums">{formatDensity(c.density)}</span>
           </Property>
+          {c.physicalState === 'solid' && (
+            <Property term="Bulk density (poured)">
+              {c.bulkDensity === null ? (
+                <span className="text-ink-600">
+                  Not recorded: this solid is weighed, never measured by volume
+                </span>
+              ) : (
+                <span className="tabular-nums">
+                  {formatDensity(c.bulkDensity)}
+                  <span className="block text-xs text-ink-600">
+                    used when it is measured by volume
+                  </span>
+                </span>
+              )}
+            </Property>
+          )}
           <Property term="Default purity">
             <span className="tabular-nums">{formatPercent(c.defaultPurityPercent)}</span>
           </Property>

@@ -1,5 +1,5 @@
 import { useId } from 'react';
-import { massToVolume, weighByDifference } from '@lotwise/chem';
+import { massToVolume, measuringDensity, weighByDifference } from '@lotwise/chem';
 import type { Container } from '@lotwise/shared';
 import { Calculator, CircleAlert, Trash2 } from 'lucide-react';
 import { ContainerHolds } from '../../../components/holds/container-holds';
@@ -71,7 +71,7 @@ function weighingPreview(draw: DrawValues, container: Container | undefined): Pr
   const after = parseDecimal(draw.grossAfter);
   const before = parseDecimal(draw.grossBefore);
   if (after === null || Number.isNaN(after)) return null;
-  const density = container.chemical.density;
+  const density = measuringDensity(container.chemical);
   const stockUnit = container.unit;
   let result;
   if (before !== null && !Number.isNaN(before)) {
@@ -101,7 +101,8 @@ function weighingPreview(draw: DrawValues, container: Container | undefined): Pr
       'This container has no tare recorded: weigh it before and after, or enter the amount taken.',
     not_a_mass: 'A gross mass is weighed in g.',
     below_tare: 'That is less than the tare: weigh again with the cap on.',
-    no_density: 'The chemical has no density recorded, so a mass cannot be turned into mL.',
+    no_density:
+      'The chemical has no density recorded (for a solid: no bulk density), so a mass cannot be turned into mL.',
     above_balance: 'After is more than before: a draw cannot add stock.',
   };
   return { ok: false, message: messages[result.problem] };

@@ -15,6 +15,8 @@ export function toPicked(chemical: Chemical): PickedChemical {
     molarMass: chemical.molarMass,
     density: chemical.density,
     defaultPurityPercent: chemical.defaultPurityPercent,
+    physicalState: chemical.physicalState,
+    bulkDensity: chemical.bulkDensity,
     stockUnit: chemical.stockUnit,
     ghsPictograms: chemical.ghsPictograms,
     hazardStatements: chemical.hazardStatements,

@@ -137,11 +137,27 @@ function ScaledView({ scaled }: { scaled: ScaledProcedure }) {
         {scaled.basis !== 'factor' && (
           <span className="text-ink-600">
             {' '}
-            (worked out from the {scaled.basis === 'product' ? 'product' : 'limiting reagent'})
+            (worked out from the{' '}
+            {scaled.basis === 'product'
+              ? `product at its ${scaled.yieldBasis === 'expected' ? 'expected' : 'theoretical'} yield`
+              : 'limiting reagent'}
+            )
           </span>
         )}
         .
       </p>
+      {scaled.notice && (
+        <Notice
+          tone="warn"
+          title={
+            scaled.yieldBasis === 'theoretical'
+              ? 'Worked out from the theoretical yield'
+              : 'About this factor'
+          }
+        >
+          <span data-testid="scale-notice">{scaled.notice}</span>
+        </Notice>
+      )}
       <div className="overflow-x-auto rounded-lg border border-ink-200">
         <table aria-label="Scaled lines" className="w-full text-sm">
           <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs text-ink-600 uppercase">
