@@ -25,6 +25,7 @@ import { Stock1796250000000 } from './migrations/1796250000000-stock';
 import { Preparations1796500000000 } from './migrations/1796500000000-preparations';
 import { ImportsAndFiles1796340000000 } from './migrations/1796340000000-imports-and-files';
 import { Alerts1796420000000 } from './migrations/1796420000000-alerts';
+import { RunCrudeYieldFlag1796620000000 } from './migrations/1796620000000-run-crude-yield-flag';
 
 export const entities = [
   UserEntity,
@@ -54,6 +55,7 @@ export const migrations = [
   ImportsAndFiles1796340000000,
   Alerts1796420000000,
   Preparations1796500000000,
+  RunCrudeYieldFlag1796620000000,
 ];
 
 /**

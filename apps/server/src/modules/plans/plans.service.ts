@@ -1,7 +1,7 @@
 import { displayQuantity, lineAmounts } from '@lotwise/chem';
 import {
-  can,
   hazardStatementTexts,
+  mayChangePlan,
   roundingRules,
   safetyDeferral,
   todayIso,
@@ -96,11 +96,11 @@ export async function sweepLapsedPlans(repos: Repositories, today = todayIso()):
   return ids;
 }
 
-/** A plan its author may change; anyone else needs `plans.manage`. */
+/** Editing, reserving for or cancelling a plan: its author or a manager (`mayChangePlan`). */
 export function requireOwnPlan(plan: PlanRow, actor: User) {
-  if (plan.createdById !== actor.id && !can(actor.role, 'plans.manage')) {
+  if (!mayChangePlan(actor, { authorId: plan.createdById })) {
     throw AppError.forbidden(
-      `Plan #${plan.id} belongs to someone else: only its author or a manager can change it.`,
+      `Plan #${plan.id} belongs to someone else: only its author or a manager can change or cancel it. You can still record a run from it.`,
     );
   }
 }

@@ -129,6 +129,7 @@ export function makeRun(overrides: Partial<Run> = {}): Run {
     crudePercentYield: null,
     expectedYieldPercent: 80,
     yieldFlag: null,
+    crudeYieldFlag: null,
     recordedAt: null,
     createdAt: '2026-12-02T09:00:00.000Z',
     notes: '',

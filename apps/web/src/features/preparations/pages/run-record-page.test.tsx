@@ -94,10 +94,18 @@ describe('Recording a run', () => {
           runs: [],
           stats: {
             count: 0,
+            purifiedCount: 0,
             meanPercentYield: null,
             minPercentYield: null,
             maxPercentYield: null,
             aboveHundredCount: 0,
+            crude: {
+              count: 0,
+              meanPercentYield: null,
+              minPercentYield: null,
+              maxPercentYield: null,
+              aboveHundredCount: 0,
+            },
           },
         },
       },
