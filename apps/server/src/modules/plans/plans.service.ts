@@ -446,8 +446,19 @@ export function plansService(store: Store) {
               take: take.take,
               unit: row.unit,
             })),
+            stock: {
+              status: row.status,
+              unit: row.unit,
+              shortfall: row.shortfall,
+              problem: row.problem,
+              suggestions: row.suggestions,
+              benchesCovered: row.benchesCovered,
+              remedy: row.remedy,
+            },
           };
         }),
+        shortCount: check.shortCount,
+        benchesServed: check.benchesServed,
         hazards: hazardsOf(chemicals.values()),
         cautions: {
           text: procedure.row.cautions,
