@@ -4,7 +4,7 @@ import { demo, signIn } from './support';
 test('when a technician plans 8 benches at 1/4 scale, then the shortfall, make-versus-buy, reservation and recorded run with two crops all follow', async ({
   page,
 }) => {
-  test.setTimeout(60_000);
+  test.setTimeout(120_000);
   await signIn(page, demo.manager);
 
   // plan the session
@@ -30,9 +30,38 @@ test('when a technician plans 8 benches at 1/4 scale, then the shortfall, make-v
 
   await page.getByRole('button', { name: 'Reserve', exact: true }).click();
   await expect(page.getByRole('table', { name: 'Held for this plan' })).toBeVisible();
+  const planUrl = page.url();
+
+  // every sheet says what is short: 13.5 mL serves 2 benches (5.5 mL a bench with overage)
+  await page.getByRole('link', { name: 'Dispensing sheet' }).click();
+  const totals = page.getByRole('region', { name: 'Session totals' });
+  await expect(totals).toBeVisible({ timeout: 20_000 });
+  await expect(totals.getByRole('note')).toContainText(
+    'Short: 1 line. Benches 1–2 can be served from what is on hand; benches 3–8 cannot.',
+  );
+  await expect(totals).toContainText('Prepare it first: Sodium hydroxide solution 1 M');
+  for (const bench of [1, 3, 8]) {
+    await expect(page.getByRole('region', { name: `Bench ${bench}` })).toContainText(
+      /Short by 30\.50? mL for the session/,
+    );
+  }
+  await expect(page.getByRole('region', { name: 'Bench 2' })).toContainText(
+    'Bench 2 can be served from what is on hand',
+  );
+  await expect(page.getByRole('region', { name: 'Bench 3' })).toContainText(
+    'Bench 3 cannot be served from what is on hand',
+  );
+
+  // a member runs the technician's plan: the run is theirs, the plan stays the technician's
+  await page.context().clearCookies();
+  await signIn(page, demo.member);
+  await page.goto(planUrl);
+  await expect(page.getByText(/Planned by .*You can record a run from this plan/)).toBeVisible();
+  await expect(page.getByRole('button', { name: 'Reserve again' })).toHaveCount(0);
+  await expect(page.getByRole('button', { name: 'Cancel plan' })).toHaveCount(0);
 
   // record the run: acetone (the limiting reagent) weighed before and after, benzaldehyde by amount
-  await page.getByRole('link', { name: 'Record the run' }).click();
+  await page.getByRole('link', { name: 'Record a run' }).click();
   await page.getByRole('button', { name: 'Start recording' }).click();
   const record = page.getByRole('form', { name: 'Record the run' });
   await expect(record).toBeVisible();

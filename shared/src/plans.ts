@@ -207,6 +207,13 @@ export const stockCheckLineSchema = z.object({
   problem: z.string().nullable(),
   take: z.array(stockTakeSchema),
   suggestions: z.array(stockSuggestionSchema),
+  /**
+   * Benches (of the plan's) that what is on hand serves for this line, its share of the
+   * overage included; null when the amount could not be worked out.
+   */
+  benchesCovered: z.number().int().nullable(),
+  /** What to do about a shortfall: prepare it first (a procedure makes it) or reorder it. */
+  remedy: z.enum(['prepare', 'reorder']).nullable(),
 });
 export type StockCheckLine = z.infer<typeof stockCheckLineSchema>;
 
@@ -217,6 +224,8 @@ export const stockCheckSchema = z.object({
   /** Every line that is not optional is covered. */
   ok: z.boolean(),
   shortCount: z.number().int(),
+  /** Benches 1 to this one can be served from what is on hand (required lines only). */
+  benchesServed: z.number().int(),
   rule: z.string(),
 });
 export type StockCheck = z.infer<typeof stockCheckSchema>;
@@ -304,6 +313,16 @@ export const dispensingLineSchema = z.object({
       unit: stockUnitSchema,
     }),
   ),
+  /** The stock check's word on this line, as the plan page shows it. */
+  stock: stockCheckLineSchema.pick({
+    status: true,
+    unit: true,
+    shortfall: true,
+    problem: true,
+    suggestions: true,
+    benchesCovered: true,
+    remedy: true,
+  }),
 });
 
 /** `GET /api/plans/:id/dispensing`: a printable sheet per bench. */
@@ -320,6 +339,9 @@ export const dispensingSheetSchema = z.object({
   benches: z.number().int(),
   overagePercent: z.number(),
   lines: z.array(dispensingLineSchema),
+  /** From the stock check: required lines short, and benches 1 to `benchesServed` served. */
+  shortCount: z.number().int(),
+  benchesServed: z.number().int(),
   hazards: z.array(planHazardSchema),
   cautions: planCautionsSchema,
   rules: z.array(z.string()),

@@ -15,7 +15,7 @@ export const roleLabels: Record<Role, string> = {
 export const roleDescriptions: Record<Role, string> = {
   admin: 'Everything, including users, roles and settings',
   manager: 'Stock, procedures, suppliers and orders; approves restricted items',
-  member: 'Sees stock, plans and records own runs, joins shared orders',
+  member: 'Sees stock, plans sessions, records runs from any plan, joins shared orders',
   viewer: 'Read-only: stock, locations, hazards, procedures',
 };
 
@@ -29,7 +29,10 @@ export const permissions = [
   'procedures.read',
   'procedures.write',
   'runs.record',
-  /** Change anyone's prep plans and runs (runs.record alone: only one's own). */
+  /**
+   * Change or cancel anyone's prep plans and record anyone's runs (runs.record alone: only
+   * one's own plans and runs; a run may still be started from anyone's plan).
+   */
   'plans.manage',
   'orders.read',
   'orders.join',
@@ -77,4 +80,33 @@ export const permissionMatrix: Record<Role, readonly Permission[]> = {
 /** True when `role` holds `permission`. */
 export function can(role: Role, permission: Permission): boolean {
   return permissionMatrix[role].includes(permission);
+}
+
+/** Who is asking, as the ownership rules need it. */
+export interface Actor {
+  id: number;
+  role: Role;
+}
+
+/**
+ * Editing, reserving for or cancelling a prep plan: its author (with `runs.record`) or anyone
+ * with `plans.manage`. In a teaching lab the technician plans and the members run.
+ */
+export function mayChangePlan(actor: Actor, plan: { authorId: number | null }): boolean {
+  if (can(actor.role, 'plans.manage')) return true;
+  return can(actor.role, 'runs.record') && plan.authorId !== null && plan.authorId === actor.id;
+}
+
+/**
+ * Starting a run from a prep plan: anyone with `runs.record` who can see the plan, whoever
+ * planned it. The run is the person's own; the plan stays its author's.
+ */
+export function mayRunFromPlan(actor: Actor): boolean {
+  return can(actor.role, 'runs.record');
+}
+
+/** Recording a run: the person performing it, or anyone with `plans.manage`. */
+export function mayRecordRun(actor: Actor, run: { performerId: number | null }): boolean {
+  if (can(actor.role, 'plans.manage')) return true;
+  return can(actor.role, 'runs.record') && run.performerId !== null && run.performerId === actor.id;
 }

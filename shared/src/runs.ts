@@ -204,11 +204,15 @@ export const runSummarySchema = z.object({
   crudeMassG: z.number().nullable(),
   /** All portions put into stock, g. */
   productMassG: z.number().nullable(),
+  /** Purified yield: the portions put into stock (null when none were). */
   percentYield: z.number().nullable(),
+  /** Crude yield: the crude mass weighed before purifying (null when not weighed). */
   crudePercentYield: z.number().nullable(),
   expectedYieldPercent: z.number().nullable(),
-  /** Set when the yield is above 100 %: probably wet or impure. */
+  /** Set when the purified yield is above 100 %: probably wet or impure. */
   yieldFlag: z.string().nullable(),
+  /** Set when the crude yield is above 100 %, whatever the purified yield. */
+  crudeYieldFlag: z.string().nullable(),
   recordedAt: z.string().nullable(),
   createdAt: z.string(),
 });
@@ -241,6 +245,16 @@ export const runListQuerySchema = listQuerySchema(runSortFields, 'createdAt.desc
 });
 export type RunListQuery = z.infer<typeof runListQuerySchema>;
 
+/** Yields of one kind over a procedure's recorded runs. */
+export const yieldStatsSchema = z.object({
+  count: z.number().int(),
+  meanPercentYield: z.number().nullable(),
+  minPercentYield: z.number().nullable(),
+  maxPercentYield: z.number().nullable(),
+  aboveHundredCount: z.number().int(),
+});
+export type YieldStats = z.infer<typeof yieldStatsSchema>;
+
 /** `GET /api/procedures/:id/runs`: yields over recorded runs against the expected yield. */
 export const procedureRunsSchema = z.object({
   procedure: z.object({
@@ -249,12 +263,18 @@ export const procedureRunsSchema = z.object({
     expectedYieldPercent: z.number().nullable(),
   }),
   runs: z.array(runSummarySchema),
+  /**
+   * Purified yields (runs that put product into stock); `count` is every recorded run.
+   * Crude yields are counted apart in `crude`, never mixed into these.
+   */
   stats: z.object({
     count: z.number().int(),
+    purifiedCount: z.number().int(),
     meanPercentYield: z.number().nullable(),
     minPercentYield: z.number().nullable(),
     maxPercentYield: z.number().nullable(),
     aboveHundredCount: z.number().int(),
+    crude: yieldStatsSchema,
   }),
 });
 export type ProcedureRuns = z.infer<typeof procedureRunsSchema>;

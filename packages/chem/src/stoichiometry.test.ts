@@ -5,6 +5,7 @@ import {
   computeStoichiometry,
   lineAmounts,
   percentYield,
+  productYields,
   type ProcedureLine,
   tryComputeStoichiometry,
   YIELD_ABOVE_100_ADVICE,
@@ -393,5 +394,37 @@ describe('errors', () => {
         computeStoichiometry([{ role: 'reagent', quantity: { value: 1, unit: 'g' }, density: -1 }]),
       ).code,
     ).toBe('not_positive');
+  });
+});
+
+describe('productYields', () => {
+  it('when the crude is above 100 % and the purified crops are not, then each yield carries its own flag', () => {
+    const theoretical = computeStoichiometry(aspirin()).lines[2]!.theoretical!.massG!;
+    // worked example (reference worked-examples.md), calc from CIAAW2021: 2.609 g theoretical
+    expect(sig(theoretical)).toBe(2.609);
+    // calc: a wet crude of 2.80 g / 2.6087 g = 107.3 %; 2.10 g purified -> 80.50 % (worked example)
+    const yields = productYields({ theoreticalG: theoretical, crudeG: 2.8, purifiedG: 2.1 });
+    expect(sig(yields.crude!.percent)).toBe(107.3);
+    expect(yields.crude!.flag).toBe(
+      `Crude yield 107.3 % is above 100 %: the crude product is ${YIELD_ABOVE_100_ADVICE}.`,
+    );
+    expect(yields.crude!.warnings.map((w) => w.code)).toEqual(['yield_above_100']);
+    expect(sig(yields.purified!.percent)).toBe(80.5);
+    expect(yields.purified!.flag).toBeNull();
+    expect(yields.purified!.warnings).toEqual([]);
+  });
+
+  it('when 34.1 g of crude is weighed for 29.876 g theoretical, then the crude yield of 114.1 % is flagged; a missing mass gives no yield', () => {
+    // calc: 34.1 / 29.876 = 114.14 %
+    const yields = productYields({ theoreticalG: 29.876, crudeG: 34.1, purifiedG: 25.0 });
+    expect(yields.crude!.flag).toMatch(/^Crude yield 114\.1 % is above 100 %/);
+    // calc: 25.0 / 29.876 = 83.68 %
+    expect(sig(yields.purified!.percent)).toBe(83.68);
+    expect(yields.purified!.flag).toBeNull();
+    const overPurified = productYields({ theoreticalG: 29.876, crudeG: null, purifiedG: 31 });
+    expect(overPurified.crude).toBeNull();
+    expect(overPurified.purified!.flag).toMatch(
+      /^Yield 103\.8 % is above 100 %: the product is probably wet/,
+    );
   });
 });

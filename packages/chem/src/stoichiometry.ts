@@ -476,3 +476,55 @@ export function tryComputeStoichiometry(
 ): Result<StoichiometryResult> {
   return toResult(() => computeStoichiometry(lines));
 }
+
+/** Which yield of a product: weighed before purifying, or what was put into stock after. */
+export type YieldKind = 'crude' | 'purified';
+
+/** One yield with its own flag (set above 100 %) and warnings. */
+export interface FlaggedYield {
+  kind: YieldKind;
+  percent: number;
+  /** A sentence for the run page and history, or null when nothing needs a look. */
+  flag: string | null;
+  warnings: ChemWarning[];
+}
+
+/**
+ * The flag a yield carries: above 100 % the product weighed is {@link YIELD_ABOVE_100_ADVICE}.
+ * A crude yield is judged on its own, whether or not purified crops were recorded too.
+ */
+export function yieldFlag(kind: YieldKind, percent: number): string | null {
+  // common practice, no source: over 100 % means solvent or impurities are being weighed
+  if (!(percent > 100)) return null;
+  const what = kind === 'crude' ? 'Crude yield' : 'Yield';
+  return `${what} ${show(Number(percent.toFixed(1)))} % is above 100 %: the ${kind === 'crude' ? 'crude ' : ''}product is ${YIELD_ABOVE_100_ADVICE}.`;
+}
+
+/** A percent yield (already worked out, e.g. by moles for a solution) with its flag. */
+export function flagYield(kind: YieldKind, percent: number): FlaggedYield {
+  const flag = yieldFlag(kind, percent);
+  return {
+    kind,
+    percent,
+    flag,
+    warnings: flag === null ? [] : [{ code: 'yield_above_100', message: flag }],
+  };
+}
+
+/**
+ * Crude and purified yields of one product against the same theoretical mass, each with
+ * its own flag: a wet crude above 100 % is flagged even when the purified crops are fine.
+ *
+ * @throws ChemError as {@link percentYield}
+ */
+export function productYields(input: {
+  theoreticalG: number;
+  crudeG?: number | null;
+  purifiedG?: number | null;
+}): { crude: FlaggedYield | null; purified: FlaggedYield | null } {
+  const of = (kind: YieldKind, grams: number | null | undefined) =>
+    grams === null || grams === undefined
+      ? null
+      : flagYield(kind, percentYield(grams, input.theoreticalG).percent);
+  return { crude: of('crude', input.crudeG), purified: of('purified', input.purifiedG) };
+}

@@ -3,6 +3,7 @@ import {
   allocateHolds,
   can,
   hazardStatementTexts,
+  mayChangePlan,
   roundingRules,
   safetyDeferral,
   todayIso,
@@ -119,11 +120,11 @@ export async function sweepLapsedPlans(repos: Repositories, today = todayIso()):
   return ids;
 }
 
-/** A plan its author may change; anyone else needs `plans.manage`. */
+/** Editing, reserving for or cancelling a plan: its author or a manager (`mayChangePlan`). */
 export function requireOwnPlan(plan: PlanRow, actor: User) {
-  if (plan.createdById !== actor.id && !can(actor.role, 'plans.manage')) {
+  if (!mayChangePlan(actor, { authorId: plan.createdById })) {
     throw AppError.forbidden(
-      `Plan #${plan.id} belongs to someone else: only its author or a manager can change it.`,
+      `Plan #${plan.id} belongs to someone else: only its author or a manager can change or cancel it. You can still record a run from it.`,
     );
   }
 }
@@ -479,8 +480,19 @@ export function plansService(store: Store) {
               take: take.take,
               unit: row.unit,
             })),
+            stock: {
+              status: row.status,
+              unit: row.unit,
+              shortfall: row.shortfall,
+              problem: row.problem,
+              suggestions: row.suggestions,
+              benchesCovered: row.benchesCovered,
+              remedy: row.remedy,
+            },
           };
         }),
+        shortCount: check.shortCount,
+        benchesServed: check.benchesServed,
         hazards: hazardsOf(chemicals.values()),
         cautions: {
           text: procedure.row.cautions,

@@ -1,5 +1,11 @@
 import { addDays } from '@lotwise/chem';
-import { planDetailSchema, safetyDeferral, todayIso, type PlanDetail } from '@lotwise/shared';
+import {
+  dispensingSheetSchema,
+  planDetailSchema,
+  safetyDeferral,
+  todayIso,
+  type PlanDetail,
+} from '@lotwise/shared';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { signedIn } from '../../test/factories';
@@ -328,6 +334,93 @@ describe('reservations', () => {
     expect(sheet.cautions.items.length).toBeGreaterThan(0);
     expect(sheet.rules).toHaveLength(3);
     expect(sheet.safetyDeferral).toBe(safetyDeferral);
+  });
+
+  it('when a plan is short on one line, then the sheet data says what is short, by how much, what to do and which benches can be served', async () => {
+    const s = await stockedAspirin();
+    const detail = await plan({
+      procedureId: s.procedure.id,
+      scaleFactor: '1/2',
+      benches: 4,
+      plannedOn: nextWeek,
+    });
+    const sheet = dispensingSheetSchema.parse(
+      (await get(`/api/plans/${detail.id}/dispensing`).expect(200)).body,
+    );
+    const [sa, ac2o, catalyst] = sheet.lines;
+    // The same numbers as the plan's stock check, not worked out again.
+    expect(ac2o!.stock).toEqual(
+      expect.objectContaining({
+        status: detail.stockCheck.lines[1]!.status,
+        shortfall: detail.stockCheck.lines[1]!.shortfall,
+      }),
+    );
+    // calc: 5.0 mL x 0.5 x 4 x 1.10 = 11 mL needed, 8 mL on hand -> 3 mL short; each bench
+    // needs 11 / 4 = 2.75 mL, so 8 mL serves 2 benches (8 / 2.75 = 2.9)
+    expect(ac2o!.stock).toMatchObject({
+      status: 'short',
+      shortfall: 3,
+      unit: 'mL',
+      remedy: 'reorder',
+      benchesCovered: 2,
+    });
+    expect(ac2o!.stock.suggestions[0]).toMatchObject({ kind: 'reorder', shortfall: 3 });
+    expect(sa!.stock).toMatchObject({
+      status: 'ok',
+      shortfall: 0,
+      remedy: null,
+      benchesCovered: 4,
+    });
+    // The optional catalyst is short too, but does not stop a bench being served.
+    expect(catalyst!.stock).toMatchObject({ status: 'short', benchesCovered: 0 });
+    expect(sheet).toMatchObject({ shortCount: 1, benchesServed: 2 });
+    expect(detail.stockCheck.benchesServed).toBe(2);
+  });
+
+  it('when a short chemical is made by another procedure, then the sheet says to prepare it first', async () => {
+    const naoh = await make.chemical('Sodium hydroxide', 'NaOH');
+    const solution = await make.chemical('Sodium hydroxide solution 1 M', 'NaOH', {
+      density: 1.04, // from memory: 1 M NaOH is about 1.04 g/mL
+      physicalState: 'solution',
+      stockUnit: 'mL',
+    });
+    await make.procedure({
+      title: 'NaOH 1 M for the sheet',
+      expectedYieldPercent: 95,
+      lines: [
+        { chemicalId: naoh.id, role: 'limiting-reagent', quantity: 4.0, unit: 'g' },
+        { chemicalId: solution.id, role: 'product', concentration: { molarity: 1 } },
+      ],
+    });
+    const user = await make.procedure({
+      title: 'Uses NaOH 1 M on the sheet',
+      lines: [
+        {
+          chemicalId: solution.id,
+          role: 'reagent',
+          quantity: 20,
+          unit: 'mL',
+          concentration: { molarity: 1 },
+        },
+      ],
+    });
+    const detail = await plan({
+      procedureId: user.id,
+      scaleFactor: 1,
+      benches: 2,
+      plannedOn: nextWeek,
+    });
+    const sheet = dispensingSheetSchema.parse(
+      (await get(`/api/plans/${detail.id}/dispensing`).expect(200)).body,
+    );
+    // calc: 20 mL x 2 x 1.10 = 44 mL, none on hand
+    expect(sheet.lines[0]!.stock).toMatchObject({
+      status: 'short',
+      shortfall: 44,
+      remedy: 'prepare',
+      benchesCovered: 0,
+    });
+    expect(sheet.benchesServed).toBe(0);
   });
 
   it('when a viewer reads plans, then they may; writing needs runs.record', async () => {

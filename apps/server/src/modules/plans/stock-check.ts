@@ -229,9 +229,26 @@ function display(value: number | null, unit: StockUnit) {
 }
 
 /**
+ * Benches a line can serve from what the check takes for it: each bench needs its share of
+ * the required amount (overage included), so a line short by a fraction of one bench serves
+ * one bench fewer. Null when the amount could not be worked out.
+ */
+function benchesCovered(
+  benches: number,
+  requiredPure: number | null,
+  shortPure: number,
+): number | null {
+  if (requiredPure === null) return null;
+  if (shortPure <= 1e-7 || requiredPure <= 0) return benches;
+  const perBench = requiredPure / benches;
+  return Math.max(0, Math.min(benches, Math.floor((requiredPure - shortPure) / perBench + 1e-9)));
+}
+
+/**
  * The stock check of a plan: for every line the amount required, what usable stock there
  * is (purity counted, other plans' reservations taken off), the shortfall, the containers
- * to take from in order, and what to do when short (reorder, or prepare it first).
+ * to take from in order, what to do when short (reorder, or prepare it first) and how many
+ * benches what is on hand serves. The dispensing sheet reads its shortfalls from here.
  */
 export async function stockCheckOf(
   repos: Repositories,
@@ -329,6 +346,7 @@ export async function stockCheckOf(
         ...(await prepareSuggestions(repos, chemical, shortfall, loaded.row.id, cache)),
       );
     }
+    const covered = benchesCovered(plan.benches, requiredPure, shortPure);
     lines.push({
       index,
       lineIndex: requirement.lineIndex,
@@ -358,11 +376,29 @@ export async function stockCheckOf(
       problem: requirement.problem,
       take,
       suggestions,
+      benchesCovered: covered,
+      remedy:
+        status !== 'short'
+          ? null
+          : suggestions.some((suggestion) => suggestion.kind === 'prepare')
+            ? 'prepare'
+            : 'reorder',
     });
   }
   const shortCount = lines.filter((line) => line.status !== 'ok' && !line.optional).length;
+  const benchesServed = Math.min(
+    plan.benches,
+    ...lines.filter((line) => !line.optional).map((line) => line.benchesCovered ?? 0),
+  );
   return {
-    check: { asOf, lines, ok: shortCount === 0, shortCount, rule: STOCK_CHECK_RULE },
+    check: {
+      asOf,
+      lines,
+      ok: shortCount === 0,
+      shortCount,
+      benchesServed,
+      rule: STOCK_CHECK_RULE,
+    },
     procedure: loaded,
   };
 }

@@ -21,7 +21,10 @@ export interface RunRow {
   productMassG: number | null;
   percentYield: number | null;
   crudePercentYield: number | null;
+  /** Flag of the purified yield (portions put into stock). */
   yieldFlag: string | null;
+  /** Flag of the crude yield, on its own. */
+  crudeYieldFlag: string | null;
   meltingLowC: number | null;
   meltingHighC: number | null;
   appearance: string;
@@ -57,6 +60,7 @@ export const RunEntity = new EntitySchema<RunRow>({
     percentYield: { name: 'percent_yield', type: 'double precision', nullable: true },
     crudePercentYield: { name: 'crude_percent_yield', type: 'double precision', nullable: true },
     yieldFlag: { name: 'yield_flag', type: 'text', nullable: true },
+    crudeYieldFlag: { name: 'crude_yield_flag', type: 'text', nullable: true },
     meltingLowC: { name: 'melting_low_c', type: 'double precision', nullable: true },
     meltingHighC: { name: 'melting_high_c', type: 'double precision', nullable: true },
     appearance: { type: 'text' },

@@ -108,7 +108,10 @@ describe('recording a run', () => {
     expect(recorded.observations.meltingComparison).toMatch(
       /overlapping the literature range \(135–136 °C\)/,
     );
-    expect(recorded.notices).toEqual([]);
+    // The optional catalyst was not drawn: left out, and said so.
+    expect(recorded.notices).toEqual([
+      expect.stringMatching(/^Line 3 .* is optional and nothing was drawn/),
+    ]);
     const portion = recorded.portions[0]!;
     expect(portion).toMatchObject({
       label: 'first crop',
@@ -211,6 +214,7 @@ describe('recording a run', () => {
               lineIndex: 0,
               draws: [{ containerId: s.saContainer.id, grossMassAfter: 177.5, unit: 'g' }],
             },
+            { lineIndex: 1, draws: [{ containerId: s.ac2oContainer.id, amount: 5.0, unit: 'mL' }] },
           ],
           products: [
             { portions: [{ label: 'crude', quantity: 3.0, unit: 'g', locationId: s.shelf.id }] },
@@ -219,11 +223,50 @@ describe('recording a run', () => {
       ).body,
     );
     expect(recorded.draws[0]!.quantity).toBe(2.5);
-    // Acetic anhydride had no draw: its planned 5.0 mL is used for the yield, with a notice.
-    expect(recorded.notices[0]).toMatch(/Line 2 .*planned amount/);
     // calc from CIAAW2021: 2.5 / 138.122 x 180.159 = 3.261 g; 3.0 g -> 92.00 %
     expect(sig(recorded.theoreticalYieldG!)).toBe(3.261);
     expect(sig(recorded.percentYield!)).toBe(92.0);
+  });
+
+  it('when a required line is left empty, then the run is refused naming the line and nothing is written; drawn, it is in the ledger and the yield comes from it', async () => {
+    const s = await setUp();
+    const run = await openRun({ procedureId: s.procedure.id });
+    const before = await counts();
+    const refused = await post(`/api/runs/${run.id}/record`, {
+      lines: [{ lineIndex: 0, draws: [{ containerId: s.saContainer.id, amount: 2.0, unit: 'g' }] }],
+      products: [
+        { portions: [{ label: 'first crop', quantity: 2.1, unit: 'g', locationId: s.shelf.id }] },
+      ],
+    }).expect(400);
+    expect(refused.body.error.fields.lines).toBe(`no draw recorded for line 2 (${s.ac2o.name})`);
+    expect(refused.body.error.message).toMatch(/Nothing was recorded/);
+    expect(await counts()).toEqual(before);
+    expect((await get(`/api/runs/${run.id}`).expect(200)).body.status).toBe('open');
+
+    const recorded = runSchema.parse(
+      (
+        await post(`/api/runs/${run.id}/record`, {
+          lines: [
+            { lineIndex: 0, draws: [{ containerId: s.saContainer.id, amount: 2.0, unit: 'g' }] },
+            { lineIndex: 1, draws: [{ containerId: s.ac2oContainer.id, amount: 4.0, unit: 'mL' }] },
+          ],
+          products: [
+            {
+              portions: [{ label: 'first crop', quantity: 2.1, unit: 'g', locationId: s.shelf.id }],
+            },
+          ],
+        }).expect(200)
+      ).body,
+    );
+    const ledger = (await get(`/api/containers/${s.ac2oContainer.id}/ledger`).expect(200)).body;
+    expect(ledger.items[0]).toMatchObject({ reason: 'drawn', quantity: -4, runId: run.id });
+    expect(recorded.notices).toHaveLength(1);
+    // calc from CIAAW2021: 4.0 mL x 1.082 g/mL / 102.089 g/mol = 42.39 mmol of anhydride against
+    // 14.48 mmol of salicylic acid: still the limiting reagent, so 2.609 g theoretical (worked example)
+    const anhydride = recorded.stoichiometry!.lines[1]!;
+    expect(sig(anhydride.amountMol! * 1000)).toBe(42.39);
+    expect(sig(recorded.theoreticalYieldG!)).toBe(2.609);
+    expect((await checkLedger(testContext().store.repos)).ok).toBe(true);
   });
 
   it('when a first and a second crop are recorded, then each is its own lot and the yields add up', async () => {
@@ -282,12 +325,70 @@ describe('recording a run', () => {
     // calc: 2.8 / 2.6087 = 107.3 %
     expect(sig(recorded.percentYield!)).toBe(107.3);
     expect(recorded.yieldFlag).toContain(YIELD_ABOVE_100_ADVICE);
+    expect(recorded.crudeYieldFlag).toBeNull();
     expect(recorded.warnings.map((w) => w.code)).toContain('yield_above_100');
     expect(recorded.observations.meltingComparison).toMatch(/9 °C below .*wider than 2 °C/);
     const history = procedureRunsSchema.parse(
       (await get(`/api/procedures/${s.procedure.id}/runs`).expect(200)).body,
     );
     expect(history.stats.aboveHundredCount).toBe(1);
+  });
+
+  it('when a wet crude above 100 % is weighed and purified crops are recorded too, then both yields carry their own flag and the statistics keep them apart', async () => {
+    const s = await setUp();
+    const lines = [
+      { lineIndex: 0, draws: [{ containerId: s.saContainer.id, amount: 2.0, unit: 'g' }] },
+      { lineIndex: 1, draws: [{ containerId: s.ac2oContainer.id, amount: 2.0, unit: 'mL' }] },
+    ];
+    const run = await openRun({ procedureId: s.procedure.id });
+    const recorded = runSchema.parse(
+      (
+        await post(`/api/runs/${run.id}/record`, {
+          lines,
+          products: [
+            {
+              crudeMassG: 2.8,
+              portions: [{ label: 'first crop', quantity: 2.1, unit: 'g', locationId: s.shelf.id }],
+            },
+          ],
+        }).expect(200)
+      ).body,
+    );
+    // worked example (reference worked-examples.md), calc from CIAAW2021: 2.609 g theoretical;
+    // calc: crude 2.80 / 2.6087 = 107.3 %, flagged; purified 2.10 g -> 80.50 %, not flagged
+    expect(sig(recorded.crudePercentYield!)).toBe(107.3);
+    expect(recorded.crudeYieldFlag).toBe(
+      `Crude yield 107.3 % is above 100 %: the crude product is ${YIELD_ABOVE_100_ADVICE}.`,
+    );
+    expect(sig(recorded.percentYield!)).toBe(80.5);
+    expect(recorded.yieldFlag).toBeNull();
+    expect(recorded.warnings).toContainEqual(
+      expect.objectContaining({ code: 'yield_above_100', lineIndex: 3 }),
+    );
+
+    // A run that only weighed its crude: no purified yield, and it stays out of the purified figures.
+    const crudeOnly = await openRun({ procedureId: s.procedure.id });
+    const crudeRecorded = runSchema.parse(
+      (
+        await post(`/api/runs/${crudeOnly.id}/record`, {
+          lines,
+          products: [{ crudeMassG: 2.2, portions: [] }],
+        }).expect(200)
+      ).body,
+    );
+    expect(crudeRecorded.percentYield).toBeNull();
+    // calc: 2.2 / 2.6087 = 84.33 %
+    expect(sig(crudeRecorded.crudePercentYield!)).toBe(84.33);
+    expect(crudeRecorded.crudeYieldFlag).toBeNull();
+
+    const history = procedureRunsSchema.parse(
+      (await get(`/api/procedures/${s.procedure.id}/runs`).expect(200)).body,
+    );
+    expect(history.stats).toMatchObject({ count: 2, purifiedCount: 1, aboveHundredCount: 0 });
+    expect(sig(history.stats.meanPercentYield!)).toBe(80.5);
+    expect(history.stats.crude).toMatchObject({ count: 2, aboveHundredCount: 1 });
+    // calc: (107.33 + 84.33) / 2 = 95.83 %
+    expect(sig(history.stats.crude.meanPercentYield!)).toBe(95.83);
   });
 
   it('when a 95 % lot is drawn, then the theoretical yield counts only the pure substance; isoamyl acetate in mL gives 62.69 %', async () => {
@@ -348,24 +449,37 @@ describe('recording a run', () => {
     expect(withImpure.draws[0]!.purityPercent).toBe(95);
   });
 
-  it('when a run is recorded from a reserved plan, then the plan is recorded and its reservations released; others cannot record it', async () => {
+  it("when a member records a run from the technician's reserved plan, then the run is theirs, the plan is recorded and released; they cannot change or cancel the plan", async () => {
     const s = await setUp();
     const plan = (
-      await post('/api/plans', {
-        procedureId: s.procedure.id,
-        scaleFactor: 0.5,
-        benches: 2,
-        plannedOn: nextWeek,
-      }).expect(201)
+      await post(
+        '/api/plans',
+        { procedureId: s.procedure.id, scaleFactor: 0.5, benches: 2, plannedOn: nextWeek },
+        manager,
+      ).expect(201)
     ).body;
-    await post(`/api/plans/${plan.id}/reservations`, {}).expect(201);
-    await post('/api/runs', { planId: plan.id }, otherMember).expect(403);
+    await post(`/api/plans/${plan.id}/reservations`, {}, manager).expect(201);
+    // The plan stays its author's: a member may not change, reserve for or cancel it.
+    const patch = await request(app())
+      .patch(`/api/plans/${plan.id}`)
+      .set('Cookie', member)
+      .send({ benches: 3 })
+      .expect(403);
+    expect(patch.body.error.message).toMatch(/only its author or a manager/);
+    await post(`/api/plans/${plan.id}/cancel`, {}, member).expect(403);
+    await post(`/api/plans/${plan.id}/reservations`, {}, member).expect(403);
+
     const run = await openRun({ planId: plan.id });
     // calc: the whole session, 0.5 x 2 benches
     expect(run).toMatchObject({ planId: plan.id, scaleFactor: 1 });
+    expect(run.performedBy?.id).not.toBe(plan.createdBy.id);
+    // The run is the member's: another member cannot record it.
     await post(`/api/runs/${run.id}/record`, {}, otherMember).expect(403);
     await post(`/api/runs/${run.id}/record`, {
-      lines: [{ lineIndex: 0, draws: [{ containerId: s.saContainer.id, amount: 2.0, unit: 'g' }] }],
+      lines: [
+        { lineIndex: 0, draws: [{ containerId: s.saContainer.id, amount: 2.0, unit: 'g' }] },
+        { lineIndex: 1, draws: [{ containerId: s.ac2oContainer.id, amount: 5.0, unit: 'mL' }] },
+      ],
     }).expect(200);
     const after = (await get(`/api/plans/${plan.id}`).expect(200)).body;
     expect(after).toMatchObject({ status: 'recorded', runId: run.id });

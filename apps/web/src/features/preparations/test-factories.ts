@@ -1,6 +1,7 @@
 import { roundMassForDisplay, roundVolumeForDisplay, type DisplayValue } from '@lotwise/chem';
 import {
   safetyDeferral,
+  type DispensingSheet,
   type PlanDetail,
   type Procedure,
   type Run,
@@ -58,6 +59,8 @@ export function makeStockLine(overrides: Partial<StockCheckLine> = {}): StockChe
       },
     ],
     suggestions: [],
+    benchesCovered: 8,
+    remedy: null,
     ...overrides,
   };
 }
@@ -83,6 +86,7 @@ export function makePlanDetail(overrides: Partial<PlanDetail> = {}): PlanDetail 
       lines: [makeStockLine()],
       ok: true,
       shortCount: 0,
+      benchesServed: 8,
       rule: 'Counted: usable containers.',
     },
     hazards: [
@@ -113,6 +117,63 @@ export function makePlanDetail(overrides: Partial<PlanDetail> = {}): PlanDetail 
   };
 }
 
+/** The dispensing sheet of `plan`, one sheet line per stock check row. */
+export function makeDispensingSheet(
+  plan: PlanDetail,
+  overrides: Partial<DispensingSheet> = {},
+): DispensingSheet {
+  return {
+    planId: plan.id,
+    procedure: {
+      id: plan.procedure.id,
+      title: plan.procedure.title,
+      reference: 'Lotwise demo handout C3 (invented).',
+      baseScale: 'One bench: 0.70 mL acetone.',
+    },
+    plannedOn: plan.plannedOn,
+    scaleFactor: plan.scaleFactor,
+    benches: plan.benches,
+    overagePercent: plan.overagePercent,
+    lines: plan.stockCheck.lines.map((line) => ({
+      lineIndex: line.lineIndex,
+      purpose: line.purpose,
+      chemicalId: line.chemical.id,
+      name: line.chemical.name,
+      role: line.role,
+      optional: line.optional,
+      notes: '',
+      perBench: line.perBench === null ? null : { value: line.perBench, unit: line.unit },
+      perBenchDisplay: line.perBenchDisplay,
+      total: line.required,
+      totalDisplay: line.requiredDisplay,
+      ghsPictograms: ['GHS07'],
+      containers: line.take.map((take) => ({
+        containerId: take.containerId,
+        labelCode: take.labelCode,
+        locationPath: take.locationPath,
+        take: take.take,
+        unit: line.unit,
+      })),
+      stock: {
+        status: line.status,
+        unit: line.unit,
+        shortfall: line.shortfall,
+        problem: line.problem,
+        suggestions: line.suggestions,
+        benchesCovered: line.benchesCovered,
+        remedy: line.remedy,
+      },
+    })),
+    shortCount: plan.stockCheck.shortCount,
+    benchesServed: plan.stockCheck.benchesServed,
+    hazards: plan.hazards,
+    cautions: plan.cautions,
+    rules: ['Balance: 0.01 g.'],
+    safetyDeferral: plan.safetyDeferral,
+    ...overrides,
+  };
+}
+
 export function makeRun(overrides: Partial<Run> = {}): Run {
   return {
     id: 12,
@@ -129,6 +190,7 @@ export function makeRun(overrides: Partial<Run> = {}): Run {
     crudePercentYield: null,
     expectedYieldPercent: 80,
     yieldFlag: null,
+    crudeYieldFlag: null,
     recordedAt: null,
     createdAt: '2026-12-02T09:00:00.000Z',
     notes: '',

@@ -13,6 +13,7 @@ const YieldsChart = lazy(() => import('./yields-chart'));
 /** Yields of a procedure's recorded runs against its expected yield: chart, summary, table. */
 export function YieldsHistory({ procedureId }: { procedureId: number }) {
   const history = useProcedureRuns(procedureId);
+  const stats = history.data?.stats;
   return (
     <section
       aria-labelledby="yields-heading"
@@ -29,18 +30,40 @@ export function YieldsHistory({ procedureId }: { procedureId: number }) {
           error={history.error}
           onRetry={() => void history.refetch()}
         />
-      ) : history.data.runs.length === 0 ? (
+      ) : history.data.runs.length === 0 || !stats ? (
         <p className="text-sm text-ink-600">No run of this procedure has been recorded yet.</p>
       ) : (
         <figure className="flex flex-col gap-2">
-          <figcaption className="text-sm text-ink-700">
-            {history.data.stats.count} recorded {history.data.stats.count === 1 ? 'run' : 'runs'}:
-            mean yield <strong>{formatPercent(history.data.stats.meanPercentYield)}</strong> (lowest{' '}
-            {formatPercent(history.data.stats.minPercentYield)}, highest{' '}
-            {formatPercent(history.data.stats.maxPercentYield)}) against an expected{' '}
-            {formatPercent(history.data.procedure.expectedYieldPercent)}.
-            {history.data.stats.aboveHundredCount > 0 &&
-              ` ${history.data.stats.aboveHundredCount} above 100 % (probably wet or impure).`}
+          {/* Purified and crude yields are never mixed in one figure. */}
+          <figcaption className="flex flex-col gap-1 text-sm text-ink-700">
+            <span>
+              {stats.count} recorded {stats.count === 1 ? 'run' : 'runs'}.{' '}
+              {stats.purifiedCount > 0 ? (
+                <>
+                  Purified yield over {stats.purifiedCount}{' '}
+                  {stats.purifiedCount === 1 ? 'run' : 'runs'}: mean{' '}
+                  <strong>{formatPercent(stats.meanPercentYield)}</strong> (lowest{' '}
+                  {formatPercent(stats.minPercentYield)}, highest{' '}
+                  {formatPercent(stats.maxPercentYield)}) against an expected{' '}
+                  {formatPercent(history.data.procedure.expectedYieldPercent)}.
+                  {stats.aboveHundredCount > 0 &&
+                    ` ${stats.aboveHundredCount} above 100 % (probably wet or impure).`}
+                </>
+              ) : (
+                'No purified product has been put into stock yet.'
+              )}
+            </span>
+            {stats.crude.count > 0 && (
+              <span data-testid="crude-stats">
+                Crude yield, counted apart, over {stats.crude.count}{' '}
+                {stats.crude.count === 1 ? 'run' : 'runs'}: mean{' '}
+                {formatPercent(stats.crude.meanPercentYield)} (lowest{' '}
+                {formatPercent(stats.crude.minPercentYield)}, highest{' '}
+                {formatPercent(stats.crude.maxPercentYield)}).
+                {stats.crude.aboveHundredCount > 0 &&
+                  ` ${stats.crude.aboveHundredCount} above 100 % (probably wet or impure).`}
+              </span>
+            )}
           </figcaption>
           <Suspense fallback={<PageSpinner label="Drawing the chart…" />}>
             <YieldsChart
@@ -70,8 +93,11 @@ export function YieldsHistory({ procedureId }: { procedureId: number }) {
                 <th scope="col" className="py-1.5 pr-3 text-right font-medium">
                   Obtained
                 </th>
+                <th scope="col" className="py-1.5 pr-3 text-right font-medium">
+                  Crude yield
+                </th>
                 <th scope="col" className="py-1.5 text-right font-medium">
-                  Yield
+                  Purified yield
                 </th>
               </tr>
             </thead>
@@ -95,7 +121,10 @@ export function YieldsHistory({ procedureId }: { procedureId: number }) {
                   <td className="py-1.5 pr-3 text-right">
                     <Mass g={run.productMassG} />
                   </td>
-                  <td className="py-1.5 text-right">
+                  <td className="py-1.5 pr-3 text-right" title={run.crudeYieldFlag ?? undefined}>
+                    <YieldText percent={run.crudePercentYield} />
+                  </td>
+                  <td className="py-1.5 text-right" title={run.yieldFlag ?? undefined}>
                     <YieldText percent={run.percentYield} />
                   </td>
                 </tr>

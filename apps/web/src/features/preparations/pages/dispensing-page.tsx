@@ -12,6 +12,7 @@ import { BackLink, QueryState } from '../components/page-parts';
 import { CautionList, StatementLines } from '../components/preparation-safety';
 import { fullPrecision, Rounded } from '../components/rounded';
 import { StockAmount } from '../components/stock-amount';
+import { BenchStockStatus, SessionStockSummary, SheetStockNote } from '../components/sheet-stock';
 
 /** Pictograms with code and meaning as words, small enough for paper. */
 function PictogramWords({ codes }: { codes: DispensingSheet['lines'][number]['ghsPictograms'] }) {
@@ -99,6 +100,7 @@ function Sheet({ sheet }: { sheet: DispensingSheet }) {
             <span className="block text-xs">{sheet.procedure.reference}</span>
           )}
         </p>
+        <SessionStockSummary sheet={sheet} />
         <SheetSafety sheet={sheet} />
         <table className="w-full text-sm">
           <caption className="sr-only">What to dispense for the whole session</caption>
@@ -107,7 +109,8 @@ function Sheet({ sheet }: { sheet: DispensingSheet }) {
               <th className="py-1 pr-2 font-medium">Chemical</th>
               <th className="py-1 pr-2 text-right font-medium">Per bench</th>
               <th className="py-1 pr-2 text-right font-medium">Session total</th>
-              <th className="py-1 font-medium">Dispense from</th>
+              <th className="py-1 pr-2 font-medium">Dispense from</th>
+              <th className="w-72 py-1 font-medium">Stock</th>
             </tr>
           </thead>
           <tbody>
@@ -147,9 +150,9 @@ function Sheet({ sheet }: { sheet: DispensingSheet }) {
                     '—'
                   )}
                 </td>
-                <td className="py-1.5 text-xs">
+                <td className="py-1.5 pr-2 text-xs">
                   {line.containers.length === 0 ? (
-                    <span className="font-semibold text-danger-700">No container — short</span>
+                    <span className="font-semibold">No container on hand</span>
                   ) : (
                     <ul>
                       {line.containers.map((c) => (
@@ -160,6 +163,9 @@ function Sheet({ sheet }: { sheet: DispensingSheet }) {
                       ))}
                     </ul>
                   )}
+                </td>
+                <td className="py-1.5">
+                  <SheetStockNote line={line} benches={sheet.benches} />
                 </td>
               </tr>
             ))}
@@ -179,6 +185,7 @@ function Sheet({ sheet }: { sheet: DispensingSheet }) {
           className="flex flex-col gap-3 rounded-lg border border-ink-200 bg-white p-4 break-inside-avoid print:break-after-page print:border-0 print:p-0 print:last:break-after-auto"
         >
           <SheetHeading sheet={sheet} subtitle={`Bench ${bench} of ${sheet.benches}`} />
+          <BenchStockStatus sheet={sheet} bench={bench} />
           <SheetSafety sheet={sheet} />
           <table className="w-full text-sm">
             <caption className="sr-only">What bench {bench} gets</caption>
@@ -220,7 +227,14 @@ function Sheet({ sheet }: { sheet: DispensingSheet }) {
                     <td className="py-1.5 pr-2 text-right text-base font-semibold whitespace-nowrap tabular-nums">
                       {line.perBenchDisplay?.text ?? '—'}
                     </td>
-                    <td className="py-1.5 text-xs text-ink-700">{line.notes}</td>
+                    <td className="py-1.5 text-xs text-ink-700">
+                      {line.notes}
+                      {line.stock.status !== 'ok' && (
+                        <span className={line.notes ? 'mt-1 block' : 'block'}>
+                          <SheetStockNote line={line} benches={sheet.benches} />
+                        </span>
+                      )}
+                    </td>
                   </tr>
                 ))}
             </tbody>

@@ -74,6 +74,9 @@ const naohLine = makeStockLine({
       unit: 'mL',
     },
   ],
+  // 44 mL / 8 benches = 5.5 mL a bench; 13.5 mL serves 2 benches
+  benchesCovered: 2,
+  remedy: 'prepare',
 });
 
 const plan = makePlanDetail({
@@ -82,6 +85,7 @@ const plan = makePlanDetail({
     lines: [makeStockLine(), naohLine],
     ok: false,
     shortCount: 1,
+    benchesServed: 2,
     rule: 'Counted: usable containers.',
   },
 });
@@ -143,5 +147,36 @@ describe('Plan page', () => {
     expect(await screen.findByText('Nothing was reserved: stock changed')).toBeInTheDocument();
     expect(screen.getByText('at most 2 mL of LW-00025 is free')).toBeInTheDocument();
     expect(requests.find((r) => r.method === 'POST')?.body).toEqual({ until: '2026-12-10' });
+  });
+
+  it("when a member opens the technician's plan, then they are offered to record a run but not to reserve, change or cancel it", async () => {
+    mockFetch({
+      'GET /api/auth/me': { body: { user: makeUser({ id: 7, role: 'member' }) } },
+      'GET /api/plans/2': { body: plan },
+    });
+    renderApp('/preparations/plans/2');
+
+    const record = await screen.findByRole('link', { name: 'Record a run' }, { timeout: 5000 });
+    expect(record).toHaveAttribute('href', '/preparations/runs/new?planId=2');
+    expect(screen.getByTestId('plan-ownership')).toHaveTextContent(
+      'Planned by Tess Technician. You can record a run from this plan',
+    );
+    expect(screen.queryByRole('button', { name: 'Reserve' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Cancel plan' })).not.toBeInTheDocument();
+    expect(screen.getByText(/What is on hand serves benches 1–2 of 8/)).toBeInTheDocument();
+  });
+
+  it('when the author (a member) opens their own plan, then they may reserve and cancel it', async () => {
+    mockFetch({
+      'GET /api/auth/me': { body: { user: makeUser({ id: 2, role: 'member' }) } },
+      'GET /api/plans/2': { body: plan },
+    });
+    renderApp('/preparations/plans/2');
+
+    expect(
+      await screen.findByRole('button', { name: 'Reserve' }, { timeout: 5000 }),
+    ).toBeInTheDocument();
+    expect(screen.getByRole('button', { name: 'Cancel plan' })).toBeInTheDocument();
+    expect(screen.queryByTestId('plan-ownership')).not.toBeInTheDocument();
   });
 });

@@ -1,13 +1,13 @@
 import { useState } from 'react';
 import { Link, useParams } from 'react-router';
 import { Ban, CircleCheck, FlaskRound, Lock, Printer, TriangleAlert } from 'lucide-react';
-import type { PlanDetail } from '@lotwise/shared';
+import { mayChangePlan, mayRunFromPlan, type PlanDetail } from '@lotwise/shared';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { Field } from '../../../components/ui/field';
 import { Input } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { errorMessage, isApiError, withQuery } from '../../../lib/api-client';
-import { useCan, useCurrentUser } from '../../../lib/auth';
+import { useCurrentUser } from '../../../lib/auth';
 import { formatDate, formatPercent } from '../../../lib/format';
 import { paths } from '../../../config/paths';
 import { useCancelPlan, usePlan, useReservePlan } from '../api';
@@ -102,11 +102,11 @@ function ReserveControls({ plan }: { plan: PlanDetail }) {
 }
 
 function PlanView({ plan }: { plan: PlanDetail }) {
-  const mayRecord = useCan('runs.record');
-  const mayManage = useCan('plans.manage');
   const { data: me } = useCurrentUser();
-  // runs.record changes one's own plans; plans.manage anyone's.
-  const mayChange = mayRecord && (mayManage || plan.createdBy?.id === me?.id);
+  // The one ownership rule (shared/src/roles.ts): anyone who records runs may run from this
+  // plan; only its author or a manager may change, reserve for or cancel it.
+  const mayRecord = me ? mayRunFromPlan(me) : false;
+  const mayChange = me ? mayChangePlan(me, { authorId: plan.createdBy?.id ?? null }) : false;
   const active = plan.reservations.filter((r) => r.status === 'active');
   const recordable = plan.status !== 'cancelled' && plan.status !== 'recorded';
 
@@ -135,7 +135,7 @@ function PlanView({ plan }: { plan: PlanDetail }) {
                 className={buttonClasses('secondary')}
               >
                 <FlaskRound aria-hidden="true" className="size-4" />
-                Record the run
+                Record a run
               </Link>
             )}
             {plan.runId !== null && (
@@ -157,6 +157,13 @@ function PlanView({ plan }: { plan: PlanDetail }) {
           </span>
         </p>
         {plan.notes && <p className="mt-1 text-ink-700">{plan.notes}</p>}
+        {mayRecord && !mayChange && (
+          <p className="mt-1 text-ink-700" data-testid="plan-ownership">
+            Planned by {plan.createdBy?.displayName ?? 'someone else'}. You can record a run from
+            this plan — the run is yours; only {plan.createdBy?.displayName ?? 'its author'} or a
+            manager can change or cancel the plan.
+          </p>
+        )}
       </PageHeader>
 
       <PreparationSafety hazards={plan.hazards} cautions={plan.cautions} />
@@ -171,6 +178,9 @@ function PlanView({ plan }: { plan: PlanDetail }) {
             tone="warn"
             title={`${plan.stockCheck.shortCount} ${plan.stockCheck.shortCount === 1 ? 'line is' : 'lines are'} short`}
           >
+            {plan.stockCheck.benchesServed > 0
+              ? `What is on hand serves ${plan.stockCheck.benchesServed === 1 ? 'bench 1' : `benches 1–${plan.stockCheck.benchesServed}`} of ${plan.benches}. `
+              : `What is on hand serves none of the ${plan.benches} benches. `}
             See what to do under each short line: reorder it, or prepare it first with another
             procedure.
           </Notice>

@@ -33,4 +33,36 @@ describe('Run page', () => {
     expect(screen.getByTestId('percent-yield')).toHaveTextContent('107.33 %');
     expect(screen.getByTestId('percent-yield')).toHaveTextContent('above 100 %');
   });
+
+  it('when a wet crude is above 100 % and the purified crop is not, then the crude yield carries its own flag and the purified one none', async () => {
+    // worked example, calc from CIAAW 2021: theoretical 2.6087 g; crude 2.80 g = 107.3 %, purified 2.10 g = 80.50 %
+    mockFetch({
+      'GET /api/auth/me': { body: { user: makeUser({ role: 'member' }) } },
+      'GET /api/procedures/1': { body: makeAspirinProcedure() },
+      'GET /api/runs/11': {
+        body: makeRun({
+          id: 11,
+          status: 'recorded',
+          performedOn: '2026-11-12',
+          theoreticalYieldG: 2.6087,
+          crudeMassG: 2.8,
+          crudePercentYield: 107.33,
+          crudeYieldFlag:
+            'Crude yield 107.3 % is above 100 %: the crude product is probably wet or impure: dry or recrystallize and weigh again.',
+          productMassG: 2.1,
+          percentYield: 80.5,
+        }),
+      },
+    });
+    renderApp('/preparations/runs/11');
+
+    expect(
+      await screen.findByText('Crude above 100 %: probably wet or impure', {}, { timeout: 5000 }),
+    ).toBeInTheDocument();
+    expect(screen.getByText(/^Crude yield 107.3 % is above 100 %/)).toBeInTheDocument();
+    expect(screen.getByTestId('crude-yield')).toHaveTextContent('above 100 %');
+    expect(screen.getByTestId('percent-yield')).toHaveTextContent('80.5 %');
+    expect(screen.getByTestId('percent-yield')).not.toHaveTextContent('above 100 %');
+    expect(screen.queryByText('Above 100 %: probably wet or impure')).not.toBeInTheDocument();
+  });
 });

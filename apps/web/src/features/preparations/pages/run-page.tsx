@@ -27,7 +27,7 @@ function YieldSummary({ run }: { run: Run }) {
       </h2>
       <div className="flex flex-wrap gap-x-10 gap-y-3">
         <div>
-          <p className="text-xs text-ink-600 uppercase">Percent yield</p>
+          <p className="text-xs text-ink-600 uppercase">Purified yield</p>
           <p className="text-2xl font-semibold tabular-nums" data-testid="percent-yield">
             <YieldText percent={run.percentYield} />
           </p>
@@ -52,12 +52,17 @@ function YieldSummary({ run }: { run: Run }) {
             <p className="text-2xl font-semibold">
               <Mass g={run.crudeMassG} />
             </p>
-            <p className="text-xs text-ink-600">
+            <p className="text-xs text-ink-600" data-testid="crude-yield">
               crude yield <YieldText percent={run.crudePercentYield} />
             </p>
           </div>
         )}
       </div>
+      {run.crudeYieldFlag && (
+        <Notice tone="danger" title="Crude above 100 %: probably wet or impure">
+          {run.crudeYieldFlag}
+        </Notice>
+      )}
       {run.yieldFlag && (
         <Notice tone="danger" title="Above 100 %: probably wet or impure">
           {run.yieldFlag}

@@ -5,7 +5,13 @@ import type { RunRecord } from '@lotwise/shared';
 import { mockFetch } from '../../../test/fetch-mock';
 import { makeContainer, makeUser, page } from '../../../test/factories';
 import { renderApp } from '../../../test/render-app';
-import { makeAspirinProcedure, makeRun } from '../test-factories';
+import {
+  makeAspirinProcedure,
+  makePlanDetail,
+  makeRun,
+  makeStockLine,
+  display,
+} from '../test-factories';
 
 const member = makeUser({ role: 'member' });
 const procedure = makeAspirinProcedure();
@@ -94,10 +100,18 @@ describe('Recording a run', () => {
           runs: [],
           stats: {
             count: 0,
+            purifiedCount: 0,
             meanPercentYield: null,
             minPercentYield: null,
             maxPercentYield: null,
             aboveHundredCount: 0,
+            crude: {
+              count: 0,
+              meanPercentYield: null,
+              minPercentYield: null,
+              maxPercentYield: null,
+              aboveHundredCount: 0,
+            },
           },
         },
       },
@@ -127,7 +141,13 @@ describe('Recording a run', () => {
     expect(within(first).getByTestId('weighing-preview')).toHaveTextContent('2.00 g');
 
     const second = screen.getByRole('group', { name: 'Line 2 draw 1' });
+    // Without a plan the planned amount is filled in, and said so; the container is chosen.
+    expect(within(second).getByLabelText('Amount')).toHaveValue('5');
+    expect(screen.getByTestId('draw-source-1')).toHaveTextContent(
+      'Choose the container it came from',
+    );
     await user.selectOptions(await within(second).findByLabelText('Container'), '13');
+    await user.clear(within(second).getByLabelText('Amount'));
     await user.type(within(second).getByLabelText('Amount'), '5.0');
 
     await user.type(screen.getByLabelText(/Crude mass/), '2.45');
@@ -143,7 +163,9 @@ describe('Recording a run', () => {
 
     await user.click(screen.getByRole('button', { name: 'Record the run' }));
 
-    expect(await screen.findByText('Run #12 is recorded')).toBeInTheDocument();
+    expect(
+      await screen.findByText('Run #12 is recorded', {}, { timeout: 5000 }),
+    ).toBeInTheDocument();
     const body = requests.find((r) => r.method === 'POST')!.body as RunRecord;
     expect(body.lines).toEqual([
       {
@@ -191,5 +213,146 @@ describe('Recording a run', () => {
       '/stock/labels?ids=80%2C81',
     );
     expect(screen.queryByText(/probably wet or impure/)).not.toBeInTheDocument();
+  });
+
+  it('when the run comes from a plan, then each required line is filled in from the held or suggested container, shown as such, and exactly that is sent to be drawn', async () => {
+    // Plan: 4 benches at 1/2 scale; the run is the session, factor 2. Salicylic acid: 1 g a
+    // bench at 1/2 -> 4 g at factor 2, held in LW-00014; acetic anhydride 2.5 mL -> 10 mL,
+    // suggested from LW-00013.
+    const plan = makePlanDetail({
+      id: 2,
+      procedure: { id: 1, title: procedure.title },
+      scaleFactor: 0.5,
+      benches: 4,
+      status: 'reserved',
+      stockCheck: {
+        asOf: '2026-12-10',
+        ok: true,
+        shortCount: 0,
+        benchesServed: 4,
+        rule: 'Counted: usable containers.',
+        lines: [
+          makeStockLine({
+            index: 0,
+            lineIndex: 0,
+            role: 'limiting-reagent',
+            chemical: {
+              id: 7,
+              name: 'Salicylic acid',
+              stockUnit: 'g',
+              density: null,
+              defaultPurityPercent: 100,
+            },
+            unit: 'g',
+            perBench: 1,
+            perBenchDisplay: display(1, 'g'),
+            take: [],
+          }),
+          makeStockLine({
+            index: 1,
+            lineIndex: 1,
+            chemical: {
+              id: 6,
+              name: 'Acetic anhydride',
+              stockUnit: 'mL',
+              density: 1.082,
+              defaultPurityPercent: 100,
+            },
+            perBench: 2.5,
+            perBenchDisplay: display(2.5, 'mL'),
+            take: [
+              { ...makeStockLine().take[0]!, containerId: 13, labelCode: 'LW-00013', take: 11 },
+            ],
+          }),
+        ],
+      },
+      reservations: [
+        {
+          id: 1,
+          planId: 2,
+          containerId: 14,
+          labelCode: 'LW-00014',
+          chemicalId: 7,
+          chemicalName: 'Salicylic acid',
+          locationPath: shelf.path,
+          requirementIndex: 0,
+          quantity: 4.4,
+          unit: 'g',
+          until: '2026-12-10',
+          status: 'active',
+          releasedReason: null,
+          releasedAt: null,
+          createdAt: '2026-12-01T08:00:00.000Z',
+        },
+      ],
+    });
+    const { requests } = mockFetch({
+      'GET /api/auth/me': { body: { user: member } },
+      'GET /api/runs/12': { body: makeRun({ planId: 2, scaleFactor: 2 }) },
+      'GET /api/procedures/1': { body: procedure },
+      'GET /api/plans/2': { body: plan },
+      'GET /api/containers': (request) => ({
+        body: page(
+          request.url.searchParams.get('chemicalId') === '7'
+            ? [salicylicBottle]
+            : [anhydrideBottle],
+        ),
+      }),
+      'GET /api/locations': { body: page([shelf]) },
+      'POST /api/runs/12/record': { body: recorded },
+    });
+    const user = userEvent.setup();
+    renderApp('/preparations/runs/12/record');
+
+    const first = await screen.findByRole('group', { name: 'Line 1 draw 1' }, { timeout: 5000 });
+    expect(within(first).getByLabelText('Amount')).toHaveValue('4');
+    expect(screen.getByTestId('draw-source-0')).toHaveTextContent(
+      /Filled in from plan #2: 4(\.0+)? g from LW-00014, held for this plan\. Saving draws this from stock/,
+    );
+    const second = screen.getByRole('group', { name: 'Line 2 draw 1' });
+    expect(within(second).getByLabelText('Amount')).toHaveValue('10');
+    expect(screen.getByTestId('draw-source-1')).toHaveTextContent(
+      /10(\.0+)? mL from LW-00013, as its stock check suggests/,
+    );
+    const crop = screen.getByRole('listitem', { name: 'Portion 1' });
+    await user.type(within(crop).getByLabelText('Amount'), '2.10');
+    await user.selectOptions(await within(crop).findByLabelText('Location'), '5');
+    await user.click(screen.getByRole('button', { name: 'Record the run' }));
+
+    await screen.findByText('Run #12 is recorded', {}, { timeout: 5000 });
+    const body = requests.find((r) => r.method === 'POST')!.body as RunRecord;
+    expect(body.lines).toEqual([
+      { lineIndex: 0, draws: [{ containerId: 14, amount: 4, unit: 'g', note: '' }] },
+      { lineIndex: 1, draws: [{ containerId: 13, amount: 10, unit: 'mL', note: '' }] },
+    ]);
+  });
+
+  it('when a required line is emptied, then the form refuses before sending and says the yield needs what was drawn', async () => {
+    const { requests } = mockFetch({
+      'GET /api/auth/me': { body: { user: member } },
+      'GET /api/runs/12': { body: makeRun() },
+      'GET /api/procedures/1': { body: procedure },
+      'GET /api/containers': (request) => ({
+        body: page(
+          request.url.searchParams.get('chemicalId') === '7'
+            ? [salicylicBottle]
+            : [anhydrideBottle],
+        ),
+      }),
+      'GET /api/locations': { body: page([shelf]) },
+    });
+    const user = userEvent.setup();
+    renderApp('/preparations/runs/12/record');
+
+    const second = await screen.findByRole('group', { name: 'Line 2 draw 1' }, { timeout: 5000 });
+    await user.click(within(second).getByRole('button', { name: /Remove/ }));
+    await user.click(screen.getByRole('button', { name: 'Record the run' }));
+
+    expect(
+      await screen.findByText(
+        'Line 2 (Acetic anhydride): enter what was drawn and from which container — the yield is worked out only from amounts drawn from stock.',
+      ),
+    ).toBeInTheDocument();
+    expect(requests.some((r) => r.method === 'POST')).toBe(false);
   });
 });

@@ -1,89 +1,32 @@
 import { useState, type FormEvent } from 'react';
 import { Link, useNavigate, useParams } from 'react-router';
-import { Plus, Save } from 'lucide-react';
-import {
-  runRecordSchema,
-  type PlanDetail,
-  type Procedure,
-  type Run,
-  type RunRecord,
-} from '@lotwise/shared';
+import { Save } from 'lucide-react';
+import { runRecordSchema, type PlanDetail, type Procedure, type Run } from '@lotwise/shared';
 import { Button } from '../../../components/ui/button';
 import { useConfirmation } from '../../../components/ui/confirmation-dialog';
 import { Field } from '../../../components/ui/field';
-import { Input, Select, Textarea } from '../../../components/ui/input';
+import { Input, Textarea } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { errorMessage, isApiError, sendWithConfirmation } from '../../../lib/api-client';
 import { todayIsoDate } from '../../../lib/dates';
-import { parseDecimal } from '../../../lib/numbers';
 import { paths } from '../../../config/paths';
-import { useLocations, usePlan, useProcedure, useRecordRun, useRun } from '../api';
-import { roleLabels } from '../labels';
-import { ContainerDraw, drawBody, newDraw, type DrawValues } from '../components/container-draw';
-import { LineChemicalPicker, type PickedChemical } from '../components/line-chemical-picker';
+import { usePlan, useProcedure, useRecordRun, useRun } from '../api';
 import { BackLink, PageHeader, QueryState, Section } from '../components/page-parts';
 import { PreparationSafety, procedureHazards } from '../components/preparation-safety';
 import { fullPrecision } from '../components/rounded';
-
-interface ExtraDraw {
-  key: string;
-  chemical: PickedChemical | null;
-  purpose: string;
-  draw: DrawValues;
-}
-
-interface PortionValues {
-  key: string;
-  label: string;
-  quantity: string;
-  unit: string;
-  locationId: string;
-  tareMass: string;
-  notes: string;
-}
-
-let nextKey = 1;
-const newPortion = (label: string, unit: string, locationId = ''): PortionValues => ({
-  key: `portion-${nextKey++}`,
-  label,
-  quantity: '',
-  unit,
-  locationId,
-  tareMass: '',
-  notes: '',
-});
-
-/** Draws to start from: the containers the plan suggested, else one empty draw per line. */
-function initialDraws(procedure: Procedure, plan: PlanDetail | undefined) {
-  const draws: Record<number, DrawValues[]> = {};
-  for (const line of procedure.lines) {
-    if (line.role === 'product') continue;
-    const check = plan?.stockCheck.lines.find(
-      (l) => l.lineIndex === line.index && l.purpose === 'line',
-    );
-    const fromPlan = check?.take.map((take) => newDraw(String(take.containerId), check.unit)) ?? [];
-    draws[line.index] = fromPlan.length > 0 ? fromPlan : [newDraw('', line.chemical.stockUnit)];
-  }
-  return draws;
-}
-
-/** Where a schema issue is, in words a person recognises. */
-function issuePlace(path: readonly PropertyKey[], procedure: Procedure, body: RunRecord): string {
-  const [section, index, , drawIndex] = path;
-  if (section === 'lines' && typeof index === 'number') {
-    const lineIndex = body.lines?.[index]?.lineIndex ?? 0;
-    const name = procedure.lines[lineIndex]?.chemical.name ?? '';
-    return `Line ${lineIndex + 1} (${name}), draw ${Number(drawIndex ?? 0) + 1}`;
-  }
-  if (section === 'extraDraws' && typeof index === 'number') return `Extra draw ${index + 1}`;
-  if (section === 'products') {
-    const portion = path[3];
-    return typeof portion === 'number' ? `Portion ${portion + 1}` : 'Product';
-  }
-  if (section === 'observations') return 'Observations';
-  return String(section ?? 'Record');
-}
+import { RunExtraDraws } from '../components/run-extra-draws';
+import { RunLineDraws } from '../components/run-line-draws';
+import { RunProductFields } from '../components/run-product-fields';
+import {
+  initialDraws,
+  issuePlace,
+  newPortion,
+  recordBody,
+  undrawnLines,
+  type ExtraDraw,
+  type PortionValues,
+} from '../components/run-record-body';
 
 function RecordForm({
   run,
@@ -97,15 +40,13 @@ function RecordForm({
   const navigate = useNavigate();
   const record = useRecordRun(run.id);
   const confirmation = useConfirmation();
-  const locations = useLocations();
   const product = procedure.lines.find((line) => line.role === 'product');
-  const productUnit = product?.chemical.stockUnit ?? 'g';
   const [performedOn, setPerformedOn] = useState(todayIsoDate());
-  const [draws, setDraws] = useState(() => initialDraws(procedure, plan));
+  const [draws, setDraws] = useState(() => initialDraws(procedure, plan, run.scaleFactor));
   const [extras, setExtras] = useState<ExtraDraw[]>([]);
   const [crude, setCrude] = useState('');
   const [portions, setPortions] = useState<PortionValues[]>(() => [
-    newPortion('first crop', productUnit),
+    newPortion('first crop', product?.chemical.stockUnit ?? 'g'),
   ]);
   const [meltingLow, setMeltingLow] = useState('');
   const [meltingHigh, setMeltingHigh] = useState('');
@@ -113,63 +54,33 @@ function RecordForm({
   const [notes, setNotes] = useState('');
   const [problems, setProblems] = useState<string[]>([]);
 
-  const setPortion = (key: string, patch: Partial<PortionValues>) =>
-    setPortions((all) => all.map((p) => (p.key === key ? { ...p, ...patch } : p)));
-
-  function buildBody(): RunRecord {
-    const low = parseDecimal(meltingLow);
-    const high = parseDecimal(meltingHigh);
-    return {
-      performedOn,
-      lines: Object.entries(draws)
-        .map(([lineIndex, list]) => ({
-          lineIndex: Number(lineIndex),
-          draws: list.map(drawBody).filter((d) => d !== null),
-        }))
-        .filter((line) => line.draws.length > 0),
-      extraDraws: extras
-        .map((extra) => {
-          const body = drawBody(extra.draw);
-          return body ? { ...body, purpose: extra.purpose } : null;
-        })
-        .filter((d) => d !== null),
-      products: product
-        ? [
-            {
-              lineIndex: product.index,
-              crudeMassG: parseDecimal(crude),
-              portions: portions.map((p) => ({
-                label: p.label,
-                quantity: parseDecimal(p.quantity) ?? (undefined as unknown as number),
-                unit: p.unit,
-                locationId: p.locationId ? Number(p.locationId) : (undefined as unknown as number),
-                tareMass: parseDecimal(p.tareMass),
-                notes: p.notes,
-              })),
-            },
-          ]
-        : [],
-      observations: {
-        meltingRangeC:
-          low === null && high === null
-            ? null
-            : { low: low ?? Number.NaN, high: high ?? low ?? Number.NaN },
-        appearance,
-        notes,
-      },
-    };
-  }
-
   async function handleSubmit(event: FormEvent) {
     event.preventDefault();
-    const body = buildBody();
+    const body = recordBody({
+      performedOn,
+      draws,
+      extras,
+      productLineIndex: product?.index ?? null,
+      crude,
+      portions,
+      meltingLow,
+      meltingHigh,
+      appearance,
+      notes,
+    });
     const parsed = runRecordSchema.safeParse(body);
-    if (!parsed.success) {
-      setProblems(
-        parsed.error.issues.map(
+    // The rule the server applies: the yield comes only from what is drawn here.
+    const undrawn = undrawnLines(procedure, draws).map(
+      (line) =>
+        `Line ${line.index + 1} (${line.chemical.name}): enter what was drawn and from which container — the yield is worked out only from amounts drawn from stock.`,
+    );
+    const issues = parsed.success
+      ? []
+      : parsed.error.issues.map(
           (issue) => `${issuePlace(issue.path, procedure, body)}: ${issue.message}`,
-        ),
-      );
+        );
+    if (undrawn.length > 0 || issues.length > 0) {
+      setProblems([...undrawn, ...issues]);
       return;
     }
     setProblems([]);
@@ -206,280 +117,22 @@ function RecordForm({
         )}
       </Field>
 
-      <Section id="used-heading" title="What was really used">
-        <p className="text-sm text-ink-600">
-          Name the container each amount came from. Weighing the container before and after is the
-          most exact: the tare cancels out. A line left empty counts as its planned amount.
-        </p>
-        <ol className="flex flex-col gap-3">
-          {procedure.lines
-            .filter((line) => line.role !== 'product')
-            .map((line) => {
-              const planned =
-                line.quantity !== null && line.unit
-                  ? `planned ${fullPrecision(line.quantity * run.scaleFactor)} ${line.unit}`
-                  : undefined;
-              return (
-                <li
-                  key={line.index}
-                  aria-label={`Line ${line.index + 1}: ${line.chemical.name}`}
-                  className="flex flex-col gap-2 rounded-lg border border-ink-200 bg-white px-4 py-3"
-                >
-                  <p className="text-sm">
-                    <span className="font-semibold text-ink-900">
-                      {line.index + 1}. {line.chemical.name}
-                    </span>{' '}
-                    <span className="text-ink-600">
-                      {roleLabels[line.role]}
-                      {planned && ` · ${planned}`}
-                      {line.optional && ' · optional'}
-                    </span>
-                  </p>
-                  {(draws[line.index] ?? []).map((draw, drawIndex) => (
-                    <ContainerDraw
-                      key={draw.key}
-                      chemicalId={line.chemicalId}
-                      value={draw}
-                      label={`Line ${line.index + 1} draw ${drawIndex + 1}`}
-                      plannedHint={drawIndex === 0 ? planned : undefined}
-                      onChange={(next) =>
-                        setDraws((all) => ({
-                          ...all,
-                          [line.index]: all[line.index]!.map((d) =>
-                            d.key === draw.key ? next : d,
-                          ),
-                        }))
-                      }
-                      onRemove={() =>
-                        setDraws((all) => ({
-                          ...all,
-                          [line.index]: all[line.index]!.filter((d) => d.key !== draw.key),
-                        }))
-                      }
-                    />
-                  ))}
-                  <Button
-                    size="sm"
-                    className="self-start"
-                    icon={<Plus aria-hidden="true" className="size-4" />}
-                    onClick={() =>
-                      setDraws((all) => ({
-                        ...all,
-                        [line.index]: [
-                          ...(all[line.index] ?? []),
-                          newDraw('', line.chemical.stockUnit),
-                        ],
-                      }))
-                    }
-                  >
-                    Another container for {line.chemical.name}
-                  </Button>
-                </li>
-              );
-            })}
-        </ol>
-      </Section>
-
-      <Section id="extra-heading" title="Extra draws">
-        <p className="text-sm text-ink-600">
-          Anything used that is not a line of the procedure, e.g. solvent to recrystallize from.
-        </p>
-        {extras.map((extra, index) => (
-          <div
-            key={extra.key}
-            className="flex flex-col gap-2 rounded-lg border border-ink-200 bg-white px-4 py-3"
-          >
-            <div className="grid gap-3 md:grid-cols-2">
-              <Field label={`Extra draw ${index + 1}: chemical`}>
-                {(props) => (
-                  <LineChemicalPicker
-                    id={props.id}
-                    label={`extra draw ${index + 1}`}
-                    value={extra.chemical}
-                    onChange={(chemical) =>
-                      setExtras((all) =>
-                        all.map((e) =>
-                          e.key === extra.key
-                            ? { ...e, chemical, draw: newDraw('', chemical?.stockUnit ?? 'mL') }
-                            : e,
-                        ),
-                      )
-                    }
-                  />
-                )}
-              </Field>
-              <Field label="What for">
-                {(props) => (
-                  <Input
-                    {...props}
-                    value={extra.purpose}
-                    onChange={(event) =>
-                      setExtras((all) =>
-                        all.map((e) =>
-                          e.key === extra.key ? { ...e, purpose: event.target.value } : e,
-                        ),
-                      )
-                    }
-                  />
-                )}
-              </Field>
-            </div>
-            {extra.chemical && (
-              <ContainerDraw
-                chemicalId={extra.chemical.id}
-                value={extra.draw}
-                label={`Extra draw ${index + 1}`}
-                onChange={(draw) =>
-                  setExtras((all) => all.map((e) => (e.key === extra.key ? { ...e, draw } : e)))
-                }
-                onRemove={() => setExtras((all) => all.filter((e) => e.key !== extra.key))}
-              />
-            )}
-          </div>
-        ))}
-        <Button
-          size="sm"
-          className="self-start"
-          icon={<Plus aria-hidden="true" className="size-4" />}
-          onClick={() =>
-            setExtras((all) => [
-              ...all,
-              {
-                key: `extra-${nextKey++}`,
-                chemical: null,
-                purpose: 'recrystallization solvent',
-                draw: newDraw('', 'mL'),
-              },
-            ])
-          }
-        >
-          Add an extra draw
-        </Button>
-      </Section>
-
+      <RunLineDraws
+        procedure={procedure}
+        plan={plan}
+        scaleFactor={run.scaleFactor}
+        draws={draws}
+        onChange={setDraws}
+      />
+      <RunExtraDraws extras={extras} setExtras={setExtras} />
       {product && (
-        <Section id="product-heading" title={`What was obtained: ${product.chemical.name}`}>
-          <p className="text-sm text-ink-600">
-            Each portion put into stock becomes its own prepared lot in a new labelled container,
-            linked to this run and to the lots it was made from.
-          </p>
-          <Field label="Crude mass (g), before purifying" optional className="w-60">
-            {(props) => (
-              <Input
-                {...props}
-                inputMode="decimal"
-                value={crude}
-                onChange={(event) => setCrude(event.target.value)}
-              />
-            )}
-          </Field>
-          <ol className="flex flex-col gap-2">
-            {portions.map((portion, index) => (
-              <li
-                key={portion.key}
-                aria-label={`Portion ${index + 1}`}
-                className="grid gap-3 rounded-lg border border-ink-200 bg-white px-4 py-3 md:grid-cols-[2fr_1fr_0.7fr_3fr_1fr_auto] md:items-end"
-              >
-                <Field label="Portion">
-                  {(props) => (
-                    <Input
-                      {...props}
-                      value={portion.label}
-                      onChange={(event) => setPortion(portion.key, { label: event.target.value })}
-                    />
-                  )}
-                </Field>
-                <Field label="Amount">
-                  {(props) => (
-                    <Input
-                      {...props}
-                      inputMode="decimal"
-                      value={portion.quantity}
-                      onChange={(event) =>
-                        setPortion(portion.key, { quantity: event.target.value })
-                      }
-                    />
-                  )}
-                </Field>
-                <Field label="Unit">
-                  {(props) => (
-                    <Select
-                      {...props}
-                      value={portion.unit}
-                      onChange={(event) => setPortion(portion.key, { unit: event.target.value })}
-                    >
-                      {['g', 'mg', 'mL'].map((u) => (
-                        <option key={u}>{u}</option>
-                      ))}
-                    </Select>
-                  )}
-                </Field>
-                <Field label="Location">
-                  {(props) => (
-                    <Select
-                      {...props}
-                      value={portion.locationId}
-                      onChange={(event) =>
-                        setPortion(portion.key, { locationId: event.target.value })
-                      }
-                    >
-                      <option value="">
-                        {locations.isPending ? 'Loading locations…' : 'Choose a location'}
-                      </option>
-                      {locations.data?.items.map((location) => (
-                        <option key={location.id} value={location.id}>
-                          {location.path}
-                        </option>
-                      ))}
-                    </Select>
-                  )}
-                </Field>
-                <Field label="Container tare (g)" optional>
-                  {(props) => (
-                    <Input
-                      {...props}
-                      inputMode="decimal"
-                      value={portion.tareMass}
-                      onChange={(event) =>
-                        setPortion(portion.key, { tareMass: event.target.value })
-                      }
-                    />
-                  )}
-                </Field>
-                {portions.length > 1 ? (
-                  <Button
-                    size="sm"
-                    variant="ghost"
-                    onClick={() => setPortions((all) => all.filter((p) => p.key !== portion.key))}
-                  >
-                    Remove
-                  </Button>
-                ) : (
-                  <span />
-                )}
-              </li>
-            ))}
-          </ol>
-          <Button
-            size="sm"
-            className="self-start"
-            icon={<Plus aria-hidden="true" className="size-4" />}
-            onClick={() =>
-              setPortions((all) => [
-                ...all,
-                newPortion(
-                  all.length === 1
-                    ? 'second crop (from the mother liquor)'
-                    : `crop ${all.length + 1}`,
-                  productUnit,
-                  all[all.length - 1]?.locationId ?? '',
-                ),
-              ])
-            }
-          >
-            {portions.length === 1 ? 'Add a second crop' : 'Add another portion'}
-          </Button>
-        </Section>
+        <RunProductFields
+          product={product}
+          crude={crude}
+          setCrude={setCrude}
+          portions={portions}
+          setPortions={setPortions}
+        />
       )}
 
       <Section id="observations-heading" title="Observations">
