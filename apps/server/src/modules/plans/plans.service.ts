@@ -1,7 +1,6 @@
 import { displayQuantity, lineAmounts } from '@lotwise/chem';
 import {
   allocateHolds,
-  can,
   hazardStatementTexts,
   mayChangePlan,
   roundingRules,

@@ -261,7 +261,7 @@ export async function applyDraws(
   await requireHoldsConfirmed(repos, taken, {
     today: at.today,
     exceptPlanId: run.planId,
-    confirmed: at.confirm,
+    confirmed: at.confirm === true,
   });
   return drawnByLine;
 }

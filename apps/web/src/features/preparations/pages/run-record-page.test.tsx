@@ -277,6 +277,7 @@ describe('Recording a run', () => {
           locationPath: shelf.path,
           requirementIndex: 0,
           quantity: 4.4,
+          reservedQuantity: 4.4,
           unit: 'g',
           until: '2026-12-10',
           status: 'active',
