@@ -477,8 +477,8 @@ export const scaleFactorInputSchema = z.union([z.number(), z.string()]).transfor
 export const scaledQuerySchema = z
   .object({
     factor: scaleFactorInputSchema.optional(),
-    targetLimitingMass: coercedAmountSchema('targetLimitingMass', 'positive').optional(),
-    targetProductMass: coercedAmountSchema('targetProductMass', 'positive').optional(),
+    targetLimitingMass: coercedAmountSchema('target mass', 'positive').optional(),
+    targetProductMass: coercedAmountSchema('target mass', 'positive').optional(),
     unit: procedureUnitSchema.optional().default('g'),
     basis: z.enum(['theoretical', 'expected']).optional().default('theoretical'),
   })
