@@ -20,3 +20,4 @@ export * from './imports';
 export * from './procedures';
 export * from './plans';
 export * from './runs';
+export * from './format';

@@ -3,6 +3,7 @@ import { chmodSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'n
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
+import { defaultTextLocale } from '@lotwise/shared';
 
 /** The repository root; relative paths in the environment are resolved against it. */
 export const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../..');
@@ -22,6 +23,23 @@ const wholeNumber = (min: number, max: number) =>
         .min(min, `must be a whole number from ${min} to ${max}`)
         .max(max, `must be a whole number from ${min} to ${max}`),
     );
+
+function isLocale(value: string): boolean {
+  try {
+    return Intl.getCanonicalLocales(value).length === 1;
+  } catch {
+    return false;
+  }
+}
+
+function isTimeZone(value: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en', { timeZone: value });
+    return true;
+  } catch {
+    return false;
+  }
+}
 
 /** Every key the server reads from the environment, with its default and a one-line doc. */
 const envSchema = z.object({
@@ -87,6 +105,16 @@ const envSchema = z.object({
   OUTBOX_INTERVAL_SECONDS: wholeNumber(0, 86400).default(10),
   /** Send attempts before a message is marked failed (an admin can still resend it). */
   OUTBOX_MAX_ATTEMPTS: wholeNumber(1, 100).default(10),
+  /** Language of dates in text the server writes (e-mails, alerts, messages), e.g. en-GB, en-US, de-DE. */
+  TEXT_LOCALE: z
+    .string()
+    .refine(isLocale, 'must be a language tag such as en-GB, en-US or de-DE')
+    .default(defaultTextLocale),
+  /** Time zone of times in text the server writes, e.g. Europe/Berlin; the server's own when unset. */
+  TEXT_TIME_ZONE: z
+    .string()
+    .refine(isTimeZone, 'must be a time zone such as UTC or Europe/Berlin')
+    .optional(),
 });
 
 /** Where outgoing mail goes: a real server, the local fake, or nowhere (messages stay queued). */
@@ -117,6 +145,12 @@ export interface AlertConfig {
   outboxMaxAttempts: number;
 }
 
+/** How the server writes dates in text (amounts follow one rule everywhere: `@lotwise/shared`). */
+export interface TextConfig {
+  locale: string;
+  timeZone: string;
+}
+
 export interface Config {
   port: number;
   host: string;
@@ -135,6 +169,7 @@ export interface Config {
   logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
   mail: MailConfig;
   alerts: AlertConfig;
+  text: TextConfig;
 }
 
 /** A setting in the environment is not usable; the message names the variable. */
@@ -231,6 +266,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       digestHour: values.ALERT_DIGEST_HOUR,
       outboxIntervalSeconds: values.OUTBOX_INTERVAL_SECONDS,
       outboxMaxAttempts: values.OUTBOX_MAX_ATTEMPTS,
+    },
+    text: {
+      locale: values.TEXT_LOCALE,
+      timeZone: values.TEXT_TIME_ZONE ?? Intl.DateTimeFormat().resolvedOptions().timeZone,
     },
   };
 }

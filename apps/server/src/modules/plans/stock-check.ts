@@ -5,12 +5,14 @@ import {
   lineAmounts,
   type ProcedureLine,
 } from '@lotwise/chem';
-import type {
-  StockCheck,
-  StockCheckLine,
-  StockSuggestion,
-  StockTake,
-  StockUnit,
+import {
+  formatQuantity,
+  withRoundedText,
+  type StockCheck,
+  type StockCheckLine,
+  type StockSuggestion,
+  type StockTake,
+  type StockUnit,
 } from '@lotwise/shared';
 import type { Repositories } from '../../db/store';
 import type { ChemicalRow } from '../chemicals/chemical.entity';
@@ -49,10 +51,6 @@ interface Requirement {
   problem: string | null;
 }
 
-function show(value: number): string {
-  return String(Number(value.toPrecision(6)));
-}
-
 /** A line's scaled amount in its chemical's stock unit (what is measured from the bottle). */
 function stockAmountOf(
   line: ProcedureLine,
@@ -70,7 +68,7 @@ function stockAmountOf(
           : 'a molar mass or density';
     return {
       value: null,
-      problem: `${chemical.name} is counted in ${chemical.stockUnit}: give ${need} to turn ${show(line.quantity?.value ?? 0)} ${line.quantity?.unit ?? ''} into ${chemical.stockUnit}`,
+      problem: `${chemical.name} is counted in ${chemical.stockUnit}: give ${need} to turn ${formatQuantity(line.quantity?.value ?? 0, line.quantity?.unit ?? '')} into ${chemical.stockUnit}`,
     };
   } catch (error) {
     if (error instanceof ChemError) return { value: null, problem: error.message };
@@ -194,7 +192,7 @@ function pureGrams(pureStock: number, chemical: ChemicalRow): number | null {
 }
 
 function display(value: number | null, unit: StockUnit) {
-  return value === null ? null : displayQuantity({ value, unit });
+  return value === null ? null : withRoundedText(displayQuantity({ value, unit }));
 }
 
 /**

@@ -9,7 +9,10 @@ import {
 } from '@lotwise/chem';
 import {
   can,
+  formatDecimal,
+  formatFullPrecision,
   formatLabelCode,
+  formatQuantity,
   todayIso,
   type ChemicalUsage,
   type LotProvenance,
@@ -40,22 +43,18 @@ import type { RunRow } from './run.entity';
 
 const epsilon = 1e-6;
 
-function show(value: number): string {
-  return String(Number(value.toPrecision(6)));
-}
-
 /** Compares a measured melting range with the literature's. // common practice, no source */
 export function meltingComparison(
   measured: { low: number; high: number } | null,
   literature: { low: number; high: number } | null,
 ): string | null {
   if (!measured || !literature) return null;
-  const range = `${show(literature.low)}–${show(literature.high)} °C`;
+  const range = `${formatDecimal(literature.low, 2)}–${formatDecimal(literature.high, 2)} °C`;
   let text: string;
   if (measured.high < literature.low) {
-    text = `${show(Number((literature.low - measured.high).toFixed(1)))} °C below the literature range (${range}): probably impure or still wet`;
+    text = `${formatDecimal(literature.low - measured.high, 1)} °C below the literature range (${range}): probably impure or still wet`;
   } else if (measured.low > literature.high) {
-    text = `${show(Number((measured.low - literature.high).toFixed(1)))} °C above the literature range (${range}): check the thermometer and the identity of the product`;
+    text = `${formatDecimal(measured.low - literature.high, 1)} °C above the literature range (${range}): check the thermometer and the identity of the product`;
   } else {
     text = `within or overlapping the literature range (${range})`;
   }
@@ -364,7 +363,7 @@ export async function recordRunWith(
       if (draw.grossMassBefore !== undefined) {
         const beforeG = convert(draw.grossMassBefore, draw.unit, 'g');
         drawn = toStockUnit(beforeG - afterG, 'g', chemical, `${draw.path}.grossMassAfter`);
-        note ||= `Weighed ${show(beforeG)} g before, ${show(afterG)} g after`;
+        note ||= `Weighed ${formatQuantity(beforeG, 'g')} before, ${formatQuantity(afterG, 'g')} after`;
       } else {
         if (container.tareMass === null) {
           throw AppError.validation(
@@ -374,9 +373,9 @@ export async function recordRunWith(
         }
         if (afterG < container.tareMass - epsilon) {
           throw AppError.validation(
-            `A gross mass of ${show(afterG)} g is less than the tare of ${container.labelCode} (${show(container.tareMass)} g).`,
+            `A gross mass of ${formatQuantity(afterG, 'g')} is less than the tare of ${container.labelCode} (${formatQuantity(container.tareMass, 'g')}).`,
             {
-              [`${draw.path}.grossMassAfter`]: `is below the tare of ${show(container.tareMass)} g`,
+              [`${draw.path}.grossMassAfter`]: `is below the tare of ${formatQuantity(container.tareMass, 'g')}`,
             },
           );
         }
@@ -387,7 +386,7 @@ export async function recordRunWith(
           `${draw.path}.grossMassAfter`,
         );
         drawn = container.quantity - net;
-        note ||= `Weighed ${show(afterG)} g gross after`;
+        note ||= `Weighed ${formatQuantity(afterG, 'g')} gross after`;
       }
     } else {
       drawn = toStockUnit(draw.amount!, draw.unit, chemical, `${draw.path}.amount`);
@@ -401,9 +400,9 @@ export async function recordRunWith(
     }
     if (drawn > container.quantity + epsilon) {
       throw AppError.conflict(
-        `${container.labelCode} holds only ${show(container.quantity)} ${container.unit}; ${show(drawn)} ${container.unit} cannot be drawn from it. The run was not recorded: nothing was written.`,
+        `${container.labelCode} holds only ${formatQuantity(container.quantity, container.unit)}; ${formatQuantity(drawn, container.unit)} cannot be drawn from it. The run was not recorded: nothing was written.`,
         {
-          [`${draw.path}.${draw.grossMassAfter !== undefined ? 'grossMassAfter' : 'amount'}`]: `at most ${show(container.quantity)} ${container.unit} is in ${container.labelCode}`,
+          [`${draw.path}.${draw.grossMassAfter !== undefined ? 'grossMassAfter' : 'amount'}`]: `at most ${formatQuantity(container.quantity, container.unit, { rounding: 'down' })} is in ${container.labelCode}`,
         },
       );
     }
@@ -517,7 +516,7 @@ export async function recordRunWith(
     if (!draws?.length) {
       if (line.role === 'limiting-reagent' || line.role === 'reagent') {
         notices.push(
-          `Line ${index + 1} (${chemical.name}): no draw was recorded, so the planned amount at ×${show(run.scaleFactor)} is used for the yield.`,
+          `Line ${index + 1} (${chemical.name}): no draw was recorded, so the planned amount at ×${formatFullPrecision(run.scaleFactor)} is used for the yield.`,
         );
       }
       return base;
