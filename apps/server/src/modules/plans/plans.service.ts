@@ -451,6 +451,7 @@ export function plansService(
               labelCode: take.labelCode,
               locationPath: take.locationPath,
               take: take.take,
+              quantity: take.quantity,
               unit: row.unit,
             })),
           };

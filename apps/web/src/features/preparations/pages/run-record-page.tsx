@@ -15,6 +15,7 @@ import { Notice } from '../../../components/ui/notice';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { errorMessage, isApiError } from '../../../lib/api-client';
 import { todayIsoDate } from '../../../lib/dates';
+import { formatAmount } from '../../../lib/format';
 import { parseDecimal } from '../../../lib/numbers';
 import { paths } from '../../../config/paths';
 import { useLocations, usePlan, useProcedure, useRecordRun, useRun } from '../api';
@@ -210,7 +211,7 @@ function RecordForm({
             .map((line) => {
               const planned =
                 line.quantity !== null && line.unit
-                  ? `planned ${fullPrecision(line.quantity * run.scaleFactor)} ${line.unit}`
+                  ? `planned ${formatAmount(line.quantity * run.scaleFactor, line.unit)}`
                   : undefined;
               return (
                 <li
