@@ -55,6 +55,26 @@ export default tseslint.config(
     rules: { 'no-restricted-imports': 'off' },
   },
   {
+    // Amounts and dates are written by one rule (shared/src/format.ts, apps/web/src/lib/format.ts).
+    files: ['apps/web/src/**/*.{ts,tsx}', 'apps/server/src/**/*.ts'],
+    rules: {
+      'no-restricted-syntax': [
+        'error',
+        ...['toFixed', 'toLocaleString', 'toLocaleDateString', 'toLocaleTimeString'].map(
+          (name) => ({
+            selector: `CallExpression[callee.property.name='${name}']`,
+            message: `Write numbers and dates with formatQuantity/formatAmount, formatNumber or formatDate from @lotwise/shared (or apps/web/src/lib/format.ts), not .${name}().`,
+          }),
+        ),
+        {
+          selector: "NewExpression[callee.object.name='Intl'][callee.property.name='NumberFormat']",
+          message:
+            'Write numbers with formatQuantity, formatNumber or formatDecimal from @lotwise/shared.',
+        },
+      ],
+    },
+  },
+  {
     files: ['packages/chem/src/**/*.ts'],
     rules: {
       'no-restricted-imports': [

@@ -24,7 +24,7 @@ test('when a technician plans 8 benches at 1/4 scale, then the shortfall, make-v
   ).toBeVisible();
   await expect(page.getByText('GHS05').first()).toBeVisible();
   // the demo lab holds 13.5 mL of 1 M NaOH solution against 44.0 mL needed
-  await expect(page.getByText('short by 30.5 mL')).toBeVisible();
+  await expect(page.getByText('short by 30.50 mL')).toBeVisible();
   await expect(page.getByText(/Prepare it first/)).toBeVisible();
   await expect(page.getByRole('link', { name: 'Plan that preparation' })).toBeVisible();
 

@@ -23,3 +23,4 @@ export * from './imports';
 export * from './procedures';
 export * from './plans';
 export * from './runs';
+export * from './format';

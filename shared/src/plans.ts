@@ -310,6 +310,8 @@ export const dispensingLineSchema = z.object({
       labelCode: z.string(),
       locationPath: z.string(),
       take: z.number(),
+      /** What the container holds: a take is never written larger than this. */
+      quantity: z.number(),
       unit: stockUnitSchema,
     }),
   ),

@@ -9,7 +9,7 @@ export const reorderStatuses = ['below', 'at', 'ok', 'none'] as const;
 export const reorderStatusSchema = z.enum(reorderStatuses);
 export type ReorderStatus = (typeof reorderStatuses)[number];
 
-/** A quantity rounded for reading, e.g. 2.5 L for 2500 mL (see @lotwise/chem `stockDisplay`). */
+/** A quantity as it is written for reading (`formatQuantity`): e.g. `2,500.00 mL`, in its own unit. */
 export const displayQuantitySchema = z.object({
   value: z.number(),
   unit: z.string(),

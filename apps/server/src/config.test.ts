@@ -29,6 +29,13 @@ describe('configuration', () => {
       bcryptCost: 9,
       logLevel: 'info',
     });
+    expect(config.text.locale).toBe('en-GB');
+  });
+
+  it('when a text locale and time zone are given, then server-written dates use them', () => {
+    const { env } = tempEnv();
+    const config = loadConfig({ ...env, TEXT_LOCALE: 'de-DE', TEXT_TIME_ZONE: 'Europe/Berlin' });
+    expect(config.text).toEqual({ locale: 'de-DE', timeZone: 'Europe/Berlin' });
   });
 
   it('when PORT is not a port number, then loading stops with a message naming PORT', () => {
@@ -49,6 +56,8 @@ describe('configuration', () => {
       JWT_SECRET: 'short',
       BCRYPT_COST: '2',
       LOG_LEVEL: 'loud',
+      TEXT_LOCALE: 'not a locale!',
+      TEXT_TIME_ZONE: 'Mars/Olympus',
     };
     for (const [key, value] of Object.entries(bad)) {
       expect(() => loadConfig({ ...env, [key]: value }), key).toThrow(

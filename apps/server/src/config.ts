@@ -4,6 +4,7 @@ import { isIP } from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
+import { defaultTextLocale } from '@lotwise/shared';
 
 /** The repository root; relative paths in the environment are resolved against it. */
 export const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../..');
@@ -23,6 +24,23 @@ const wholeNumber = (min: number, max: number) =>
         .min(min, `must be a whole number from ${min} to ${max}`)
         .max(max, `must be a whole number from ${min} to ${max}`),
     );
+
+function isLocale(value: string): boolean {
+  try {
+    return Intl.getCanonicalLocales(value).length === 1;
+  } catch {
+    return false;
+  }
+}
+
+function isTimeZone(value: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en', { timeZone: value });
+    return true;
+  } catch {
+    return false;
+  }
+}
 
 /** Every key the server reads from the environment, with its default and a one-line doc. */
 const envSchema = z.object({
@@ -117,6 +135,16 @@ const envSchema = z.object({
   OUTBOX_INTERVAL_SECONDS: wholeNumber(0, 86400).default(10),
   /** Send attempts before a message is marked failed (an admin can still resend it). */
   OUTBOX_MAX_ATTEMPTS: wholeNumber(1, 100).default(10),
+  /** Language of dates in text the server writes (e-mails, alerts, messages), e.g. en-GB, en-US, de-DE. */
+  TEXT_LOCALE: z
+    .string()
+    .refine(isLocale, 'must be a language tag such as en-GB, en-US or de-DE')
+    .default(defaultTextLocale),
+  /** Time zone of times in text the server writes, e.g. Europe/Berlin; the server's own when unset. */
+  TEXT_TIME_ZONE: z
+    .string()
+    .refine(isTimeZone, 'must be a time zone such as UTC or Europe/Berlin')
+    .optional(),
 });
 
 const proxyRanges = new Set(['loopback', 'linklocal', 'uniquelocal']);
@@ -177,6 +205,11 @@ export type TrustProxy = false | number | string[];
 
 /** When the demo lab is loaded into the database at start-up. */
 export type SeedDemo = 'new-file' | 'empty-database' | 'never';
+/** How the server writes dates in text (amounts follow one rule everywhere: `@lotwise/shared`). */
+export interface TextConfig {
+  locale: string;
+  timeZone: string;
+}
 
 export interface Config {
   /** NODE_ENV; `test` is what vitest sets. */
@@ -211,6 +244,7 @@ export interface Config {
   logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
   mail: MailConfig;
   alerts: AlertConfig;
+  text: TextConfig;
 }
 
 /** Lotwise cannot start as set up; the message says what is wrong and what to do. */
@@ -352,6 +386,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       digestHour: values.ALERT_DIGEST_HOUR,
       outboxIntervalSeconds: values.OUTBOX_INTERVAL_SECONDS,
       outboxMaxAttempts: values.OUTBOX_MAX_ATTEMPTS,
+    },
+    text: {
+      locale: values.TEXT_LOCALE,
+      timeZone: values.TEXT_TIME_ZONE ?? Intl.DateTimeFormat().resolvedOptions().timeZone,
     },
   };
 }

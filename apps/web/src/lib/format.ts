@@ -1,70 +1,56 @@
 /**
- * Formatting of numbers and dates for screens. Amounts always carry their unit; callers put
- * them in a `tabular-nums` element so columns line up.
+ * Formatting of numbers and dates for screens: the web app's entry to the one rule in
+ * `@lotwise/shared` (format.ts), which the server's messages use too. Amounts always carry
+ * their unit; callers put them in a `tabular-nums` element so columns line up.
  */
+import {
+  formatDate as formatSharedDate,
+  formatDateTime as formatSharedDateTime,
+  formatDecimal,
+  formatNumber,
+  formatQuantity,
+  formatTake,
+} from '@lotwise/shared';
 
-const decimalsByUnit: Record<string, number> = {
-  g: 2,
-  mg: 1,
-  kg: 3,
-  µg: 0,
-  mL: 2,
-  L: 3,
-  µL: 0,
-  mol: 4,
-  mmol: 2,
-};
-
-function number(value: number, decimals: number): string {
-  return new Intl.NumberFormat('en', {
-    minimumFractionDigits: decimals,
-    maximumFractionDigits: decimals,
-  }).format(value);
+/**
+ * An amount in the unit it is recorded in, at balance-like precision: `250` g ->
+ * `250.00 g`, `0.852` mL -> `0.852 mL`, `2698.471` mL -> `2,698.47 mL`.
+ */
+export function formatAmount(value: number | null | undefined, unit: string): string {
+  return formatQuantity(value, unit);
 }
 
-/** `250` + `g` -> `250.00 g` (balance-like precision per unit). */
-export function formatAmount(value: number | null | undefined, unit: string): string {
-  if (value === null || value === undefined || Number.isNaN(value)) return '—';
-  return `${number(value, decimalsByUnit[unit] ?? 2)} ${unit}`;
+/** What to take from a container: never more than it holds (`all (34.95 mL)` when emptied). */
+export function formatTakeAmount(take: number, holds: number, unit: string): string {
+  return formatTake(take, holds, unit);
 }
 
 /** Molar mass in g/mol with two decimals, e.g. `180.16 g/mol`. */
 export function formatMolarMass(value: number | null | undefined): string {
-  if (value === null || value === undefined || Number.isNaN(value)) return '—';
-  return `${number(value, 2)} g/mol`;
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  return `${formatNumber(value, 2)} g/mol`;
 }
 
 export function formatDensity(value: number | null | undefined): string {
-  if (value === null || value === undefined) return '—';
-  return `${number(value, 3)} g/mL`;
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  return `${formatNumber(value, 3)} g/mL`;
 }
 
 export function formatPercent(value: number | null | undefined): string {
-  if (value === null || value === undefined) return '—';
-  return `${new Intl.NumberFormat('en', { maximumFractionDigits: 2 }).format(value)} %`;
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  return `${formatDecimal(value, 2)} %`;
 }
 
 export function formatCount(value: number): string {
-  return new Intl.NumberFormat('en').format(value);
+  return formatNumber(value, 0);
 }
 
-function toDate(value: string | Date): Date | null {
-  const date = typeof value === 'string' ? new Date(value) : value;
-  return Number.isNaN(date.getTime()) ? null : date;
-}
-
-/** A calendar date in the reader's locale, e.g. `3 Dec 2025`. */
+/** A calendar date in the reader's locale, e.g. `3 Dec 2025`; `YYYY-MM-DD` never shifts a day. */
 export function formatDate(value: string | Date | null | undefined, locale?: string): string {
-  if (!value) return '—';
-  const date = toDate(value);
-  return date ? new Intl.DateTimeFormat(locale, { dateStyle: 'medium' }).format(date) : '—';
+  return formatSharedDate(value, { locale });
 }
 
-/** Date and time in the reader's locale, e.g. `3 Dec 2025, 14:05`. */
+/** Date and time in the reader's locale and time zone, e.g. `3 Dec 2025, 14:05`. */
 export function formatDateTime(value: string | Date | null | undefined, locale?: string): string {
-  if (!value) return '—';
-  const date = toDate(value);
-  return date
-    ? new Intl.DateTimeFormat(locale, { dateStyle: 'medium', timeStyle: 'short' }).format(date)
-    : '—';
+  return formatSharedDateTime(value, { locale });
 }

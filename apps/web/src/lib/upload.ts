@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { uploadFieldName } from '@lotwise/shared';
+import { formatDecimal, uploadFieldName } from '@lotwise/shared';
 import { ApiError, isApiError, notifyUnauthenticated, toApiError } from './api-client';
 
 export interface UploadProgress {
@@ -125,5 +125,5 @@ export function formatFileSize(bytes: number): string {
     value /= 1024;
     unit += 1;
   }
-  return `${new Intl.NumberFormat('en', { maximumFractionDigits: value < 10 ? 1 : 0 }).format(value)} ${units[unit]}`;
+  return `${formatDecimal(value, value < 10 ? 1 : 0)} ${units[unit]}`;
 }

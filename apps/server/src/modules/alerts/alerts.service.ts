@@ -1,6 +1,9 @@
-import { addDays, stockDisplay } from '@lotwise/chem';
+import { addDays } from '@lotwise/chem';
 import {
   alertKinds,
+  formatDate,
+  formatDateTime,
+  formatQuantity,
   todayIso,
   type Alert,
   type AlertDelivery,
@@ -17,7 +20,7 @@ import {
   type Role,
   type User,
 } from '@lotwise/shared';
-import type { Config } from '../../config';
+import type { Config, TextConfig } from '../../config';
 import type { Repositories, Store } from '../../db/store';
 import { AppError } from '../../lib/app-error';
 import { createLogger, type Logger } from '../../lib/logger';
@@ -113,11 +116,11 @@ function presentOutbox(row: Omit<OutboxListRow, 'text' | 'html'>): OutboxMessage
 }
 
 function amount(value: number, unit: 'g' | 'mL') {
-  return stockDisplay(value, unit).text;
+  return formatQuantity(value, unit);
 }
 
 /** The in-app form of a condition. */
-function presentCondition(condition: Condition): Alert {
+function presentCondition(condition: Condition, style: TextConfig): Alert {
   const { chemical, container } = condition;
   const base = {
     key: condition.key,
@@ -145,17 +148,18 @@ function presentCondition(condition: Condition): Alert {
       ...base,
       container: { id: r.containerId, labelCode: r.labelCode, locationPath: r.locationPath },
       title: `Reservation lapsing: ${chemical.name}`,
-      message: `${amount(r.quantity, r.unit)} in ${r.labelCode} reserved for “${r.planTitle}” lapses at ${r.lapsesAt}.`,
+      message: `${amount(r.quantity, r.unit)} in ${r.labelCode} reserved for “${r.planTitle}” lapses at ${formatDateTime(r.lapsesAt, { ...style, showZone: true })}.`,
       link: `/preparations/plans/${r.planId}`,
     };
   }
+  const dueOn = formatDate(condition.dueOn, style);
   const where = `${container!.labelCode} (${amount(container!.quantity, container!.unit)}, ${container!.locationPath})`;
   const text: Record<'expiring' | 'expired' | 'peroxide-due', [string, string]> = {
-    expiring: [`Expiring: ${chemical.name}`, `${where} expires on ${condition.dueOn}.`],
-    expired: [`Expired: ${chemical.name}`, `${where} expired on ${condition.dueOn}.`],
+    expiring: [`Expiring: ${chemical.name}`, `${where} expires on ${dueOn}.`],
+    expired: [`Expired: ${chemical.name}`, `${where} expired on ${dueOn}.`],
     'peroxide-due': [
       `${condition.severity === 'critical' ? 'Peroxide test overdue' : 'Peroxide test due'}: ${chemical.name}`,
-      `${where}: test for peroxides or discard by ${condition.dueOn}.`,
+      `${where}: test for peroxides or discard by ${dueOn}.`,
     ],
   };
   const [title, message] = text[condition.kind as keyof typeof text];
@@ -269,7 +273,7 @@ export function alertsService(store: Store, config: Config, options: AlertsServi
     const used = await repos.alerts.usedChemicals(mineIds);
     const claimed = options.claims ? await options.claims.claimedChemicals(mineIds) : new Map();
     for (const topic of topics) {
-      const content = topicMessage(topic, config.publicUrl);
+      const content = topicMessage(topic, config.publicUrl, config.text);
       for (const person of everyone) {
         if (!person.kinds.has(topic.kind)) continue;
         if (topic.userIds) {
@@ -367,7 +371,9 @@ export function alertsService(store: Store, config: Config, options: AlertsServi
     async current(query: AlertListQuery, now = new Date()): Promise<AlertList> {
       const conditions = await collect(store.repos, now);
       return {
-        items: conditions.filter((c) => !query.kind || c.kind === query.kind).map(presentCondition),
+        items: conditions
+          .filter((c) => !query.kind || c.kind === query.kind)
+          .map((c) => presentCondition(c, config.text)),
         evaluatedAt: now.toISOString(),
         expiryWindowDays: settings.expiryDays,
       };

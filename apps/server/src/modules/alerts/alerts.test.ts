@@ -82,7 +82,7 @@ describe('a draw that crosses the reorder point', () => {
     const text = rows[0]!.text;
     expect(text).toContain(chemical.name);
     expect(text).toContain('Usable stock: 90.00 g');
-    expect(text).toContain('Reorder point: 100.0 g');
+    expect(text).toContain('Reorder point: 100.00 g');
     expect(text).toContain(`${container.labelCode} · 90.00 g · ${shelf.path}`);
     expect(text).toContain(`http://lotwise.example.test/stock/chemicals/${chemical.id}`);
 

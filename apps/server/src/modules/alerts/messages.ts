@@ -1,5 +1,13 @@
-import { stockDisplay } from '@lotwise/chem';
-import { alertKindLabels, ghsPictograms, safetyDeferral, type AlertKind } from '@lotwise/shared';
+import {
+  alertKindLabels,
+  formatDate,
+  formatDateTime,
+  formatQuantity,
+  ghsPictograms,
+  safetyDeferral,
+  type AlertKind,
+} from '@lotwise/shared';
+import type { TextConfig } from '../../config';
 import type { AlertContainerFacts } from './alerts.repository';
 import type { Condition, ConditionChemical, MailTopic } from './rules';
 
@@ -36,7 +44,7 @@ const styles = {
 };
 
 function amount(value: number, unit: 'g' | 'mL'): string {
-  return stockDisplay(value, unit).text;
+  return formatQuantity(value, unit);
 }
 
 function containerLine(container: AlertContainerFacts, extra = ''): string {
@@ -155,7 +163,7 @@ const datedWording: Record<
   },
 };
 
-function datedMessage(topic: MailTopic, publicUrl: string): MessageContent {
+function datedMessage(topic: MailTopic, publicUrl: string, style: TextConfig): MessageContent {
   const wording = datedWording[topic.kind as keyof typeof datedWording];
   const chemical = topic.chemical;
   const containers = topic.conditions.map((c) => c.container!);
@@ -167,6 +175,7 @@ function datedMessage(topic: MailTopic, publicUrl: string): MessageContent {
   const subject = `${overdue ? 'Peroxide test overdue' : wording.subject}: ${chemical.name} — ${
     single ? single.labelCode : `${containers.length} containers`
   }`;
+  const due = (c: Condition) => (c.dueOn ? formatDate(c.dueOn, style) : '');
   const dateNote = (c: Condition) =>
     c.kind === 'peroxide-due' && c.severity === 'critical' ? ' (overdue)' : '';
   const text = [
@@ -174,7 +183,7 @@ function datedMessage(topic: MailTopic, publicUrl: string): MessageContent {
     '',
     ...topic.conditions.map(
       (c) =>
-        `- ${containerLine(c.container!)} · ${wording.column.toLowerCase()} ${c.dueOn}${dateNote(c)}`,
+        `- ${containerLine(c.container!)} · ${wording.column.toLowerCase()} ${due(c)}${dateNote(c)}`,
     ),
     '',
     `Open in Lotwise: ${link}`,
@@ -190,7 +199,7 @@ function datedMessage(topic: MailTopic, publicUrl: string): MessageContent {
           c.container!.labelCode,
           amount(c.container!.quantity, c.container!.unit),
           c.container!.locationPath,
-          `${c.dueOn ?? ''}${dateNote(c)}`,
+          `${due(c)}${dateNote(c)}`,
         ],
       })),
       ['Label', 'Amount', 'Location', wording.column],
@@ -201,11 +210,15 @@ function datedMessage(topic: MailTopic, publicUrl: string): MessageContent {
   return { subject, text, html, link };
 }
 
-function reservationMessage(topic: MailTopic, publicUrl: string): MessageContent {
+function reservationMessage(
+  topic: MailTopic,
+  publicUrl: string,
+  style: TextConfig,
+): MessageContent {
   const r = topic.conditions[0]!.reservation!;
   const link = `${publicUrl}/preparations/plans/${r.planId}`;
   const subject = `Reservation lapsing: ${r.chemicalName} for ${r.planTitle}`;
-  const line = `${r.labelCode} · ${amount(r.quantity, r.unit)} reserved · ${r.locationPath} · lapses ${r.lapsesAt.slice(0, 16).replace('T', ' ')} UTC`;
+  const line = `${r.labelCode} · ${amount(r.quantity, r.unit)} reserved · ${r.locationPath} · lapses ${formatDateTime(r.lapsesAt, { ...style, showZone: true })}`;
   const intro = `Your reservation of ${r.chemicalName} for “${r.planTitle}” lapses soon; after that the stock is free for others.`;
   const text = [
     intro,
@@ -226,10 +239,14 @@ function reservationMessage(topic: MailTopic, publicUrl: string): MessageContent
 }
 
 /** The e-mail for one topic found by the rules. */
-export function topicMessage(topic: MailTopic, publicUrl: string): MessageContent {
+export function topicMessage(
+  topic: MailTopic,
+  publicUrl: string,
+  style: TextConfig,
+): MessageContent {
   if (topic.kind === 'low-stock') return lowStockMessage(topic, publicUrl);
-  if (topic.kind === 'reservation-lapsing') return reservationMessage(topic, publicUrl);
-  return datedMessage(topic, publicUrl);
+  if (topic.kind === 'reservation-lapsing') return reservationMessage(topic, publicUrl, style);
+  return datedMessage(topic, publicUrl, style);
 }
 
 /** HTML for a message given as plain text only: paragraphs, escaped. */

@@ -326,8 +326,10 @@ describe('outbox worker', () => {
       [admin.email, manager.email].sort(),
     );
     const mail = mails[0]!;
-    expect(mail.subject).toBe('Low stock: Acetone (demo) — 400 mL left (reorder point 500 mL)');
-    expect(mail.text).toContain(`${container.labelCode} · 400 mL · ${shelf.path}`);
+    expect(mail.subject).toBe(
+      'Low stock: Acetone (demo) — 400.00 mL left (reorder point 500.00 mL)',
+    );
+    expect(mail.text).toContain(`${container.labelCode} · 400.00 mL · ${shelf.path}`);
     expect(mail.text).toContain(`http://lotwise.example.test/stock/chemicals/${chemical.id}`);
     expect(mail.text).toContain(safetyDeferral);
     const html = String(mail.html);

@@ -13,6 +13,8 @@ import {
 } from './rules';
 import { readUnsubscribeToken, unsubscribeToken } from './unsubscribe-token';
 
+const textStyle = { locale: 'en-GB', timeZone: 'UTC' };
+
 const ethanol: LowStockFacts = {
   id: 3,
   name: 'Ethanol <absolute>',
@@ -130,7 +132,7 @@ describe('reservation rule', () => {
     ]);
     expect(condition).toMatchObject({ kind: 'reservation-lapsing', userIds: [21] });
     const [topic] = mailTopics([condition!]);
-    expect(topicMessage(topic!, 'http://lab.example.test').link).toBe(
+    expect(topicMessage(topic!, 'http://lab.example.test', textStyle).link).toBe(
       'http://lab.example.test/preparations/plans/4',
     );
   });
@@ -164,12 +166,14 @@ describe('mail topics', () => {
 describe('messages', () => {
   it('when low stock is written up, then it names the chemical, amounts with units, containers, places, the link and the hazard line', () => {
     const topic = mailTopics(lowStockConditions([ethanol], [container()]))[0]!;
-    const message = topicMessage(topic, 'http://lab.example.test');
-    expect(message.subject).toBe('Low stock: Ethanol <absolute> — 750 mL left (reorder point 1 L)');
-    expect(message.text).toContain('Usable stock: 750 mL');
-    expect(message.text).toContain('Reorder point: 1 L');
+    const message = topicMessage(topic, 'http://lab.example.test', textStyle);
+    expect(message.subject).toBe(
+      'Low stock: Ethanol <absolute> — 750.00 mL left (reorder point 1,000.00 mL)',
+    );
+    expect(message.text).toContain('Usable stock: 750.00 mL');
+    expect(message.text).toContain('Reorder point: 1,000.00 mL');
     expect(message.text).toContain(
-      'LW-00011 · 750 mL · Teaching lab > Flammables cabinet > Shelf 1',
+      'LW-00011 · 750.00 mL · Teaching lab > Flammables cabinet > Shelf 1',
     );
     expect(message.text).toContain('http://lab.example.test/stock/chemicals/3');
     expect(message.text).toContain(safetyDeferral);
@@ -183,7 +187,7 @@ describe('messages', () => {
     const [topic] = mailTopics(
       datedConditions([container({ expiresOn: '2026-03-10' })], '2026-03-01', '2026-03-31'),
     );
-    expect(topicMessage(topic!, 'http://lab.example.test').link).toBe(
+    expect(topicMessage(topic!, 'http://lab.example.test', textStyle).link).toBe(
       'http://lab.example.test/stock/containers/11',
     );
   });

@@ -12,6 +12,7 @@ import {
   formatLabelCode,
   maxStockAmount,
   maxStockAmountText,
+  formatQuantity,
   normalizeLabelCode,
   todayIso,
   type Container,
@@ -73,8 +74,13 @@ interface ChemicalFacts {
   bulkDensity: number | null;
 }
 
-function show(value: number): string {
-  return String(Number(value.toPrecision(6)));
+function amount(value: number, unit: string): string {
+  return formatQuantity(value, unit);
+}
+
+/** A most that may be taken: rounded down, so what it says can really be taken. */
+function limit(value: number, unit: string): string {
+  return formatQuantity(value, unit, { rounding: 'down' });
 }
 
 /**
@@ -93,7 +99,7 @@ export function toStockUnit(
   const problem =
     converted === 0 ? null : amountProblem(Math.abs(converted), 'positive', chemical.stockUnit);
   if (problem) {
-    const message = `${show(value)} ${unit} is ${show(converted)} ${chemical.stockUnit}, which ${problem}.`;
+    const message = `${amount(value, unit)} is ${amount(converted, chemical.stockUnit)}, which ${problem}.`;
     throw AppError.validation(message, { [field]: message });
   }
   return converted;
@@ -120,7 +126,7 @@ function convertToStockUnit(
   } catch (error) {
     if (error instanceof ChemError && error.code === 'bulk_density_missing') {
       const message = bulkDensityMissingMessage(
-        `${show(value)} ${unit} of ${chemical.name}`,
+        `${amount(value, unit)} of ${chemical.name}`,
         chemical.stockUnit,
       );
       const sentence = message.charAt(0).toUpperCase() + message.slice(1) + '.';
@@ -131,7 +137,7 @@ function convertToStockUnit(
     }
     if (error instanceof ChemError && error.code === 'density_missing') {
       throw AppError.validation(
-        `${chemical.name} has no density, so ${show(value)} ${unit} cannot be turned into ${chemical.stockUnit}. Add its density (g/mL) to the chemical, or enter the amount in ${chemical.stockUnit}.`,
+        `${chemical.name} has no density, so ${amount(value, unit)} cannot be turned into ${chemical.stockUnit}. Add its density (g/mL) to the chemical, or enter the amount in ${chemical.stockUnit}.`,
         {
           density: `is not recorded for ${chemical.name}: add it (g/mL at 20 °C) or enter the amount in ${chemical.stockUnit}`,
           [field]: `needs the density of ${chemical.name} to convert ${unit} to ${chemical.stockUnit}`,
@@ -238,7 +244,7 @@ export async function appendEntry(
   let delta = roundToStored(movement.delta);
   let balance = fromMicro(toMicro(container.quantity) + toMicro(delta));
   if (balance > maxStockAmount) {
-    const message = `${container.labelCode} would hold ${show(balance)} ${container.unit}; one container holds at most ${maxStockAmountText} ${container.unit}.`;
+    const message = `${container.labelCode} would hold ${amount(balance, container.unit)}; one container holds at most ${maxStockAmountText} ${container.unit}.`;
     throw AppError.validation(message, {
       [movement.reason === 'adjusted' ? 'correction' : 'quantity']: message,
     });
@@ -250,9 +256,9 @@ export async function appendEntry(
   }
   if (balance < 0) {
     throw AppError.conflict(
-      `${container.labelCode} holds only ${show(container.quantity)} ${container.unit}; ${show(-delta)} ${container.unit} cannot be taken from it.`,
+      `${container.labelCode} holds only ${amount(container.quantity, container.unit)}; ${amount(-delta, container.unit)} cannot be taken from it.`,
       {
-        amount: `at most ${show(container.quantity)} ${container.unit} is available in ${container.labelCode}`,
+        amount: `at most ${limit(container.quantity, container.unit)} is available in ${container.labelCode}`,
       },
     );
   }
@@ -534,8 +540,8 @@ export function containersService(store: Store) {
           const grossG = convert(input.grossMass, input.unit, 'g');
           if (grossG < container.tareMass - epsilon) {
             throw AppError.validation(
-              `A gross mass of ${show(grossG)} g is less than the tare of ${container.labelCode} (${show(container.tareMass)} g): weigh again with the cap on, or correct the tare.`,
-              { grossMass: `is below the tare mass of ${show(container.tareMass)} g` },
+              `A gross mass of ${amount(grossG, 'g')} is less than the tare of ${container.labelCode} (${amount(container.tareMass, 'g')}): weigh again with the cap on, or correct the tare.`,
+              { grossMass: `is below the tare mass of ${amount(container.tareMass, 'g')}` },
             );
           }
           const net = toStockUnit(
@@ -547,11 +553,11 @@ export function containersService(store: Store) {
           drawn = roundQuantity(container.quantity - net);
           if (drawn < -epsilon) {
             throw AppError.conflict(
-              `${container.labelCode} now holds ${show(net)} ${container.unit}, more than its balance of ${show(container.quantity)} ${container.unit}: record an adjustment instead of a draw.`,
+              `${container.labelCode} now holds ${amount(net, container.unit)}, more than its balance of ${amount(container.quantity, container.unit)}: record an adjustment instead of a draw.`,
               { grossMass: 'is more than the container should weigh' },
             );
           }
-          note = note || `Weighed ${show(grossG)} g gross`;
+          note = note || `Weighed ${amount(grossG, 'g')} gross`;
         } else {
           drawn = toStockUnit(input.amount!, input.unit, chemical, 'amount');
         }
@@ -562,10 +568,10 @@ export function containersService(store: Store) {
         }
         if (drawn > container.quantity + epsilon) {
           throw AppError.conflict(
-            `${container.labelCode} holds only ${show(container.quantity)} ${container.unit}; ${show(drawn)} ${container.unit} cannot be drawn from it.`,
+            `${container.labelCode} holds only ${amount(container.quantity, container.unit)}; ${amount(drawn, container.unit)} cannot be drawn from it.`,
             {
               [input.grossMass !== undefined ? 'grossMass' : 'amount']:
-                `at most ${show(container.quantity)} ${container.unit} is available in ${container.labelCode}`,
+                `at most ${limit(container.quantity, container.unit)} is available in ${container.labelCode}`,
             },
           );
         }
@@ -611,8 +617,8 @@ export function containersService(store: Store) {
               : toStockUnit(input.correction!, input.unit, chemical, 'correction');
         if (container.quantity + delta < -epsilon) {
           throw AppError.conflict(
-            `${container.labelCode} holds ${show(container.quantity)} ${container.unit}; a correction of ${show(delta)} ${container.unit} would leave less than nothing.`,
-            { correction: `at most −${show(container.quantity)} ${container.unit}` },
+            `${container.labelCode} holds ${amount(container.quantity, container.unit)}; a correction of ${amount(delta, container.unit)} would leave less than nothing.`,
+            { correction: `at most −${limit(container.quantity, container.unit)}` },
           );
         }
         const result = await recordAdjustment(repos, container, delta, input.note, actor, null);
@@ -630,9 +636,9 @@ export function containersService(store: Store) {
         );
         if (quantity > container.quantity + epsilon) {
           throw AppError.conflict(
-            `${container.labelCode} holds only ${show(container.quantity)} ${container.unit}; ${show(quantity)} ${container.unit} cannot be split off.`,
+            `${container.labelCode} holds only ${amount(container.quantity, container.unit)}; ${amount(quantity, container.unit)} cannot be split off.`,
             {
-              quantity: `at most ${show(container.quantity)} ${container.unit} is available in ${container.labelCode}`,
+              quantity: `at most ${limit(container.quantity, container.unit)} is available in ${container.labelCode}`,
             },
           );
         }

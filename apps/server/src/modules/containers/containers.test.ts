@@ -197,7 +197,7 @@ describe('draws', () => {
     }).expect(409);
     expect(response.body.error.code).toBe('conflict');
     expect(response.body.error.message).toContain(container.labelCode);
-    expect(response.body.error.message).toContain('500 g');
+    expect(response.body.error.message).toContain('500.00 g');
     expect((await ledgerOf(container.id)).total).toBe(1);
     expect((await get(`/api/containers/${container.id}`)).body).toMatchObject({
       quantity: 500,

@@ -1,6 +1,7 @@
 import {
   chemicalExportHeaders,
   importColumns,
+  plainNumber,
   todayIso,
   type Chemical,
   type ChemicalListQuery,
@@ -23,7 +24,11 @@ function list(values: readonly string[]): string {
   return values.join(', ');
 }
 
-/** A container as a row of the import's columns, so an export imports again. */
+/**
+ * A container as a row of the import's columns, so an export imports again. Amounts are a
+ * plain number (decimal point, no grouping) beside their unit: a spreadsheet reads them as
+ * numbers and nothing recorded is lost to display rounding.
+ */
 export function containerCells(container: Container, chemical: Chemical | undefined) {
   const cells: Record<ImportColumnKey, Cell> = {
     chemical: container.chemical.name,
@@ -42,10 +47,10 @@ export function containerCells(container: Container, chemical: Chemical | undefi
     receivedOn: container.lot.receivedOn,
     expiresOn: container.lot.expiresOn,
     labelCode: container.labelCode,
-    quantity: container.quantity,
+    quantity: plainNumber(container.quantity),
     unit: container.unit,
-    tareMass: container.tareMass,
-    capacity: container.capacity,
+    tareMass: container.tareMass === null ? null : plainNumber(container.tareMass),
+    capacity: container.capacity === null ? null : plainNumber(container.capacity),
     capacityUnit: container.capacityUnit,
     openedOn: container.openedOn,
     status: container.status,
@@ -61,7 +66,7 @@ function chemicalCells(chemical: Chemical): Cell[] {
     list(chemical.synonyms),
     chemical.casNumber,
     chemical.formula,
-    chemical.molarMass === null ? null : Number(chemical.molarMass.toFixed(4)),
+    chemical.molarMass === null ? null : Math.round(chemical.molarMass * 1e4) / 1e4,
     chemical.physicalState,
     chemical.density,
     chemical.defaultPurityPercent,

@@ -1,4 +1,6 @@
 import {
+  defaultTextLocale,
+  formatDateTime,
   formatLabelCode,
   importRowLimit,
   importWaitRowLimit,
@@ -12,6 +14,7 @@ import {
   type Page,
   type User,
 } from '@lotwise/shared';
+import type { TextConfig } from '../../config';
 import { AppError } from '../../lib/app-error';
 import { CsvSyntaxError, decodeText, parseCsv } from '../../lib/csv';
 import type { Logger } from '../../lib/logger';
@@ -62,19 +65,23 @@ function planSource(repos: Repositories, checkLabels: boolean): PlanSource {
   };
 }
 
-function statusConflict(head: ImportHead): AppError {
+function statusConflict(head: ImportHead, text: TextConfig): AppError {
   const messages: Record<ImportStatus, string> = {
     validating: `Import #${head.id} is still being checked; commit it once it is ready.`,
     ready: '',
     invalid: `Import #${head.id} has ${head.errorCount} problem(s) and cannot be committed: correct the file and upload it again.`,
     committing: `Import #${head.id} is being committed already.`,
-    committed: `Import #${head.id} was committed on ${head.committedAt ?? head.updatedAt}; its stock is in Lotwise already.`,
+    committed: `Import #${head.id} was committed on ${formatDateTime(head.committedAt ?? head.updatedAt, { ...text, showZone: true })}; its stock is in Lotwise already.`,
     failed: `Import #${head.id} failed (${head.failure ?? 'see its details'}); upload the file again.`,
   };
   return AppError.conflict(messages[head.status]);
 }
 
-export function importsService(store: Store, logger: Logger) {
+export function importsService(
+  store: Store,
+  logger: Logger,
+  text: TextConfig = { locale: defaultTextLocale, timeZone: 'UTC' },
+) {
   const { imports } = store.repos;
   /** Imports being validated or committed by this process: their progress lives here. */
   const running = new Map<number, { processed: number }>();
@@ -515,7 +522,7 @@ export function importsService(store: Store, logger: Logger) {
         const current = await repos.imports.findHead(id);
         if (!current) throw AppError.notFound(`There is no import #${id}.`);
         const settled = await settleInterrupted(current);
-        if (settled.status !== 'ready' || running.has(id)) throw statusConflict(settled);
+        if (settled.status !== 'ready' || running.has(id)) throw statusConflict(settled, text);
         await repos.imports.update(id, {
           status: 'committing',
           processedRows: 0,

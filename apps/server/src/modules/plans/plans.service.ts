@@ -1,11 +1,15 @@
 import { displayQuantity, lineAmounts } from '@lotwise/chem';
 import {
   allocateHolds,
+  defaultTextLocale,
+  formatDate,
+  formatQuantity,
   hazardStatementTexts,
   mayChangePlan,
   roundingRules,
   safetyDeferral,
   todayIso,
+  withRoundedText,
   type CautionFlags,
   type DispensingSheet,
   type Page,
@@ -39,8 +43,8 @@ type ReservationCreateParsed = z.output<typeof reservationCreateSchema>;
 
 const epsilon = 1e-6;
 
-function show(value: number): string {
-  return String(Number(value.toPrecision(6)));
+function amount(value: number, unit: string): string {
+  return formatQuantity(value, unit);
 }
 
 /** The caution flags in words, for the top of a plan and the dispensing sheet. */
@@ -147,7 +151,11 @@ export async function markPlanRecorded(repos: Repositories, planId: number, runI
   await repos.plans.update(planId, { status: 'recorded', runId, updatedAt: now });
 }
 
-export function plansService(store: Store) {
+export function plansService(
+  store: Store,
+  text: { locale: string } = { locale: defaultTextLocale },
+) {
+  const date = (value: string) => formatDate(value, text);
   async function summaries(repos: Repositories, rows: PlanRow[]): Promise<Plan[]> {
     const procedures = new Map(
       (await repos.procedures.rowsByIds([...new Set(rows.map((r) => r.procedureId))])).map(
@@ -371,8 +379,8 @@ export function plansService(store: Store) {
           }
           if (container.expiresOn !== null && container.expiresOn < until) {
             throw AppError.conflict(
-              `${container.labelCode} expires on ${container.expiresOn}, before ${until}; it cannot be reserved until then.`,
-              { items: `${container.labelCode} expires on ${container.expiresOn}` },
+              `${container.labelCode} expires on ${date(container.expiresOn)}, before ${date(until)}; it cannot be reserved until then.`,
+              { items: `${container.labelCode} expires on ${date(container.expiresOn)}` },
             );
           }
           const others = inForce.filter((r) => r.containerId === containerId && r.planId !== id);
@@ -382,15 +390,14 @@ export function plansService(store: Store) {
           const want = parts.reduce((sum, part) => sum + part.quantity, 0);
           if (want > free + epsilon) {
             const holders = [...new Set(others.map((r) => `#${r.planId}`))].join(', ');
+            const freeText = formatQuantity(free, container.unit, { rounding: 'down' });
             throw AppError.conflict(
-              `${container.labelCode} has only ${show(free)} ${container.unit} free` +
+              `${container.labelCode} has only ${freeText} free` +
                 (held > 0
-                  ? ` (${show(held)} of its ${show(container.quantity)} ${container.unit} are reserved by plan ${holders})`
+                  ? ` (${amount(held, container.unit)} of its ${amount(container.quantity, container.unit)} are reserved by plan ${holders})`
                   : '') +
-                `; ${show(want)} ${container.unit} cannot be reserved. Nothing was reserved.`,
-              {
-                items: `at most ${show(free)} ${container.unit} of ${container.labelCode} is free`,
-              },
+                `; ${amount(want, container.unit)} cannot be reserved. Nothing was reserved.`,
+              { items: `at most ${freeText} of ${container.labelCode} is free` },
             );
           }
           for (const part of parts) {
@@ -468,7 +475,7 @@ export function plansService(store: Store) {
             notes:
               row.purpose === 'dissolving' ? `to dissolve line ${row.lineIndex + 1}` : line.notes,
             perBench,
-            perBenchDisplay: perBench ? displayQuantity(perBench) : null,
+            perBenchDisplay: perBench ? withRoundedText(displayQuantity(perBench)) : null,
             total: row.required,
             totalDisplay: row.requiredDisplay,
             ghsPictograms: chemical.ghsPictograms,
@@ -477,6 +484,7 @@ export function plansService(store: Store) {
               labelCode: take.labelCode,
               locationPath: take.locationPath,
               take: take.take,
+              quantity: take.quantity,
               unit: row.unit,
             })),
             stock: {

@@ -241,7 +241,7 @@ describe('reservations', () => {
       otherMember,
     ).expect(409);
     expect(refused.body.error.message).toContain(s.ac2oContainer.labelCode);
-    expect(refused.body.error.message).toMatch(/only 2 mL free .*reserved by plan #/);
+    expect(refused.body.error.message).toMatch(/only 2.00 mL free .*reserved by plan #/);
     // Nothing was reserved for the second plan.
     expect((await get(`/api/plans/${second.id}`).expect(200)).body.reservations).toEqual([]);
     // Somebody else's plan cannot be cancelled by a member…

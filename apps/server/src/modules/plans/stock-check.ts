@@ -8,6 +8,8 @@ import {
 } from '@lotwise/chem';
 import {
   allocateHolds,
+  formatQuantity,
+  withRoundedText,
   type StockCheck,
   type StockCheckLine,
   type StockSuggestion,
@@ -57,10 +59,6 @@ interface Requirement {
   problem: string | null;
 }
 
-function show(value: number): string {
-  return String(Number(value.toPrecision(6)));
-}
-
 /** A line's scaled amount in its chemical's stock unit (what is measured from the bottle). */
 function stockAmountOf(
   line: ProcedureLine,
@@ -90,7 +88,7 @@ function stockAmountOf(
     return {
       value: null,
       gramsPerPureUnit: null,
-      problem: `${chemical.name} is counted in ${chemical.stockUnit}: give ${need} to turn ${show(line.quantity?.value ?? 0)} ${line.quantity?.unit ?? ''} into ${chemical.stockUnit}`,
+      problem: `${chemical.name} is counted in ${chemical.stockUnit}: give ${need} to turn ${formatQuantity(line.quantity?.value ?? 0, line.quantity?.unit ?? '')} into ${chemical.stockUnit}`,
     };
   } catch (error) {
     if (error instanceof ChemError) {
@@ -225,7 +223,7 @@ function pureGrams(pureStock: number, requirement: Requirement): number | null {
 }
 
 function display(value: number | null, unit: StockUnit) {
-  return value === null ? null : displayQuantity({ value, unit });
+  return value === null ? null : withRoundedText(displayQuantity({ value, unit }));
 }
 
 /**

@@ -12,6 +12,7 @@ import {
 import {
   procedureLinesFor,
   roundingRules,
+  withRoundedText,
   type LineChemicalFacts,
   type Page,
   type Procedure,
@@ -311,7 +312,7 @@ export function theoreticalYieldOf(
     amountMol: theoretical.amountMol,
     massG,
     volumeMl: theoretical.volumeMl ?? null,
-    display: massG === null ? null : roundMassForDisplay(massG),
+    display: massG === null ? null : withRoundedText(roundMassForDisplay(massG)),
     expectedMassG:
       massG === null || expectedYieldPercent === null ? null : (massG * expectedYieldPercent) / 100,
   };
@@ -456,13 +457,18 @@ export function proceduresService(store: Store) {
               line.quantity === null || line.unit === null
                 ? null
                 : { value: line.quantity, unit: line.unit },
-            display: chem.quantity ? displayQuantity(chem.quantity) : null,
+            display: chem.quantity ? withRoundedText(displayQuantity(chem.quantity)) : null,
             massG: computed?.massG ?? null,
             volumeMl: computed?.volumeMl ?? null,
             amountMol: computed?.amountMol ?? null,
-            massDisplay: computed?.massG === undefined ? null : roundMassForDisplay(computed.massG),
+            massDisplay:
+              computed?.massG === undefined
+                ? null
+                : withRoundedText(roundMassForDisplay(computed.massG)),
             volumeDisplay:
-              computed?.volumeMl === undefined ? null : roundVolumeForDisplay(computed.volumeMl),
+              computed?.volumeMl === undefined
+                ? null
+                : withRoundedText(roundVolumeForDisplay(computed.volumeMl)),
             equivalents: computed?.equivalents ?? null,
             dissolvedIn:
               solvent && dissolved
@@ -471,7 +477,7 @@ export function proceduresService(store: Store) {
                     chemicalName: solvent.name,
                     quantity: dissolved.value,
                     unit: dissolved.unit,
-                    display: displayQuantity(dissolved),
+                    display: withRoundedText(displayQuantity(dissolved)),
                   }
                 : null,
           };

@@ -1,5 +1,5 @@
 import { convert } from '@lotwise/chem';
-import type { RunRecordParsed, User } from '@lotwise/shared';
+import { formatQuantity, type RunRecordParsed, type User } from '@lotwise/shared';
 import { AppError } from '../../lib/app-error';
 import type { Repositories } from '../../db/store';
 import type { ChemicalRow } from '../chemicals/chemical.entity';
@@ -14,7 +14,6 @@ import { peroxideDueOf } from '../containers/peroxide-dates';
 import { requireHoldsConfirmed } from '../plans/holds';
 import type { LoadedProcedure } from '../procedures/procedures.service';
 import type { RunRow } from './run.entity';
-import { show } from './run-views';
 
 const epsilon = 1e-6;
 
@@ -144,7 +143,7 @@ function drawnAmount(
     if (draw.grossMassBefore !== undefined) {
       const beforeG = convert(draw.grossMassBefore, draw.unit, 'g');
       drawn = toStockUnit(beforeG - afterG, 'g', chemical, `${draw.path}.grossMassAfter`);
-      note ||= `Weighed ${show(beforeG)} g before, ${show(afterG)} g after`;
+      note ||= `Weighed ${formatQuantity(beforeG, 'g')} before, ${formatQuantity(afterG, 'g')} after`;
     } else {
       if (container.tareMass === null) {
         throw AppError.validation(
@@ -154,9 +153,9 @@ function drawnAmount(
       }
       if (afterG < container.tareMass - epsilon) {
         throw AppError.validation(
-          `A gross mass of ${show(afterG)} g is less than the tare of ${container.labelCode} (${show(container.tareMass)} g).`,
+          `A gross mass of ${formatQuantity(afterG, 'g')} is less than the tare of ${container.labelCode} (${formatQuantity(container.tareMass, 'g')}).`,
           {
-            [`${draw.path}.grossMassAfter`]: `is below the tare of ${show(container.tareMass)} g`,
+            [`${draw.path}.grossMassAfter`]: `is below the tare of ${formatQuantity(container.tareMass, 'g')}`,
           },
         );
       }
@@ -167,7 +166,7 @@ function drawnAmount(
         `${draw.path}.grossMassAfter`,
       );
       drawn = container.quantity - net;
-      note ||= `Weighed ${show(afterG)} g gross after`;
+      note ||= `Weighed ${formatQuantity(afterG, 'g')} gross after`;
     }
   } else {
     drawn = toStockUnit(draw.amount!, draw.unit, chemical, `${draw.path}.amount`);
@@ -181,9 +180,9 @@ function drawnAmount(
   }
   if (drawn > container.quantity + epsilon) {
     throw AppError.conflict(
-      `${container.labelCode} holds only ${show(container.quantity)} ${container.unit}; ${show(drawn)} ${container.unit} cannot be drawn from it. The run was not recorded: nothing was written.`,
+      `${container.labelCode} holds only ${formatQuantity(container.quantity, container.unit)}; ${formatQuantity(drawn, container.unit)} cannot be drawn from it. The run was not recorded: nothing was written.`,
       {
-        [`${draw.path}.${draw.grossMassAfter !== undefined ? 'grossMassAfter' : 'amount'}`]: `at most ${show(container.quantity)} ${container.unit} is in ${container.labelCode}`,
+        [`${draw.path}.${draw.grossMassAfter !== undefined ? 'grossMassAfter' : 'amount'}`]: `at most ${formatQuantity(container.quantity, container.unit, { rounding: 'down' })} is in ${container.labelCode}`,
       },
     );
   }

@@ -1,11 +1,7 @@
-import type { Run, RunSummary } from '@lotwise/shared';
+import { formatDecimal, type Run, type RunSummary } from '@lotwise/shared';
 import { AppError } from '../../lib/app-error';
 import type { Repositories } from '../../db/store';
 import type { RunRow } from './run.entity';
-
-export function show(value: number): string {
-  return String(Number(value.toPrecision(6)));
-}
 
 /** Compares a measured melting range with the literature's. // common practice, no source */
 export function meltingComparison(
@@ -13,12 +9,12 @@ export function meltingComparison(
   literature: { low: number; high: number } | null,
 ): string | null {
   if (!measured || !literature) return null;
-  const range = `${show(literature.low)}–${show(literature.high)} °C`;
+  const range = `${formatDecimal(literature.low, 2)}–${formatDecimal(literature.high, 2)} °C`;
   let text: string;
   if (measured.high < literature.low) {
-    text = `${show(Number((literature.low - measured.high).toFixed(1)))} °C below the literature range (${range}): probably impure or still wet`;
+    text = `${formatDecimal(literature.low - measured.high, 1)} °C below the literature range (${range}): probably impure or still wet`;
   } else if (measured.low > literature.high) {
-    text = `${show(Number((measured.low - literature.high).toFixed(1)))} °C above the literature range (${range}): check the thermometer and the identity of the product`;
+    text = `${formatDecimal(measured.low - literature.high, 1)} °C above the literature range (${range}): check the thermometer and the identity of the product`;
   } else {
     text = `within or overlapping the literature range (${range})`;
   }

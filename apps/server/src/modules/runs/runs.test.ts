@@ -190,7 +190,7 @@ describe('recording a run', () => {
     }).expect(409);
     expect(failed.body.error.message).toContain(s.ac2oContainer.labelCode);
     expect(failed.body.error.message).toMatch(/nothing was written/);
-    expect(failed.body.error.fields['lines.1.draws.0.amount']).toMatch(/at most 10 mL/);
+    expect(failed.body.error.fields['lines.1.draws.0.amount']).toMatch(/at most 10.00 mL/);
     expect(await counts()).toEqual(before);
     expect((await get(`/api/containers/${s.saContainer.id}`).expect(200)).body.quantity).toBe(100);
     expect((await get(`/api/runs/${run.id}`).expect(200)).body.status).toBe('open');

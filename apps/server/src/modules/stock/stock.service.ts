@@ -1,4 +1,4 @@
-import { addDays, reorderState, stockDisplay } from '@lotwise/chem';
+import { addDays, reorderState } from '@lotwise/chem';
 import {
   normalizeLabelCode,
   todayIso,
@@ -13,6 +13,7 @@ import {
   type StocktakeListQuery,
   type User,
   type stocktakeCreateSchema,
+  formatQuantity,
 } from '@lotwise/shared';
 import type { z } from 'zod';
 import { AppError } from '../../lib/app-error';
@@ -75,7 +76,11 @@ export function stockService(store: Store) {
         },
         total: roundQuantity(row.total),
         unit: row.stockUnit,
-        display: stockDisplay(row.total, row.stockUnit),
+        display: {
+          value: roundQuantity(row.total),
+          unit: row.stockUnit,
+          text: formatQuantity(row.total, row.stockUnit),
+        },
         usableContainerCount: row.usableContainerCount,
         containerCount: row.containerCount,
         expiredContainerCount: row.expiredContainerCount,

@@ -97,7 +97,7 @@ describe('lots', () => {
 });
 
 describe('stock overview', () => {
-  it('when containers are expired, empty or disposed, then the usable total leaves them out; display unit and reorder status follow', async () => {
+  it('when containers are expired, empty or disposed, then the usable total leaves them out; the display stays in the stock unit and the reorder status follows', async () => {
     const chemical = await make.chemical({
       physicalState: 'liquid',
       stockUnit: 'mL',
@@ -120,7 +120,7 @@ describe('stock overview', () => {
     expect(item).toMatchObject({
       total: 2500,
       unit: 'mL',
-      display: { text: '2.5 L' },
+      display: { value: 2500, unit: 'mL', text: '2,500.00 mL' },
       usableContainerCount: 2,
       containerCount: 4,
       expiredContainerCount: 1,

@@ -2,15 +2,16 @@ import { roundMassForDisplay, roundVolumeForDisplay, type DisplayValue } from '@
 import {
   safetyDeferral,
   type DispensingSheet,
+  withRoundedText,
   type PlanDetail,
   type Procedure,
   type Run,
   type StockCheckLine,
 } from '@lotwise/shared';
 
-/** Test data of our own, shaped like the Lotwise API's answers. */
+/** Test data of our own, shaped like the Lotwise API's answers (text by the shared rule). */
 export const display = (value: number, unit: 'g' | 'mL'): DisplayValue =>
-  unit === 'g' ? roundMassForDisplay(value) : roundVolumeForDisplay(value);
+  withRoundedText(unit === 'g' ? roundMassForDisplay(value) : roundVolumeForDisplay(value));
 
 export function makeStockLine(overrides: Partial<StockCheckLine> = {}): StockCheckLine {
   return {

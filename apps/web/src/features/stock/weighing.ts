@@ -1,5 +1,6 @@
 import { measuringDensity, type UnitSymbol, unitsOf, weighByDifference } from '@lotwise/chem';
 import type { StockUnit } from '@lotwise/shared';
+import { formatAmount } from '../../lib/format';
 
 /**
  * The chemical facts a draw needs: what it is counted in and, to cross mass and volume, its
@@ -72,7 +73,7 @@ export function previewWeighing(input: {
       ok: false,
       reason: problem,
       netMass,
-      message: `That is less than the tare of ${tareMass} g: weigh again with the cap on.`,
+      message: `That is less than the tare of ${formatAmount(tareMass, 'g')}: weigh again with the cap on.`,
     };
   }
   return {

@@ -1,4 +1,5 @@
 import type { Chemical, LineChemical } from '@lotwise/shared';
+import { formatDensity, formatMolarMass } from '../../../lib/format';
 import { Formula } from '../../../components/chem/formula';
 import { HazardCodes } from '../../../components/hazards/hazard-codes';
 import { Button } from '../../../components/ui/button';
@@ -50,8 +51,8 @@ export function LineChemicalPicker({
           <p className="font-semibold text-ink-900">{value.name}</p>
           <p className="text-xs text-ink-600 tabular-nums">
             <Formula value={value.formula} />
-            {value.molarMass !== null && <> · {value.molarMass.toFixed(3)} g/mol</>}
-            {value.density !== null && <> · {value.density} g/mL</>}
+            {value.molarMass !== null && <> · {formatMolarMass(value.molarMass)}</>}
+            {value.density !== null && <> · {formatDensity(value.density)}</>}
             {value.defaultPurityPercent !== 100 && <> · {value.defaultPurityPercent} %</>}
           </p>
           <HazardCodes pictograms={value.ghsPictograms} statements={value.hazardStatements} />

@@ -1,8 +1,9 @@
 import { roundAmountForDisplay, roundMassForDisplay, roundVolumeForDisplay } from '@lotwise/chem';
+import { formatFullPrecision, formatNumber, formatRounded } from '@lotwise/shared';
 
 /** Enough digits to check a hand calculation, without float noise. */
 export function fullPrecision(value: number): string {
-  return String(Number(value.toPrecision(6)));
+  return formatFullPrecision(value);
 }
 
 /**
@@ -32,7 +33,7 @@ export function Rounded({
   const exact = `${fullPrecision(value)} ${unit}`;
   const title = rule ? `${exact} at full precision. ${rule}` : `${exact} at full precision`;
   // Only when rounding changed the number (not for "44.0 mL" against 44).
-  const rounded = Number.parseFloat(text) !== Number(fullPrecision(value));
+  const rounded = Number.parseFloat(text.replace(/,/g, '')) !== Number(fullPrecision(value));
   return (
     <span
       className={inline ? 'tabular-nums' : 'inline-flex flex-col leading-tight'}
@@ -67,7 +68,7 @@ export function Mass({
   const d = roundMassForDisplay(g);
   return (
     <Rounded
-      text={d.text}
+      text={formatRounded(d)}
       value={g}
       unit="g"
       rule={d.rule}
@@ -92,7 +93,7 @@ export function Volume({
   const d = roundVolumeForDisplay(mL);
   return (
     <Rounded
-      text={d.text}
+      text={formatRounded(d)}
       value={mL}
       unit="mL"
       rule={d.rule}
@@ -119,7 +120,7 @@ export function Moles({
   const inUnit = d.unit === 'mmol' ? mol * 1000 : mol;
   return (
     <Rounded
-      text={d.text}
+      text={formatRounded(d)}
       value={inUnit}
       unit={d.unit}
       rule={d.rule}
@@ -135,7 +136,7 @@ export function Equivalents({ value }: { value: number | null | undefined }) {
   if (value === null || value === undefined) return <span className="text-ink-500">—</span>;
   return (
     <span className="tabular-nums" title={`${fullPrecision(value)} equivalents`}>
-      {value.toFixed(2)}
+      {formatNumber(value, 2)}
     </span>
   );
 }

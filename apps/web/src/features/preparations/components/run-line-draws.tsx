@@ -5,7 +5,6 @@ import { formatAmount } from '../../../lib/format';
 import { roleLabels } from '../labels';
 import { ContainerDraw, newDraw } from './container-draw';
 import { Section } from './page-parts';
-import { fullPrecision } from './rounded';
 import type { LineDraw } from './run-record-body';
 
 /** Says where a filled-in draw came from, while it still holds what was filled in. */
@@ -75,7 +74,7 @@ export function RunLineDraws({
           .map((line) => {
             const planned =
               line.quantity !== null && line.unit
-                ? `planned ${fullPrecision(line.quantity * scaleFactor)} ${line.unit}`
+                ? `planned ${formatAmount(line.quantity * scaleFactor, line.unit)}`
                 : undefined;
             return (
               <li

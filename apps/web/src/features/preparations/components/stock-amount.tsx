@@ -1,7 +1,10 @@
-import { formatAmount } from '../../../lib/format';
-import { Mass, Volume } from './rounded';
+import { formatAmount, formatTakeAmount } from '../../../lib/format';
+import { fullPrecision } from './rounded';
 
-/** An amount in a stock unit, rounded by the balance (g) or glassware (mL) rule. */
+/**
+ * An amount of stock (what a container holds, what is available, short or drawn), written
+ * by the one amount rule in its stock unit, with the full precision as a tooltip.
+ */
 export function StockAmount({
   value,
   unit,
@@ -15,11 +18,45 @@ export function StockAmount({
   secondary?: boolean;
 }) {
   if (value === null || value === undefined) return <span className="text-ink-500">—</span>;
-  if (unit === 'g') return <Mass g={value} testId={testId} secondary={secondary} />;
-  if (unit === 'mL') return <Volume mL={value} testId={testId} secondary={secondary} />;
+  const text = formatAmount(value, unit);
+  const exact = `${fullPrecision(value)} ${unit}`;
   return (
-    <span className="tabular-nums" data-testid={testId}>
-      {formatAmount(value, unit)}
+    <span className="tabular-nums" data-testid={testId} data-value={value}>
+      <span title={`${exact} at full precision`} className="whitespace-nowrap">
+        {text}
+      </span>
+      {secondary && Number(text.replace(/[^0-9.-]/g, '')) !== Number(fullPrecision(value)) && (
+        <span className="ml-1 text-xs font-normal whitespace-nowrap text-ink-500 print:hidden">
+          ({exact})
+        </span>
+      )}
+    </span>
+  );
+}
+
+/**
+ * What to take from a container: never written larger than it holds; taking it all reads
+ * "all (34.95 mL)".
+ */
+export function TakeAmount({
+  take,
+  holds,
+  unit,
+  testId,
+}: {
+  take: number;
+  holds: number;
+  unit: string;
+  testId?: string;
+}) {
+  return (
+    <span
+      className="whitespace-nowrap tabular-nums"
+      data-testid={testId}
+      data-value={take}
+      title={`${fullPrecision(take)} ${unit} of ${fullPrecision(holds)} ${unit}`}
+    >
+      {formatTakeAmount(take, holds, unit)}
     </span>
   );
 }

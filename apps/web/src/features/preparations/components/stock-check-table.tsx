@@ -3,11 +3,11 @@ import { FlaskConical, ShoppingCart } from 'lucide-react';
 import type { StockCheck, StockCheckLine, StockSuggestion } from '@lotwise/shared';
 import { buttonClasses } from '../../../components/ui/button';
 import { withQuery } from '../../../lib/api-client';
-import { formatDate, formatPercent } from '../../../lib/format';
+import { formatAmount, formatDate, formatPercent } from '../../../lib/format';
 import { paths } from '../../../config/paths';
 import { roleLabels, StatusBadge, stockLineLooks } from '../labels';
 import { fullPrecision, Rounded } from './rounded';
-import { StockAmount } from './stock-amount';
+import { StockAmount, TakeAmount } from './stock-amount';
 
 function Suggestion({ suggestion, line }: { suggestion: StockSuggestion; line: StockCheckLine }) {
   if (suggestion.kind === 'reorder') {
@@ -145,7 +145,7 @@ export function StockCheckTable({ check }: { check: StockCheck }) {
                   )}
                   {line.requiredPureG !== null && line.unit !== 'g' && (
                     <span className="block text-xs text-ink-600">
-                      pure substance {fullPrecision(line.requiredPureG)} g
+                      pure substance {formatAmount(line.requiredPureG, 'g')}
                     </span>
                   )}
                 </td>
@@ -186,14 +186,15 @@ export function StockCheckTable({ check }: { check: StockCheck }) {
                           >
                             {take.labelCode}
                           </Link>{' '}
-                          take <StockAmount value={take.take} unit={line.unit} />
+                          take{' '}
+                          <TakeAmount take={take.take} holds={take.quantity} unit={line.unit} />
                           <span className="block text-xs text-ink-600">
                             {take.locationPath} · {take.status} · holds{' '}
-                            {fullPrecision(take.quantity)} {line.unit}
+                            {formatAmount(take.quantity, line.unit)}
                             {take.purityPercent !== 100 && ` · ${take.purityPercent} %`}
                             {take.expiresOn && ` · expires ${formatDate(take.expiresOn)}`}
                             {take.reservedByOthers > 0 &&
-                              ` · ${fullPrecision(take.reservedByOthers)} ${line.unit} held by other plans`}
+                              ` · ${formatAmount(take.reservedByOthers, line.unit)} held by other plans`}
                           </span>
                         </li>
                       ))}

@@ -1,4 +1,5 @@
 import type { LineRole, Stoichiometry } from '@lotwise/shared';
+import { formatAmount } from '../../../lib/format';
 import { Target, TriangleAlert } from 'lucide-react';
 import { Badge } from '../../../components/ui/badge';
 import { roleLabels } from '../labels';
@@ -151,7 +152,7 @@ export function amountText(line: {
   dissolvedIn?: { chemicalName: string; quantity: number; unit: string } | null;
 }): string {
   if (line.quantity === null || !line.unit) return '—';
-  let text = `${line.quantity} ${line.unit}`;
+  let text = formatAmount(line.quantity, line.unit);
   if (line.concentration) {
     text +=
       'molarity' in line.concentration
@@ -159,7 +160,7 @@ export function amountText(line: {
         : ` of ${line.concentration.percentWw} % w/w solution`;
   }
   if (line.dissolvedIn) {
-    text += ` in ${line.dissolvedIn.quantity} ${line.dissolvedIn.unit} ${line.dissolvedIn.chemicalName}`;
+    text += ` in ${formatAmount(line.dissolvedIn.quantity, line.dissolvedIn.unit)} ${line.dissolvedIn.chemicalName}`;
   }
   return text;
 }

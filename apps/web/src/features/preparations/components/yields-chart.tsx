@@ -27,7 +27,7 @@ export default function YieldsChart({
     .filter((run) => run.percentYield !== null)
     .map((run) => ({
       label: `#${run.id} ${formatDate(run.performedOn ?? run.createdAt)}`,
-      yield: Number(run.percentYield!.toFixed(1)),
+      yield: Math.round(run.percentYield! * 10) / 10,
     }));
   const top = Math.max(110, ...data.map((d) => Math.ceil(d.yield / 10) * 10 + 10));
   return (

@@ -11,8 +11,8 @@ import { roleLabels } from '../labels';
 import { BackLink, QueryState } from '../components/page-parts';
 import { CautionList, StatementLines } from '../components/preparation-safety';
 import { fullPrecision, Rounded } from '../components/rounded';
-import { StockAmount } from '../components/stock-amount';
 import { BenchStockStatus, SessionStockSummary, SheetStockNote } from '../components/sheet-stock';
+import { TakeAmount } from '../components/stock-amount';
 
 /** Pictograms with code and meaning as words, small enough for paper. */
 function PictogramWords({ codes }: { codes: DispensingSheet['lines'][number]['ghsPictograms'] }) {
@@ -158,7 +158,8 @@ function Sheet({ sheet }: { sheet: DispensingSheet }) {
                       {line.containers.map((c) => (
                         <li key={c.containerId}>
                           <span className="font-mono font-semibold">{c.labelCode}</span>{' '}
-                          <StockAmount value={c.take} unit={c.unit} /> · {c.locationPath}
+                          <TakeAmount take={c.take} holds={c.quantity} unit={c.unit} /> ·{' '}
+                          {c.locationPath}
                         </li>
                       ))}
                     </ul>

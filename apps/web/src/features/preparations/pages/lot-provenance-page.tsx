@@ -1,6 +1,6 @@
 import { Link, useParams } from 'react-router';
 import type { LotProvenance } from '@lotwise/shared';
-import { formatDate, formatDateTime } from '../../../lib/format';
+import { formatAmount, formatDate, formatDateTime } from '../../../lib/format';
 import { paths } from '../../../config/paths';
 import { useLotProvenance } from '../api';
 import { ChemicalHazards } from '../components/chemical-hazards';
@@ -111,7 +111,7 @@ function ProvenanceView({ provenance: p }: { provenance: LotProvenance }) {
                       <Link to={paths.run(use.runId)} className="text-accent-700 underline">
                         run #{use.runId}
                       </Link>{' '}
-                      ({use.procedureTitle}, {use.quantity} {c.unit})
+                      ({use.procedureTitle}, {formatAmount(use.quantity, c.unit)})
                     </span>
                   ))}
                 </p>
@@ -119,8 +119,8 @@ function ProvenanceView({ provenance: p }: { provenance: LotProvenance }) {
               <ol className="mt-2 flex flex-col gap-0.5 text-xs text-ink-700">
                 {c.movements.map((m, index) => (
                   <li key={index} className="tabular-nums">
-                    {formatDateTime(m.createdAt)} · {m.reason} {m.quantity} {c.unit} → balance{' '}
-                    {m.balanceAfter} {c.unit}
+                    {formatDateTime(m.createdAt)} · {m.reason} {formatAmount(m.quantity, c.unit)} →
+                    balance {formatAmount(m.balanceAfter, c.unit)}
                     {m.note && ` · ${m.note}`}
                   </li>
                 ))}

@@ -100,7 +100,7 @@ describe('Plan page', () => {
 
     const row = await screen.findByTestId('stock-line-1', {}, { timeout: 5000 });
     expect(within(row).getByText('Short')).toBeInTheDocument();
-    expect(within(row).getByTestId('shortfall-1')).toHaveTextContent('30.5 mL');
+    expect(within(row).getByTestId('shortfall-1')).toHaveTextContent('30.50 mL');
     expect(within(row).getByText('44.0 mL')).toBeInTheDocument();
     expect(within(row).getByText('LW-00065')).toBeInTheDocument();
     expect(screen.getByText('1 line is short')).toBeInTheDocument();

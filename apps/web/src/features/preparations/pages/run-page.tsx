@@ -5,7 +5,7 @@ import { buttonClasses } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { withQuery } from '../../../lib/api-client';
 import { useCan } from '../../../lib/auth';
-import { formatDate, formatPercent } from '../../../lib/format';
+import { formatAmount, formatDate, formatPercent } from '../../../lib/format';
 import { paths } from '../../../config/paths';
 import { useProcedure, useRun } from '../api';
 import { RunStatusBadge } from '../labels';
@@ -147,12 +147,13 @@ function RunView({ run }: { run: Run }) {
       const amount =
         line.role === 'product'
           ? portions.length > 0
-            ? `${fullPrecision(portions.reduce((sum, p) => sum + (p.massG ?? 0), 0))} g obtained`
+            ? `${formatAmount(
+                portions.reduce((sum, p) => sum + (p.massG ?? 0), 0),
+                'g',
+              )} obtained`
             : '—'
           : drawn.length > 0
-            ? drawn
-                .map((d) => `${fullPrecision(d.quantity)} ${d.unit} from ${d.labelCode}`)
-                .join(', ')
+            ? drawn.map((d) => `${formatAmount(d.quantity, d.unit)} from ${d.labelCode}`).join(', ')
             : 'planned amount';
       return { name: line.chemical.name, role: line.role, amount, optional: line.optional };
     }) ?? [];

@@ -4,6 +4,7 @@ import { Formula } from '../../../components/chem/formula';
 import { PictogramSymbol } from '../../../components/hazards/pictogram-symbols';
 import { storageGroupIcons } from '../../../components/hazards/storage-group-label';
 import { QrCode } from '../../../components/ui/qr-code';
+import { formatDate } from '../../../lib/format';
 import { labelQrContent } from '../../../lib/label-scan';
 
 export type PaperSize = 'a4' | 'letter';
@@ -24,8 +25,6 @@ export const papers: Record<
  */
 export const labelGrid = { columns: 3, rows: 7, width: 64, height: 36, gap: 2 } as const;
 export const labelsPerSheet = labelGrid.columns * labelGrid.rows;
-
-const isoDate = (value: string | null) => (value ? value.slice(0, 10) : '—');
 
 /** One container's label: what it is, its hazards, its dates, and its code as text and QR. */
 export function ContainerLabel({ container: c }: { container: ContainerDetail }) {
@@ -69,10 +68,10 @@ export function ContainerLabel({ container: c }: { container: ContainerDetail })
         )}
         <div className="mt-auto flex flex-col gap-[0.3mm] text-[5.8pt] leading-tight tabular-nums">
           <p>
-            Received <span className="font-semibold">{isoDate(c.lot.receivedOn)}</span>
+            Received <span className="font-semibold">{formatDate(c.lot.receivedOn)}</span>
           </p>
           <p>
-            Expires <span className="font-semibold">{isoDate(c.expiresOn)}</span>
+            Expires <span className="font-semibold">{formatDate(c.expiresOn)}</span>
           </p>
           <p className="flex items-center gap-[0.6mm] truncate">
             <GroupIcon aria-hidden="true" className="size-[2.6mm] shrink-0" />

@@ -32,7 +32,7 @@ export default function StockHistoryChart({ history }: { history: StockHistory }
             minTickGap={40}
           />
           <YAxis
-            tickFormatter={(value: number) => `${value} ${history.unit}`}
+            tickFormatter={(value: number) => formatAmount(value, history.unit)}
             tick={{ fontSize: 12, fill: 'var(--color-ink-600)' }}
             width={80}
           />

@@ -1,5 +1,6 @@
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
+import { formatDate } from '../../../lib/format';
 import { mockFetch } from '../../../test/fetch-mock';
 import { makeContainer, makeUser } from '../../../test/factories';
 import { renderApp } from '../../../test/render-app';
@@ -42,7 +43,8 @@ describe('Label sheet', () => {
     expect(first.getByText('GHS02')).toBeInTheDocument();
     expect(first.getByText('GHS07')).toBeInTheDocument();
     expect(first.getByText(/Store: Flammable/)).toBeInTheDocument();
-    expect(first.getByText('2028-06-30')).toBeInTheDocument();
+    // The reader's date format, as on every other page.
+    expect(first.getByText(formatDate('2028-06-30'))).toBeInTheDocument();
     // The QR holds the container's label address, which the search box and a phone both open.
     const qr = first.getByRole('img', { name: 'QR code for LW-00001' });
     expect(qr.getAttribute('data-qr-value')).toMatch(/\/stock\/c\/LW-00001$/);
