@@ -1,4 +1,5 @@
 import { parseArgs } from 'node:util';
+import { formatDecimal } from '@lotwise/shared';
 import type { Config } from '../config';
 import { createDataSource } from '../db/data-source';
 import { isDatabaseBusy, retryWhenBusy } from '../db/busy-retry';
@@ -63,7 +64,7 @@ export async function runAlertsEvaluate(
       delaysMs: retryDelaysMs,
       onRetry: (attempt, waitMs) =>
         io.err(
-          `The database is busy (the server is writing); trying again in ${(waitMs / 1000).toFixed(1)} s (attempt ${attempt + 1}).`,
+          `The database is busy (the server is writing); trying again in ${formatDecimal(waitMs / 1000, 1)} s (attempt ${attempt + 1}).`,
         ),
     });
   const dataSource = createDataSource(config.databasePath, { busyTimeoutMs });

@@ -1,6 +1,6 @@
-import { stockDisplay } from '@lotwise/chem';
 import {
   allocateHolds,
+  formatQuantity,
   holdsTakenBy,
   type ContainerHold,
   type HoldWarning,
@@ -14,7 +14,7 @@ import type { HoldRow } from './plans.repository';
 const tolerance = 1e-6;
 
 function amount(value: number, unit: StockUnit): string {
-  return stockDisplay(value, unit).text;
+  return formatQuantity(value, unit);
 }
 
 function byContainer(rows: HoldRow[]): Map<number, HoldRow[]> {
