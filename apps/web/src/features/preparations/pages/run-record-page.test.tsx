@@ -88,132 +88,137 @@ const recorded = makeRun({
 });
 
 describe('Recording a run', () => {
-  it('when the bottle is weighed before and after and two crops are put into stock, then the gross masses and both crops are sent, and the yield and new labels are shown', async () => {
-    let answered = makeRun();
-    const { requests } = mockFetch({
-      'GET /api/auth/me': { body: { user: member } },
-      'GET /api/runs/12': () => ({ body: answered }),
-      'GET /api/procedures/1': { body: procedure },
-      'GET /api/procedures/1/runs': {
-        body: {
-          procedure: { id: 1, title: procedure.title, expectedYieldPercent: 80 },
-          runs: [],
-          stats: {
-            count: 0,
-            purifiedCount: 0,
-            meanPercentYield: null,
-            minPercentYield: null,
-            maxPercentYield: null,
-            aboveHundredCount: 0,
-            crude: {
+  // Types into a dozen fields: allowed longer than the default on a busy machine.
+  it(
+    'when the bottle is weighed before and after and two crops are put into stock, then the gross masses and both crops are sent, and the yield and new labels are shown',
+    { timeout: 30_000 },
+    async () => {
+      let answered = makeRun();
+      const { requests } = mockFetch({
+        'GET /api/auth/me': { body: { user: member } },
+        'GET /api/runs/12': () => ({ body: answered }),
+        'GET /api/procedures/1': { body: procedure },
+        'GET /api/procedures/1/runs': {
+          body: {
+            procedure: { id: 1, title: procedure.title, expectedYieldPercent: 80 },
+            runs: [],
+            stats: {
               count: 0,
+              purifiedCount: 0,
               meanPercentYield: null,
               minPercentYield: null,
               maxPercentYield: null,
               aboveHundredCount: 0,
+              crude: {
+                count: 0,
+                meanPercentYield: null,
+                minPercentYield: null,
+                maxPercentYield: null,
+                aboveHundredCount: 0,
+              },
             },
           },
         },
-      },
-      'GET /api/containers': (request) => ({
-        body: page(
-          request.url.searchParams.get('chemicalId') === '7'
-            ? [salicylicBottle]
-            : [anhydrideBottle],
-        ),
-      }),
-      'GET /api/locations': { body: page([shelf]) },
-      'POST /api/runs/12/record': () => {
-        answered = recorded;
-        return { body: recorded };
-      },
-    });
-    const user = userEvent.setup();
-    renderApp('/preparations/runs/12/record');
+        'GET /api/containers': (request) => ({
+          body: page(
+            request.url.searchParams.get('chemicalId') === '7'
+              ? [salicylicBottle]
+              : [anhydrideBottle],
+          ),
+        }),
+        'GET /api/locations': { body: page([shelf]) },
+        'POST /api/runs/12/record': () => {
+          answered = recorded;
+          return { body: recorded };
+        },
+      });
+      const user = userEvent.setup();
+      renderApp('/preparations/runs/12/record');
 
-    const first = await screen.findByRole('group', { name: 'Line 1 draw 1' }, { timeout: 5000 });
-    await user.selectOptions(await within(first).findByLabelText('Container'), '14');
-    await user.click(within(first).getByLabelText('Weighed the container'));
-    expect(within(first).getByText(/Tare \(empty, cap on\): 148.50 g/)).toBeInTheDocument();
-    await user.type(within(first).getByLabelText(/Gross mass before/), '180.00');
-    await user.type(within(first).getByLabelText(/Gross mass after/), '178.00');
-    // 180.00 − 178.00: the tare cancels out.
-    expect(within(first).getByTestId('weighing-preview')).toHaveTextContent('2.00 g');
+      const first = await screen.findByRole('group', { name: 'Line 1 draw 1' }, { timeout: 5000 });
+      await user.selectOptions(await within(first).findByLabelText('Container'), '14');
+      await user.click(within(first).getByLabelText('Weighed the container'));
+      expect(within(first).getByText(/Tare \(empty, cap on\): 148.50 g/)).toBeInTheDocument();
+      await user.type(within(first).getByLabelText(/Gross mass before/), '180.00');
+      await user.type(within(first).getByLabelText(/Gross mass after/), '178.00');
+      // 180.00 − 178.00: the tare cancels out.
+      expect(within(first).getByTestId('weighing-preview')).toHaveTextContent('2.00 g');
 
-    const second = screen.getByRole('group', { name: 'Line 2 draw 1' });
-    // Without a plan the planned amount is filled in, and said so; the container is chosen.
-    expect(within(second).getByLabelText('Amount')).toHaveValue('5');
-    expect(screen.getByTestId('draw-source-1')).toHaveTextContent(
-      'Choose the container it came from',
-    );
-    await user.selectOptions(await within(second).findByLabelText('Container'), '13');
-    await user.clear(within(second).getByLabelText('Amount'));
-    await user.type(within(second).getByLabelText('Amount'), '5.0');
+      const second = screen.getByRole('group', { name: 'Line 2 draw 1' });
+      // Without a plan the planned amount is filled in, and said so; the container is chosen.
+      expect(within(second).getByLabelText('Amount')).toHaveValue('5');
+      expect(screen.getByTestId('draw-source-1')).toHaveTextContent(
+        'Choose the container it came from',
+      );
+      await user.selectOptions(await within(second).findByLabelText('Container'), '13');
+      await user.clear(within(second).getByLabelText('Amount'));
+      await user.type(within(second).getByLabelText('Amount'), '5.0');
 
-    await user.type(screen.getByLabelText(/Crude mass/), '2.45');
-    const crop1 = screen.getByRole('listitem', { name: 'Portion 1' });
-    await user.type(within(crop1).getByLabelText('Amount'), '1.80');
-    await user.selectOptions(await within(crop1).findByLabelText('Location'), '5');
-    await user.click(screen.getByRole('button', { name: 'Add a second crop' }));
-    const crop2 = screen.getByRole('listitem', { name: 'Portion 2' });
-    await user.type(within(crop2).getByLabelText('Amount'), '300');
-    await user.selectOptions(within(crop2).getByLabelText('Unit'), 'mg');
-    await user.type(screen.getByLabelText(/Melting range from/), '134');
-    await user.type(screen.getByLabelText(/Melting range to/), '136');
+      await user.type(screen.getByLabelText(/Crude mass/), '2.45');
+      const crop1 = screen.getByRole('listitem', { name: 'Portion 1' });
+      await user.type(within(crop1).getByLabelText('Amount'), '1.80');
+      await user.selectOptions(await within(crop1).findByLabelText('Location'), '5');
+      await user.click(screen.getByRole('button', { name: 'Add a second crop' }));
+      const crop2 = screen.getByRole('listitem', { name: 'Portion 2' });
+      await user.type(within(crop2).getByLabelText('Amount'), '300');
+      await user.selectOptions(within(crop2).getByLabelText('Unit'), 'mg');
+      await user.type(screen.getByLabelText(/Melting range from/), '134');
+      await user.type(screen.getByLabelText(/Melting range to/), '136');
 
-    await user.click(screen.getByRole('button', { name: 'Record the run' }));
+      await user.click(screen.getByRole('button', { name: 'Record the run' }));
 
-    expect(
-      await screen.findByText('Run #12 is recorded', {}, { timeout: 5000 }),
-    ).toBeInTheDocument();
-    const body = requests.find((r) => r.method === 'POST')!.body as RunRecord;
-    expect(body.lines).toEqual([
-      {
-        lineIndex: 0,
-        draws: [
-          { containerId: 14, grossMassBefore: 180, grossMassAfter: 178, unit: 'g', note: '' },
-        ],
-      },
-      { lineIndex: 1, draws: [{ containerId: 13, amount: 5, unit: 'mL', note: '' }] },
-    ]);
-    expect(body.products).toEqual([
-      {
-        lineIndex: 2,
-        crudeMassG: 2.45,
-        portions: [
-          {
-            label: 'first crop',
-            quantity: 1.8,
-            unit: 'g',
-            locationId: 5,
-            tareMass: null,
-            notes: '',
-          },
-          {
-            label: 'second crop (from the mother liquor)',
-            quantity: 300,
-            unit: 'mg',
-            locationId: 5,
-            tareMass: null,
-            notes: '',
-          },
-        ],
-      },
-    ]);
-    expect(body.observations?.meltingRangeC).toEqual({ low: 134, high: 136 });
+      expect(
+        await screen.findByText('Run #12 is recorded', {}, { timeout: 5000 }),
+      ).toBeInTheDocument();
+      const body = requests.find((r) => r.method === 'POST')!.body as RunRecord;
+      expect(body.lines).toEqual([
+        {
+          lineIndex: 0,
+          draws: [
+            { containerId: 14, grossMassBefore: 180, grossMassAfter: 178, unit: 'g', note: '' },
+          ],
+        },
+        { lineIndex: 1, draws: [{ containerId: 13, amount: 5, unit: 'mL', note: '' }] },
+      ]);
+      expect(body.products).toEqual([
+        {
+          lineIndex: 2,
+          crudeMassG: 2.45,
+          portions: [
+            {
+              label: 'first crop',
+              quantity: 1.8,
+              unit: 'g',
+              locationId: 5,
+              tareMass: null,
+              notes: '',
+            },
+            {
+              label: 'second crop (from the mother liquor)',
+              quantity: 300,
+              unit: 'mg',
+              locationId: 5,
+              tareMass: null,
+              notes: '',
+            },
+          ],
+        },
+      ]);
+      expect(body.observations?.meltingRangeC).toEqual({ low: 134, high: 136 });
 
-    expect(screen.getByTestId('percent-yield')).toHaveTextContent('80.5 %');
-    expect(screen.getByRole('link', { name: 'LW-00080' })).toHaveAttribute(
-      'href',
-      '/stock/containers/80',
-    );
-    expect(screen.getByRole('link', { name: 'LW-00081' })).toBeInTheDocument();
-    expect(screen.getByRole('link', { name: 'Print labels' })).toHaveAttribute(
-      'href',
-      '/stock/labels?ids=80%2C81',
-    );
-    expect(screen.queryByText(/probably wet or impure/)).not.toBeInTheDocument();
-  });
+      expect(screen.getByTestId('percent-yield')).toHaveTextContent('80.5 %');
+      expect(screen.getByRole('link', { name: 'LW-00080' })).toHaveAttribute(
+        'href',
+        '/stock/containers/80',
+      );
+      expect(screen.getByRole('link', { name: 'LW-00081' })).toBeInTheDocument();
+      expect(screen.getByRole('link', { name: 'Print labels' })).toHaveAttribute(
+        'href',
+        '/stock/labels?ids=80%2C81',
+      );
+      expect(screen.queryByText(/probably wet or impure/)).not.toBeInTheDocument();
+    },
+  );
 
   it('when the run comes from a plan, then each required line is filled in from the held or suggested container, shown as such, and exactly that is sent to be drawn', async () => {
     // Plan: 4 benches at 1/2 scale; the run is the session, factor 2. Salicylic acid: 1 g a
