@@ -153,6 +153,7 @@ export function makeDispensingSheet(
         labelCode: take.labelCode,
         locationPath: take.locationPath,
         take: take.take,
+        quantity: take.quantity,
         unit: line.unit,
       })),
       stock: {
