@@ -13,8 +13,8 @@ describe('amount bounds', () => {
   it('when an amount is 10^7 it is taken, and just above it is refused with the bound named', () => {
     expect(amountProblem(maxStockAmount, 'positive')).toBeNull();
     expect(amountProblem(-maxStockAmount, 'signed')).toBeNull();
-    expect(amountProblem(10_000_000.000001, 'positive')).toMatch(/at most 10\s000\s000/);
-    expect(amountProblem(-10_000_001, 'signed')).toMatch(/at most 10\s000\s000/);
+    expect(amountProblem(10_000_000.000001, 'positive')).toMatch(/at most 10,000,000/);
+    expect(amountProblem(-10_000_001, 'signed')).toMatch(/at most 10,000,000/);
   });
 
   it('when an amount is a millionth it is taken, and anything smaller than that (5e-324) is refused', () => {

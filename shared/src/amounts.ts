@@ -19,7 +19,7 @@ export const minStockAmount = 0.000001;
 export type AmountSign = 'positive' | 'nonNegative' | 'signed';
 
 /** {@link maxStockAmount} as messages write it, kept on one line (no-break spaces). */
-export const maxStockAmountText = '10\u00a0000\u00a0000';
+export const maxStockAmountText = '10,000,000';
 
 /**
  * What is wrong with an amount, or null when it is fine: a finite number, within

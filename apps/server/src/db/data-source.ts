@@ -61,10 +61,10 @@ export const migrations = [
   Alerts1796420000000,
   Preparations1796500000000,
   ExactQuantities1796600000000,
+  RunCrudeYieldFlag1796620000000,
+  ChemicalMeasures1796630000000,
   SessionVersion1796650000000,
   OutboxLeases1796660000000,
-  ChemicalMeasures1796630000000,
-  RunCrudeYieldFlag1796620000000,
 ];
 
 /** The database file and the WAL and shared-memory files SQLite keeps beside it. */

@@ -51,7 +51,11 @@ describe('chemical measures migration', () => {
         molar_mass: 249.677,
         bulk_density: null,
       });
-      await dataSource.undoLastMigration({ transaction: 'all' });
+      await dataSource.query('PRAGMA foreign_keys = OFF');
+      for (let i = migrations.length - 1; i >= last; i--) {
+        await dataSource.undoLastMigration({ transaction: 'all' });
+      }
+      await dataSource.query('PRAGMA foreign_keys = ON');
       expect(await columns()).not.toContain('bulk_density');
     } finally {
       await dataSource.destroy();

@@ -1,5 +1,6 @@
 import { convert, measuringDensity } from '@lotwise/chem';
 import {
+  formatQuantity,
   amountProblem,
   chemicalCreateSchema,
   importColumns,
@@ -519,7 +520,7 @@ export async function planImport(
         row,
         'quantity',
         c.quantity,
-        `${c.quantity} ${c.unit} is ${Number(quantity.toPrecision(6))} ${stockUnit} (${chemicalName} is counted in ${stockUnit}), which ${outOfBounds}`,
+        `${formatQuantity(c.quantity, c.unit)} is ${formatQuantity(quantity, stockUnit)} (${chemicalName} is counted in ${stockUnit}), which ${outOfBounds}`,
       );
       continue;
     }

@@ -369,12 +369,14 @@ describe('problems in the file', () => {
       ]),
     );
     const byRow = new Map(checked.errors.map((e) => [`${e.row} ${e.field}`, e.message]));
-    expect(byRow.get('2 quantity')).toMatch(/at most 10\s000\s000/);
-    expect(byRow.get('3 quantity')).toMatch(/at most 10\s000\s000/);
-    expect(byRow.get('4 quantity')).toMatch(/10001 kg is 10001000 g .* at most 10\s000\s000 g/);
+    expect(byRow.get('2 quantity')).toMatch(/at most 10,000,000/);
+    expect(byRow.get('3 quantity')).toMatch(/at most 10,000,000/);
+    expect(byRow.get('4 quantity')).toMatch(
+      /10,001.000 kg is 10,001,000.00 g .* at most 10,000,000 g/,
+    );
     expect(byRow.get('5 quantity')).toMatch(/too small/);
     expect(byRow.has('6 quantity')).toBe(false);
-    expect(byRow.get('7 tareMass')).toMatch(/at most 10\s000\s000/);
+    expect(byRow.get('7 tareMass')).toMatch(/at most 10,000,000/);
     expect(checked.status).toBe('invalid');
   });
 

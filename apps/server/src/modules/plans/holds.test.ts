@@ -174,7 +174,12 @@ describe('holds at the shelf', () => {
     const own = (await post('/api/runs', { planId: s.holder.id }, technician).expect(201)).body;
     await post(
       `/api/runs/${own.id}/record`,
-      { lines: [{ lineIndex: 1, draws: [{ containerId: s.bottle.id, amount: 55, unit: 'mL' }] }] },
+      {
+        lines: [
+          { lineIndex: 0, draws: [{ containerId: s.sa.id, amount: 2, unit: 'g' }] },
+          { lineIndex: 1, draws: [{ containerId: s.bottle.id, amount: 55, unit: 'mL' }] },
+        ],
+      },
       technician,
     ).expect(200);
     expect(await balanceOf(s.bottle.id)).toBe(5);
