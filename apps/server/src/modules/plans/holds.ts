@@ -1,5 +1,6 @@
 import {
   allocateHolds,
+  formatDate,
   formatQuantity,
   holdsTakenBy,
   type ContainerHold,
@@ -121,7 +122,7 @@ export async function holdWarningsFor(
         kind: 'hold',
         message:
           `${amount(heldBefore, container.unit)} of ${container.labelCode} is held for plan #${claim.planId} ` +
-          `(${claim.planTitle}, planned for ${claim.plannedOn}); this draw leaves it ` +
+          `(${claim.planTitle}, planned for ${formatDate(claim.plannedOn)}); this draw leaves it ` +
           `${amount(heldAfter, container.unit)}, so that plan loses ${amount(loses, container.unit)}.`,
         planId: claim.planId,
         planTitle: claim.planTitle,

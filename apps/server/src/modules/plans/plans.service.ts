@@ -313,7 +313,7 @@ export function plansService(
         const until = input.until ?? plan.plannedOn;
         if (until < today) {
           throw AppError.validation(
-            `A reservation until ${until} would already have run out: choose today (${today}) or later.`,
+            `A reservation until ${date(until)} would already have run out: choose today (${date(today)}) or later.`,
             { until: 'is in the past' },
           );
         }
