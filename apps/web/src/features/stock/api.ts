@@ -339,6 +339,7 @@ export function useLot(id: number) {
 }
 
 export const createLot = (body: LotCreate) => api.post('/api/lots', body, lotSchema);
+export const deleteLot = (id: number) => api.delete(`/api/lots/${id}`);
 export const createContainer = (body: ContainerCreate) =>
   api.post('/api/containers', body, containerChangeSchema);
 

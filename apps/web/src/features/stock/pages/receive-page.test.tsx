@@ -178,4 +178,59 @@ describe('Receive stock', () => {
     expect(within(first).getByText(/Quantity must be a number/)).toBeInTheDocument();
     expect(requests.some((r) => r.method === 'POST')).toBe(false);
   });
+
+  it('when the person goes back at a storage warning for the first container of a new lot, then the new lot is removed again and the form keeps what was typed', async () => {
+    const { requests } = mockFetch({
+      'GET /api/auth/me': { body: { user: manager } },
+      'GET /api/chemicals': { body: page([ethanol]) },
+      'GET /api/lots': { body: page([]) },
+      'GET /api/locations': { body: page([cabinet]) },
+      'POST /api/lots': { status: 201, body: lot },
+      'DELETE /api/lots/31': { status: 204 },
+      'POST /api/containers': {
+        status: 409,
+        body: {
+          error: {
+            code: 'confirmation_required',
+            message: 'Confirm first.',
+            warnings: [
+              {
+                kind: 'storage_conflict',
+                message:
+                  'Ethanol (flammable) and potassium permanganate (oxidizer) must be kept apart: oxidizers feed a fire.',
+                code: 'incompatible_groups',
+                reason: 'Oxidizers feed a fire.',
+                source: 'Lotwise storage table',
+                locationId: 7,
+                locationPath: cabinet.path,
+                groups: ['flammable', 'oxidizer'],
+                labelCodes: ['LW-00009'],
+              },
+            ],
+          },
+        },
+      },
+    });
+    const user = userEvent.setup();
+    renderApp('/stock/receive');
+    await user.type(
+      await screen.findByRole('combobox', { name: 'Chemical' }, { timeout: 5000 }),
+      'eth',
+    );
+    await user.click(await screen.findByRole('option', { name: /Ethanol/ }));
+    const first = screen.getByRole('listitem', { name: 'Container 1' });
+    await user.type(within(first).getByLabelText('Quantity'), '1000');
+    await user.selectOptions(await within(first).findByLabelText('Location'), '7');
+    await user.click(screen.getByRole('button', { name: 'Receive 1 container' }));
+
+    const dialog = await screen.findByRole('dialog');
+    expect(within(dialog).getByText(/must be kept apart/)).toBeInTheDocument();
+    await user.click(within(dialog).getByRole('button', { name: 'Go back' }));
+
+    await expect
+      .poll(() => requests.map((r) => `${r.method} ${r.url.pathname}`))
+      .toContain('DELETE /api/lots/31');
+    expect(within(first).getByLabelText('Quantity')).toHaveValue('1000');
+    expect(screen.queryByText(/received/)).not.toBeInTheDocument();
+  });
 });

@@ -30,7 +30,7 @@ import {
 import { formatAmount, formatDate, formatPercent } from '../../../lib/format';
 import { parseDecimal } from '../../../lib/numbers';
 import { paths } from '../../../config/paths';
-import { createContainer, createLot, stockKeys, useChemicalLots } from '../api';
+import { createContainer, createLot, deleteLot, stockKeys, useChemicalLots } from '../api';
 import { ChemicalPicker } from '../components/chemical-picker';
 import { LocationSelect } from '../components/location-select';
 import { SegregationWarnings } from '../components/segregation-warnings';
@@ -240,6 +240,7 @@ export function ReceivePage() {
 
   const receive = useMutation({
     mutationFn: async ({ lot, bodies }: { lot: LotCreate | Lot; bodies: ContainerRow[] }) => {
+      const isNewLot = !('id' in lot);
       const saved = 'id' in lot ? lot : await createLot(lot);
       const done: ContainerChange[] = [];
       // A place confirmed once is not asked about again for the next lines of this delivery.
@@ -259,6 +260,11 @@ export function ReceivePage() {
             },
           );
           if (!change) {
+            // Going back before any container of a lot made just now leaves no empty lot behind.
+            if (isNewLot && done.length === 0) {
+              await deleteLot(saved.id);
+              return null;
+            }
             throw new Error(
               'You went back at a storage warning: that container and the ones after it were not received.',
             );
@@ -329,6 +335,8 @@ export function ReceivePage() {
       { lot, bodies: values.containers },
       {
         onSuccess: (result) => {
+          // Went back at the first storage warning: nothing was kept, the form stays as typed.
+          if (!result) return;
           const done = [...(partial?.done ?? []), ...result.changes];
           setReceived({ lot: result.lot, changes: done });
         },
