@@ -136,6 +136,13 @@ describe('holds at the shelf', () => {
       (await get(`/api/containers/${s.bottle.id}`).expect(200)).body,
     );
     expect(detail.holds[0]).toMatchObject({ quantity: 15, reservedQuantity: 65 });
+
+    // A reminder that the hold runs out speaks of what it still holds, not what was reserved.
+    const lapsing = await testContext().store.repos.plans.lapsingBetween(todayIso(), nextWeek);
+    expect(lapsing.find((r) => r.planId === s.holder.id)).toMatchObject({
+      labelCode: s.bottle.labelCode,
+      quantity: 15,
+    });
   });
 
   it("when a run draws from another plan's held container, then it asks the same; its own plan's hold does not ask", async () => {

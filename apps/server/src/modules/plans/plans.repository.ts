@@ -1,4 +1,5 @@
 import {
+  allocateHolds,
   parseSort,
   type ContainerStatus,
   type PlanListQuery,
@@ -262,6 +263,23 @@ export function plansRepository(manager: EntityManager) {
         query.andWhere('c.chemical_id IN (:...chemicalIds)', { chemicalIds });
       }
       const rows = await query.getRawMany<Record<string, unknown>>();
+      // What each reservation still holds: draws since it was made shrink it (allocateHolds).
+      const containerIds = [...new Set(rows.map((raw) => Number(raw.containerId)))];
+      const inForce =
+        containerIds.length === 0
+          ? []
+          : (
+              await reservationView()
+                .where('r.container_id IN (:...containerIds)', { containerIds })
+                .andWhere("r.status = 'active' AND r.until >= :today", { today })
+                .getRawMany<Record<string, unknown>>()
+            ).map(toReservation);
+      const heldNow = new Map<number, number>();
+      for (const containerId of containerIds) {
+        const claims = inForce.filter((r) => r.containerId === containerId);
+        const quantity = claims[0]?.containerQuantity ?? 0;
+        for (const [id, held] of allocateHolds(quantity, claims)) heldNow.set(id, held);
+      }
       return rows.map((raw) => {
         const view = toReservation(raw);
         return {
@@ -274,7 +292,7 @@ export function plansRepository(manager: EntityManager) {
           locationPath: view.locationPath,
           chemicalId: view.chemicalId,
           chemicalName: view.chemicalName,
-          quantity: view.quantity,
+          quantity: heldNow.get(view.id) ?? view.quantity,
           unit: view.unit as LapsingReservation['unit'],
           lapsesAt: `${view.until}T23:59:59.999Z`,
         };
