@@ -4,9 +4,17 @@ import type { ContainerHold } from '@lotwise/shared';
 import { paths } from '../../config/paths';
 import { formatAmount, formatDate } from '../../lib/format';
 
-/** What is free of a container: its balance minus what plans hold of it now. */
-export function freeOf(container: { quantity: number; holds: ContainerHold[] }): number {
-  const held = container.holds.reduce((sum, hold) => sum + hold.quantity, 0);
+/**
+ * What is free of a container: its balance minus what plans hold of it now. A run from a plan
+ * may take that plan's own hold without being asked, so `ownPlanId`'s holds count as free.
+ */
+export function freeOf(
+  container: { quantity: number; holds: ContainerHold[] },
+  ownPlanId: number | null = null,
+): number {
+  const held = container.holds
+    .filter((hold) => hold.planId !== ownPlanId)
+    .reduce((sum, hold) => sum + hold.quantity, 0);
   return Math.max(0, container.quantity - held);
 }
 
@@ -48,13 +56,17 @@ export function HoldList({ holds, className }: { holds: ContainerHold[]; classNa
 export function ContainerHolds({
   container,
   compact = false,
+  ownPlanId = null,
 }: {
   container: { quantity: number; unit: string; holds: ContainerHold[] };
   /** One box beside a form (draw dialog, run line) rather than a page section. */
   compact?: boolean;
+  /** The plan a run is recorded from: its own holds are taken without a question. */
+  ownPlanId?: number | null;
 }) {
   if (container.holds.length === 0) return null;
-  const free = freeOf(container);
+  const free = freeOf(container, ownPlanId);
+  const onlyOwn = container.holds.every((hold) => hold.planId === ownPlanId);
   return (
     <section
       aria-label="Held for plans"
@@ -69,10 +81,16 @@ export function ContainerHolds({
         Held for {container.holds.length === 1 ? 'a plan' : `${container.holds.length} plans`}
       </p>
       <HoldList holds={container.holds} className="mt-1 flex list-disc flex-col gap-0.5 pl-5" />
-      <p className="mt-1 tabular-nums">
-        Free to draw without asking: <strong>{formatAmount(free, container.unit)}</strong>. Drawing
-        more asks for confirmation and takes it from the plan.
-      </p>
+      {onlyOwn ? (
+        <p className="mt-1">
+          This run is recorded from that plan, so it takes the hold without asking.
+        </p>
+      ) : (
+        <p className="mt-1 tabular-nums">
+          Free to draw without asking: <strong>{formatAmount(free, container.unit)}</strong>.
+          Drawing more asks for confirmation and takes it from the plan.
+        </p>
+      )}
     </section>
   );
 }

@@ -121,7 +121,10 @@ export function ContainerDraw({
   onRemove,
   label,
   plannedHint,
+  planId = null,
 }: {
+  /** The plan the run is recorded from, whose own holds are taken without a question. */
+  planId?: number | null;
   chemicalId: number;
   value: DrawValues;
   onChange: (next: DrawValues) => void;
@@ -198,7 +201,7 @@ export function ContainerDraw({
           </Button>
         )}
       </div>
-      {container && <ContainerHolds container={container} compact />}
+      {container && <ContainerHolds container={container} compact ownPlanId={planId} />}
       {value.mode === 'amount' ? (
         <div className="flex flex-wrap items-end gap-3">
           <Field label="Amount" hint={plannedHint} className="w-40">

@@ -96,6 +96,7 @@ export function RunLineDraws({
                   <div key={draw.key} className="flex flex-col gap-1">
                     <ContainerDraw
                       chemicalId={line.chemicalId}
+                      planId={plan?.id ?? null}
                       value={draw}
                       label={`Line ${line.index + 1} draw ${drawIndex + 1}`}
                       plannedHint={drawIndex === 0 ? planned : undefined}
