@@ -54,6 +54,8 @@ export default defineConfig({
       // the dev inbox on ports of its own, so a developer's running Lotwise does not clash
       DEV_MAIL_SMTP_PORT: String(port + 1),
       DEV_MAIL_WEB_PORT: String(port + 2),
+      // the local payments fake (hosted checkout page, signed webhooks) on the port after those
+      STRIPE_API_URL: `http://127.0.0.1:${port + 3}`,
       ALERT_INTERVAL_SECONDS: '0',
       OUTBOX_INTERVAL_SECONDS: '1',
     },

@@ -2,6 +2,7 @@ import { existsSync, mkdirSync, mkdtempSync, readFileSync, statSync, writeFileSy
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { devSecretKey, devWebhookSecret } from '@lotwise/payments-fake/dev-keys';
 import { ConfigError, StartupError, loadConfig, repoRoot } from './config';
 
 function tempEnv(env: NodeJS.ProcessEnv = {}) {
@@ -189,5 +190,71 @@ describe('the development mail inbox', () => {
   it('when DEV_MAIL is false, then there is no dev inbox in development either', () => {
     const { env } = tempEnv();
     expect(loadConfig({ ...env, DEV_MAIL: 'false' }).mail.smtp).toEqual({ kind: 'none' });
+  });
+});
+
+describe('payments', () => {
+  it('when no payment keys are set in development, then the SDK talks to the local fake with the development keys and the fake starts', () => {
+    const { env } = tempEnv();
+    expect(loadConfig({ ...env, NODE_ENV: 'development' }).payments).toEqual({
+      apiUrl: 'http://127.0.0.1:4242',
+      secretKey: devSecretKey,
+      webhookSecret: devWebhookSecret,
+      startFake: true,
+    });
+    expect(loadConfig({ ...env, NODE_ENV: 'test' }).payments?.startFake).toBe(false);
+    expect(
+      loadConfig({ ...env, NODE_ENV: 'development', PAYMENTS_FAKE: 'false' }).payments?.startFake,
+    ).toBe(false);
+  });
+
+  it('when real keys are set without STRIPE_API_URL, then the SDK talks to the real service and no fake starts', () => {
+    const { env } = tempEnv();
+    const keys = { STRIPE_SECRET_KEY: 'sk_test_realaccount', STRIPE_WEBHOOK_SECRET: 'whsec_real' };
+    for (const nodeEnv of ['development', 'production']) {
+      const config = loadConfig({ ...env, ...keys, NODE_ENV: nodeEnv, DATABASE_INIT: 'true' });
+      expect(config.payments).toEqual({
+        apiUrl: null,
+        secretKey: 'sk_test_realaccount',
+        webhookSecret: 'whsec_real',
+        startFake: false,
+      });
+    }
+  });
+
+  it('when STRIPE_API_URL points at another machine, then no fake starts', () => {
+    const { env } = tempEnv();
+    const config = loadConfig({
+      ...env,
+      NODE_ENV: 'development',
+      STRIPE_API_URL: 'https://payments.example.test/',
+    });
+    expect(config.payments).toMatchObject({
+      apiUrl: 'https://payments.example.test',
+      startFake: false,
+    });
+  });
+
+  it('when production has no payment keys, then card payments are off; with the development keys it refuses to start', () => {
+    const { env } = tempEnv({ NODE_ENV: 'production', DATABASE_INIT: 'true' });
+    expect(loadConfig(env).payments).toBeNull();
+    expect(() =>
+      loadConfig({
+        ...env,
+        STRIPE_SECRET_KEY: devSecretKey,
+        STRIPE_WEBHOOK_SECRET: devWebhookSecret,
+      }),
+    ).toThrow(/published development keys/);
+  });
+
+  it('when only one of the two payment secrets is set, then loading stops naming the missing one', () => {
+    const { env } = tempEnv();
+    expect(() => loadConfig({ ...env, STRIPE_SECRET_KEY: 'sk_test_realaccount' })).toThrow(
+      /STRIPE_WEBHOOK_SECRET/,
+    );
+    expect(() => loadConfig({ ...env, STRIPE_WEBHOOK_SECRET: 'whsec_only' })).toThrow(
+      /STRIPE_SECRET_KEY is not/,
+    );
+    expect(() => loadConfig({ ...env, STRIPE_API_URL: 'not a url' })).toThrow(/STRIPE_API_URL/);
   });
 });

@@ -4,6 +4,7 @@ import { isIP } from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
+import { devSecretKey, devWebhookSecret } from '@lotwise/payments-fake/dev-keys';
 import { defaultTextLocale } from '@lotwise/shared';
 
 /** The repository root; relative paths in the environment are resolved against it. */
@@ -140,6 +141,18 @@ const envSchema = z.object({
     .string()
     .refine(isLocale, 'must be a language tag such as en-GB, en-US or de-DE')
     .default(defaultTextLocale),
+  /**
+   * The payment provider's API as a URL (its host, port and protocol are given to the SDK).
+   * Unset: the real service when STRIPE_SECRET_KEY is set, else the local payments fake at
+   * http://127.0.0.1:4242 (outside production).
+   */
+  STRIPE_API_URL: z.url({ message: 'must be a URL such as http://127.0.0.1:4242' }).optional(),
+  /** Secret API key of the payment provider; outside production the local fake's key when unset. */
+  STRIPE_SECRET_KEY: z.string().min(8, 'must be at least 8 characters').optional(),
+  /** Signing secret of the payment webhook endpoint (/api/webhooks/stripe). */
+  STRIPE_WEBHOOK_SECRET: z.string().min(8, 'must be at least 8 characters').optional(),
+  /** Start the local payments fake with the server when it is the payment service (development only). */
+  PAYMENTS_FAKE: flag.default(true),
   /** Time zone of times in text the server writes, e.g. Europe/Berlin; the server's own when unset. */
   TEXT_TIME_ZONE: z
     .string()
@@ -186,6 +199,16 @@ export type SmtpSettings =
 export interface MailConfig {
   smtp: SmtpSettings;
   from: string;
+}
+
+/** The payment provider Lotwise talks to through its SDK. */
+export interface PaymentsConfig {
+  /** Base URL of the provider's API (the local fake); null for the real service. */
+  apiUrl: string | null;
+  secretKey: string;
+  webhookSecret: string;
+  /** Start the local payments fake at `apiUrl` with the server (development only). */
+  startFake: boolean;
 }
 
 export interface AlertConfig {
@@ -243,6 +266,8 @@ export interface Config {
   uploadDir: string;
   logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
   mail: MailConfig;
+  /** Card payments; null when production has no provider keys (shares can still be paid in cash). */
+  payments: PaymentsConfig | null;
   alerts: AlertConfig;
   text: TextConfig;
 }
@@ -322,6 +347,59 @@ function smtpSettings(values: z.output<typeof envSchema>, development: boolean):
   return { kind: 'none' };
 }
 
+const loopbackHosts = new Set(['127.0.0.1', 'localhost', '[::1]']);
+
+/**
+ * Which payment service the SDK talks to. Outside production with no key set: the local fake
+ * with the development keys (started with the server in development). With a key and no
+ * STRIPE_API_URL: the real service. Production never takes the development keys, and runs
+ * without card payments when no keys are set.
+ */
+function paymentsSettings(values: z.output<typeof envSchema>): PaymentsConfig | null {
+  const key = values.STRIPE_SECRET_KEY;
+  const secret = values.STRIPE_WEBHOOK_SECRET;
+  const production = values.NODE_ENV === 'production';
+  if (key === undefined && secret !== undefined) {
+    throw new ConfigError(
+      'Invalid configuration: STRIPE_WEBHOOK_SECRET is set but STRIPE_SECRET_KEY is not; set both (or neither, for the local payments fake outside production)',
+    );
+  }
+  if (key !== undefined && secret === undefined) {
+    throw new ConfigError(
+      'Invalid configuration: STRIPE_SECRET_KEY is set but STRIPE_WEBHOOK_SECRET is not; set the signing secret of the /api/webhooks/stripe endpoint too',
+    );
+  }
+  if (production && (key === devSecretKey || secret === devWebhookSecret)) {
+    throw new ConfigError(
+      'Invalid configuration: STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET hold the published development keys, which NODE_ENV=production refuses',
+    );
+  }
+  if (key === undefined || secret === undefined) {
+    if (production) return null;
+    const apiUrl = (values.STRIPE_API_URL ?? 'http://127.0.0.1:4242').replace(/\/+$/, '');
+    return {
+      apiUrl,
+      secretKey: devSecretKey,
+      webhookSecret: devWebhookSecret,
+      startFake:
+        values.NODE_ENV === 'development' &&
+        values.PAYMENTS_FAKE &&
+        loopbackHosts.has(new URL(apiUrl).hostname),
+    };
+  }
+  const apiUrl = values.STRIPE_API_URL?.replace(/\/+$/, '') ?? null;
+  return {
+    apiUrl,
+    secretKey: key,
+    webhookSecret: secret,
+    startFake:
+      values.NODE_ENV === 'development' &&
+      values.PAYMENTS_FAKE &&
+      apiUrl !== null &&
+      loopbackHosts.has(new URL(apiUrl).hostname),
+  };
+}
+
 /**
  * Parses the environment once. Empty strings count as unset. Throws ConfigError naming the
  * first variable that is not usable.
@@ -379,6 +457,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       : path.join(path.dirname(databasePath), 'uploads'),
     logLevel: values.LOG_LEVEL,
     mail: { smtp: smtpSettings(values, values.NODE_ENV === 'development'), from: values.MAIL_FROM },
+    payments: paymentsSettings(values),
     alerts: {
       intervalSeconds: values.ALERT_INTERVAL_SECONDS,
       expiryDays: values.ALERT_EXPIRY_DAYS,

@@ -138,6 +138,29 @@ describe('src/main.ts', { timeout: 90_000 }, () => {
     expect(await started.exited).toBe(0);
   });
 
+  it('when started in development without payment keys, then the local payments fake starts beside it and its address is printed', async () => {
+    const port = await freePort();
+    const fakePort = await freePort();
+    const started = start({
+      NODE_ENV: 'development',
+      PORT: String(port),
+      DATABASE_PATH: path.join(dir, 'with-fake.sqlite'),
+      DEV_MAIL: 'false',
+      SEED_DEMO: 'false',
+      ALERT_INTERVAL_SECONDS: '0',
+      STRIPE_API_URL: `http://127.0.0.1:${fakePort}`,
+    });
+    running.push(started);
+    await waitForHealth(`http://127.0.0.1:${port}`, started);
+    expect(started.output()).toContain(
+      `Local payments fake (test cards, no real money): http://127.0.0.1:${fakePort}`,
+    );
+    const answer = await fetch(`http://127.0.0.1:${fakePort}/v1/checkout/sessions/cs_test_none`);
+    expect(answer.status).toBe(401);
+    started.child.kill('SIGTERM');
+    expect(await started.exited).toBe(0);
+  });
+
   it('when the database file is damaged, then the process exits 1 with a message naming the file', async () => {
     const file = path.join(dir, 'damaged.sqlite');
     writeFileSync(file, Buffer.alloc(8192, 0x5a));
