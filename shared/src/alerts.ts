@@ -16,6 +16,7 @@ export const alertKinds = [
   'order-funded',
   'order-cancelled',
   'order-portion-ready',
+  'order-payment',
 ] as const;
 export const alertKindSchema = z.enum(alertKinds, {
   message: `must be one of: ${alertKinds.join(', ')}`,
@@ -33,6 +34,7 @@ export const alertKindLabels: Record<AlertKind, string> = {
   'order-funded': 'A shared order is funded',
   'order-cancelled': 'A shared order was cancelled or refunded',
   'order-portion-ready': 'Your portion of an order is ready',
+  'order-payment': 'A payment for your share was recorded',
 };
 
 export const alertSeverities = ['info', 'warning', 'critical'] as const;

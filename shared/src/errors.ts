@@ -15,6 +15,7 @@ export const errorCodes = [
   'payload_too_large',
   'unsupported_media_type',
   'rate_limited',
+  'payment_provider_unavailable',
   'internal',
 ] as const;
 export type ErrorCode = (typeof errorCodes)[number];
@@ -31,6 +32,8 @@ export const errorStatus: Record<ErrorCode, number> = {
   payload_too_large: 413,
   unsupported_media_type: 415,
   rate_limited: 429,
+  /** The payment provider did not answer (or answered with a fault); nothing was recorded as paid. */
+  payment_provider_unavailable: 503,
   internal: 500,
 };
 

@@ -31,6 +31,8 @@ import { locationsService } from './modules/locations/locations.service';
 import { lotRoutes } from './modules/lots/lots.routes';
 import { lotsService } from './modules/lots/lots.service';
 import { maintenanceRoutes } from './modules/maintenance/maintenance.routes';
+import { paymentRoutes, paymentWebhookPath } from './modules/payments/payments.routes';
+import { paymentsService } from './modules/payments/payments.service';
 import { planRoutes } from './modules/plans/plans.routes';
 import { plansService } from './modules/plans/plans.service';
 import { procedureRoutes } from './modules/procedures/procedures.routes';
@@ -93,7 +95,13 @@ export function createApp({
     });
     next();
   });
-  app.use(sameOriginWrites(config.publicUrl));
+  // The payment provider's webhooks are verified over their exact bytes: the raw body is kept
+  // (express.json below then leaves it alone), and no browser sends them.
+  app.use(paymentWebhookPath, express.raw({ type: 'application/json', limit: '1mb' }));
+  const sameOrigin = sameOriginWrites(config.publicUrl);
+  app.use((req, res, next) =>
+    req.path === paymentWebhookPath ? next() : sameOrigin(req, res, next),
+  );
   // API answers carry people's data and sessions: no browser or proxy cache keeps them.
   app.use('/api', (_req, res, next) => {
     res.set('Cache-Control', 'no-store');
@@ -131,6 +139,7 @@ export function createApp({
     ...exportRoutes(exportsService(store)),
     ...uploadRoutes(uploadsService(store, files), files),
     ...alertRoutes(alerts),
+    ...paymentRoutes(paymentsService(store, config, { alerts, logger })),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;

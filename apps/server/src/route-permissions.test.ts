@@ -9,6 +9,7 @@ import { testContext } from './test/harness';
 /** Values for path parameters: ids nobody has, so allowed calls end in 400/404, not in damage. */
 const sampleParams: Record<string, string> = {
   id: '999999',
+  shareId: '999999',
   token: 'no-such-invitation',
   labelCode: 'LW-99999',
 };

@@ -8,6 +8,7 @@ import { containersRepository } from '../modules/containers/containers.repositor
 import { locationsRepository } from '../modules/locations/locations.repository';
 import { lotsRepository } from '../modules/lots/lots.repository';
 import { ordersRepository } from '../modules/orders/orders.repository';
+import { paymentsRepository } from '../modules/payments/payments.repository';
 import { plansRepository } from '../modules/plans/plans.repository';
 import { proceduresRepository } from '../modules/procedures/procedures.repository';
 import { runsRepository } from '../modules/runs/runs.repository';
@@ -31,6 +32,7 @@ function repositoriesFor(manager: EntityManager) {
     runs: runsRepository(manager),
     alerts: alertsRepository(manager),
     orders: ordersRepository(manager),
+    payments: paymentsRepository(manager),
   };
 }
 export type Repositories = ReturnType<typeof repositoriesFor>;

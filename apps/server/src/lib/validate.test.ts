@@ -118,4 +118,10 @@ describe('keys that reach the prototype', () => {
     expect(forbiddenKeyPath(deep)).toBeNull();
     expect(forbiddenKeyPath(JSON.parse('[{"x":[{"__proto__":1}]}]'))).toBe('0.x.0.__proto__');
   });
+
+  it('when the body is raw bytes (a signed webhook), then its bytes are not walked as keys', () => {
+    const raw = Buffer.from('{"__proto__":{"x":1}}');
+    expect(forbiddenKeyPath(raw)).toBeNull();
+    expect(forbiddenKeyPath({ body: new Uint8Array(70_000) })).toBeNull();
+  });
 });

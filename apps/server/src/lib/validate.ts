@@ -55,6 +55,8 @@ export function forbiddenKeyPath(value: unknown): string | null {
   while (pending.length > 0) {
     const step = pending.pop()!;
     if (step.value === null || typeof step.value !== 'object') continue;
+    // A raw body (the payment webhook) is bytes, not keys.
+    if (ArrayBuffer.isView(step.value)) continue;
     // JSON.parse makes `"__proto__"` an own key, so Object.keys sees it.
     for (const key of Object.keys(step.value)) {
       const child: Step = {

@@ -4,6 +4,7 @@ import { startPaymentsFake, type PaymentsFake } from '@lotwise/payments-fake';
 import type { Express } from 'express';
 import { createApp } from '../app';
 import type { Config } from '../config';
+import type { Logger } from '../lib/logger';
 import { testConfig, testContext } from './harness';
 
 export const testStripeKey = 'sk_test_lotwise_api_tests';
@@ -24,7 +25,10 @@ export interface PaymentsTestbed {
  * and listens on a free port of its own, so the fake's signed webhooks reach
  * `/api/webhooks/stripe`. Webhook retries are quick (50 ms doubling) to keep tests short.
  */
-export async function startPaymentsTestbed(env: NodeJS.ProcessEnv = {}): Promise<PaymentsTestbed> {
+export async function startPaymentsTestbed(
+  env: NodeJS.ProcessEnv = {},
+  logger?: Logger,
+): Promise<PaymentsTestbed> {
   const { dir, dataSource } = testContext();
   const fake = await startPaymentsFake({
     port: 0,
@@ -40,7 +44,7 @@ export async function startPaymentsTestbed(env: NodeJS.ProcessEnv = {}): Promise
     STRIPE_WEBHOOK_SECRET: testWebhookSecret,
     ...env,
   });
-  const app = createApp({ dataSource, config });
+  const app = createApp({ dataSource, config, ...(logger ? { logger } : {}) });
   const server: Server = await new Promise((resolve) => {
     const listening = app.listen(0, '127.0.0.1', () => resolve(listening));
   });
