@@ -40,6 +40,8 @@ import { runsService } from './modules/runs/runs.service';
 import { segregationRoutes } from './modules/segregation/segregation.routes';
 import { stockRoutes } from './modules/stock/stock.routes';
 import { stockService } from './modules/stock/stock.service';
+import { supplierRoutes } from './modules/suppliers/suppliers.routes';
+import { suppliersService } from './modules/suppliers/suppliers.service';
 import { uploadRoutes } from './modules/uploads/uploads.routes';
 import { uploadsService } from './modules/uploads/uploads.service';
 import { userRoutes } from './modules/users/users.routes';
@@ -131,6 +133,7 @@ export function createApp({
     ...exportRoutes(exportsService(store)),
     ...uploadRoutes(uploadsService(store, files), files),
     ...alertRoutes(alerts),
+    ...supplierRoutes(suppliersService(store, config.currency)),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;
