@@ -20,6 +20,7 @@ export * from './stocktakes';
 export * from './alerts';
 export * from './uploads';
 export * from './imports';
+export * from './price-lists';
 export * from './procedures';
 export * from './plans';
 export * from './runs';

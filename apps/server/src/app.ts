@@ -129,7 +129,7 @@ export function createApp({
     ...procedureRoutes(proceduresService(store), runsService(store)),
     ...planRoutes(plansService(store, config.text)),
     ...runRoutes(runsService(store)),
-    ...importRoutes(importsService(store, logger, config.text), files),
+    ...importRoutes(importsService(store, logger, config.text, config.currency), files),
     ...exportRoutes(exportsService(store)),
     ...uploadRoutes(uploadsService(store, files), files),
     ...alertRoutes(alerts),
