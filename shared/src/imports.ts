@@ -1,10 +1,35 @@
 import { z } from 'zod';
 import { listQuerySchema } from './list';
+import { priceListColumnKeySchema, priceListSummarySchema } from './price-lists';
 
 /**
- * CSV import of existing stock: one row per container, with what is needed to create its
- * chemical, lot and place when Lotwise does not know them yet. See docs/importing-stock.md.
+ * CSV imports, of two kinds: `stock` (existing stock: one row per container, with what is
+ * needed to create its chemical, lot and place when Lotwise does not know them yet; see
+ * docs/importing-stock.md) and `price-list` (a supplier's catalogue, see ./price-lists.ts).
+ * Both go through the same steps: upload, check every row, preview, commit all or nothing.
  */
+export const importKinds = ['stock', 'price-list'] as const;
+export type ImportKind = (typeof importKinds)[number];
+export const importKindSchema = z.enum(importKinds, {
+  message: `must be one of: ${importKinds.join(', ')}`,
+});
+
+/** `POST /api/imports?kind=price-list&supplierId=3`; without `kind`, a stock import. */
+export const importCreateQuerySchema = z
+  .object({
+    kind: importKindSchema.optional().default('stock'),
+    supplierId: z.coerce.number().int().positive().optional(),
+  })
+  .superRefine((query, ctx) => {
+    if (query.kind === 'price-list' && query.supplierId === undefined) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['supplierId'],
+        message: 'is required for a price list: the supplier whose prices the file holds',
+      });
+    }
+  });
+export type ImportCreateQuery = z.infer<typeof importCreateQuerySchema>;
 
 export const importColumnKeys = [
   'chemical',
@@ -332,7 +357,8 @@ export const importProblemSchema = z.object({
   row: z.number().int().nullable(),
   /** The column's header as written in the file (ours when the column is missing). */
   column: z.string().nullable(),
-  field: importColumnKeySchema.nullable(),
+  /** The column's key: of {@link importColumnKeys}, or of the price-list columns. */
+  field: z.union([importColumnKeySchema, priceListColumnKeySchema]).nullable(),
   /** The cell as read, shortened to 100 characters. */
   value: z.string().nullable(),
   message: z.string(),
@@ -356,6 +382,9 @@ export type ImportSummary = z.infer<typeof importSummarySchema>;
 
 export const importSchema = z.object({
   id: z.number().int(),
+  kind: importKindSchema,
+  /** The supplier a price list is for; null for stock (or when the supplier was deleted). */
+  supplier: z.object({ id: z.number().int(), name: z.string() }).nullable(),
   fileName: z.string(),
   status: importStatusSchema,
   /** Data rows in the file (blank rows included until validation has read them). */
@@ -369,8 +398,13 @@ export const importSchema = z.object({
   errorsPageSize: z.number().int(),
   /** Things that do not stop the import (e.g. a column Lotwise does not read). */
   warnings: z.array(z.string()),
-  /** What the commit creates; null until validation has finished or when the file is unreadable. */
+  /**
+   * What a stock import's commit creates; null until validation has finished, when the file
+   * is unreadable, and for a price list.
+   */
   summary: importSummarySchema.nullable(),
+  /** What a price list's commit adds and updates; null as `summary` is, and for stock. */
+  priceList: priceListSummarySchema.nullable(),
   /** Why a commit failed (nothing was written) or validation stopped. */
   failure: z.string().nullable(),
   createdBy: z.object({ id: z.number().int(), displayName: z.string() }).nullable(),

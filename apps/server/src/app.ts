@@ -42,6 +42,8 @@ import { runsService } from './modules/runs/runs.service';
 import { segregationRoutes } from './modules/segregation/segregation.routes';
 import { stockRoutes } from './modules/stock/stock.routes';
 import { stockService } from './modules/stock/stock.service';
+import { supplierRoutes } from './modules/suppliers/suppliers.routes';
+import { suppliersService } from './modules/suppliers/suppliers.service';
 import { uploadRoutes } from './modules/uploads/uploads.routes';
 import { uploadsService } from './modules/uploads/uploads.service';
 import { userRoutes } from './modules/users/users.routes';
@@ -135,11 +137,12 @@ export function createApp({
     ...procedureRoutes(proceduresService(store), runsService(store)),
     ...planRoutes(plansService(store, config.text)),
     ...runRoutes(runsService(store)),
-    ...importRoutes(importsService(store, logger, config.text), files),
+    ...importRoutes(importsService(store, logger, config.text, config.currency), files),
     ...exportRoutes(exportsService(store)),
     ...uploadRoutes(uploadsService(store, files), files),
     ...alertRoutes(alerts),
     ...paymentRoutes(paymentsService(store, config, { alerts, logger })),
+    ...supplierRoutes(suppliersService(store, config.currency)),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;

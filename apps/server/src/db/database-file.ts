@@ -21,7 +21,8 @@ export interface OpenedDatabase {
 type DatabaseConfig = Pick<
   Config,
   'databasePath' | 'databaseInit' | 'production' | 'seedDemo' | 'bcryptCost'
->;
+> &
+  Partial<Pick<Config, 'currency'>>;
 
 const restoreAdvice =
   'Stop here and restore the file from your latest backup (or point DATABASE_PATH at the right file), then start Lotwise again.';
@@ -120,9 +121,11 @@ function seedIfAllowed(
     case 'never':
       return Promise.resolve(false);
     case 'new-file':
-      return found === 'missing' ? seedDemo(dataSource, config.bcryptCost) : Promise.resolve(false);
+      return found === 'missing'
+        ? seedDemo(dataSource, config.bcryptCost, config.currency)
+        : Promise.resolve(false);
     case 'empty-database':
-      return seedDemo(dataSource, config.bcryptCost);
+      return seedDemo(dataSource, config.bcryptCost, config.currency);
   }
 }
 

@@ -14,6 +14,7 @@ import { proceduresRepository } from '../modules/procedures/procedures.repositor
 import { runsRepository } from '../modules/runs/runs.repository';
 import { segregationRepository } from '../modules/segregation/segregation.repository';
 import { stockRepository } from '../modules/stock/stock.repository';
+import { suppliersRepository } from '../modules/suppliers/suppliers.repository';
 import { usersRepository } from '../modules/users/users.repository';
 
 function repositoriesFor(manager: EntityManager) {
@@ -33,6 +34,7 @@ function repositoriesFor(manager: EntityManager) {
     alerts: alertsRepository(manager),
     orders: ordersRepository(manager),
     payments: paymentsRepository(manager),
+    suppliers: suppliersRepository(manager),
   };
 }
 export type Repositories = ReturnType<typeof repositoriesFor>;

@@ -7,6 +7,7 @@ import { createStore } from '../store';
 import { demoChemicals } from './demo-chemicals';
 import { seedDemoStock } from './demo-stock';
 import { preparedOnlyChemicals, seedDemoPreparations } from './demo-preparations';
+import { seedDemoSuppliers } from './purchasing-suppliers';
 
 /** One published password for every demo account; change it before real use. */
 export const demoPassword = 'lotwise-demo-2026';
@@ -23,9 +24,13 @@ export const demoAccounts: { email: string; displayName: string; role: Role }[] 
 
 /**
  * Fills an empty database with the demo lab in one transaction. Does nothing (answers false)
- * when there is any user or chemical already.
+ * when there is any user or chemical already. Demo prices are in the lab's `currency`.
  */
-export async function seedDemo(dataSource: DataSource, bcryptCost: number): Promise<boolean> {
+export async function seedDemo(
+  dataSource: DataSource,
+  bcryptCost: number,
+  currency = 'EUR',
+): Promise<boolean> {
   const store = createStore(dataSource);
   const chemicals = demoChemicals.map((chemical) => chemicalCreateBodySchema.parse(chemical));
   const passwordHash = await hashPassword(demoPassword, bcryptCost);
@@ -59,6 +64,7 @@ export async function seedDemo(dataSource: DataSource, bcryptCost: number): Prom
       people,
     );
     await seedDemoPreparations(repos, inserted, people, places);
+    await seedDemoSuppliers(repos, inserted, currency);
     return true;
   });
 }

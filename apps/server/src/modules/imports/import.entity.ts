@@ -1,5 +1,12 @@
-import type { ImportProblem, ImportStatus, ImportSummary } from '@lotwise/shared';
+import type {
+  ImportKind,
+  ImportProblem,
+  ImportStatus,
+  ImportSummary,
+  PriceListSummary,
+} from '@lotwise/shared';
 import { EntitySchema } from 'typeorm';
+import { foreignKey } from '../../db/entity-relations';
 
 /**
  * A row of `imports`: one uploaded CSV, validated, then committed. `rows` holds the parsed,
@@ -7,6 +14,11 @@ import { EntitySchema } from 'typeorm';
  */
 export interface ImportRow {
   id: number;
+  kind: ImportKind;
+  /** The supplier of a price list; null for stock. */
+  supplierId: number | null;
+  /** Declared so the foreign key is part of the mapping; never loaded. */
+  supplier?: unknown;
   status: ImportStatus;
   fileName: string;
   userId: number | null;
@@ -17,7 +29,8 @@ export interface ImportRow {
   errorCount: number;
   errors: ImportProblem[];
   warnings: string[];
-  summary: ImportSummary | null;
+  /** What the commit writes: a stock summary or a price-list summary, by `kind`. */
+  summary: ImportSummary | PriceListSummary | null;
   rows: string | null;
   failure: string | null;
   createdAt: string;
@@ -30,6 +43,8 @@ export const ImportEntity = new EntitySchema<ImportRow>({
   tableName: 'imports',
   columns: {
     id: { type: 'integer', primary: true, generated: 'increment' },
+    kind: { type: 'varchar', length: 12, default: 'stock' },
+    supplierId: { name: 'supplier_id', type: 'integer', nullable: true },
     status: { type: 'varchar', length: 12 },
     fileName: { name: 'file_name', type: 'varchar', length: 255 },
     userId: { name: 'user_id', type: 'integer', nullable: true },
@@ -53,6 +68,7 @@ export const ImportEntity = new EntitySchema<ImportRow>({
       onDelete: 'SET NULL',
       nullable: true,
     },
+    supplier: foreignKey('Supplier', 'supplier_id', 'imports_supplier_fk', 'SET NULL', true),
   },
   indices: [{ name: 'imports_created_at_idx', columns: ['createdAt'] }],
 });

@@ -8,9 +8,12 @@ import { LocationEntity } from '../locations/location.entity';
 import { ImportEntity, type ImportRow } from './import.entity';
 import type { KnownChemical, KnownLocation, KnownLot } from './import-plan';
 
-export type ImportValues = Omit<ImportRow, 'id' | 'user'>;
+export type ImportValues = Omit<ImportRow, 'id' | 'user' | 'supplier'>;
 /** An import without its stored rows (they are large and only the commit reads them). */
-export type ImportHead = Omit<ImportRow, 'rows' | 'user'> & { createdByName: string | null };
+export type ImportHead = Omit<ImportRow, 'rows' | 'user' | 'supplier'> & {
+  createdByName: string | null;
+  supplierName: string | null;
+};
 
 /** Rows per multi-row INSERT: well below SQLite's limit of bound values per statement. */
 const insertChunk = 400;
@@ -24,6 +27,8 @@ function chunks<T>(list: T[], size: number): T[][] {
 
 const headColumnList: (keyof ImportRow)[] = [
   'id',
+  'kind',
+  'supplierId',
   'status',
   'fileName',
   'userId',
@@ -47,7 +52,9 @@ const headColumns = select(headColumnList);
 export function importsRepository(manager: EntityManager) {
   const repo = manager.getRepository(ImportEntity);
 
-  async function withNames(rows: Omit<ImportRow, 'rows' | 'user'>[]): Promise<ImportHead[]> {
+  async function withNames(
+    rows: Omit<ImportRow, 'rows' | 'user' | 'supplier'>[],
+  ): Promise<ImportHead[]> {
     const ids = [...new Set(rows.flatMap((row) => (row.userId ? [row.userId] : [])))];
     const names = new Map<number, string>();
     if (ids.length) {
@@ -60,9 +67,24 @@ export function importsRepository(manager: EntityManager) {
         .getRawMany();
       for (const user of users) names.set(Number(user.id), user.name);
     }
+    const supplierIds = [
+      ...new Set(rows.flatMap((row) => (row.supplierId ? [row.supplierId] : []))),
+    ];
+    const supplierNames = new Map<number, string>();
+    if (supplierIds.length) {
+      const suppliers: { id: number; name: string }[] = await manager
+        .createQueryBuilder()
+        .select('s.id', 'id')
+        .addSelect('s.name', 'name')
+        .from('suppliers', 's')
+        .where('s.id IN (:...supplierIds)', { supplierIds })
+        .getRawMany();
+      for (const supplier of suppliers) supplierNames.set(Number(supplier.id), supplier.name);
+    }
     return rows.map((row) => ({
       ...row,
       createdByName: row.userId ? (names.get(row.userId) ?? null) : null,
+      supplierName: row.supplierId ? (supplierNames.get(row.supplierId) ?? null) : null,
     }));
   }
 

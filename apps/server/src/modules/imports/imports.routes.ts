@@ -1,4 +1,5 @@
 import {
+  importCreateQuerySchema,
   importListQuerySchema,
   importQuerySchema,
   importTextBodySchema,
@@ -40,7 +41,8 @@ export function importRoutes(imports: ImportsService, files: FileStore) {
       path: '/api/imports',
       access: 'stock.write',
       before: [files.receiveToMemory],
-      handle: async ({ req, res, actor }) => {
+      query: importCreateQuerySchema,
+      handle: async ({ req, res, query, actor }) => {
         let input: { fileName: string; bytes?: Uint8Array; text?: string };
         if (req.file) {
           const problem = notCsv(req.file.buffer);
@@ -74,7 +76,7 @@ export function importRoutes(imports: ImportsService, files: FileStore) {
             `Send the CSV as multipart/form-data in the field "${uploadFieldName}", or as JSON { "text": "…" }.`,
           );
         }
-        const { result, done } = await imports.create(input, actor());
+        const { result, done } = await imports.create(input, actor(), query);
         res.status(done ? 201 : 202).json(result);
       },
     }),

@@ -1,4 +1,5 @@
 import {
+  can,
   defaultTextLocale,
   formatDateTime,
   formatLabelCode,
@@ -6,12 +7,15 @@ import {
   importWaitRowLimit,
   todayIso,
   type Import,
+  type ImportCreateQuery,
   type ImportListItem,
   type ImportListQuery,
   type ImportProblem,
   type ImportQuery,
   type ImportStatus,
+  type ImportSummary,
   type Page,
+  type PriceListSummary,
   type User,
 } from '@lotwise/shared';
 import type { TextConfig } from '../../config';
@@ -33,6 +37,15 @@ import {
   type ImportRowValues,
 } from './import-rows';
 import type { ImportHead } from './imports.repository';
+import {
+  mapPriceListHeader,
+  planPriceList,
+  readPriceListRow,
+  sortPriceListProblems,
+  writePriceList,
+  type PriceListHeader,
+  type PriceListRowValues,
+} from './price-list-import';
 
 /** Rows read or written between two turns of the event loop. */
 const chunkSize = 500;
@@ -41,9 +54,9 @@ const maxStoredProblems = 10_000;
 const tick = () => new Promise<void>((resolve) => setImmediate(resolve));
 
 /** What is stored for the commit: the rows as read, and how many blank ones were skipped. */
-interface StoredRows {
+interface StoredRows<R = ImportRowValues> {
   blankRows: number;
-  rows: ImportRowValues[];
+  rows: R[];
 }
 
 /** A commit refused after it began: nothing was written. */
@@ -81,6 +94,8 @@ export function importsService(
   store: Store,
   logger: Logger,
   text: TextConfig = { locale: defaultTextLocale, timeZone: 'UTC' },
+  /** The lab's currency: every price in a price list must be in it. */
+  currency = 'EUR',
 ) {
   const { imports } = store.repos;
   /** Imports being validated or committed by this process: their progress lives here. */
@@ -99,8 +114,14 @@ export function importsService(
 
   function present(head: ImportHead, query: ImportQuery): Import {
     const start = (query.errorsPage - 1) * query.errorsPageSize;
+    const priceList = head.kind === 'price-list';
     return {
       id: head.id,
+      kind: head.kind,
+      supplier:
+        head.supplierId === null
+          ? null
+          : { id: head.supplierId, name: head.supplierName ?? `Supplier #${head.supplierId}` },
       fileName: head.fileName,
       status: head.status,
       totalRows: head.totalRows,
@@ -110,7 +131,8 @@ export function importsService(
       errorsPage: query.errorsPage,
       errorsPageSize: query.errorsPageSize,
       warnings: head.warnings,
-      summary: head.summary,
+      summary: priceList ? null : ((head.summary as ImportSummary | null) ?? null),
+      priceList: priceList ? ((head.summary as PriceListSummary | null) ?? null) : null,
       failure: head.failure,
       createdBy:
         head.userId === null ? null : { id: head.userId, displayName: head.createdByName ?? '' },
@@ -128,18 +150,45 @@ export function importsService(
 
   const firstPage: ImportQuery = { errorsPage: 1, errorsPageSize: 100 };
 
-  /** Reads every row in chunks, then plans against what Lotwise holds. Writes only `imports`. */
-  async function validate(
-    id: number,
-    header: HeaderMap,
-    records: string[][],
+  /** How the rows of one kind of import are read, planned and their problems ordered. */
+  interface RowReader<R> {
+    read(record: string[], row: number): { values: R | null; problems: ImportProblem[] };
+    plan(
+      rows: R[],
+      blankRows: number,
+    ): Promise<{ problems: ImportProblem[]; summary: ImportSummary | PriceListSummary }>;
+    sort(problems: ImportProblem[]): ImportProblem[];
+  }
+
+  function stockReader(header: HeaderMap, decimalComma: boolean): RowReader<ImportRowValues> {
+    const today = todayIso();
+    return {
+      read: (record, row) => readRow(record, header, row, { decimalComma, today }),
+      plan: (rows, blankRows) =>
+        planImport(rows, planSource(store.repos, true), { today, header, blankRows }),
+      sort: sortProblems,
+    };
+  }
+
+  function priceListReader(
+    header: PriceListHeader,
     decimalComma: boolean,
-  ) {
+    supplier: { id: number; name: string },
+  ): RowReader<PriceListRowValues> {
+    return {
+      read: (record, row) => readPriceListRow(record, header, row, { currency, decimalComma }),
+      plan: (rows, blankRows) =>
+        planPriceList(rows, store.repos, supplier, { currency, blankRows, header }),
+      sort: sortPriceListProblems,
+    };
+  }
+
+  /** Reads every row in chunks, then plans against what Lotwise holds. Writes only `imports`. */
+  async function validate<R>(id: number, records: string[][], reader: RowReader<R>) {
     const progress = { processed: 0 };
     running.set(id, progress);
     try {
-      const today = todayIso();
-      const rows: ImportRowValues[] = [];
+      const rows: R[] = [];
       const problems: ImportProblem[] = [];
       let blankRows = 0;
       for (let start = 0; start < records.length; start += chunkSize) {
@@ -151,20 +200,16 @@ export function importsService(
             continue;
           }
           // Record 0 is the header (row 1), so data record i is spreadsheet row i + 2.
-          const read = readRow(record, header, i + 2, { decimalComma, today });
+          const read = reader.read(record, i + 2);
           problems.push(...read.problems);
           if (read.values) rows.push(read.values);
         }
         progress.processed = end;
         await tick();
       }
-      const plan = await planImport(rows, planSource(store.repos, true), {
-        today,
-        header,
-        blankRows,
-      });
-      const all = sortProblems([...problems, ...plan.problems]);
-      const stored: StoredRows = { blankRows, rows };
+      const plan = await reader.plan(rows, blankRows);
+      const all = reader.sort([...problems, ...plan.problems]);
+      const stored: StoredRows<R> = { blankRows, rows };
       await imports.update(id, {
         status: all.length ? 'invalid' : 'ready',
         processedRows: records.length,
@@ -332,7 +377,46 @@ export function importsService(
     }
   }
 
-  async function commit(id: number, fileName: string, actor: User) {
+  /** Plans a price list again inside the commit's transaction and writes it. */
+  async function commitPriceList(
+    repos: Repositories,
+    head: ImportHead,
+    stored: StoredRows<PriceListRowValues>,
+  ) {
+    const supplier = head.supplierId ? await repos.suppliers.findSupplier(head.supplierId) : null;
+    if (!supplier) {
+      throw new CommitFailure(
+        'The supplier of this price list was deleted after the preview. Nothing was imported.',
+      );
+    }
+    const plan = await planPriceList(
+      stored.rows,
+      repos,
+      { id: supplier.id, name: supplier.name },
+      { currency, blankRows: stored.blankRows, header: null },
+    );
+    if (plan.problems.length > 0) {
+      const first = plan.problems[0]!;
+      throw new CommitFailure(
+        `The catalogue or the chemicals changed since the preview: ${plan.problems.length} row problem(s), the first on row ${first.row} (${first.column}): ${first.message}. Nothing was imported; upload the file again.`,
+        plan.problems,
+      );
+    }
+    const now = nowIso();
+    await writePriceList(repos, supplier.id, currency, plan, now);
+    await repos.imports.update(head.id, {
+      status: 'committed',
+      processedRows: stored.rows.length,
+      totalRows: stored.rows.length,
+      summary: plan.summary,
+      rows: null,
+      committedAt: now,
+      updatedAt: now,
+    });
+  }
+
+  async function commit(head: ImportHead, actor: User) {
+    const { id, fileName } = head;
     const progress = { processed: 0 };
     running.set(id, progress);
     try {
@@ -341,6 +425,11 @@ export function importsService(
         throw new CommitFailure(
           'The checked rows of this import are missing; upload the file again.',
         );
+      if (head.kind === 'price-list') {
+        const rows = JSON.parse(text) as StoredRows<PriceListRowValues>;
+        await store.transaction((repos) => commitPriceList(repos, head, rows));
+        return null;
+      }
       const stored = JSON.parse(text) as StoredRows;
       await store.transaction(async (repos) => {
         // Plan again against the stock as it is now, inside the transaction; a label code
@@ -424,9 +513,27 @@ export function importsService(
     async create(
       file: { fileName: string; bytes?: Uint8Array; text?: string },
       actor: User,
+      options: ImportCreateQuery = { kind: 'stock' },
     ): Promise<{ result: Import; done: boolean }> {
+      const priceList = options.kind === 'price-list';
+      let supplier: { id: number; name: string } | null = null;
+      if (priceList) {
+        if (!can(actor.role, 'orders.manage')) {
+          throw AppError.forbidden('Your role does not allow changing suppliers’ price lists.');
+        }
+        const found = await store.repos.suppliers.findSupplier(options.supplierId ?? 0);
+        if (!found) {
+          throw AppError.validation(`There is no supplier #${options.supplierId}.`, {
+            supplierId: `no supplier #${options.supplierId}`,
+          });
+        }
+        supplier = { id: found.id, name: found.name };
+      }
+      const rowWord = priceList ? 'pack' : 'container';
       const now = nowIso();
       const base = {
+        kind: options.kind,
+        supplierId: supplier?.id ?? null,
         fileName: file.fileName,
         userId: actor.id,
         processedRows: 0,
@@ -466,10 +573,10 @@ export function importsService(
       while (records.length && isBlankRecord(records[records.length - 1]!)) records.pop();
       if (!headerRecord || isBlankRecord(headerRecord)) {
         return refuse(
-          'The file is empty: the first row must name the columns, one row per container below it.',
+          `The file is empty: the first row must name the columns, one row per ${rowWord} below it.`,
         );
       }
-      const header = mapHeader(headerRecord);
+      const header = priceList ? mapPriceListHeader(headerRecord) : mapHeader(headerRecord);
       if (header.problems.length) {
         const problems = header.problems;
         const importId = await imports.insert({
@@ -484,7 +591,7 @@ export function importsService(
       }
       if (records.length === 0) {
         return refuse(
-          'The file has a header row but no rows of stock below it.',
+          `The file has a header row but no rows of ${priceList ? 'prices' : 'stock'} below it.`,
           0,
           header.warnings,
         );
@@ -503,7 +610,14 @@ export function importsService(
         errorCount: 0,
         warnings: header.warnings,
       });
-      const job = validate(importId, header, records, parsed.delimiter !== ',');
+      const decimalComma = parsed.delimiter !== ',';
+      const job = supplier
+        ? validate(
+            importId,
+            records,
+            priceListReader(header as PriceListHeader, decimalComma, supplier),
+          )
+        : validate(importId, records, stockReader(header as HeaderMap, decimalComma));
       const done = records.length <= importWaitRowLimit;
       if (done) await job;
       else
@@ -522,6 +636,9 @@ export function importsService(
         const current = await repos.imports.findHead(id);
         if (!current) throw AppError.notFound(`There is no import #${id}.`);
         const settled = await settleInterrupted(current);
+        if (settled.kind === 'price-list' && !can(actor.role, 'orders.manage')) {
+          throw AppError.forbidden('Your role does not allow changing suppliers’ price lists.');
+        }
         if (settled.status !== 'ready' || running.has(id)) throw statusConflict(settled, text);
         await repos.imports.update(id, {
           status: 'committing',
@@ -530,7 +647,7 @@ export function importsService(
         });
         return settled;
       });
-      const job = commit(id, head.fileName, actor);
+      const job = commit(head, actor);
       const done = head.totalRows <= importWaitRowLimit;
       if (done) {
         const failure = await job;

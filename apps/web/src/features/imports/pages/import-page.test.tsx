@@ -23,6 +23,8 @@ const summary: ImportSummary = {
 function makeImport(overrides: Partial<Import> = {}): Import {
   return {
     id: 1,
+    kind: 'stock',
+    supplier: null,
     fileName: 'stock.csv',
     status: 'ready',
     totalRows: 3,
@@ -33,6 +35,7 @@ function makeImport(overrides: Partial<Import> = {}): Import {
     errorsPageSize: 25,
     warnings: [],
     summary,
+    priceList: null,
     failure: null,
     createdBy: { id: manager.id, displayName: manager.displayName },
     createdAt: '2026-11-30T10:00:00.000Z',
