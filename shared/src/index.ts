@@ -26,3 +26,4 @@ export * from './runs';
 export * from './format';
 export * from './money';
 export * from './purchasing';
+export * from './orders';

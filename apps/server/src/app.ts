@@ -31,6 +31,8 @@ import { locationsService } from './modules/locations/locations.service';
 import { lotRoutes } from './modules/lots/lots.routes';
 import { lotsService } from './modules/lots/lots.service';
 import { maintenanceRoutes } from './modules/maintenance/maintenance.routes';
+import { orderRoutes } from './modules/orders/orders.routes';
+import { ordersService, type OrderCancellation } from './modules/orders/orders.service';
 import { planRoutes } from './modules/plans/plans.routes';
 import { plansService } from './modules/plans/plans.service';
 import { procedureRoutes } from './modules/procedures/procedures.routes';
@@ -51,6 +53,8 @@ export interface AppOptions {
   logger?: Logger;
   /** Called when e-mails were queued (the server's outbox worker sends them promptly). */
   onMailQueued?: () => void;
+  /** Refunds the paid shares of a cancelled order (the payments module). */
+  orderCancellation?: OrderCancellation;
 }
 
 const routeTableKey = 'lotwiseRoutes';
@@ -66,6 +70,7 @@ export function createApp({
   config,
   logger = createLogger(config.logLevel),
   onMailQueued,
+  orderCancellation,
 }: AppOptions) {
   const app = express();
   app.disable('x-powered-by');
@@ -131,6 +136,7 @@ export function createApp({
     ...exportRoutes(exportsService(store)),
     ...uploadRoutes(uploadsService(store, files), files),
     ...alertRoutes(alerts),
+    ...orderRoutes(ordersService(store, config, { alerts, cancellation: orderCancellation })),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;
