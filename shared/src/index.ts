@@ -29,3 +29,4 @@ export * from './money';
 export * from './purchasing';
 export * from './payments';
 export * from './suppliers';
+export * from './orders';

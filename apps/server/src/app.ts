@@ -33,6 +33,8 @@ import { lotsService } from './modules/lots/lots.service';
 import { maintenanceRoutes } from './modules/maintenance/maintenance.routes';
 import { paymentRoutes, paymentWebhookPath } from './modules/payments/payments.routes';
 import { paymentsService } from './modules/payments/payments.service';
+import { orderRoutes } from './modules/orders/orders.routes';
+import { ordersService, type OrderCancellation } from './modules/orders/orders.service';
 import { planRoutes } from './modules/plans/plans.routes';
 import { plansService } from './modules/plans/plans.service';
 import { procedureRoutes } from './modules/procedures/procedures.routes';
@@ -55,6 +57,8 @@ export interface AppOptions {
   logger?: Logger;
   /** Called when e-mails were queued (the server's outbox worker sends them promptly). */
   onMailQueued?: () => void;
+  /** Refunds the paid shares of a cancelled order (the payments module). */
+  orderCancellation?: OrderCancellation;
 }
 
 const routeTableKey = 'lotwiseRoutes';
@@ -70,6 +74,7 @@ export function createApp({
   config,
   logger = createLogger(config.logLevel),
   onMailQueued,
+  orderCancellation,
 }: AppOptions) {
   const app = express();
   app.disable('x-powered-by');
@@ -143,6 +148,7 @@ export function createApp({
     ...alertRoutes(alerts),
     ...paymentRoutes(paymentsService(store, config, { alerts, logger })),
     ...supplierRoutes(suppliersService(store, config.currency)),
+    ...orderRoutes(ordersService(store, config, { alerts, cancellation: orderCancellation })),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;

@@ -12,6 +12,8 @@ const sampleParams: Record<string, string> = {
   shareId: '999999',
   token: 'no-such-invitation',
   labelCode: 'LW-99999',
+  lineId: '999999',
+  shareId: '999999',
 };
 
 function samplePath(path: string): string {

@@ -5,7 +5,7 @@ import { PageSpinner } from '../components/ui/spinner';
 import { paths } from '../config/paths';
 import { ChemicalsListPage } from '../features/chemicals/pages/chemicals-list-page';
 import { ChemicalDetailPage } from '../features/chemicals/pages/chemical-detail-page';
-import { ComingSoonPage, comingCapabilities } from './routes/coming-soon';
+import { orderRoutes } from './order-routes';
 import { preparationRoutes } from './preparation-routes';
 import { RequirePermission, SignedInLayout } from './routes/guards';
 import { NotFoundPage, RouteErrorPage } from './routes/status-pages';
@@ -177,14 +177,7 @@ export const routes: RouteObject[] = [
           },
           // The runs list moved under Preparations; old links still arrive.
           { path: '/runs', element: <Navigate to={paths.runs} replace /> },
-          {
-            path: paths.orders,
-            element: (
-              <RequirePermission permission="orders.read">
-                <ComingSoonPage capability={comingCapabilities.orders} />
-              </RequirePermission>
-            ),
-          },
+          ...orderRoutes,
           {
             path: paths.alerts,
             lazy: async () => {

@@ -42,6 +42,9 @@ export const paths = {
     `/preparations/usage/${chemicalId}`,
   lotProvenance: (id: number | string = ':id') => `/preparations/lots/${id}/provenance`,
   orders: '/orders',
+  orderNew: '/orders/new',
+  /** `?paid=<shareId>` or `?cancelled=<shareId>` on return from the checkout page. */
+  order: (id: number | string = ':id') => `/orders/${id}`,
   alerts: '/alerts',
   alertPreferences: '/alerts/preferences',
   adminOutbox: '/admin/outbox',

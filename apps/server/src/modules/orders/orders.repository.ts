@@ -1,5 +1,9 @@
-import type { EntityManager } from 'typeorm';
-import { ChemicalEntity } from '../chemicals/chemical.entity';
+import { parseSort, type OrderListQuery, type OrderStatus } from '@lotwise/shared';
+import { In, type EntityManager } from 'typeorm';
+import { containsPattern } from '../../db/sql';
+import { ChemicalEntity, type ChemicalRow } from '../chemicals/chemical.entity';
+import { CatalogItemEntity, type CatalogItemRow } from '../suppliers/catalog-item.entity';
+import { SupplierEntity, type SupplierRow } from '../suppliers/supplier.entity';
 import { OrderLineEntity, type OrderLineRow } from './order-line.entity';
 import { OrderShareEntity, type OrderShareRow } from './order-share.entity';
 import { OrderEntity, type OrderRow } from './order.entity';
@@ -8,6 +12,18 @@ import { priceOrder, type OrderCost, type PricedLineInput } from './order-pricin
 export type OrderValues = Omit<OrderRow, 'id' | 'supplier' | 'coordinator'>;
 export type OrderLineValues = Omit<OrderLineRow, 'id' | 'order' | 'catalogItem' | 'chemical'>;
 export type OrderShareValues = Omit<OrderShareRow, 'id' | 'order' | 'line' | 'user' | 'container'>;
+
+/** Which orders a list shows: drafts only to coordinators. */
+export interface OrderListScope {
+  includeDrafts: boolean;
+}
+
+const sortColumns: Record<string, string> = {
+  createdAt: 'o.createdAt',
+  claimDeadline: 'o.claimDeadline',
+  title: 'o.title',
+  status: 'o.status',
+};
 
 /** An order with its lines, shares and what it costs as it stands. */
 export interface OrderRecord {
@@ -36,6 +52,70 @@ export function ordersRepository(manager: EntityManager) {
   }
 
   return {
+    /** A page of order ids matching the list query (by title or supplier name). */
+    async list(
+      query: OrderListQuery,
+      scope: OrderListScope,
+    ): Promise<{ ids: number[]; total: number }> {
+      const qb = orders
+        .createQueryBuilder('o')
+        .innerJoin('suppliers', 's', 's.id = o.supplierId')
+        .select('o.id', 'id');
+      if (!scope.includeDrafts) qb.andWhere("o.status <> 'draft'");
+      if (query.status) qb.andWhere('o.status = :status', { status: query.status });
+      if (query.q) {
+        qb.andWhere("(LOWER(o.title) LIKE :q ESCAPE '\\' OR LOWER(s.name) LIKE :q ESCAPE '\\')", {
+          q: containsPattern(query.q.toLowerCase()),
+        });
+      }
+      const total = await qb.getCount();
+      const { field, direction } = parseSort(query.sort);
+      const dir = direction === 'desc' ? 'DESC' : 'ASC';
+      const rows = await qb
+        .orderBy(sortColumns[field] ?? 'o.createdAt', dir)
+        .addOrderBy('o.id', dir)
+        .offset((query.page - 1) * query.pageSize)
+        .limit(query.pageSize)
+        .getRawMany<{ id: number }>();
+      return { ids: rows.map((row) => Number(row.id)), total };
+    },
+    async findSupplier(id: number): Promise<SupplierRow | null> {
+      return manager.getRepository(SupplierEntity).findOneBy({ id });
+    },
+    async suppliersByIds(ids: number[]): Promise<SupplierRow[]> {
+      if (ids.length === 0) return [];
+      return manager.getRepository(SupplierEntity).findBy({ id: In([...new Set(ids)]) });
+    },
+    async catalogItemsByIds(ids: number[]): Promise<CatalogItemRow[]> {
+      if (ids.length === 0) return [];
+      return manager.getRepository(CatalogItemEntity).findBy({ id: In([...new Set(ids)]) });
+    },
+    async chemicalsByIds(ids: number[]): Promise<ChemicalRow[]> {
+      if (ids.length === 0) return [];
+      return manager.getRepository(ChemicalEntity).findBy({ id: In([...new Set(ids)]) });
+    },
+    /** Orders in `statuses` a person holds a share of (alert rules: chemicals they claimed). */
+    async claimedChemicals(
+      userIds: number[],
+      statuses: readonly OrderStatus[],
+    ): Promise<Map<number, Set<number>>> {
+      const claimed = new Map<number, Set<number>>();
+      if (userIds.length === 0) return claimed;
+      const rows = await shares
+        .createQueryBuilder('sh')
+        .innerJoin('order_lines', 'l', 'l.id = sh.lineId')
+        .innerJoin('orders', 'o', 'o.id = sh.orderId')
+        .select(['sh.userId AS userId', 'l.chemical_id AS chemicalId'])
+        .where('sh.userId IN (:...userIds)', { userIds })
+        .andWhere('o.status IN (:...statuses)', { statuses: [...statuses] })
+        .getRawMany<{ userId: number; chemicalId: number }>();
+      for (const row of rows) {
+        const set = claimed.get(Number(row.userId)) ?? new Set<number>();
+        set.add(Number(row.chemicalId));
+        claimed.set(Number(row.userId), set);
+      }
+      return claimed;
+    },
     async findOrder(id: number): Promise<OrderRow | null> {
       return orders.findOneBy({ id });
     },

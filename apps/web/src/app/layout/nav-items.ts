@@ -20,7 +20,7 @@ export interface NavItem {
   icon: LucideIcon;
   /** Not built yet: the page says so and tells what it will do. */
   coming?: boolean;
-  section?: 'admin';
+  section?: 'purchasing' | 'admin';
 }
 
 export const navItems: readonly NavItem[] = [
@@ -38,7 +38,7 @@ export const navItems: readonly NavItem[] = [
     to: paths.orders,
     permission: 'orders.read',
     icon: ShoppingCart,
-    coming: true,
+    section: 'purchasing',
   },
   { label: 'Alerts', to: paths.alerts, permission: 'alerts.read', icon: Bell },
   {

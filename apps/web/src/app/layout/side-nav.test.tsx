@@ -21,15 +21,16 @@ describe('SideNav', () => {
     expect(navLabels('viewer')).toEqual(['Chemicals', 'Stock', 'Preparations']);
   });
 
-  it('when a member signs in, then runs, orders and alerts show but not administration', () => {
+  it('when a member signs in, then runs, alerts and orders (under Purchasing) show but not administration', () => {
     expect(navLabels('member')).toEqual([
       'Chemicals',
       'Stock',
       'Preparations',
       'Runs',
-      'Orders',
       'Alerts',
+      'Orders',
     ]);
+    expect(screen.getByText('Purchasing')).toBeInTheDocument();
   });
 
   it('when an admin signs in, then People and Outbox under Admin show too', () => {
@@ -38,8 +39,8 @@ describe('SideNav', () => {
       'Stock',
       'Preparations',
       'Runs',
-      'Orders',
       'Alerts',
+      'Orders',
       'People',
       'Outbox',
     ]);
@@ -52,7 +53,7 @@ describe('SideNav', () => {
         <SideNav role="manager" />
       </MemoryRouter>,
     );
-    expect(screen.getByRole('link', { name: /Orders/ })).toHaveTextContent('coming');
+    expect(screen.getByRole('link', { name: /Orders/ })).not.toHaveTextContent('coming');
     expect(screen.getByRole('link', { name: /Preparations/ })).not.toHaveTextContent('coming');
     expect(screen.getByRole('link', { name: /Stock/ })).not.toHaveTextContent('coming');
     expect(screen.getByRole('link', { name: /Chemicals/ })).not.toHaveTextContent('coming');

@@ -30,10 +30,25 @@ function Item({ item }: { item: NavItem }) {
   );
 }
 
+function Group({ title, items }: { title: string; items: NavItem[] }) {
+  if (items.length === 0) return null;
+  return (
+    <div>
+      <p className="mb-1 px-2.5 text-xs font-semibold tracking-wide text-ink-600 uppercase">
+        {title}
+      </p>
+      <ul className="flex flex-col gap-0.5">
+        {items.map((item) => (
+          <Item key={item.to} item={item} />
+        ))}
+      </ul>
+    </div>
+  );
+}
+
 export function SideNav({ role }: { role: Role }) {
   const items = navItemsFor(role);
-  const main = items.filter((item) => item.section !== 'admin');
-  const admin = items.filter((item) => item.section === 'admin');
+  const main = items.filter((item) => item.section === undefined);
   return (
     <nav aria-label="Main" className="flex flex-col gap-5 px-3 py-4">
       <ul className="flex flex-col gap-0.5">
@@ -41,18 +56,8 @@ export function SideNav({ role }: { role: Role }) {
           <Item key={item.to} item={item} />
         ))}
       </ul>
-      {admin.length > 0 && (
-        <div>
-          <p className="mb-1 px-2.5 text-xs font-semibold tracking-wide text-ink-600 uppercase">
-            Admin
-          </p>
-          <ul className="flex flex-col gap-0.5">
-            {admin.map((item) => (
-              <Item key={item.to} item={item} />
-            ))}
-          </ul>
-        </div>
-      )}
+      <Group title="Purchasing" items={items.filter((item) => item.section === 'purchasing')} />
+      <Group title="Admin" items={items.filter((item) => item.section === 'admin')} />
     </nav>
   );
 }
