@@ -140,6 +140,20 @@ describe('choosePacks: price per gram with fees', () => {
     });
   });
 
+  it('when only one kind of pack may be taken, then the best single catalogue item wins', () => {
+    const choice = choosePacks({
+      quantity: 700,
+      unit: 'g',
+      packs: [pack(1, 1, 500, 'g', 3000), pack(2, 1, 250, 'g', 2500), pack(3, 1, 100, 'g', 800)],
+      suppliers: [fees(1, 1000)],
+      maxOverbuyFactor: 1.2,
+      maxPackKinds: 1,
+    });
+    // 500 + 2 × 100 g is out (two kinds); 7 × 100 g: 5600 + 1000 = 6600 for 700 g = 9.43 per g;
+    // 3 × 250 g: 7500 + 1000 = 8500 for 750 g = 11.33; 2 × 500 g buys more than 840 g
+    expect(choice.chosen).toMatchObject({ packs: [{ packId: 3, count: 7 }], totalMinor: 6600 });
+  });
+
   it('when a big pack is cheap per gram but far more than needed, then it ranks after the rest', () => {
     const input = {
       quantity: 450,

@@ -52,6 +52,12 @@ export interface PackChoiceInput {
   maxOverbuyFactor?: number;
   /** Combinations of more packs than this are not considered. Default 20. */
   maxPacks?: number;
+  /**
+   * Different packs in one combination at most, default 3 (a line of four pack sizes of one
+   * chemical is not how anyone orders; the limit also keeps the search small). 1 gives the
+   * best single catalogue item. // common practice, no source
+   */
+  maxPackKinds?: number;
 }
 
 /** How many of one pack a combination takes. */
@@ -126,17 +132,11 @@ export interface PackChoice {
 // that sums of packs are exact and ties are real ties.
 const MICRO = 1_000_000;
 
-/**
- * Different packs in one combination at most: a line of four pack sizes of one chemical is
- * not how anyone orders, and the limit keeps the search small. // common practice, no source
- */
-const MAX_PACK_KINDS = 3;
-
 /** Combinations examined per supplier before the search stops (a safety bound). */
 const MAX_COMBINATIONS = 200_000;
 
 export const PACK_CHOICE_RULE =
-  'Packs from one supplier (up to three sizes) that together cover the quantity, no pack more than needed; ' +
+  'Packs from one supplier (up to three kinds) that together cover the quantity, no pack more than needed; ' +
   'the lowest price per g (or mL) including shipping and, when a pack is hazardous, the ' +
   'hazardous-goods fee wins. Buying more than the overbuy limit ranks last. Ties go to the ' +
   'lower total, then fewer packs, then the supplier and packs listed first.';
@@ -248,7 +248,7 @@ function compareCandidates(a: Candidate, b: Candidate): number {
  * the supplier's fees included. A combination takes packs of one supplier only (one order
  * goes to one supplier): its shipping fee counts once, its hazardous-goods fee once when any
  * chosen pack is hazardous. Only combinations in which every pack is needed are considered
- * (taking any one pack away leaves the quantity uncovered), of at most three pack sizes.
+ * (taking any one pack away leaves the quantity uncovered), of at most `maxPackKinds` packs.
  *
  * Ranking, deterministic: combinations within the overbuy limit first; then the lower price
  * per unit (compared exactly as integers); then the lower total; then fewer packs; then the
@@ -276,6 +276,10 @@ export function choosePacks(input: PackChoiceInput): PackChoice {
   const maxPacks = input.maxPacks ?? 20;
   if (!Number.isSafeInteger(maxPacks) || maxPacks < 1) {
     throw new ChemError('out_of_range', `pack limit must be a whole number of 1 or more`);
+  }
+  const maxKinds = input.maxPackKinds ?? 3;
+  if (!Number.isSafeInteger(maxKinds) || maxKinds < 1) {
+    throw new ChemError('out_of_range', `pack kinds limit must be a whole number of 1 or more`);
   }
   const quantityMicro = Math.round(quantity * MICRO);
   const limitMicro = factor * quantityMicro;
@@ -326,7 +330,7 @@ export function choosePacks(input: PackChoiceInput): PackChoice {
   for (const [supplierId, usable] of suppliersInOrder) {
     const entry = fees.get(supplierId);
     if (!entry) continue;
-    const found = bestForSupplier(usable, entry, quantityMicro, limitMicro, maxPacks);
+    const found = bestForSupplier(usable, entry, quantityMicro, limitMicro, maxPacks, maxKinds);
     if (found) best.push(found);
     else {
       uncovered.push({
@@ -354,6 +358,7 @@ function bestForSupplier(
   quantityMicro: number,
   limitMicro: number,
   maxPacks: number,
+  maxKinds: number,
 ): Candidate | null {
   // Largest pack first, then cheaper, then listed first: the search order is fixed.
   const types = [...usable].sort(
@@ -407,7 +412,7 @@ function bestForSupplier(
       return;
     }
     const type = types[index];
-    if (!type || packCount >= maxPacks || sizes >= MAX_PACK_KINDS) return;
+    if (!type || packCount >= maxPacks || sizes >= maxKinds) return;
     const needed = Math.ceil((quantityMicro - amountMicro) / type.amountMicro);
     const most = Math.min(needed, maxPacks - packCount);
     for (let count = most; count >= 0; count--) {
