@@ -24,3 +24,5 @@ export * from './procedures';
 export * from './plans';
 export * from './runs';
 export * from './format';
+export * from './money';
+export * from './purchasing';

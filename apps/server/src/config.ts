@@ -4,7 +4,7 @@ import { isIP } from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
-import { defaultTextLocale } from '@lotwise/shared';
+import { currencyCodeSchema, defaultTextLocale } from '@lotwise/shared';
 
 /** The repository root; relative paths in the environment are resolved against it. */
 export const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../..');
@@ -135,6 +135,8 @@ const envSchema = z.object({
   OUTBOX_INTERVAL_SECONDS: wholeNumber(0, 86400).default(10),
   /** Send attempts before a message is marked failed (an admin can still resend it). */
   OUTBOX_MAX_ATTEMPTS: wholeNumber(1, 100).default(10),
+  /** The lab's one currency (ISO 4217): every price, fee and payment is in it, in minor units. */
+  CURRENCY: currencyCodeSchema.default('EUR'),
   /** Language of dates in text the server writes (e-mails, alerts, messages), e.g. en-GB, en-US, de-DE. */
   TEXT_LOCALE: z
     .string()
@@ -245,6 +247,8 @@ export interface Config {
   mail: MailConfig;
   alerts: AlertConfig;
   text: TextConfig;
+  /** ISO 4217 code of the lab's currency (CURRENCY). */
+  currency: string;
 }
 
 /** Lotwise cannot start as set up; the message says what is wrong and what to do. */
@@ -387,6 +391,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       outboxIntervalSeconds: values.OUTBOX_INTERVAL_SECONDS,
       outboxMaxAttempts: values.OUTBOX_MAX_ATTEMPTS,
     },
+    currency: values.CURRENCY,
     text: {
       locale: values.TEXT_LOCALE,
       timeZone: values.TEXT_TIME_ZONE ?? Intl.DateTimeFormat().resolvedOptions().timeZone,

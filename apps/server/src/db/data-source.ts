@@ -21,6 +21,14 @@ import { RunEntity } from '../modules/runs/run.entity';
 import { ImportEntity } from '../modules/imports/import.entity';
 import { StocktakeEntity } from '../modules/stock/stocktake.entity';
 import { UserEntity } from '../modules/users/user.entity';
+import { SupplierEntity } from '../modules/suppliers/supplier.entity';
+import { CatalogItemEntity } from '../modules/suppliers/catalog-item.entity';
+import { PurchaseRequestEntity } from '../modules/requests/purchase-request.entity';
+import { OrderEntity } from '../modules/orders/order.entity';
+import { OrderLineEntity } from '../modules/orders/order-line.entity';
+import { OrderShareEntity } from '../modules/orders/order-share.entity';
+import { PaymentEntity } from '../modules/payments/payment.entity';
+import { PaymentEventEntity } from '../modules/payments/payment-event.entity';
 import { Initial1796160000000 } from './migrations/1796160000000-initial';
 import { Stock1796250000000 } from './migrations/1796250000000-stock';
 import { Preparations1796500000000 } from './migrations/1796500000000-preparations';
@@ -29,6 +37,7 @@ import { Alerts1796420000000 } from './migrations/1796420000000-alerts';
 import { ExactQuantities1796600000000 } from './migrations/1796600000000-exact-quantities';
 import { SessionVersion1796650000000 } from './migrations/1796650000000-session-version';
 import { OutboxLeases1796660000000 } from './migrations/1796660000000-outbox-leases';
+import { Purchasing1796700000000 } from './migrations/1796700000000-purchasing';
 import { ChemicalMeasures1796630000000 } from './migrations/1796630000000-chemical-measures';
 import { RunCrudeYieldFlag1796620000000 } from './migrations/1796620000000-run-crude-yield-flag';
 
@@ -51,6 +60,14 @@ export const entities = [
   OutboxMessageEntity,
   AlertPreferenceEntity,
   ImportEntity,
+  SupplierEntity,
+  CatalogItemEntity,
+  PurchaseRequestEntity,
+  OrderEntity,
+  OrderLineEntity,
+  OrderShareEntity,
+  PaymentEntity,
+  PaymentEventEntity,
 ];
 
 /** In order; listed by hand so tsx, vitest and the TypeORM CLI all load the same classes. */
@@ -65,6 +82,7 @@ export const migrations = [
   ChemicalMeasures1796630000000,
   SessionVersion1796650000000,
   OutboxLeases1796660000000,
+  Purchasing1796700000000,
 ];
 
 /** The database file and the WAL and shared-memory files SQLite keeps beside it. */

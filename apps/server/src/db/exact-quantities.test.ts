@@ -26,9 +26,11 @@ describe('exact quantities migration', () => {
     try {
       await dataSource.runMigrations({ transaction: 'all' });
       // Back to the schema just before the exact-quantities migration, whatever came after it.
-      const later = dataSource.migrations.length - dataSource.migrations.findIndex(
-        (migration) => migration.name === 'ExactQuantities1796600000000',
-      );
+      const later =
+        dataSource.migrations.length -
+        dataSource.migrations.findIndex(
+          (migration) => migration.name === 'ExactQuantities1796600000000',
+        );
       for (let undo = 0; undo < later; undo += 1) {
         await dataSource.undoLastMigration({ transaction: 'all' });
       }

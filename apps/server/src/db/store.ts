@@ -7,6 +7,7 @@ import { importsRepository } from '../modules/imports/imports.repository';
 import { containersRepository } from '../modules/containers/containers.repository';
 import { locationsRepository } from '../modules/locations/locations.repository';
 import { lotsRepository } from '../modules/lots/lots.repository';
+import { ordersRepository } from '../modules/orders/orders.repository';
 import { plansRepository } from '../modules/plans/plans.repository';
 import { proceduresRepository } from '../modules/procedures/procedures.repository';
 import { runsRepository } from '../modules/runs/runs.repository';
@@ -29,6 +30,7 @@ function repositoriesFor(manager: EntityManager) {
     plans: plansRepository(manager),
     runs: runsRepository(manager),
     alerts: alertsRepository(manager),
+    orders: ordersRepository(manager),
   };
 }
 export type Repositories = ReturnType<typeof repositoriesFor>;

@@ -1,5 +1,6 @@
 import type { ContainerStatus, StockUnit } from '@lotwise/shared';
 import { EntitySchema } from 'typeorm';
+import { foreignKey } from '../../db/entity-relations';
 import { microQuantity } from '../../db/quantities';
 
 /**
@@ -25,12 +26,15 @@ export interface ContainerRow {
   expiresOn: string | null;
   peroxideDueOn: string | null;
   notes: string;
+  /** The member a container belongs to (their portion of a shared order); null: the lab's. */
+  ownerId?: number | null;
   createdAt: string;
   updatedAt: string;
   /** Declared so the foreign keys are part of the mapping; never loaded. */
   lot?: unknown;
   chemical?: unknown;
   location?: unknown;
+  owner?: unknown;
 }
 
 export const ContainerEntity = new EntitySchema<ContainerRow>({
@@ -54,6 +58,7 @@ export const ContainerEntity = new EntitySchema<ContainerRow>({
     expiresOn: { name: 'expires_on', type: 'varchar', length: 10, nullable: true },
     peroxideDueOn: { name: 'peroxide_due_on', type: 'varchar', length: 10, nullable: true },
     notes: { type: 'text' },
+    ownerId: { name: 'owner_id', type: 'integer', nullable: true },
     createdAt: { name: 'created_at', type: 'varchar', length: 24 },
     updatedAt: { name: 'updated_at', type: 'varchar', length: 24 },
   },
@@ -76,8 +81,10 @@ export const ContainerEntity = new EntitySchema<ContainerRow>({
       joinColumn: { name: 'location_id', foreignKeyConstraintName: 'containers_location_fk' },
       onDelete: 'RESTRICT',
     },
+    owner: foreignKey('User', 'owner_id', 'containers_owner_fk', 'SET NULL', true),
   },
   indices: [
+    { name: 'containers_owner_idx', columns: ['ownerId'] },
     { name: 'containers_label_code_unique', columns: ['labelCode'], unique: true },
     { name: 'containers_label_number_unique', columns: ['labelNumber'], unique: true },
     { name: 'containers_chemical_status_idx', columns: ['chemicalId', 'status'] },

@@ -16,7 +16,7 @@ import { containsPattern } from '../../db/sql';
 import { ContainerEntity, type ContainerRow } from './container.entity';
 import { LedgerEntryEntity, type LedgerEntryRow } from './ledger-entry.entity';
 
-export type ContainerValues = Omit<ContainerRow, 'id' | 'lot' | 'chemical' | 'location'>;
+export type ContainerValues = Omit<ContainerRow, 'id' | 'lot' | 'chemical' | 'location' | 'owner'>;
 export type LedgerEntryValues = Omit<LedgerEntryRow, 'id' | 'container' | 'user'>;
 
 /** A container joined with its chemical, lot and place: what the service presents. */
