@@ -33,6 +33,10 @@ import { lotsService } from './modules/lots/lots.service';
 import { maintenanceRoutes } from './modules/maintenance/maintenance.routes';
 import { planRoutes } from './modules/plans/plans.routes';
 import { plansService } from './modules/plans/plans.service';
+import { reorderRoutes } from './modules/reorder/reorder.routes';
+import { reorderService } from './modules/reorder/reorder.service';
+import { requestRoutes } from './modules/requests/requests.routes';
+import { requestsService } from './modules/requests/requests.service';
 import { procedureRoutes } from './modules/procedures/procedures.routes';
 import { proceduresService } from './modules/procedures/procedures.service';
 import { runRoutes } from './modules/runs/runs.routes';
@@ -131,6 +135,8 @@ export function createApp({
     ...exportRoutes(exportsService(store)),
     ...uploadRoutes(uploadsService(store, files), files),
     ...alertRoutes(alerts),
+    ...reorderRoutes(reorderService(store, config)),
+    ...requestRoutes(requestsService(store, config)),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;

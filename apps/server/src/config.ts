@@ -147,6 +147,8 @@ const envSchema = z.object({
     .string()
     .refine(isTimeZone, 'must be a time zone such as UTC or Europe/Berlin')
     .optional(),
+  /** Weeks of draws (by hand and by runs) a reorder suggestion's use rate is counted over. */
+  REORDER_WINDOW_WEEKS: wholeNumber(1, 520).default(8),
 });
 
 const proxyRanges = new Set(['loopback', 'linklocal', 'uniquelocal']);
@@ -244,6 +246,8 @@ export interface Config {
   uploadMaxMb: number;
   uploadDir: string;
   logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
+  /** Reorder suggestions: the weeks of draws the use rate is counted over. */
+  reorder: { windowWeeks: number };
   mail: MailConfig;
   alerts: AlertConfig;
   text: TextConfig;
@@ -382,6 +386,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       ? resolveFromRoot(values.UPLOAD_DIR)
       : path.join(path.dirname(databasePath), 'uploads'),
     logLevel: values.LOG_LEVEL,
+    reorder: { windowWeeks: values.REORDER_WINDOW_WEEKS },
     mail: { smtp: smtpSettings(values, values.NODE_ENV === 'development'), from: values.MAIL_FROM },
     alerts: {
       intervalSeconds: values.ALERT_INTERVAL_SECONDS,

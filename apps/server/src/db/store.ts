@@ -9,6 +9,8 @@ import { locationsRepository } from '../modules/locations/locations.repository';
 import { lotsRepository } from '../modules/lots/lots.repository';
 import { ordersRepository } from '../modules/orders/orders.repository';
 import { plansRepository } from '../modules/plans/plans.repository';
+import { reorderRepository } from '../modules/reorder/reorder.repository';
+import { requestsRepository } from '../modules/requests/requests.repository';
 import { proceduresRepository } from '../modules/procedures/procedures.repository';
 import { runsRepository } from '../modules/runs/runs.repository';
 import { segregationRepository } from '../modules/segregation/segregation.repository';
@@ -31,6 +33,8 @@ function repositoriesFor(manager: EntityManager) {
     runs: runsRepository(manager),
     alerts: alertsRepository(manager),
     orders: ordersRepository(manager),
+    reorder: reorderRepository(manager),
+    requests: requestsRepository(manager),
   };
 }
 export type Repositories = ReturnType<typeof repositoriesFor>;
