@@ -3,6 +3,7 @@ import { amountSchema } from './amounts';
 import { physicalStateSchema, stockUnitSchema } from './chemicals';
 import { ghsCodeSchema, storageGroupSchema } from './hazards';
 import { queryFlagSchema } from './list';
+import { currencyDigits } from './money';
 
 /** A chemical as the purchasing pages show it: enough to name it and show its hazards. */
 export const purchasingChemicalSchema = z.object({
@@ -170,3 +171,31 @@ export const shortfallDraftSchema = z
   })
   .strict();
 export type ShortfallDraft = z.infer<typeof shortfallDraftSchema>;
+
+const perUnitFormats = new Map<string, Intl.NumberFormat>();
+
+/**
+ * A price per g (or mL) from a decimal number of minor units, in the reader's locale:
+ * `formatPricePerUnit(10.4, 'EUR', 'g', 'en-GB')` = "€0.104/g". Two more decimals than the
+ * currency has, since prices per gram are small; for display only (totals stay integers).
+ */
+export function formatPricePerUnit(
+  minorPerUnit: number,
+  currency: string,
+  unit: string,
+  locale?: string,
+): string {
+  const digits = currencyDigits(currency);
+  const key = `${locale ?? ''}|${currency}`;
+  let format = perUnitFormats.get(key);
+  if (!format) {
+    format = new Intl.NumberFormat(locale, {
+      style: 'currency',
+      currency,
+      minimumFractionDigits: digits,
+      maximumFractionDigits: digits + 2,
+    });
+    perUnitFormats.set(key, format);
+  }
+  return `${format.format(minorPerUnit / 10 ** digits)}/${unit}`;
+}

@@ -178,6 +178,19 @@ export const routes: RouteObject[] = [
           // The runs list moved under Preparations; old links still arrive.
           { path: '/runs', element: <Navigate to={paths.runs} replace /> },
           {
+            path: paths.restock,
+            lazy: async () => {
+              const { RestockPage } = await import('../features/reorder/pages/restock-page');
+              return {
+                element: (
+                  <RequirePermission permission="orders.read">
+                    <RestockPage />
+                  </RequirePermission>
+                ),
+              };
+            },
+          },
+          {
             path: paths.orders,
             element: (
               <RequirePermission permission="orders.read">

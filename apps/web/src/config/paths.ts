@@ -42,6 +42,8 @@ export const paths = {
     `/preparations/usage/${chemicalId}`,
   lotProvenance: (id: number | string = ':id') => `/preparations/lots/${id}/provenance`,
   orders: '/orders',
+  /** Reorder suggestions and members' requests. */
+  restock: '/orders/restock',
   alerts: '/alerts',
   alertPreferences: '/alerts/preferences',
   adminOutbox: '/admin/outbox',

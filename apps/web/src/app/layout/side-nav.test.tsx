@@ -28,6 +28,7 @@ describe('SideNav', () => {
       'Preparations',
       'Runs',
       'Orders',
+      'Restock',
       'Alerts',
     ]);
   });
@@ -39,6 +40,7 @@ describe('SideNav', () => {
       'Preparations',
       'Runs',
       'Orders',
+      'Restock',
       'Alerts',
       'People',
       'Outbox',
