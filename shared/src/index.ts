@@ -30,3 +30,5 @@ export * from './purchasing';
 export * from './payments';
 export * from './suppliers';
 export * from './orders';
+export * from './reorder';
+export * from './requests';

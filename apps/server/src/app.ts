@@ -37,6 +37,10 @@ import { orderRoutes } from './modules/orders/orders.routes';
 import { ordersService, type OrderCancellation } from './modules/orders/orders.service';
 import { planRoutes } from './modules/plans/plans.routes';
 import { plansService } from './modules/plans/plans.service';
+import { reorderRoutes } from './modules/reorder/reorder.routes';
+import { reorderService } from './modules/reorder/reorder.service';
+import { requestRoutes } from './modules/requests/requests.routes';
+import { requestsService } from './modules/requests/requests.service';
 import { procedureRoutes } from './modules/procedures/procedures.routes';
 import { proceduresService } from './modules/procedures/procedures.service';
 import { runRoutes } from './modules/runs/runs.routes';
@@ -149,6 +153,8 @@ export function createApp({
     ...paymentRoutes(paymentsService(store, config, { alerts, logger })),
     ...supplierRoutes(suppliersService(store, config.currency)),
     ...orderRoutes(ordersService(store, config, { alerts, cancellation: orderCancellation })),
+    ...reorderRoutes(reorderService(store, config)),
+    ...requestRoutes(requestsService(store, config)),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;

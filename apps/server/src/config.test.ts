@@ -181,7 +181,12 @@ describe('the development mail inbox', () => {
   it('when NODE_ENV is production (or test), then the dev inbox is off and e-mails wait in the outbox', () => {
     const { env } = tempEnv();
     for (const nodeEnv of ['production', 'test']) {
-      const config = loadConfig({ ...env, NODE_ENV: nodeEnv, DEV_MAIL: 'true', DATABASE_INIT: 'true' });
+      const config = loadConfig({
+        ...env,
+        NODE_ENV: nodeEnv,
+        DEV_MAIL: 'true',
+        DATABASE_INIT: 'true',
+      });
       expect(config.mail.smtp).toEqual({ kind: 'none' });
       expect(config.env).toBe(nodeEnv);
     }
@@ -190,6 +195,17 @@ describe('the development mail inbox', () => {
   it('when DEV_MAIL is false, then there is no dev inbox in development either', () => {
     const { env } = tempEnv();
     expect(loadConfig({ ...env, DEV_MAIL: 'false' }).mail.smtp).toEqual({ kind: 'none' });
+  });
+
+  it('when REORDER_WINDOW_WEEKS is set, then suggestions count use over that many weeks', () => {
+    const { env } = tempEnv();
+    expect(loadConfig(env).reorder).toEqual({ windowWeeks: 8 });
+    expect(loadConfig({ ...env, REORDER_WINDOW_WEEKS: '12' }).reorder).toEqual({ windowWeeks: 12 });
+    for (const value of ['0', 'eight', '2.5']) {
+      expect(() => loadConfig({ ...env, REORDER_WINDOW_WEEKS: value })).toThrow(
+        /^Invalid configuration: REORDER_WINDOW_WEEKS /,
+      );
+    }
   });
 });
 

@@ -160,6 +160,8 @@ const envSchema = z.object({
     .string()
     .refine(isTimeZone, 'must be a time zone such as UTC or Europe/Berlin')
     .optional(),
+  /** Weeks of draws (by hand and by runs) a reorder suggestion's use rate is counted over. */
+  REORDER_WINDOW_WEEKS: wholeNumber(1, 520).default(8),
 });
 
 const proxyRanges = new Set(['loopback', 'linklocal', 'uniquelocal']);
@@ -267,6 +269,8 @@ export interface Config {
   uploadMaxMb: number;
   uploadDir: string;
   logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
+  /** Reorder suggestions: the weeks of draws the use rate is counted over. */
+  reorder: { windowWeeks: number };
   mail: MailConfig;
   /** Card payments; null when production has no provider keys (shares can still be paid in cash). */
   payments: PaymentsConfig | null;
@@ -460,6 +464,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       ? resolveFromRoot(values.UPLOAD_DIR)
       : path.join(path.dirname(databasePath), 'uploads'),
     logLevel: values.LOG_LEVEL,
+    reorder: { windowWeeks: values.REORDER_WINDOW_WEEKS },
     mail: { smtp: smtpSettings(values, values.NODE_ENV === 'development'), from: values.MAIL_FROM },
     payments: paymentsSettings(values),
     alerts: {

@@ -18,3 +18,5 @@ export * from './segregation';
 export * from './peroxide';
 export * from './stock';
 export * from './weighing';
+export * from './reorder';
+export * from './packs';

@@ -10,6 +10,8 @@ import { lotsRepository } from '../modules/lots/lots.repository';
 import { ordersRepository } from '../modules/orders/orders.repository';
 import { paymentsRepository } from '../modules/payments/payments.repository';
 import { plansRepository } from '../modules/plans/plans.repository';
+import { reorderRepository } from '../modules/reorder/reorder.repository';
+import { requestsRepository } from '../modules/requests/requests.repository';
 import { proceduresRepository } from '../modules/procedures/procedures.repository';
 import { runsRepository } from '../modules/runs/runs.repository';
 import { segregationRepository } from '../modules/segregation/segregation.repository';
@@ -35,6 +37,8 @@ function repositoriesFor(manager: EntityManager) {
     orders: ordersRepository(manager),
     payments: paymentsRepository(manager),
     suppliers: suppliersRepository(manager),
+    reorder: reorderRepository(manager),
+    requests: requestsRepository(manager),
   };
 }
 export type Repositories = ReturnType<typeof repositoriesFor>;

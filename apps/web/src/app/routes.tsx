@@ -179,6 +179,27 @@ export const routes: RouteObject[] = [
           { path: '/runs', element: <Navigate to={paths.runs} replace /> },
           ...orderRoutes,
           {
+            path: paths.restock,
+            lazy: async () => {
+              const { RestockPage } = await import('../features/reorder/pages/restock-page');
+              return {
+                element: (
+                  <RequirePermission permission="orders.read">
+                    <RestockPage />
+                  </RequirePermission>
+                ),
+              };
+            },
+          },
+          {
+            path: paths.orders,
+            element: (
+              <RequirePermission permission="orders.read">
+                <ComingSoonPage capability={comingCapabilities.orders} />
+              </RequirePermission>
+            ),
+          },
+          {
             path: paths.alerts,
             lazy: async () => {
               const { AlertsPage } = await import('../features/alerts/pages/alerts-page');

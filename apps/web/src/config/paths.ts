@@ -45,6 +45,8 @@ export const paths = {
   orderNew: '/orders/new',
   /** `?paid=<shareId>` or `?cancelled=<shareId>` on return from the checkout page. */
   order: (id: number | string = ':id') => `/orders/${id}`,
+  /** Reorder suggestions and members' requests. */
+  restock: '/orders/restock',
   alerts: '/alerts',
   alertPreferences: '/alerts/preferences',
   adminOutbox: '/admin/outbox',

@@ -7,6 +7,7 @@ import {
   FlaskRound,
   Mail,
   Package,
+  PackagePlus,
   ShoppingCart,
   Users,
   type LucideIcon,
@@ -40,6 +41,7 @@ export const navItems: readonly NavItem[] = [
     icon: ShoppingCart,
     section: 'purchasing',
   },
+  { label: 'Restock', to: paths.restock, permission: 'orders.read', icon: PackagePlus },
   { label: 'Alerts', to: paths.alerts, permission: 'alerts.read', icon: Bell },
   {
     label: 'People',

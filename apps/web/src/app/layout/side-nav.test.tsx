@@ -27,6 +27,8 @@ describe('SideNav', () => {
       'Stock',
       'Preparations',
       'Runs',
+      'Orders',
+      'Restock',
       'Alerts',
       'Orders',
     ]);
@@ -39,6 +41,8 @@ describe('SideNav', () => {
       'Stock',
       'Preparations',
       'Runs',
+      'Orders',
+      'Restock',
       'Alerts',
       'Orders',
       'People',

@@ -1,6 +1,7 @@
 import { Link } from 'react-router';
-import { FlaskConical, ShoppingCart } from 'lucide-react';
+import { FlaskConical } from 'lucide-react';
 import type { StockCheck, StockCheckLine, StockSuggestion } from '@lotwise/shared';
+import { ReorderShortfall } from '../../../components/purchasing/reorder-shortfall';
 import { buttonClasses } from '../../../components/ui/button';
 import { withQuery } from '../../../lib/api-client';
 import { formatAmount, formatDate, formatPercent } from '../../../lib/format';
@@ -13,18 +14,13 @@ function Suggestion({ suggestion, line }: { suggestion: StockSuggestion; line: S
   if (suggestion.kind === 'reorder') {
     return (
       <li className="flex flex-wrap items-center gap-2" data-testid="reorder-suggestion">
-        <button
-          type="button"
-          disabled
-          className={buttonClasses('secondary', 'sm')}
-          aria-describedby={`reorder-note-${line.index}`}
-        >
-          <ShoppingCart aria-hidden="true" className="size-4" />
-          Reorder <StockAmount value={suggestion.shortfall} unit={suggestion.unit} />
-        </button>
-        <span id={`reorder-note-${line.index}`} className="text-xs text-ink-600">
-          Ordering arrives with purchasing.
-        </span>
+        <ReorderShortfall
+          chemicalId={suggestion.chemicalId}
+          chemicalName={line.chemical.name}
+          shortfall={suggestion.shortfall}
+          unit={suggestion.unit}
+          note="Short for a planned preparation"
+        />
         <Link
           to={paths.stockChemical(suggestion.chemicalId)}
           className="text-xs text-accent-700 underline-offset-2 hover:underline"

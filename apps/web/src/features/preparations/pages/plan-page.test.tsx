@@ -1,4 +1,4 @@
-import { screen, within } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { safetyDeferral } from '@lotwise/shared';
@@ -114,14 +114,58 @@ describe('Plan page', () => {
       '/preparations/plans/new?procedureId=3&factor=0.13',
     );
 
-    const reorder = within(row).getByTestId('reorder-suggestion');
-    expect(within(reorder).getByRole('button', { name: /Reorder/ })).toBeDisabled();
-    expect(reorder).toHaveTextContent('Ordering arrives with purchasing.');
+    expect(within(row).getByRole('button', { name: 'Reorder 30.50 mL' })).toBeEnabled();
 
     // Hazards, cautions and the deferral sit above the stock check.
     expect(screen.getByText(safetyDeferral)).toBeInTheDocument();
     expect(screen.getByText('Keep the mixture below 30 °C.')).toBeInTheDocument();
     expect(screen.getByText('Harmful if swallowed')).toBeInTheDocument();
+  });
+
+  it('when the technician reorders a shortfall, then an order line is drafted for it and the page links to the order', async () => {
+    const { requests } = mockFetch({
+      'GET /api/auth/me': { body: { user: technician } },
+      'GET /api/plans/2': { body: plan },
+      'POST /api/reorder-suggestions/shortfall': {
+        status: 201,
+        body: {
+          orderId: 14,
+          supplier: { id: 3, name: 'Harbour Reagents (fictional)' },
+          created: false,
+          lineCount: 1,
+        },
+      },
+    });
+    renderApp('/preparations/plans/2');
+    const row = await screen.findByTestId('stock-line-1', {}, { timeout: 5000 });
+    await userEvent.click(within(row).getByRole('button', { name: 'Reorder 30.50 mL' }));
+    const link = await within(row).findByRole('link', {
+      name: 'order #14 with Harbour Reagents (fictional)',
+    });
+    expect(link).toHaveAttribute('href', '/orders/14');
+    expect(within(row).getByTestId('reorder-suggestion')).toHaveTextContent('Added to order #14');
+    expect(requests.find((r) => r.method === 'POST')?.body).toEqual({
+      chemicalId: 27,
+      quantity: 30.5,
+      unit: 'mL',
+    });
+  });
+
+  it('when a member sees a shortfall, then they may request it instead of ordering', async () => {
+    const { requests } = mockFetch({
+      'GET /api/auth/me': { body: { user: makeUser({ role: 'member' }) } },
+      'GET /api/plans/2': { body: plan },
+      'POST /api/requests': { status: 201, body: {} },
+    });
+    renderApp('/preparations/plans/2');
+    const row = await screen.findByTestId('stock-line-1', {}, { timeout: 5000 });
+    expect(within(row).queryByRole('button', { name: /^Reorder/ })).not.toBeInTheDocument();
+    await userEvent.click(within(row).getByRole('button', { name: 'Request 30.50 mL' }));
+    await waitFor(() =>
+      expect(
+        requests.find((r) => r.method === 'POST' && r.url.pathname === '/api/requests'),
+      ).toBeDefined(),
+    );
   });
 
   it('when another plan took the container first, then the 409 message is shown and nothing is held', async () => {

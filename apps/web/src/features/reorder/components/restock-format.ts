@@ -1,0 +1,9 @@
+import { paths } from '../../../config/paths';
+
+/** Where an order's page is (the orders screens own it). */
+export const orderHref = (orderId: number) => `${paths.orders}/${orderId}`;
+
+/** Whole days, rounded down: "about 41 days" is what is left, never more. */
+export function wholeDays(days: number): number {
+  return Math.floor(days + 1e-9);
+}
