@@ -26,3 +26,5 @@ export * from './runs';
 export * from './format';
 export * from './money';
 export * from './purchasing';
+export * from './receiving';
+export * from './purchases';

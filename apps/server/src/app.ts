@@ -35,6 +35,10 @@ import { planRoutes } from './modules/plans/plans.routes';
 import { plansService } from './modules/plans/plans.service';
 import { procedureRoutes } from './modules/procedures/procedures.routes';
 import { proceduresService } from './modules/procedures/procedures.service';
+import { purchaseRoutes } from './modules/receiving/purchases.routes';
+import { purchasesService } from './modules/receiving/purchases.service';
+import { receivingRoutes } from './modules/receiving/receiving.routes';
+import { receivingService } from './modules/receiving/receiving.service';
 import { runRoutes } from './modules/runs/runs.routes';
 import { runsService } from './modules/runs/runs.service';
 import { segregationRoutes } from './modules/segregation/segregation.routes';
@@ -131,6 +135,9 @@ export function createApp({
     ...exportRoutes(exportsService(store)),
     ...uploadRoutes(uploadsService(store, files), files),
     ...alertRoutes(alerts),
+    // Before the orders routes: `/api/orders/money.csv` must not be read as an order id.
+    ...purchaseRoutes(purchasesService(store, config)),
+    ...receivingRoutes(receivingService(store, alerts, config)),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;

@@ -9,6 +9,7 @@ import { locationsRepository } from '../modules/locations/locations.repository';
 import { lotsRepository } from '../modules/lots/lots.repository';
 import { ordersRepository } from '../modules/orders/orders.repository';
 import { plansRepository } from '../modules/plans/plans.repository';
+import { receivingRepository } from '../modules/receiving/receiving.repository';
 import { proceduresRepository } from '../modules/procedures/procedures.repository';
 import { runsRepository } from '../modules/runs/runs.repository';
 import { segregationRepository } from '../modules/segregation/segregation.repository';
@@ -31,6 +32,7 @@ function repositoriesFor(manager: EntityManager) {
     runs: runsRepository(manager),
     alerts: alertsRepository(manager),
     orders: ordersRepository(manager),
+    receiving: receivingRepository(manager),
   };
 }
 export type Repositories = ReturnType<typeof repositoriesFor>;
