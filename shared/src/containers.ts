@@ -229,6 +229,11 @@ export const containerSchema = z.object({
     expiresOn: z.string().nullable(),
   }),
   location: z.object({ id: z.number().int(), name: z.string(), path: z.string() }),
+  /**
+   * The member it belongs to (their portion of a shared order); null: the lab's. Always sent
+   * by the server.
+   */
+  owner: z.object({ id: z.number().int(), displayName: z.string() }).nullable().optional(),
   /** What plans hold of it now (reservations in force), oldest first. */
   holds: z.array(containerHoldSchema),
   createdAt: z.string(),

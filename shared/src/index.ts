@@ -32,3 +32,5 @@ export * from './suppliers';
 export * from './orders';
 export * from './reorder';
 export * from './requests';
+export * from './receiving';
+export * from './purchases';

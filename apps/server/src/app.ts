@@ -43,6 +43,10 @@ import { requestRoutes } from './modules/requests/requests.routes';
 import { requestsService } from './modules/requests/requests.service';
 import { procedureRoutes } from './modules/procedures/procedures.routes';
 import { proceduresService } from './modules/procedures/procedures.service';
+import { purchaseRoutes } from './modules/receiving/purchases.routes';
+import { purchasesService } from './modules/receiving/purchases.service';
+import { receivingRoutes } from './modules/receiving/receiving.routes';
+import { receivingService } from './modules/receiving/receiving.service';
 import { runRoutes } from './modules/runs/runs.routes';
 import { runsService } from './modules/runs/runs.service';
 import { segregationRoutes } from './modules/segregation/segregation.routes';
@@ -155,6 +159,9 @@ export function createApp({
     ...orderRoutes(ordersService(store, config, { alerts, cancellation: orderCancellation })),
     ...reorderRoutes(reorderService(store, config)),
     ...requestRoutes(requestsService(store, config)),
+    // Before the orders routes: `/api/orders/money.csv` must not be read as an order id.
+    ...purchaseRoutes(purchasesService(store, config)),
+    ...receivingRoutes(receivingService(store, alerts, config)),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;

@@ -136,6 +136,8 @@ const envSchema = z.object({
   OUTBOX_INTERVAL_SECONDS: wholeNumber(0, 86400).default(10),
   /** Send attempts before a message is marked failed (an admin can still resend it). */
   OUTBOX_MAX_ATTEMPTS: wholeNumber(1, 100).default(10),
+  /** The lab's or club's name as receipts and e-mails about shared orders print it. */
+  LAB_NAME: z.string().trim().min(1, 'must not be empty').max(120).default('Lotwise lab'),
   /** The lab's one currency (ISO 4217): every price, fee and payment is in it, in minor units. */
   CURRENCY: currencyCodeSchema.default('EUR'),
   /** Language of dates in text the server writes (e-mails, alerts, messages), e.g. en-GB, en-US, de-DE. */
@@ -278,6 +280,8 @@ export interface Config {
   text: TextConfig;
   /** ISO 4217 code of the lab's currency (CURRENCY). */
   currency: string;
+  /** The lab's name on receipts (LAB_NAME). */
+  labName: string;
 }
 
 /** Lotwise cannot start as set up; the message says what is wrong and what to do. */
@@ -476,6 +480,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       outboxMaxAttempts: values.OUTBOX_MAX_ATTEMPTS,
     },
     currency: values.CURRENCY,
+    labName: values.LAB_NAME,
     text: {
       locale: values.TEXT_LOCALE,
       timeZone: values.TEXT_TIME_ZONE ?? Intl.DateTimeFormat().resolvedOptions().timeZone,

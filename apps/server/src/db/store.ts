@@ -12,6 +12,7 @@ import { paymentsRepository } from '../modules/payments/payments.repository';
 import { plansRepository } from '../modules/plans/plans.repository';
 import { reorderRepository } from '../modules/reorder/reorder.repository';
 import { requestsRepository } from '../modules/requests/requests.repository';
+import { receivingRepository } from '../modules/receiving/receiving.repository';
 import { proceduresRepository } from '../modules/procedures/procedures.repository';
 import { runsRepository } from '../modules/runs/runs.repository';
 import { segregationRepository } from '../modules/segregation/segregation.repository';
@@ -39,6 +40,7 @@ function repositoriesFor(manager: EntityManager) {
     suppliers: suppliersRepository(manager),
     reorder: reorderRepository(manager),
     requests: requestsRepository(manager),
+    receiving: receivingRepository(manager),
   };
 }
 export type Repositories = ReturnType<typeof repositoriesFor>;

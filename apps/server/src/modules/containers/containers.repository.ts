@@ -43,6 +43,7 @@ export interface ContainerView extends ContainerRow {
   lotExpiresOn: string | null;
   locationName: string;
   locationPath: string;
+  ownerName: string | null;
 }
 
 const viewColumns: [string, keyof ContainerView][] = [
@@ -86,6 +87,8 @@ const viewColumns: [string, keyof ContainerView][] = [
   ['l.expires_on', 'lotExpiresOn'],
   ['loc.name', 'locationName'],
   ['loc.path', 'locationPath'],
+  ['c.owner_id', 'ownerId'],
+  ['own.display_name', 'ownerName'],
 ];
 
 const jsonColumns = new Set<keyof ContainerView>([
@@ -102,6 +105,7 @@ function toView(raw: Record<string, unknown>): ContainerView {
     view[key] = typeof text === 'string' && text ? JSON.parse(text) : [];
   }
   for (const key of numberColumns) view[key] = Number(raw[key]);
+  view.ownerId = raw.ownerId === null || raw.ownerId === undefined ? null : Number(raw.ownerId);
   view.quantity = fromMicro(raw.quantity);
   return view as unknown as ContainerView;
 }
@@ -186,7 +190,8 @@ export function containersRepository(manager: EntityManager) {
       .from('containers', 'c')
       .innerJoin('chemicals', 'ch', 'ch.id = c.chemical_id')
       .innerJoin('lots', 'l', 'l.id = c.lot_id')
-      .innerJoin('locations', 'loc', 'loc.id = c.location_id');
+      .innerJoin('locations', 'loc', 'loc.id = c.location_id')
+      .leftJoin('users', 'own', 'own.id = c.owner_id');
     qb.select(viewColumns[0]![0], viewColumns[0]![1]);
     for (const [column, alias] of viewColumns.slice(1)) qb.addSelect(column, alias);
     return qb;

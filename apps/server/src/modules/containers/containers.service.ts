@@ -202,6 +202,10 @@ export function presentContainer(
       expiresOn: view.lotExpiresOn,
     },
     location: { id: view.locationId, name: view.locationName, path: view.locationPath },
+    owner:
+      view.ownerId === null || view.ownerId === undefined
+        ? null
+        : { id: view.ownerId, displayName: view.ownerName ?? '' },
     holds,
     createdAt: view.createdAt,
     updatedAt: view.updatedAt,
@@ -223,6 +227,8 @@ interface Movement {
   stocktakeId?: number | null;
   /** The run a draw or a product belongs to. */
   runId?: number | null;
+  /** The shared order a receipt belongs to. */
+  orderId?: number | null;
   /** When it happened, if not now (the demo seed's history). */
   at?: string;
 }
@@ -272,7 +278,7 @@ export async function appendEntry(
     note: movement.note,
     userId: actor?.id ?? null,
     runId: movement.runId ?? null,
-    orderId: null,
+    orderId: movement.orderId ?? null,
     stocktakeId: movement.stocktakeId ?? null,
     fromLocationId: movement.fromLocationId ?? null,
     toLocationId: movement.toLocationId ?? null,
@@ -303,6 +309,69 @@ export function statusAfter(
   return { status: current, openedOn };
 }
 
+/** The peroxide test date of a container of `chemical` opened on `openedOn` (null: not due). */
+export async function peroxideDueFor(
+  repos: Repositories,
+  container: Pick<ContainerRow, 'lotId' | 'openedOn'>,
+  chemical: ChemicalRow,
+) {
+  if (!chemical.peroxideClass) return null;
+  const lot = await repos.lots.findRow(container.lotId);
+  return (
+    peroxideDueOf(chemical.peroxideClass, container.openedOn, lot!.receivedOn, lot!.expiresOn)
+      ?.dueOn ?? null
+  );
+}
+
+/**
+ * A new container with the next label code and no quantity yet: its first ledger entry
+ * (`received`, or `split` when poured from another) sets the balance. Used by receiving too.
+ */
+export async function createContainer(
+  repos: Repositories,
+  values: {
+    lotId: number;
+    chemical: ChemicalRow;
+    location: LocationRow;
+    quantity: number;
+    status: ContainerStatus;
+    openedOn: string | null;
+    tareMass: number | null;
+    capacity: number | null;
+    capacityUnit: string | null;
+    notes: string;
+    expiresOn: string | null;
+    /** The member it belongs to; null or left out: the lab's. */
+    ownerId?: number | null;
+  },
+): Promise<ContainerRow> {
+  const labelNumber = await repos.containers.nextLabelNumber();
+  const now = nowIso();
+  const row: Omit<ContainerRow, 'id'> = {
+    labelCode: formatLabelCode(labelNumber),
+    labelNumber,
+    lotId: values.lotId,
+    chemicalId: values.chemical.id,
+    locationId: values.location.id,
+    status: values.status,
+    quantity: 0,
+    unit: values.chemical.stockUnit,
+    tareMass: values.tareMass,
+    capacity: values.capacity,
+    capacityUnit: values.capacityUnit,
+    openedOn: values.openedOn,
+    expiresOn: values.expiresOn,
+    peroxideDueOn: null,
+    notes: values.notes,
+    ownerId: values.ownerId ?? null,
+    createdAt: now,
+    updatedAt: now,
+  };
+  row.peroxideDueOn = await peroxideDueFor(repos, row, values.chemical);
+  const id = await repos.containers.insert(row);
+  return { ...row, id };
+}
+
 export function containersService(store: Store) {
   async function chemicalOf(repos: Repositories, chemicalId: number): Promise<ChemicalRow> {
     const chemical = await repos.chemicals.findRow(chemicalId);
@@ -322,19 +391,6 @@ export function containersService(store: Store) {
         `${container.labelCode} was disposed of; nothing more can be recorded on it.`,
       );
     }
-  }
-
-  async function peroxideDueFor(
-    repos: Repositories,
-    container: Pick<ContainerRow, 'lotId' | 'openedOn'>,
-    chemical: ChemicalRow,
-  ) {
-    if (!chemical.peroxideClass) return null;
-    const lot = await repos.lots.findRow(container.lotId);
-    return (
-      peroxideDueOf(chemical.peroxideClass, container.openedOn, lot!.receivedOn, lot!.expiresOn)
-        ?.dueOn ?? null
-    );
   }
 
   async function detail(repos: Repositories, id: number): Promise<ContainerDetail> {
@@ -373,48 +429,6 @@ export function containersService(store: Store) {
       ? newContainer.warnings
       : container.warnings;
     return { container, entries, warnings, ...(newContainer ? { newContainer } : {}) };
-  }
-
-  async function createContainer(
-    repos: Repositories,
-    values: {
-      lotId: number;
-      chemical: ChemicalRow;
-      location: LocationRow;
-      quantity: number;
-      status: ContainerStatus;
-      openedOn: string | null;
-      tareMass: number | null;
-      capacity: number | null;
-      capacityUnit: string | null;
-      notes: string;
-      expiresOn: string | null;
-    },
-  ): Promise<ContainerRow> {
-    const labelNumber = await repos.containers.nextLabelNumber();
-    const now = nowIso();
-    const row: Omit<ContainerRow, 'id'> = {
-      labelCode: formatLabelCode(labelNumber),
-      labelNumber,
-      lotId: values.lotId,
-      chemicalId: values.chemical.id,
-      locationId: values.location.id,
-      status: values.status,
-      quantity: 0,
-      unit: values.chemical.stockUnit,
-      tareMass: values.tareMass,
-      capacity: values.capacity,
-      capacityUnit: values.capacityUnit,
-      openedOn: values.openedOn,
-      expiresOn: values.expiresOn,
-      peroxideDueOn: null,
-      notes: values.notes,
-      createdAt: now,
-      updatedAt: now,
-    };
-    row.peroxideDueOn = await peroxideDueFor(repos, row, values.chemical);
-    const id = await repos.containers.insert(row);
-    return { ...row, id };
   }
 
   return {
