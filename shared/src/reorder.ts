@@ -6,7 +6,7 @@ import { queryFlagSchema } from './list';
 import { currencyDigits } from './money';
 
 /** A chemical as the purchasing pages show it: enough to name it and show its hazards. */
-export const purchasingChemicalSchema = z.object({
+export const restockChemicalSchema = z.object({
   id: z.number().int(),
   name: z.string(),
   casNumber: z.string().nullable(),
@@ -19,7 +19,7 @@ export const purchasingChemicalSchema = z.object({
   /** Orders of a restricted chemical need a manager's approval. */
   restricted: z.boolean(),
 });
-export type PurchasingChemical = z.infer<typeof purchasingChemicalSchema>;
+export type RestockChemical = z.infer<typeof restockChemicalSchema>;
 
 /** How many of one catalogue pack a suggestion buys. */
 export const suggestedPackSchema = z.object({
@@ -63,7 +63,7 @@ export const reorderRules = ['reorder-quantity', 'target-level', 'none'] as cons
 
 /** One chemical with a reorder point: how long its stock lasts, and what to buy. */
 export const reorderSuggestionSchema = z.object({
-  chemical: purchasingChemicalSchema,
+  chemical: restockChemicalSchema,
   unit: stockUnitSchema,
   /** Usable stock (sealed or open, not expired). */
   onHand: z.number(),

@@ -4,7 +4,7 @@ import { stockUnitSchema } from './chemicals';
 import { isoDateSchema } from './dates';
 import { queryFlagSchema } from './list';
 import { requestStatuses } from './purchasing';
-import { purchasingChemicalSchema } from './reorder';
+import { restockChemicalSchema } from './reorder';
 
 /** A request's status as the schemas check it (the statuses live in purchasing.ts). */
 export const requestStatusSchema = z.enum(requestStatuses);
@@ -25,7 +25,7 @@ export type RequestCreateParsed = z.output<typeof requestCreateSchema>;
 
 export const memberRequestSchema = z.object({
   id: z.number().int(),
-  chemical: purchasingChemicalSchema,
+  chemical: restockChemicalSchema,
   requester: z.object({ id: z.number().int(), displayName: z.string() }),
   quantity: z.number(),
   unit: stockUnitSchema,

@@ -13,7 +13,6 @@ const sampleParams: Record<string, string> = {
   token: 'no-such-invitation',
   labelCode: 'LW-99999',
   lineId: '999999',
-  shareId: '999999',
 };
 
 function samplePath(path: string): string {

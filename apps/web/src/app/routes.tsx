@@ -192,14 +192,6 @@ export const routes: RouteObject[] = [
             },
           },
           {
-            path: paths.orders,
-            element: (
-              <RequirePermission permission="orders.read">
-                <ComingSoonPage capability={comingCapabilities.orders} />
-              </RequirePermission>
-            ),
-          },
-          {
             path: paths.alerts,
             lazy: async () => {
               const { AlertsPage } = await import('../features/alerts/pages/alerts-page');

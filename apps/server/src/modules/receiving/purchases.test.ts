@@ -9,7 +9,7 @@ import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { signedIn, stockFactory } from '../../test/factories';
 import { testContext } from '../../test/harness';
-import { makeOrder, recordPayment } from '../../test/purchasing';
+import { makeOrder, recordPayment } from '../../test/orders-in-database';
 
 const app = () => testContext().app;
 let manager = '';

@@ -3,7 +3,7 @@ import type {
   OrderStatus,
   PackUnit,
   PhysicalState,
-  PurchasingChemical,
+  RestockChemical,
   StockUnit,
   StorageGroup,
 } from '@lotwise/shared';
@@ -13,7 +13,7 @@ import { containsPattern } from '../../db/sql';
 import { usableTotalMicroSql } from '../containers/containers.repository';
 
 /** A chemical as purchasing needs it: hazards to show, and what converts its packs. */
-export interface PurchasingChemicalRow extends PurchasingChemical {
+export interface PurchasingChemicalRow extends RestockChemical {
   density: number | null;
   bulkDensity: number | null;
   reorderPoint: number | null;
