@@ -156,11 +156,11 @@ export function createApp({
     ...alertRoutes(alerts),
     ...paymentRoutes(paymentsService(store, config, { alerts, logger })),
     ...supplierRoutes(suppliersService(store, config.currency)),
+    // Before the orders routes: `/api/orders/money.csv` must not be read as an order id.
+    ...purchaseRoutes(purchasesService(store, config)),
     ...orderRoutes(ordersService(store, config, { alerts, cancellation: orderCancellation })),
     ...reorderRoutes(reorderService(store, config)),
     ...requestRoutes(requestsService(store, config)),
-    // Before the orders routes: `/api/orders/money.csv` must not be read as an order id.
-    ...purchaseRoutes(purchasesService(store, config)),
     ...receivingRoutes(receivingService(store, alerts, config)),
   ];
   mountRoutes(app, routes, session.resolve);
