@@ -135,6 +135,7 @@ export function createApp({
   const alerts = alertsService(store, config, { logger, onQueued: onMailQueued });
   // Alert rules run before every transaction that changed the ledger commits.
   store.onLedgerChange((repos, chemicalIds) => alerts.ledgerChanged(repos, chemicalIds));
+  const payments = paymentsService(store, config, { alerts, logger });
   const routes = [
     ...healthRoutes(store, logger),
     ...authRoutes(authService(store, config), session, config),
@@ -154,11 +155,11 @@ export function createApp({
     ...exportRoutes(exportsService(store)),
     ...uploadRoutes(uploadsService(store, files), files),
     ...alertRoutes(alerts),
-    ...paymentRoutes(paymentsService(store, config, { alerts, logger })),
+    ...paymentRoutes(payments),
     ...supplierRoutes(suppliersService(store, config.currency)),
     // Before the orders routes: `/api/orders/money.csv` must not be read as an order id.
     ...purchaseRoutes(purchasesService(store, config)),
-    ...orderRoutes(ordersService(store, config, { alerts, cancellation: orderCancellation })),
+    ...orderRoutes(ordersService(store, config, { alerts, cancellation: orderCancellation ?? payments })),
     ...reorderRoutes(reorderService(store, config)),
     ...requestRoutes(requestsService(store, config)),
     ...receivingRoutes(receivingService(store, alerts, config)),

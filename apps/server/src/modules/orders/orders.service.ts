@@ -44,7 +44,7 @@ import type { OrderRecord } from './orders.repository';
  * has committed (the order takes no more payments from then on).
  */
 export interface OrderCancellation {
-  refundPaidShares(orderId: number, actor: { id: number }): Promise<void>;
+  refundPaidShares(orderId: number, actor: User): Promise<unknown>;
 }
 
 export interface OrdersServiceOptions {
