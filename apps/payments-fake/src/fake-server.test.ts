@@ -199,8 +199,9 @@ describe('hosted checkout page and webhooks', () => {
   it('when the test card is declined, then the page says so, payment_intent.payment_failed is sent and the other card still pays', async () => {
     const session = await stripe.checkout.sessions.create(sessionParams(800));
     const declined = await press(session.url!, 'decline');
-    expect(declined.status).toBe(200);
-    expect(await declined.text()).toContain('Payment declined');
+    expect(declined.status).toBe(303);
+    expect(declined.headers.get('location')).toBe(`/pay/${session.id}`);
+    expect(await (await fetch(session.url!)).text()).toContain('Payment declined');
     await fake.settled();
     const failed = endpoint
       .ofType('payment_intent.payment_failed')
@@ -227,8 +228,8 @@ describe('hosted checkout page and webhooks', () => {
       endpoint.ofType('checkout.session.expired').some((h) => h.body.includes(session.id)),
     ).toBe(true);
     const answer = await press(session.url!, 'succeed');
-    expect(answer.status).toBe(200);
-    expect(await answer.text()).toContain('Expired');
+    expect(answer.status).toBe(303);
+    expect(await (await fetch(session.url!)).text()).toContain('Expired');
     const again = await stripe.checkout.sessions.expire(session.id).catch((e: unknown) => e);
     expect(again).toBeInstanceOf(Stripe.errors.StripeInvalidRequestError);
   });

@@ -196,9 +196,12 @@ export async function startPaymentsFake(options: PaymentsFakeOptions): Promise<P
   };
   app.get('/pay/:id', (req, res) => showPage(res, req.params.id));
   const pay = (card: TestCard) => (req: Request, res: Response) => {
-    const { redirect } = provider.attempt(String(req.params.id), card, pageContext);
+    const id = String(req.params.id);
+    const { redirect } = provider.attempt(id, card, pageContext);
+    // Post/Redirect/Get: reloading the page never presses a card again.
     if (redirect) res.redirect(303, redirect);
-    else showPage(res, String(req.params.id));
+    else if (provider.page(id)) res.redirect(303, `/pay/${encodeURIComponent(id)}`);
+    else showPage(res, id);
   };
   app.post('/pay/:id/succeed', pay('succeeds'));
   app.post('/pay/:id/decline', pay('declined'));

@@ -83,6 +83,7 @@ export function paymentWebhooks(deps: WebhookDeps) {
       amountMinor: amount,
       providerSessionId: session.id,
       providerPaymentIntentId: idOf(session.payment_intent),
+      note: payment.note ? `${payment.note}; then paid` : '',
       updatedAt: now,
     });
     await settleShare(repos, share, now);
