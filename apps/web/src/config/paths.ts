@@ -42,6 +42,10 @@ export const paths = {
     `/preparations/usage/${chemicalId}`,
   lotProvenance: (id: number | string = ':id') => `/preparations/lots/${id}/provenance`,
   orders: '/orders',
+  suppliers: '/purchasing/suppliers',
+  supplier: (id: number | string = ':id') => `/purchasing/suppliers/${id}`,
+  /** The price-list import for one supplier: the import page with the supplier chosen. */
+  priceListImport: (supplierId: number) => `/stock/import?kind=price-list&supplierId=${supplierId}`,
   alerts: '/alerts',
   alertPreferences: '/alerts/preferences',
   adminOutbox: '/admin/outbox',

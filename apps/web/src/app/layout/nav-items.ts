@@ -8,6 +8,7 @@ import {
   Mail,
   Package,
   ShoppingCart,
+  Truck,
   Users,
   type LucideIcon,
 } from 'lucide-react';
@@ -20,7 +21,8 @@ export interface NavItem {
   icon: LucideIcon;
   /** Not built yet: the page says so and tells what it will do. */
   coming?: boolean;
-  section?: 'admin';
+  /** The group the entry is listed under; none: the main list. */
+  section?: 'purchasing' | 'admin';
 }
 
 export const navItems: readonly NavItem[] = [
@@ -41,6 +43,13 @@ export const navItems: readonly NavItem[] = [
     coming: true,
   },
   { label: 'Alerts', to: paths.alerts, permission: 'alerts.read', icon: Bell },
+  {
+    label: 'Suppliers',
+    to: paths.suppliers,
+    permission: 'orders.read',
+    icon: Truck,
+    section: 'purchasing',
+  },
   {
     label: 'People',
     to: paths.adminUsers,

@@ -30,10 +30,14 @@ function Item({ item }: { item: NavItem }) {
   );
 }
 
+const groups = [
+  { section: 'purchasing', title: 'Purchasing' },
+  { section: 'admin', title: 'Admin' },
+] as const;
+
 export function SideNav({ role }: { role: Role }) {
   const items = navItemsFor(role);
-  const main = items.filter((item) => item.section !== 'admin');
-  const admin = items.filter((item) => item.section === 'admin');
+  const main = items.filter((item) => item.section === undefined);
   return (
     <nav aria-label="Main" className="flex flex-col gap-5 px-3 py-4">
       <ul className="flex flex-col gap-0.5">
@@ -41,18 +45,22 @@ export function SideNav({ role }: { role: Role }) {
           <Item key={item.to} item={item} />
         ))}
       </ul>
-      {admin.length > 0 && (
-        <div>
-          <p className="mb-1 px-2.5 text-xs font-semibold tracking-wide text-ink-600 uppercase">
-            Admin
-          </p>
-          <ul className="flex flex-col gap-0.5">
-            {admin.map((item) => (
-              <Item key={item.to} item={item} />
-            ))}
-          </ul>
-        </div>
-      )}
+      {groups.map(({ section, title }) => {
+        const listed = items.filter((item) => item.section === section);
+        if (listed.length === 0) return null;
+        return (
+          <div key={section}>
+            <p className="mb-1 px-2.5 text-xs font-semibold tracking-wide text-ink-600 uppercase">
+              {title}
+            </p>
+            <ul className="flex flex-col gap-0.5">
+              {listed.map((item) => (
+                <Item key={item.to} item={item} />
+              ))}
+            </ul>
+          </div>
+        );
+      })}
     </nav>
   );
 }
