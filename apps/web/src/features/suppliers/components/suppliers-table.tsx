@@ -52,7 +52,7 @@ const columns = column.columns([
     id: 'minimumOrder',
     header: 'Minimum order',
     meta: { align: 'right' },
-    cell: ({ row }) => money(row.original.minimumOrderMinor, row.original.currency, 'none'),
+    cell: ({ row }) => money(row.original.minimumOrderMinor, row.original.currency, 'None'),
   }),
   column.display({
     id: 'shipping',

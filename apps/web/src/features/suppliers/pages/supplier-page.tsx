@@ -141,12 +141,11 @@ function Catalogue({ supplier, mayManage }: { supplier: Supplier; mayManage: boo
         )}
       </div>
       <div className="flex flex-wrap items-center gap-4">
-        <label className="text-sm">
+        <label className="w-96 text-sm">
           <span className="sr-only">Search the catalogue</span>
           <Input
             type="search"
-            placeholder="Search by SKU, chemical, CAS RN or grade"
-            className="w-80"
+            placeholder="Search: SKU, chemical, CAS RN or grade"
             defaultValue={query.q}
             onChange={(event) => handleSearch(event.target.value)}
           />
@@ -247,8 +246,10 @@ export function SupplierPage() {
           </h1>
           <p className="text-sm text-ink-600 tabular-nums">
             {formatCount(data.catalogItemCount)} {data.catalogItemCount === 1 ? 'item' : 'items'}{' '}
-            sold · named by {formatCount(data.orderCount)}{' '}
-            {data.orderCount === 1 ? 'order' : 'orders'}
+            sold ·{' '}
+            {data.orderCount === 0
+              ? 'not in any order yet'
+              : `in ${formatCount(data.orderCount)} ${data.orderCount === 1 ? 'order' : 'orders'}`}
           </p>
         </div>
         {mayManage && (

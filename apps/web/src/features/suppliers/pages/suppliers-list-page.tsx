@@ -64,12 +64,11 @@ export function SuppliersListPage() {
       </header>
 
       <div className="flex flex-wrap items-center gap-4">
-        <label className="flex items-center gap-2 text-sm">
+        <label className="w-80 text-sm">
           <span className="sr-only">Search suppliers</span>
           <Input
             type="search"
-            placeholder="Search by name, contact or e-mail"
-            className="w-72"
+            placeholder="Search: name, contact or e-mail"
             defaultValue={query.q}
             onChange={(event) => handleSearch(event.target.value)}
           />
