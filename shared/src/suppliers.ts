@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { amountSchema } from './amounts';
 import { emailSchema } from './auth';
 import { ghsCodeSchema } from './hazards';
-import { listQuerySchema, queryFlagSchema } from './list';
+import { listQuerySchema, pageSchema, queryFlagSchema } from './list';
 import { currencyCodeSchema, minorAmountSchema } from './money';
 import { nameSchema, refuseControlCharacters } from './names';
 import { packUnits } from './purchasing';
@@ -84,6 +84,13 @@ export const supplierSchema = z.object({
   updatedAt: z.string(),
 });
 export type Supplier = z.infer<typeof supplierSchema>;
+
+/**
+ * `GET /api/suppliers`: a list page, plus the lab's currency, so a client can read and write
+ * amounts even before there is any supplier.
+ */
+export const supplierPageSchema = pageSchema(supplierSchema).extend({ currency: z.string() });
+export type SupplierPage = z.infer<typeof supplierPageSchema>;
 
 export const supplierSortFields = ['name', 'updatedAt'] as const;
 export const supplierListQuerySchema = listQuerySchema(supplierSortFields, 'name.asc').extend({

@@ -219,6 +219,33 @@ export const routes: RouteObject[] = [
             }),
           },
           {
+            path: paths.suppliers,
+            lazy: async () => {
+              const { SuppliersListPage } =
+                await import('../features/suppliers/pages/suppliers-list-page');
+              return {
+                element: (
+                  <RequirePermission permission="orders.read">
+                    <SuppliersListPage />
+                  </RequirePermission>
+                ),
+              };
+            },
+          },
+          {
+            path: paths.supplier(),
+            lazy: async () => {
+              const { SupplierPage } = await import('../features/suppliers/pages/supplier-page');
+              return {
+                element: (
+                  <RequirePermission permission="orders.read">
+                    <SupplierPage />
+                  </RequirePermission>
+                ),
+              };
+            },
+          },
+          {
             path: paths.adminOutbox,
             lazy: async () => {
               const { OutboxPage } = await import('../features/alerts/pages/outbox-page');

@@ -47,6 +47,10 @@ export const paths = {
   order: (id: number | string = ':id') => `/orders/${id}`,
   /** Reorder suggestions and members' requests. */
   restock: '/orders/restock',
+  suppliers: '/purchasing/suppliers',
+  supplier: (id: number | string = ':id') => `/purchasing/suppliers/${id}`,
+  /** The price-list import for one supplier: the import page with the supplier chosen. */
+  priceListImport: (supplierId: number) => `/stock/import?kind=price-list&supplierId=${supplierId}`,
   alerts: '/alerts',
   alertPreferences: '/alerts/preferences',
   adminOutbox: '/admin/outbox',

@@ -7,6 +7,7 @@ import type {
   Supplier,
   SupplierCreateParsed,
   SupplierListQuery,
+  SupplierPage,
   SupplierPatch,
 } from '@lotwise/shared';
 import { AppError } from '../../lib/app-error';
@@ -89,13 +90,14 @@ export function suppliersService(store: Store, labCurrency: string) {
   }
 
   return {
-    async listSuppliers(query: SupplierListQuery): Promise<Page<Supplier>> {
+    async listSuppliers(query: SupplierListQuery): Promise<SupplierPage> {
       const { items, total } = await store.repos.suppliers.listSuppliers(query);
       return {
         items: items.map(presentSupplier),
         total,
         page: query.page,
         pageSize: query.pageSize,
+        currency: labCurrency,
       };
     },
 

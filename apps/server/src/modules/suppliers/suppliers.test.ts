@@ -1,4 +1,4 @@
-import { catalogItemSchema, pageSchema, supplierSchema } from '@lotwise/shared';
+import { catalogItemSchema, pageSchema, supplierPageSchema, supplierSchema } from '@lotwise/shared';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { nowIso } from '../../db/sql';
@@ -118,10 +118,11 @@ describe('suppliers', () => {
       (await get(`/api/suppliers/${supplier.id}`).expect(200)).body,
     );
     expect(read.contactName).toBe('Ada Reed');
-    const list = pageSchema(supplierSchema).parse(
+    const list = supplierPageSchema.parse(
       (await get(`/api/suppliers?q=${encodeURIComponent(supplier.name)}`).expect(200)).body,
     );
     expect(list.items.map((s) => s.id)).toEqual([supplier.id]);
+    expect(list.currency).toBe('EUR');
   });
 
   it('when a fee is not whole cents or a name is taken, then 400 or 409 naming the field', async () => {

@@ -9,6 +9,7 @@ import {
   Package,
   PackagePlus,
   ShoppingCart,
+  Truck,
   Users,
   type LucideIcon,
 } from 'lucide-react';
@@ -21,6 +22,7 @@ export interface NavItem {
   icon: LucideIcon;
   /** Not built yet: the page says so and tells what it will do. */
   coming?: boolean;
+  /** The group the entry is listed under; none: the main list. */
   section?: 'purchasing' | 'admin';
 }
 
@@ -41,8 +43,21 @@ export const navItems: readonly NavItem[] = [
     icon: ShoppingCart,
     section: 'purchasing',
   },
-  { label: 'Restock', to: paths.restock, permission: 'orders.read', icon: PackagePlus },
+  {
+    label: 'Restock',
+    to: paths.restock,
+    permission: 'orders.read',
+    icon: PackagePlus,
+    section: 'purchasing',
+  },
   { label: 'Alerts', to: paths.alerts, permission: 'alerts.read', icon: Bell },
+  {
+    label: 'Suppliers',
+    to: paths.suppliers,
+    permission: 'orders.read',
+    icon: Truck,
+    section: 'purchasing',
+  },
   {
     label: 'People',
     to: paths.adminUsers,

@@ -22,6 +22,7 @@ describe('SideNav', () => {
   });
 
   it('when a member signs in, then runs, alerts and orders (under Purchasing) show but not administration', () => {
+  it('when a member signs in, then runs, orders, alerts and suppliers show but not administration', () => {
     expect(navLabels('member')).toEqual([
       'Chemicals',
       'Stock',
@@ -31,6 +32,7 @@ describe('SideNav', () => {
       'Restock',
       'Alerts',
       'Orders',
+      'Suppliers',
     ]);
     expect(screen.getByText('Purchasing')).toBeInTheDocument();
   });
@@ -45,6 +47,7 @@ describe('SideNav', () => {
       'Restock',
       'Alerts',
       'Orders',
+      'Suppliers',
       'People',
       'Outbox',
     ]);

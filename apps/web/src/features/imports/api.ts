@@ -1,5 +1,5 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { importSchema, type Import, type ImportStatus } from '@lotwise/shared';
+import { importSchema, type Import, type ImportKind, type ImportStatus } from '@lotwise/shared';
 import { api, withQuery } from '../../lib/api-client';
 import { sessionKeys } from '../../lib/auth';
 import { uploadFile, type UploadProgress } from '../../lib/upload';
@@ -37,8 +37,20 @@ export function useImport(id: number | null, errorsPage: number, errorsPageSize:
 export function useUploadImport() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ file, onProgress }: { file: File; onProgress: (p: UploadProgress) => void }) =>
-      uploadFile('/api/imports', file, { schema: importSchema, onProgress }),
+    mutationFn: ({
+      file,
+      onProgress,
+      target,
+    }: {
+      file: File;
+      onProgress: (p: UploadProgress) => void;
+      /** A price list names its supplier; without a target the file is stock. */
+      target?: { kind: ImportKind; supplierId: number | null };
+    }) =>
+      uploadFile(withQuery('/api/imports', { ...target }), file, {
+        schema: importSchema,
+        onProgress,
+      }),
     onSuccess: (result: Import) => {
       queryClient.setQueryData(importKeys.detail(result.id, 1, result.errorsPageSize), result);
     },
@@ -66,5 +78,8 @@ export function useRefreshAfterImport() {
     });
 }
 
-/** The example file shipped with Lotwise (a copy of docs/examples/stock-import.csv). */
-export const exampleCsvHref = '/examples/stock-import.csv';
+/** The example files shipped with Lotwise (copies of docs/examples/*.csv). */
+export const exampleCsvHrefs: Record<ImportKind, string> = {
+  stock: '/examples/stock-import.csv',
+  'price-list': '/examples/price-list-import.csv',
+};

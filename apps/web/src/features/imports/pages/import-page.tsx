@@ -1,7 +1,13 @@
 import { useEffect, useState } from 'react';
 import { Link, useSearchParams } from 'react-router';
 import { ChevronLeft, CircleCheck, Download, FileWarning, Upload } from 'lucide-react';
-import { importColumns, importRowLimit, type Import } from '@lotwise/shared';
+import {
+  importColumns,
+  importRowLimit,
+  priceListColumns,
+  type Import,
+  type ImportKind,
+} from '@lotwise/shared';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { ErrorState } from '../../../components/ui/error-state';
@@ -14,7 +20,7 @@ import { formatCount } from '../../../lib/format';
 import { formatFileSize, uploadErrorMessage, type UploadProgress } from '../../../lib/upload';
 import { paths } from '../../../config/paths';
 import {
-  exampleCsvHref,
+  exampleCsvHrefs,
   isWorking,
   useCommitImport,
   useImport,
@@ -23,20 +29,39 @@ import {
 } from '../api';
 import { ImportErrorsTable } from '../components/import-errors-table';
 import { ImportSummaryTiles } from '../components/import-summary';
+import { PriceListSummaryView, SupplierChoice } from '../components/price-list-parts';
 
 const allOrNothing =
   'The import is all or nothing: every row is written in one go when you confirm, or none is.';
 
 const rows = (n: number) => `${formatCount(n)} ${n === 1 ? 'row' : 'rows'}`;
 
-function ColumnGuide() {
+/** A column as the guide lists it (stock and price-list columns alike). */
+interface GuideColumn {
+  key: string;
+  header: string;
+  required: boolean;
+  description: string;
+  example: string;
+}
+
+/** What the page says per kind of file. */
+const kindTexts: Record<ImportKind, { rowIs: string; columns: readonly GuideColumn[] }> = {
+  stock: { rowIs: 'One row per container.', columns: importColumns },
+  'price-list': {
+    rowIs: 'One row per pack the supplier sells. Prices are per pack, in the lab’s currency.',
+    columns: priceListColumns,
+  },
+};
+
+function ColumnGuide({ kind }: { kind: ImportKind }) {
   return (
     <details className="rounded-lg border border-ink-200 bg-white px-4 py-3 text-sm">
       <summary className="cursor-pointer font-semibold text-ink-900">
         The columns Lotwise reads
       </summary>
       <p className="mt-2 text-ink-700">
-        One row per container. Headers may be written in any letter case; the first row must hold
+        {kindTexts[kind].rowIs} Headers may be written in any letter case; the first row must hold
         them. Columns Lotwise does not know are ignored (the preview says which).
       </p>
       <div className="mt-2 overflow-x-auto">
@@ -50,7 +75,7 @@ function ColumnGuide() {
             </tr>
           </thead>
           <tbody>
-            {importColumns.map((column) => (
+            {kindTexts[kind].columns.map((column) => (
               <tr key={column.key} className="border-b border-ink-100 align-top last:border-b-0">
                 <td className="py-1.5 pr-3 font-medium whitespace-nowrap">{column.header}</td>
                 <td className="py-1.5 pr-3">{column.required ? 'yes' : 'no'}</td>
@@ -74,18 +99,24 @@ function UploadStep({
   progress,
   error,
   fileName,
+  kind,
+  blocked,
 }: {
   onFile: (file: File) => void;
   progress: UploadProgress | null;
   error: unknown;
   fileName: string | null;
+  kind: ImportKind;
+  /** Why no file can be taken yet (a price list without its supplier). */
+  blocked?: string | null;
 }) {
   return (
     <div className="flex flex-col gap-4">
+      {blocked && <Notice tone="info">{blocked}</Notice>}
       <FileDrop
         accept=".csv,text/csv,text/plain"
         onFile={onFile}
-        disabled={progress !== null}
+        disabled={progress !== null || Boolean(blocked)}
         title="Drop the CSV file here, or choose it"
       >
         Saved from a spreadsheet as CSV (comma separated, UTF-8), up to{' '}
@@ -107,19 +138,19 @@ function UploadStep({
       )}
       <div className="flex flex-wrap items-center gap-3 text-sm">
         <a
-          href={exampleCsvHref}
-          download="lotwise-stock-import-example.csv"
+          href={exampleCsvHrefs[kind]}
+          download={`lotwise-${kind}-import-example.csv`}
           className={buttonClasses('secondary', 'sm')}
         >
           <Download aria-hidden="true" className="size-4" />
           Download the example CSV
         </a>
         <span className="text-ink-600">
-          Every column, with a few rows of invented stock: replace them with yours, or match your
-          own headers to it.
+          Every column, with a few rows of invented {kind === 'stock' ? 'stock' : 'prices'}: replace
+          them with yours, or match your own headers to it.
         </span>
       </div>
-      <ColumnGuide />
+      <ColumnGuide kind={kind} />
     </div>
   );
 }
@@ -142,12 +173,13 @@ function Preview({
   onReupload: (file: File) => void;
 }) {
   const commit = useCommitImport(data.id);
-  const rowCount = data.summary?.rows ?? data.totalRows;
+  const rowCount = data.summary?.rows ?? data.priceList?.rows ?? data.totalRows;
+  const blankRows = data.summary?.blankRowsSkipped ?? data.priceList?.blankRowsSkipped ?? 0;
   const invalid = data.status === 'invalid' || data.errorCount > 0;
   const blockedReason = invalid
     ? `Cannot import: the file has ${formatCount(data.errorCount)} ${data.errorCount === 1 ? 'problem' : 'problems'}. Correct ${data.errorCount === 1 ? 'it' : 'them'} in the spreadsheet and upload the file again.`
     : rowCount === 0
-      ? 'Cannot import: the file has no rows of stock.'
+      ? `Cannot import: the file has no rows of ${data.kind === 'stock' ? 'stock' : 'prices'}.`
       : null;
 
   return (
@@ -158,15 +190,13 @@ function Preview({
         </h2>
         <p className="text-sm text-ink-700 tabular-nums">
           {rows(rowCount)} read
-          {data.summary && data.summary.blankRowsSkipped > 0 && (
-            <>, {rows(data.summary.blankRowsSkipped)} left blank and skipped</>
-          )}
-          .{' '}
+          {blankRows > 0 && <>, {rows(blankRows)} left blank and skipped</>}.{' '}
           {invalid
             ? 'Nothing can be imported until every problem is fixed.'
             : 'Nothing has been written yet.'}
         </p>
         {data.summary && <ImportSummaryTiles summary={data.summary} />}
+        {data.priceList && <PriceListSummaryView summary={data.priceList} />}
         {data.warnings.length > 0 && (
           <Notice tone="warn" title="Worth a look (these do not stop the import)">
             <ul className="list-disc pl-4">
@@ -254,27 +284,41 @@ function Committed({ data, onAnother }: { data: Import; onAnother: () => void })
   return (
     <div className="flex flex-col gap-4">
       <Notice tone="ok" title={`${data.fileName} is imported`}>
-        {rows(data.summary?.rows ?? data.totalRows)} written in one go
+        {rows(data.summary?.rows ?? data.priceList?.rows ?? data.totalRows)} written in one go
         {data.createdBy && <> by {data.createdBy.displayName}</>}.
       </Notice>
       {data.summary && <ImportSummaryTiles summary={data.summary} done />}
-      <div className="flex flex-wrap gap-2">
-        <Link
-          to={withQuery(paths.stockContainers, { sort: 'updatedAt.desc' })}
-          className={buttonClasses('primary')}
-        >
-          See the containers
-        </Link>
-        <Link to={paths.stock} className={buttonClasses('secondary')}>
-          Stock overview
-        </Link>
-        <Link to={paths.stockLocations} className={buttonClasses('secondary')}>
-          Locations
-        </Link>
-        <Button onClick={onAnother} icon={<Upload aria-hidden="true" className="size-4" />}>
-          Import another file
-        </Button>
-      </div>
+      {data.priceList && <PriceListSummaryView summary={data.priceList} done />}
+      {data.kind === 'price-list' ? (
+        <div className="flex flex-wrap gap-2">
+          {data.supplier && (
+            <Link to={paths.supplier(data.supplier.id)} className={buttonClasses('primary')}>
+              See the catalogue of {data.supplier.name}
+            </Link>
+          )}
+          <Button onClick={onAnother} icon={<Upload aria-hidden="true" className="size-4" />}>
+            Import another file
+          </Button>
+        </div>
+      ) : (
+        <div className="flex flex-wrap gap-2">
+          <Link
+            to={withQuery(paths.stockContainers, { sort: 'updatedAt.desc' })}
+            className={buttonClasses('primary')}
+          >
+            See the containers
+          </Link>
+          <Link to={paths.stock} className={buttonClasses('secondary')}>
+            Stock overview
+          </Link>
+          <Link to={paths.stockLocations} className={buttonClasses('secondary')}>
+            Locations
+          </Link>
+          <Button onClick={onAnother} icon={<Upload aria-hidden="true" className="size-4" />}>
+            Import another file
+          </Button>
+        </div>
+      )}
       {data.summary && data.summary.chemicals.new > 0 && (
         <p className="text-sm text-ink-700">
           New chemicals carry only what the file said about them: check their hazards, storage group
@@ -285,10 +329,15 @@ function Committed({ data, onAnother }: { data: Import; onAnother: () => void })
   );
 }
 
-/** `/stock/import`: existing stock from a spreadsheet, checked and previewed before it is written. */
+/**
+ * `/stock/import`: existing stock from a spreadsheet, checked and previewed before it is
+ * written; with `?kind=price-list&supplierId=3`, a supplier's price list.
+ */
 export function ImportPage() {
   const [searchParams, setSearchParams] = useSearchParams();
   const importId = Number(searchParams.get('import')) || null;
+  const askedKind: ImportKind = searchParams.get('kind') === 'price-list' ? 'price-list' : 'stock';
+  const supplierId = Number(searchParams.get('supplierId')) || null;
   const [errorsPage, setErrorsPage] = useState(1);
   const [errorsPageSize, setErrorsPageSize] = useState(25);
   const [progress, setProgress] = useState<UploadProgress | null>(null);
@@ -314,7 +363,11 @@ export function ImportPage() {
     setProgress({ loaded: 0, total: file.size });
     show(null);
     upload.mutate(
-      { file, onProgress: setProgress },
+      {
+        file,
+        onProgress: setProgress,
+        target: kind === 'price-list' ? { kind, supplierId } : undefined,
+      },
       {
         onSuccess: (result) => show(result.id),
         onSettled: () => setProgress(null),
@@ -323,6 +376,18 @@ export function ImportPage() {
   }
 
   const data = current.data;
+  const kind = data?.kind ?? askedKind;
+  const chooseSupplier = (id: number) =>
+    setSearchParams((previous) => {
+      const next = new URLSearchParams(previous);
+      next.set('supplierId', String(id));
+      next.delete('import');
+      return next;
+    });
+  const blocked =
+    kind === 'price-list' && supplierId === null
+      ? 'Choose the supplier first: the file is read as that supplier’s price list.'
+      : null;
   let body;
   if (importId === null || progress !== null) {
     body = (
@@ -331,6 +396,8 @@ export function ImportPage() {
         progress={progress}
         error={upload.isError ? upload.error : null}
         fileName={fileName}
+        kind={kind}
+        blocked={blocked}
       />
     );
   } else if (current.isPending) {
@@ -368,7 +435,14 @@ export function ImportPage() {
         <Notice tone="danger" title="Nothing was imported">
           {data.failure ?? 'The import stopped.'} No row of {data.fileName} was written.
         </Notice>
-        <UploadStep onFile={handleFile} progress={null} error={null} fileName={null} />
+        <UploadStep
+          onFile={handleFile}
+          progress={null}
+          error={null}
+          fileName={null}
+          kind={kind}
+          blocked={blocked}
+        />
       </div>
     );
   } else if (data) {
@@ -391,19 +465,41 @@ export function ImportPage() {
   return (
     <div className="flex flex-col gap-5">
       <Link
-        to={paths.stockContainers}
+        to={
+          kind === 'stock'
+            ? paths.stockContainers
+            : supplierId
+              ? paths.supplier(supplierId)
+              : paths.suppliers
+        }
         className="inline-flex items-center gap-1 text-sm text-ink-600 hover:text-ink-900"
       >
         <ChevronLeft aria-hidden="true" className="size-4" />
-        All containers
+        {kind === 'stock' ? 'All containers' : 'Back to the supplier'}
       </Link>
-      <header>
-        <h1 className="text-xl font-semibold text-ink-900">Import stock from CSV</h1>
-        <p className="max-w-3xl text-sm text-ink-600">
-          Bring in an existing stock list: chemicals, lots, containers and their places (by path) in
-          one file. Lotwise checks every row and shows what it would add. {allOrNothing}
-        </p>
-      </header>
+      {kind === 'stock' ? (
+        <header>
+          <h1 className="text-xl font-semibold text-ink-900">Import stock from CSV</h1>
+          <p className="max-w-3xl text-sm text-ink-600">
+            Bring in an existing stock list: chemicals, lots, containers and their places (by path)
+            in one file. Lotwise checks every row and shows what it would add. {allOrNothing}
+          </p>
+        </header>
+      ) : (
+        <header className="flex flex-col gap-3">
+          <div>
+            <h1 className="text-xl font-semibold text-ink-900">Import a price list from CSV</h1>
+            <p className="max-w-3xl text-sm text-ink-600">
+              Bring in a supplier’s catalogue: one row per pack, matched to chemicals Lotwise
+              already knows. Known article numbers get the new price; new ones are added. Lotwise
+              checks every row and shows what would change. {allOrNothing}
+            </p>
+          </div>
+          {importId === null && (
+            <SupplierChoice supplierId={supplierId} onChange={chooseSupplier} />
+          )}
+        </header>
+      )}
       {body}
       <SafetyCaution compact />
     </div>
