@@ -353,6 +353,12 @@ describe('shared orders: status moves and permissions', () => {
       { supplierReference: 'Q-1' },
       manager,
     ).expect(409);
+    await send(
+      'put',
+      `/api/orders/${order.id}/supplier-invoice`,
+      { supplierInvoiceMinor: 9735 },
+      manager,
+    ).expect(409);
     // the payments module records payments; here the shares are marked paid as it would
     const { store } = testContext();
     await store.transaction(async (repos) => {
@@ -381,6 +387,13 @@ describe('shared orders: status moves and permissions', () => {
       collectedMinor: 9735,
       owedMinor: 0,
     });
+    const invoiced = await send(
+      'put',
+      `/api/orders/${order.id}/supplier-invoice`,
+      { supplierInvoiceMinor: 9802 },
+      manager,
+    ).expect(200);
+    expect(invoiced.body.supplierInvoiceMinor).toBe(9802);
     // money was paid and no refund path is wired in this app: cancelling changes nothing
     const refused = await send(
       'post',

@@ -176,6 +176,25 @@ export function useRecordInvoice(orderId: number) {
   );
 }
 
+export function useChangeLinePacks(orderId: number) {
+  return useOrderWrite(orderId, ({ lineId, packs }: { lineId: number; packs: number }) =>
+    apiRequest(`/api/orders/${orderId}/lines/${lineId}`, {
+      method: 'PATCH',
+      body: { packs },
+      schema: orderDetailSchema,
+    }),
+  );
+}
+
+export function useRemoveLine(orderId: number) {
+  return useOrderWrite(orderId, (lineId: number) =>
+    apiRequest(`/api/orders/${orderId}/lines/${lineId}`, {
+      method: 'DELETE',
+      schema: orderDetailSchema,
+    }),
+  );
+}
+
 export function useCancelOrder(orderId: number) {
   return useOrderWrite(orderId, (reason: string) =>
     post(`/api/orders/${orderId}/cancel`, { reason }),

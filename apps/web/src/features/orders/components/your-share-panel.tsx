@@ -129,7 +129,12 @@ function ClaimForm({ order }: { order: OrderDetail }) {
   }
 
   return (
-    <form onSubmit={submit} className="flex flex-col gap-3" aria-label="Claim a share">
+    <form
+      onSubmit={submit}
+      className="flex flex-col gap-3 border-t border-ink-100 pt-3"
+      aria-label="Claim a share"
+    >
+      <h3 className="text-sm font-semibold text-ink-900">Claim a share</h3>
       <div className="flex flex-wrap items-start gap-3">
         <Field label="Chemical" className="min-w-56 flex-1">
           {(control) => (

@@ -194,6 +194,11 @@ export function OrderNewPage() {
             )}
           </Field>
         </div>
+        {suppliers.isError && (
+          <Notice tone="danger" title="The suppliers could not be loaded">
+            {errorMessage(suppliers.error)}
+          </Notice>
+        )}
         <Field label="Notes" optional error={fields.notes}>
           {(control) => (
             <Textarea

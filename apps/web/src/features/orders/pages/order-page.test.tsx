@@ -209,4 +209,63 @@ describe('Order page', () => {
       reason: 'Supplier out of stock',
     });
   });
+
+  it('when the coordinator closes claims while a rest is unclaimed, then the server’s reason shows and the rest can be taken for the lab', async () => {
+    const managed = makeOrderDetail({
+      abilities: {
+        ...makeOrderDetail().abilities,
+        mayManage: true,
+        mayCloseClaims: true,
+        mayTakeRemainder: true,
+        mayEditLines: true,
+      },
+    });
+    const { requests } = mockFetch({
+      'GET /api/auth/me': { body: { user: coordinator } },
+      'GET /api/orders/4': { body: managed },
+      'POST /api/orders/4/close-claims': {
+        status: 409,
+        body: {
+          error: {
+            code: 'conflict',
+            message:
+              'Claims cannot close while part of the order is unclaimed (750.00 g of Potassium nitrate (NR-KNO3-500)). Take the rest for the lab, or reduce the packs.',
+          },
+        },
+      },
+      'POST /api/orders/4/lab-remainder': {
+        body: {
+          ...managed,
+          unclaimedMinor: 0,
+          abilities: { ...managed.abilities, mayTakeRemainder: false },
+        },
+      },
+      'PATCH /api/orders/4/lines/12': { body: managed },
+    });
+    renderApp('/orders/4');
+    await userEvent.click(
+      await screen.findByRole('button', { name: 'Close claims' }, { timeout: 5000 }),
+    );
+    await userEvent.click(screen.getByRole('button', { name: 'Close claims and fix amounts' }));
+    expect(
+      await screen.findByText(/Take the rest for the lab, or reduce the packs/),
+    ).toBeInTheDocument();
+    await userEvent.click(screen.getByRole('button', { name: 'Cancel' }));
+
+    const packs = screen.getByLabelText('Packs of Ethanol');
+    await userEvent.clear(packs);
+    await userEvent.type(packs, '1');
+    await userEvent.click(
+      within(screen.getByTestId('order-line-12')).getByRole('button', { name: 'Set packs' }),
+    );
+    await waitFor(() =>
+      expect(requests.find((r) => r.method === 'PATCH')?.body).toEqual({ packs: 1 }),
+    );
+
+    await userEvent.click(screen.getByRole('button', { name: 'Take the rest for the lab' }));
+    await waitFor(() => expect(screen.getByTestId('total-unclaimed')).toHaveTextContent('€0.00'));
+    expect(
+      screen.queryByRole('button', { name: 'Take the rest for the lab' }),
+    ).not.toBeInTheDocument();
+  });
 });

@@ -114,7 +114,7 @@ export function OrdersListPage() {
           </Link>
         )}
       </header>
-      <div className="flex flex-col gap-1">
+      <div className="flex flex-col items-start gap-1">
         <label htmlFor="orders-status" className="text-sm font-medium text-ink-800">
           Status
         </label>
