@@ -31,6 +31,7 @@ import { locationsService } from './modules/locations/locations.service';
 import { lotRoutes } from './modules/lots/lots.routes';
 import { lotsService } from './modules/lots/lots.service';
 import { maintenanceRoutes } from './modules/maintenance/maintenance.routes';
+import { claimingStatuses } from './modules/orders/order-lifecycle';
 import { orderRoutes } from './modules/orders/orders.routes';
 import { ordersService, type OrderCancellation } from './modules/orders/orders.service';
 import { planRoutes } from './modules/plans/plans.routes';
@@ -114,7 +115,14 @@ export function createApp({
     maxBytes: config.uploadMaxBytes,
     maxMb: config.uploadMaxMb,
   });
-  const alerts = alertsService(store, config, { logger, onQueued: onMailQueued });
+  const alerts = alertsService(store, config, {
+    logger,
+    onQueued: onMailQueued,
+    claims: {
+      // Members hear about the chemicals they claimed in a shared order as about those they use.
+      claimedChemicals: (userIds) => store.repos.orders.claimedChemicals(userIds, claimingStatuses),
+    },
+  });
   // Alert rules run before every transaction that changed the ledger commits.
   store.onLedgerChange((repos, chemicalIds) => alerts.ledgerChanged(repos, chemicalIds));
   const routes = [

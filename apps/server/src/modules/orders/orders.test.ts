@@ -480,3 +480,22 @@ describe('shared orders: status moves and permissions', () => {
     expect(sumOfShares(closed)).toBe(7737);
   });
 });
+
+describe('shared orders: alerts about claimed chemicals', () => {
+  it('when a member claimed a chemical that runs low, then the member gets the low-stock e-mail too', async () => {
+    const { order, solidLine, solid } = await openOrder();
+    await claim(order.id, solidLine.id, 50, otherMember).expect(201);
+    await send('patch', `/api/chemicals/${solid.id}`, { reorderPoint: 100 }, manager).expect(200);
+    const shelf = await stock.location();
+    const lot = await stock.lot(solid.id);
+    await stock.container(lot.id, shelf.id, { quantity: 20, unit: 'g' });
+    await send('post', '/api/alerts/evaluate', {}, admin).expect(200);
+    const outbox = await get('/api/outbox?kind=low-stock&pageSize=200', admin).expect(200);
+    const mine = outbox.body.items.filter(
+      (m: { dedupKey: string | null; recipient: { userId: number } }) =>
+        m.dedupKey?.startsWith(`low-stock:chemical:${solid.id}:`) &&
+        m.recipient.userId === otherMemberId,
+    );
+    expect(mine).toHaveLength(1);
+  });
+});
