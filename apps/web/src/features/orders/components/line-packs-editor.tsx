@@ -24,15 +24,16 @@ export function LinePacksEditor({ order, line }: { order: OrderDetail; line: Ord
   return (
     <form onSubmit={submit} className="mt-2 flex flex-col gap-1.5">
       <div className="flex flex-wrap items-center gap-1.5">
-        <Input
-          type="number"
-          min={1}
-          step={1}
-          aria-label={`Packs of ${line.chemical.name}`}
-          className="h-8 w-16"
-          value={packs}
-          onChange={(e) => setPacks(e.target.value)}
-        />
+        <div className="w-20">
+          <Input
+            type="number"
+            min={1}
+            step={1}
+            aria-label={`Packs of ${line.chemical.name}`}
+            value={packs}
+            onChange={(e) => setPacks(e.target.value)}
+          />
+        </div>
         <Button type="submit" size="sm" busy={change.isPending}>
           Set packs
         </Button>

@@ -82,7 +82,7 @@ function MyShare({ order, share }: { order: OrderDetail; share: OrderShare }) {
       </div>
       {editing && line && (
         <form onSubmit={save} className="flex flex-wrap items-end gap-2">
-          <Field label={`New quantity (${line.packUnit})`} hint={stepHint(line)}>
+          <Field label={`New quantity (${line.packUnit})`} hint={stepHint(line)} className="w-64">
             {(control) => (
               <Input
                 {...control}
@@ -90,7 +90,6 @@ function MyShare({ order, share }: { order: OrderDetail; share: OrderShare }) {
                 inputMode="decimal"
                 min={line.claimStep}
                 step={line.claimStep}
-                className="w-36"
                 value={quantity}
                 onChange={(e) => setQuantity(e.target.value)}
               />

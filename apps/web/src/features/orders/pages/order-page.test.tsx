@@ -268,4 +268,55 @@ describe('Order page', () => {
       screen.queryByRole('button', { name: 'Take the rest for the lab' }),
     ).not.toBeInTheDocument();
   });
+
+  it('when a draft has no deadline, then the coordinator sets one and opens the order', async () => {
+    const draft = makeOrderDetail({
+      status: 'draft',
+      claimDeadline: null,
+      claimsOpen: false,
+      shares: [],
+      abilities: {
+        ...makeOrderDetail().abilities,
+        mayClaim: false,
+        mayManage: true,
+        mayEditDraft: true,
+        mayEditLines: true,
+        mayOpen: true,
+        mayCancel: true,
+      },
+    });
+    const { requests } = mockFetch({
+      'GET /api/auth/me': { body: { user: coordinator } },
+      'GET /api/orders/4': { body: draft },
+      'PATCH /api/orders/4': ({ body }) => ({
+        body: { ...draft, claimDeadline: (body as { claimDeadline: string }).claimDeadline },
+      }),
+      'POST /api/orders/4/open': {
+        body: {
+          ...draft,
+          status: 'open',
+          claimsOpen: true,
+          claimDeadline: '2026-12-24',
+          abilities: { ...draft.abilities, mayOpen: false, mayClaim: true },
+        },
+      },
+    });
+    renderApp('/orders/4');
+    expect(
+      await screen.findByText('No deadline set yet', {}, { timeout: 5000 }),
+    ).toBeInTheDocument();
+    await userEvent.type(screen.getByLabelText('Claim deadline'), '2026-12-24');
+    await userEvent.click(screen.getByRole('button', { name: 'Set deadline' }));
+    await waitFor(() =>
+      expect(requests.find((r) => r.method === 'PATCH')?.body).toEqual({
+        claimDeadline: '2026-12-24',
+      }),
+    );
+    await userEvent.click(screen.getByRole('button', { name: 'Open for claims' }));
+    await waitFor(() =>
+      expect(screen.queryByRole('button', { name: 'Open for claims' })).not.toBeInTheDocument(),
+    );
+    expect(screen.getByText('Open for claims')).toBeInTheDocument();
+    expect(screen.getByRole('form', { name: 'Claim a share' })).toBeInTheDocument();
+  });
 });
