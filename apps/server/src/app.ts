@@ -33,6 +33,7 @@ import { lotsService } from './modules/lots/lots.service';
 import { maintenanceRoutes } from './modules/maintenance/maintenance.routes';
 import { paymentRoutes, paymentWebhookPath } from './modules/payments/payments.routes';
 import { paymentsService } from './modules/payments/payments.service';
+import { claimingStatuses } from './modules/orders/order-lifecycle';
 import { orderRoutes } from './modules/orders/orders.routes';
 import { ordersService, type OrderCancellation } from './modules/orders/orders.service';
 import { planRoutes } from './modules/plans/plans.routes';
@@ -132,7 +133,14 @@ export function createApp({
     maxBytes: config.uploadMaxBytes,
     maxMb: config.uploadMaxMb,
   });
-  const alerts = alertsService(store, config, { logger, onQueued: onMailQueued });
+  const alerts = alertsService(store, config, {
+    logger,
+    onQueued: onMailQueued,
+    claims: {
+      // Members hear about the chemicals they claimed in a shared order as about those they use.
+      claimedChemicals: (userIds) => store.repos.orders.claimedChemicals(userIds, claimingStatuses),
+    },
+  });
   // Alert rules run before every transaction that changed the ledger commits.
   store.onLedgerChange((repos, chemicalIds) => alerts.ledgerChanged(repos, chemicalIds));
   const payments = paymentsService(store, config, { alerts, logger });

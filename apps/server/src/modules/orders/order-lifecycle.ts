@@ -16,6 +16,15 @@ export const orderTransitions: Record<OrderStatus, readonly OrderStatus[]> = {
   cancelled: [],
 };
 
+/** Orders whose shares count as the member's own chemicals (not drafts, not cancelled). */
+export const claimingStatuses: readonly OrderStatus[] = [
+  'open',
+  'funded',
+  'ordered',
+  'received',
+  'closed',
+];
+
 export function mayMove(from: OrderStatus, to: OrderStatus): boolean {
   return orderTransitions[from].includes(to);
 }

@@ -8,6 +8,7 @@ import {
   type OrderDetail,
   type OrderLine,
   type OrderShare,
+  type OrderStatus,
   type OrderSummary,
   type User,
 } from '@lotwise/shared';
@@ -93,6 +94,9 @@ export function presentSummary(record: OrderRecord, names: OrderNames, actor: Us
   };
 }
 
+/** The supplier's invoice exists once the order went to the supplier. */
+export const invoicedStatuses: readonly OrderStatus[] = ['ordered', 'received', 'closed'];
+
 function abilities(record: OrderRecord, actor: User): OrderAbilities {
   const { order } = record;
   const manage = can(actor.role, 'orders.manage');
@@ -107,7 +111,7 @@ function abilities(record: OrderRecord, actor: User): OrderAbilities {
     mayTakeRemainder: manage && open && record.cost.lines.some((l) => l.unclaimedQuantity > 0),
     mayCloseClaims: manage && open,
     mayMarkOrdered: manage && order.status === 'funded',
-    mayRecordInvoice: manage && !['draft', 'cancelled'].includes(order.status),
+    mayRecordInvoice: manage && invoicedStatuses.includes(order.status),
     mayCancel: manage && cancellableOrderStatuses.includes(order.status),
   };
 }

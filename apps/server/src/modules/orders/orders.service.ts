@@ -35,7 +35,13 @@ import {
   mailOrderOpened,
   type OrderNotifier,
 } from './order-mail';
-import { namesFor, presentDetail, presentSummary, roundQuantity } from './order-views';
+import {
+  invoicedStatuses,
+  namesFor,
+  presentDetail,
+  presentSummary,
+  roundQuantity,
+} from './order-views';
 import type { OrderRecord } from './orders.repository';
 
 /**
@@ -233,11 +239,13 @@ export function ordersService(store: Store, config: Config, options: OrdersServi
         if (record.shares.length === 0) {
           throw AppError.conflict('Nobody has claimed anything yet: there is nothing to close.');
         }
+        const { chemicals } = await namesFor(repos, [record]);
         const rests = record.lines.flatMap((line) => {
           const rest = record.cost.lines.find((item) => item.lineId === line.id);
+          const name = chemicals.get(line.chemicalId)?.name ?? 'a line';
           return rest && rest.unclaimedQuantity > 0
             ? [
-                `${formatQuantity(roundQuantity(rest.unclaimedQuantity), line.packUnit)} of ${line.sku}`,
+                `${formatQuantity(roundQuantity(rest.unclaimedQuantity), line.packUnit)} of ${name} (${line.sku})`,
               ]
             : [];
         });
@@ -305,8 +313,10 @@ export function ordersService(store: Store, config: Config, options: OrdersServi
 
     recordInvoice(id: number, supplierInvoiceMinor: number, actor: User): Promise<OrderDetail> {
       return change(id, actor, async (repos, record) => {
-        if (['draft', 'cancelled'].includes(record.order.status)) {
-          throw AppError.conflict(`A ${record.order.status} order has no supplier invoice.`);
+        if (!invoicedStatuses.includes(record.order.status)) {
+          throw AppError.conflict(
+            `The supplier's invoice is recorded once the order is ordered; this one is ${record.order.status}.`,
+          );
         }
         await repos.orders.updateOrder(id, { supplierInvoiceMinor, updatedAt: nowIso() });
         await auditOrder(repos, actor.id, 'order.invoice_recorded', id, {

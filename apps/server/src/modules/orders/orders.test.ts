@@ -353,6 +353,12 @@ describe('shared orders: status moves and permissions', () => {
       { supplierReference: 'Q-1' },
       manager,
     ).expect(409);
+    await send(
+      'put',
+      `/api/orders/${order.id}/supplier-invoice`,
+      { supplierInvoiceMinor: 9735 },
+      manager,
+    ).expect(409);
     // the payments module records payments; here the shares are marked paid as it would
     const { store } = testContext();
     await store.transaction(async (repos) => {
@@ -381,6 +387,13 @@ describe('shared orders: status moves and permissions', () => {
       collectedMinor: 9735,
       owedMinor: 0,
     });
+    const invoiced = await send(
+      'put',
+      `/api/orders/${order.id}/supplier-invoice`,
+      { supplierInvoiceMinor: 9802 },
+      manager,
+    ).expect(200);
+    expect(invoiced.body.supplierInvoiceMinor).toBe(9802);
     // money was paid and no refund path is wired in this app: cancelling changes nothing
     const refused = await send(
       'post',
@@ -465,5 +478,24 @@ describe('shared orders: status moves and permissions', () => {
     // calc: goods 2 × 2333 + 999 = 5665; fees 2072; total 7737
     expect(closed.totalMinor).toBe(7737);
     expect(sumOfShares(closed)).toBe(7737);
+  });
+});
+
+describe('shared orders: alerts about claimed chemicals', () => {
+  it('when a member claimed a chemical that runs low, then the member gets the low-stock e-mail too', async () => {
+    const { order, solidLine, solid } = await openOrder();
+    await claim(order.id, solidLine.id, 50, otherMember).expect(201);
+    await send('patch', `/api/chemicals/${solid.id}`, { reorderPoint: 100 }, manager).expect(200);
+    const shelf = await stock.location();
+    const lot = await stock.lot(solid.id);
+    await stock.container(lot.id, shelf.id, { quantity: 20, unit: 'g' });
+    await send('post', '/api/alerts/evaluate', {}, admin).expect(200);
+    const outbox = await get('/api/outbox?kind=low-stock&pageSize=200', admin).expect(200);
+    const mine = outbox.body.items.filter(
+      (m: { dedupKey: string | null; recipient: { userId: number } }) =>
+        m.dedupKey?.startsWith(`low-stock:chemical:${solid.id}:`) &&
+        m.recipient.userId === otherMemberId,
+    );
+    expect(mine).toHaveLength(1);
   });
 });

@@ -8,6 +8,7 @@ import {
   type OrderCreate,
   type OrderDetail,
   type OrderMarkOrdered,
+  type OrderPatch,
   type OrderStatus,
 } from '@lotwise/shared';
 import { api, apiRequest, withQuery } from '../../lib/api-client';
@@ -171,6 +172,35 @@ export function useRecordInvoice(orderId: number) {
     apiRequest(`/api/orders/${orderId}/supplier-invoice`, {
       method: 'PUT',
       body: { supplierInvoiceMinor },
+      schema: orderDetailSchema,
+    }),
+  );
+}
+
+export function useUpdateOrder(orderId: number) {
+  return useOrderWrite(orderId, (patch: OrderPatch) =>
+    apiRequest(`/api/orders/${orderId}`, {
+      method: 'PATCH',
+      body: patch,
+      schema: orderDetailSchema,
+    }),
+  );
+}
+
+export function useChangeLinePacks(orderId: number) {
+  return useOrderWrite(orderId, ({ lineId, packs }: { lineId: number; packs: number }) =>
+    apiRequest(`/api/orders/${orderId}/lines/${lineId}`, {
+      method: 'PATCH',
+      body: { packs },
+      schema: orderDetailSchema,
+    }),
+  );
+}
+
+export function useRemoveLine(orderId: number) {
+  return useOrderWrite(orderId, (lineId: number) =>
+    apiRequest(`/api/orders/${orderId}/lines/${lineId}`, {
+      method: 'DELETE',
       schema: orderDetailSchema,
     }),
   );

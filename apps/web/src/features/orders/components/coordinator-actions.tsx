@@ -28,12 +28,17 @@ function AmountField({
   optional?: boolean;
 }) {
   return (
-    <Field label={`${label} (${currency})`} error={error} optional={optional} hint="e.g. 97.35">
+    <Field
+      label={`${label} (${currency})`}
+      error={error}
+      optional={optional}
+      hint="e.g. 97.35"
+      className="w-48"
+    >
       {(control) => (
         <Input
           {...control}
           inputMode="decimal"
-          className="w-40"
           value={value}
           onChange={(e) => onChange(e.target.value)}
         />

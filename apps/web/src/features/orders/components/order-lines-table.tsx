@@ -3,6 +3,7 @@ import { PictogramList } from '../../../components/hazards/pictogram-badge';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { formatAmount, formatPercent } from '../../../lib/format';
 import { money } from '../labels';
+import { LinePacksEditor } from './line-packs-editor';
 
 /** What the order buys: each line's chemical with its hazards, pack, price and what is claimed. */
 export function OrderLinesTable({ order }: { order: OrderDetail }) {
@@ -66,20 +67,21 @@ export function OrderLinesTable({ order }: { order: OrderDetail }) {
                       .filter(Boolean)
                       .join(' · ')}
                   </p>
+                  {order.abilities.mayEditLines && <LinePacksEditor order={order} line={line} />}
                 </td>
-                <td className="px-3 py-2 text-right tabular-nums">
+                <td className="px-3 py-2 text-right whitespace-nowrap tabular-nums">
                   <p>{money(line.totalMinor, order.currency)}</p>
                   <p className="text-xs text-ink-600">
                     {money(line.unitPriceMinor, order.currency)} a pack
                   </p>
                 </td>
-                <td className="px-3 py-2 text-right tabular-nums">
+                <td className="px-3 py-2 text-right whitespace-nowrap tabular-nums">
                   {formatAmount(line.claimedQuantity, line.packUnit)}
                   <p className="text-xs text-ink-600">
                     of {formatAmount(line.orderedQuantity, line.packUnit)}
                   </p>
                 </td>
-                <td className="px-3 py-2 text-right tabular-nums">
+                <td className="px-3 py-2 text-right whitespace-nowrap tabular-nums">
                   {line.unclaimedQuantity > 0 ? (
                     <>
                       <span className="font-medium">

@@ -82,7 +82,7 @@ function MyShare({ order, share }: { order: OrderDetail; share: OrderShare }) {
       </div>
       {editing && line && (
         <form onSubmit={save} className="flex flex-wrap items-end gap-2">
-          <Field label={`New quantity (${line.packUnit})`} hint={stepHint(line)}>
+          <Field label={`New quantity (${line.packUnit})`} hint={stepHint(line)} className="w-64">
             {(control) => (
               <Input
                 {...control}
@@ -90,7 +90,6 @@ function MyShare({ order, share }: { order: OrderDetail; share: OrderShare }) {
                 inputMode="decimal"
                 min={line.claimStep}
                 step={line.claimStep}
-                className="w-36"
                 value={quantity}
                 onChange={(e) => setQuantity(e.target.value)}
               />
@@ -129,7 +128,12 @@ function ClaimForm({ order }: { order: OrderDetail }) {
   }
 
   return (
-    <form onSubmit={submit} className="flex flex-col gap-3" aria-label="Claim a share">
+    <form
+      onSubmit={submit}
+      className="flex flex-col gap-3 border-t border-ink-100 pt-3"
+      aria-label="Claim a share"
+    >
+      <h3 className="text-sm font-semibold text-ink-900">Claim a share</h3>
       <div className="flex flex-wrap items-start gap-3">
         <Field label="Chemical" className="min-w-56 flex-1">
           {(control) => (

@@ -57,15 +57,16 @@ function CatalogueLines({
                 {money(item.priceMinor, item.currency)}
               </td>
               <td className="px-3 py-2">
-                <Input
-                  type="number"
-                  min={0}
-                  step={1}
-                  aria-label={`Packs of ${item.chemicalName} (${item.sku})`}
-                  className="w-20"
-                  value={packs[item.id] ?? ''}
-                  onChange={(e) => onChange(item.id, e.target.value)}
-                />
+                <div className="w-20">
+                  <Input
+                    type="number"
+                    min={0}
+                    step={1}
+                    aria-label={`Packs of ${item.chemicalName} (${item.sku})`}
+                    value={packs[item.id] ?? ''}
+                    onChange={(e) => onChange(item.id, e.target.value)}
+                  />
+                </div>
               </td>
             </tr>
           ))}
@@ -194,6 +195,11 @@ export function OrderNewPage() {
             )}
           </Field>
         </div>
+        {suppliers.isError && (
+          <Notice tone="danger" title="The suppliers could not be loaded">
+            {errorMessage(suppliers.error)}
+          </Notice>
+        )}
         <Field label="Notes" optional error={fields.notes}>
           {(control) => (
             <Textarea

@@ -209,4 +209,114 @@ describe('Order page', () => {
       reason: 'Supplier out of stock',
     });
   });
+
+  it('when the coordinator closes claims while a rest is unclaimed, then the server’s reason shows and the rest can be taken for the lab', async () => {
+    const managed = makeOrderDetail({
+      abilities: {
+        ...makeOrderDetail().abilities,
+        mayManage: true,
+        mayCloseClaims: true,
+        mayTakeRemainder: true,
+        mayEditLines: true,
+      },
+    });
+    const { requests } = mockFetch({
+      'GET /api/auth/me': { body: { user: coordinator } },
+      'GET /api/orders/4': { body: managed },
+      'POST /api/orders/4/close-claims': {
+        status: 409,
+        body: {
+          error: {
+            code: 'conflict',
+            message:
+              'Claims cannot close while part of the order is unclaimed (750.00 g of Potassium nitrate (NR-KNO3-500)). Take the rest for the lab, or reduce the packs.',
+          },
+        },
+      },
+      'POST /api/orders/4/lab-remainder': {
+        body: {
+          ...managed,
+          unclaimedMinor: 0,
+          abilities: { ...managed.abilities, mayTakeRemainder: false },
+        },
+      },
+      'PATCH /api/orders/4/lines/12': { body: managed },
+    });
+    renderApp('/orders/4');
+    await userEvent.click(
+      await screen.findByRole('button', { name: 'Close claims' }, { timeout: 5000 }),
+    );
+    await userEvent.click(screen.getByRole('button', { name: 'Close claims and fix amounts' }));
+    expect(
+      await screen.findByText(/Take the rest for the lab, or reduce the packs/),
+    ).toBeInTheDocument();
+    await userEvent.click(screen.getByRole('button', { name: 'Cancel' }));
+
+    const packs = screen.getByLabelText('Packs of Ethanol');
+    await userEvent.clear(packs);
+    await userEvent.type(packs, '1');
+    await userEvent.click(
+      within(screen.getByTestId('order-line-12')).getByRole('button', { name: 'Set packs' }),
+    );
+    await waitFor(() =>
+      expect(requests.find((r) => r.method === 'PATCH')?.body).toEqual({ packs: 1 }),
+    );
+
+    await userEvent.click(screen.getByRole('button', { name: 'Take the rest for the lab' }));
+    await waitFor(() => expect(screen.getByTestId('total-unclaimed')).toHaveTextContent('€0.00'));
+    expect(
+      screen.queryByRole('button', { name: 'Take the rest for the lab' }),
+    ).not.toBeInTheDocument();
+  });
+
+  it('when a draft has no deadline, then the coordinator sets one and opens the order', async () => {
+    const draft = makeOrderDetail({
+      status: 'draft',
+      claimDeadline: null,
+      claimsOpen: false,
+      shares: [],
+      abilities: {
+        ...makeOrderDetail().abilities,
+        mayClaim: false,
+        mayManage: true,
+        mayEditDraft: true,
+        mayEditLines: true,
+        mayOpen: true,
+        mayCancel: true,
+      },
+    });
+    const { requests } = mockFetch({
+      'GET /api/auth/me': { body: { user: coordinator } },
+      'GET /api/orders/4': { body: draft },
+      'PATCH /api/orders/4': ({ body }) => ({
+        body: { ...draft, claimDeadline: (body as { claimDeadline: string }).claimDeadline },
+      }),
+      'POST /api/orders/4/open': {
+        body: {
+          ...draft,
+          status: 'open',
+          claimsOpen: true,
+          claimDeadline: '2026-12-24',
+          abilities: { ...draft.abilities, mayOpen: false, mayClaim: true },
+        },
+      },
+    });
+    renderApp('/orders/4');
+    expect(
+      await screen.findByText('No deadline set yet', {}, { timeout: 5000 }),
+    ).toBeInTheDocument();
+    await userEvent.type(screen.getByLabelText('Claim deadline'), '2026-12-24');
+    await userEvent.click(screen.getByRole('button', { name: 'Set deadline' }));
+    await waitFor(() =>
+      expect(requests.find((r) => r.method === 'PATCH')?.body).toEqual({
+        claimDeadline: '2026-12-24',
+      }),
+    );
+    await userEvent.click(screen.getByRole('button', { name: 'Open for claims' }));
+    await waitFor(() =>
+      expect(screen.queryByRole('button', { name: 'Open for claims' })).not.toBeInTheDocument(),
+    );
+    expect(screen.getByText('Open for claims')).toBeInTheDocument();
+    expect(screen.getByRole('form', { name: 'Claim a share' })).toBeInTheDocument();
+  });
 });

@@ -9,6 +9,7 @@ import { isApiError } from '../../../lib/api-client';
 import { formatDate } from '../../../lib/format';
 import { useOrder } from '../api';
 import { CoordinatorActions } from '../components/coordinator-actions';
+import { DeadlineEditor } from '../components/deadline-editor';
 import { OrderLinesTable } from '../components/order-lines-table';
 import { OrderTotals } from '../components/order-totals';
 import { SharesTable } from '../components/shares-table';
@@ -43,6 +44,7 @@ function OrderHeader({ order }: { order: OrderDetail }) {
           {order.claimsClosedAt && (
             <span className="text-ink-600"> · closed {formatDate(order.claimsClosedAt)}</span>
           )}
+          {order.abilities.mayEditDraft && <DeadlineEditor order={order} />}
         </dd>
         <dt className="text-ink-600">Fees shared</dt>
         <dd className="text-ink-900">

@@ -114,23 +114,24 @@ export function OrdersListPage() {
           </Link>
         )}
       </header>
-      <div className="flex flex-col gap-1">
+      <div className="flex flex-col items-start gap-1">
         <label htmlFor="orders-status" className="text-sm font-medium text-ink-800">
           Status
         </label>
-        <Select
-          id="orders-status"
-          className="w-56"
-          value={query.status ?? ''}
-          onChange={(event) => update({ filters: { status: event.target.value || undefined } })}
-        >
-          <option value="">Any status</option>
-          {orderStatuses.map((value) => (
-            <option key={value} value={value}>
-              {orderStatusLooks[value].label}
-            </option>
-          ))}
-        </Select>
+        <div className="w-56">
+          <Select
+            id="orders-status"
+            value={query.status ?? ''}
+            onChange={(event) => update({ filters: { status: event.target.value || undefined } })}
+          >
+            <option value="">Any status</option>
+            {orderStatuses.map((value) => (
+              <option key={value} value={value}>
+                {orderStatusLooks[value].label}
+              </option>
+            ))}
+          </Select>
+        </div>
       </div>
       {orders.isError ? (
         <ErrorState
