@@ -53,11 +53,13 @@ export function choosePacksFrom(
   quantity: number,
   unit: StockUnit,
   material: MeasuredMaterial,
+  options: { maxPackKinds?: number } = {},
 ): PackChoice {
   const suppliers = new Map<number, OfferRow>();
   for (const offer of offers)
     if (!suppliers.has(offer.supplierId)) suppliers.set(offer.supplierId, offer);
   return choosePacks({
+    ...options,
     quantity,
     unit,
     material,

@@ -13,6 +13,7 @@ import {
 import type { Config } from '../../config';
 import type { Repositories, Store } from '../../db/store';
 import { AppError } from '../../lib/app-error';
+import { requireChemicalIn } from './purchasing-chemical';
 import { addToDraftOrder, type DraftLine } from './draft-order';
 import { choiceNotes, choosePacksFrom, onOrderAmount, presentOffer } from './offers';
 import type { OfferRow, PurchasingChemicalRow, ReorderChemicalRow } from './reorder.repository';
@@ -228,17 +229,7 @@ export function reorderService(store: Store, config: Pick<Config, 'reorder' | 'c
     /** A plan's shortfall of one chemical onto the draft order of the best supplier. */
     async draftShortfall(input: ShortfallDraft, actor: User): Promise<DraftedOrder> {
       return store.transaction(async (repos) => {
-        const chemical = await repos.reorder.chemical(input.chemicalId);
-        if (!chemical) {
-          throw AppError.validation(`There is no chemical #${input.chemicalId}.`, {
-            chemicalId: `no chemical #${input.chemicalId}`,
-          });
-        }
-        if (chemical.stockUnit !== input.unit) {
-          throw AppError.validation(`${chemical.name} is counted in ${chemical.stockUnit}.`, {
-            unit: `must be ${chemical.stockUnit}, the stock unit of ${chemical.name}`,
-          });
-        }
+        const chemical = await requireChemicalIn(repos, input.chemicalId, input.unit);
         const offers = await repos.reorder.offers([chemical.id]);
         let found;
         try {

@@ -1,4 +1,4 @@
-import { choosePacks, ChemError } from '@lotwise/chem';
+import { ChemError } from '@lotwise/chem';
 import {
   can,
   todayIso,
@@ -14,9 +14,10 @@ import type { Repositories, Store } from '../../db/store';
 import { nowIso } from '../../db/sql';
 import { roundToStored } from '../../db/quantities';
 import { AppError } from '../../lib/app-error';
+import { requireChemicalIn } from '../reorder/purchasing-chemical';
 import type { OrderLineRow } from '../orders/order-line.entity';
 import { addToDraftOrder } from '../reorder/draft-order';
-import { convertAmount } from '../reorder/offers';
+import { choosePacksFrom, convertAmount } from '../reorder/offers';
 import type { OfferRow, PurchasingChemicalRow } from '../reorder/reorder.repository';
 
 const notFound = (id: number) => AppError.notFound(`There is no request #${id}.`);
@@ -43,26 +44,8 @@ function bestItem(
   chemical: PurchasingChemicalRow,
 ): { item: OfferRow; packs: number } | null {
   if (offers.length === 0) return null;
-  const suppliers = new Map(offers.map((offer) => [offer.supplierId, offer]));
-  const choice = choosePacks({
-    quantity,
-    unit: chemical.stockUnit,
-    material: chemical,
+  const choice = choosePacksFrom(offers, quantity, chemical.stockUnit, chemical, {
     maxPackKinds: 1,
-    packs: offers.map((offer) => ({
-      id: offer.catalogItemId,
-      supplierId: offer.supplierId,
-      packSize: offer.packSize,
-      packUnit: offer.packUnit,
-      priceMinor: offer.priceMinor,
-      hazardous: offer.hazardous,
-    })),
-    suppliers: [...suppliers.values()].map((offer) => ({
-      supplierId: offer.supplierId,
-      shippingFeeMinor: offer.shippingFeeMinor,
-      hazardousFeeMinor: offer.hazardousFeeMinor,
-      minimumOrderMinor: offer.minimumOrderMinor,
-    })),
   });
   const pack = choice.chosen?.packs[0];
   const item = pack && offers.find((offer) => offer.catalogItemId === Number(pack.packId));
@@ -135,17 +118,7 @@ export function requestsService(store: Store, config: Pick<Config, 'currency'>) 
   return {
     async create(input: RequestCreateParsed, actor: User): Promise<MemberRequest> {
       return store.transaction(async (repos) => {
-        const chemical = await repos.reorder.chemical(input.chemicalId);
-        if (!chemical) {
-          throw AppError.validation(`There is no chemical #${input.chemicalId}.`, {
-            chemicalId: `no chemical #${input.chemicalId}`,
-          });
-        }
-        if (chemical.stockUnit !== input.unit) {
-          throw AppError.validation(`${chemical.name} is counted in ${chemical.stockUnit}.`, {
-            unit: `must be ${chemical.stockUnit}, the stock unit of ${chemical.name}`,
-          });
-        }
+        const chemical = await requireChemicalIn(repos, input.chemicalId, input.unit);
         if (input.neededBy !== null && input.neededBy < todayIso()) {
           throw AppError.validation('The date needed has passed.', {
             neededBy: 'must be today or later',

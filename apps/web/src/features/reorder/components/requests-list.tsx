@@ -38,16 +38,41 @@ export function RequestsList({
       ? withdraw.variables
       : undefined;
   const failure = fold.error ?? withdraw.error;
+  const folded = fold.data;
 
-  if (requests.length === 0) return <p className="text-sm text-ink-600">{emptyText}</p>;
+  const foldedNotice = folded && folded.orderId !== null && (
+    <Notice tone="ok">
+      {formatAmount(folded.quantity, folded.unit)} of {folded.chemical.name} is now{' '}
+      {folded.requester.displayName}’s share in{' '}
+      <Link
+        to={orderHref(folded.orderId)}
+        className="text-accent-700 underline-offset-2 hover:underline"
+      >
+        order #{folded.orderId}
+      </Link>
+      .
+    </Notice>
+  );
+  if (requests.length === 0) {
+    return (
+      <div className="flex flex-col gap-2">
+        {foldedNotice}
+        <p className="text-sm text-ink-600">{emptyText}</p>
+      </div>
+    );
+  }
   return (
     <div className="flex flex-col gap-2">
       {failure && <Notice tone="danger">{errorMessage(failure)}</Notice>}
-      <ul className="flex flex-col divide-y divide-ink-200 rounded-lg border border-ink-200 bg-white">
+      {foldedNotice}
+      <ul className="grid gap-2 md:grid-cols-2 xl:grid-cols-3 min-[1800px]:grid-cols-1">
         {requests.map((request) => {
           const look = statusLooks[request.status];
           return (
-            <li key={request.id} className="flex flex-col gap-1.5 px-3 py-2.5 text-sm">
+            <li
+              key={request.id}
+              className="flex flex-col gap-1.5 rounded-lg border border-ink-200 bg-white px-3 py-2.5 text-sm"
+            >
               <div className="flex flex-wrap items-baseline justify-between gap-2">
                 <p className="text-ink-900">
                   <strong className="tabular-nums">

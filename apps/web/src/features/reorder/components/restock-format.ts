@@ -7,3 +7,8 @@ export const orderHref = (orderId: number) => `${paths.orders}/${orderId}`;
 export function wholeDays(days: number): number {
   return Math.floor(days + 1e-9);
 }
+
+/** "1 day", "21 days". */
+export function daysText(days: number): string {
+  return `${days} ${days === 1 ? 'day' : 'days'}`;
+}

@@ -11,7 +11,7 @@ import { Badge } from '../../../components/ui/badge';
 import { Checkbox } from '../../../components/ui/input';
 import { paths } from '../../../config/paths';
 import { formatAmount, formatDate } from '../../../lib/format';
-import { wholeDays } from './restock-format';
+import { daysText, wholeDays } from './restock-format';
 
 /** When to reorder, in words and an icon (never colour alone). */
 function WhenBadge({ suggestion }: { suggestion: ReorderSuggestion }) {
@@ -32,7 +32,7 @@ function WhenBadge({ suggestion }: { suggestion: ReorderSuggestion }) {
   const days = wholeDays(suggestion.daysToReorderPoint);
   return (
     <Badge tone={days <= 14 ? 'warn' : 'ok'} icon={<CalendarClock aria-hidden="true" />}>
-      {days === 0 ? 'Reorder today' : `Reorder in ${days} ${days === 1 ? 'day' : 'days'}`}
+      {days === 0 ? 'Reorder today' : `Reorder in ${daysText(days)}`}
     </Badge>
   );
 }
@@ -174,7 +174,7 @@ export function SuggestionsTable({
                   </div>
                 </th>
                 <td className="px-3 py-2 text-right tabular-nums">
-                  {formatAmount(item.onHand, item.unit)}
+                  <span className="whitespace-nowrap">{formatAmount(item.onHand, item.unit)}</span>
                   <span className="block text-xs text-ink-600">
                     reorder at {formatAmount(item.reorderPoint, item.unit)}
                   </span>
@@ -190,9 +190,12 @@ export function SuggestionsTable({
                     <span className="text-ink-600">none drawn</span>
                   ) : (
                     <>
-                      {formatAmount(item.ratePerDay * 7, item.unit)}/week
+                      <span className="whitespace-nowrap">
+                        {formatAmount(item.ratePerDay * 7, item.unit)}/week
+                      </span>
                       <span className="block text-xs text-ink-600">
-                        {formatAmount(item.consumed, item.unit)} in {wholeDays(item.rateDays)} days
+                        {formatAmount(item.consumed, item.unit)} in{' '}
+                        {daysText(wholeDays(item.rateDays))}
                       </span>
                     </>
                   )}
@@ -206,7 +209,7 @@ export function SuggestionsTable({
                   )}
                   {item.daysLeft !== null && (
                     <span className="block text-xs text-ink-600 tabular-nums">
-                      empty in about {wholeDays(item.daysLeft)} days
+                      empty in about {daysText(wholeDays(item.daysLeft))}
                     </span>
                   )}
                 </td>
@@ -214,10 +217,12 @@ export function SuggestionsTable({
                   {item.quantityToBuy === null ? (
                     <span className="text-ink-600">no reorder quantity</span>
                   ) : (
-                    formatAmount(item.quantityToBuy, item.unit)
+                    <span className="whitespace-nowrap">
+                      {formatAmount(item.quantityToBuy, item.unit)}
+                    </span>
                   )}
                 </td>
-                <td className="px-3 py-2">
+                <td className="min-w-60 px-3 py-2">
                   <OfferCell offer={item.offer} suggestion={item} currency={currency} />
                 </td>
               </tr>

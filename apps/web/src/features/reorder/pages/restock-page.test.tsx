@@ -217,6 +217,27 @@ describe('Restock page', () => {
     await waitFor(() => expect(router.state.location.pathname).toBe('/orders/23'));
   });
 
+  it('when the coordinator folds a request, then it becomes the member’s share and the order is linked', async () => {
+    const { requests } = mockFetch({
+      'GET /api/auth/me': { body: { user: technician } },
+      'GET /api/reorder-suggestions': { body: list },
+      'GET /api/requests': { body: page([request]) },
+      'POST /api/requests/31/fold': {
+        body: { ...request, status: 'folded', orderId: 24, shareId: 40 },
+      },
+    });
+    renderApp('/orders/restock');
+    await userEvent.click(
+      await screen.findByRole('button', { name: 'Add to a draft order as their share' }),
+    );
+    expect(await screen.findByRole('link', { name: 'order #24' })).toHaveAttribute(
+      'href',
+      '/orders/24',
+    );
+    expect(screen.getByText(/is now Robin Example’s share in/)).toBeInTheDocument();
+    expect(requests.find((r) => r.method === 'POST')?.body).toEqual({});
+  });
+
   it('when a member opens it, then they cannot draft but can ask for a chemical and see their requests', async () => {
     mockFetch({
       'GET /api/auth/me': { body: { user: makeUser({ role: 'member' }) } },

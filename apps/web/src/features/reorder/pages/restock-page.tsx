@@ -10,6 +10,7 @@ import { Checkbox, Input } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { errorMessage, isApiError } from '../../../lib/api-client';
+import { cn } from '../../../lib/cn';
 import { useCan } from '../../../lib/auth';
 import { useDebouncedValue } from '../../../lib/use-debounced-value';
 import { useDraftOrders, useReorderSuggestions, useRequests } from '../api';
@@ -94,8 +95,12 @@ export function RestockPage() {
         </p>
       </div>
       <SafetyCaution />
-      <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_24rem]">
-        <section aria-labelledby="suggestions-heading" className="flex min-w-0 flex-col gap-3">
+      {/* Requests sit above the table, and beside it where the screen is wide enough. */}
+      <div className="grid gap-4 min-[1800px]:grid-cols-[minmax(0,1fr)_20rem]">
+        <section
+          aria-labelledby="suggestions-heading"
+          className="order-last flex min-w-0 flex-col gap-3 min-[1800px]:order-first"
+        >
           <h2 id="suggestions-heading" className="sr-only">
             Reorder suggestions
           </h2>
@@ -166,9 +171,15 @@ export function RestockPage() {
             </>
           )}
         </section>
-        <aside className="flex flex-col gap-4">
+        <aside className="grid items-start gap-4 lg:grid-cols-2 min-[1800px]:grid-cols-1">
           {mayRequest && !coordinator && <RequestForm />}
-          <section aria-labelledby="requests-heading" className="flex flex-col gap-2">
+          <section
+            aria-labelledby="requests-heading"
+            className={cn(
+              'flex flex-col gap-2',
+              coordinator && 'lg:col-span-2 min-[1800px]:col-span-1',
+            )}
+          >
             <h2 id="requests-heading" className="text-base font-semibold text-ink-900">
               {coordinator ? 'Members’ open requests' : 'Your requests'}
             </h2>
