@@ -42,6 +42,14 @@ export const paths = {
     `/preparations/usage/${chemicalId}`,
   lotProvenance: (id: number | string = ':id') => `/preparations/lots/${id}/provenance`,
   orders: '/orders',
+  /** The signed-in member's shared orders and what they paid. */
+  purchases: '/purchases',
+  /** A member's receipt for one order (print view). */
+  orderReceipt: (id: number | string = ':id') => `/orders/${id}/receipt`,
+  /** The coordinator's money summary of one order. */
+  orderMoney: (id: number | string = ':id') => `/orders/${id}/money`,
+  /** Receiving an ordered delivery into members' containers. */
+  orderReceive: (id: number | string = ':id') => `/orders/${id}/receive`,
   alerts: '/alerts',
   alertPreferences: '/alerts/preferences',
   adminOutbox: '/admin/outbox',

@@ -7,6 +7,7 @@ import {
   FlaskRound,
   Mail,
   Package,
+  ReceiptText,
   ShoppingCart,
   Users,
   type LucideIcon,
@@ -20,7 +21,8 @@ export interface NavItem {
   icon: LucideIcon;
   /** Not built yet: the page says so and tells what it will do. */
   coming?: boolean;
-  section?: 'admin';
+  /** A group of its own in the navigation, under a heading. */
+  section?: 'purchasing' | 'admin';
 }
 
 export const navItems: readonly NavItem[] = [
@@ -39,6 +41,13 @@ export const navItems: readonly NavItem[] = [
     permission: 'orders.read',
     icon: ShoppingCart,
     coming: true,
+  },
+  {
+    label: 'My purchases',
+    to: paths.purchases,
+    permission: 'orders.join',
+    icon: ReceiptText,
+    section: 'purchasing',
   },
   { label: 'Alerts', to: paths.alerts, permission: 'alerts.read', icon: Bell },
   {

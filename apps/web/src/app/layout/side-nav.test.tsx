@@ -21,7 +21,7 @@ describe('SideNav', () => {
     expect(navLabels('viewer')).toEqual(['Chemicals', 'Stock', 'Preparations']);
   });
 
-  it('when a member signs in, then runs, orders and alerts show but not administration', () => {
+  it('when a member signs in, then runs, orders, alerts and their purchases show but not administration', () => {
     expect(navLabels('member')).toEqual([
       'Chemicals',
       'Stock',
@@ -29,7 +29,9 @@ describe('SideNav', () => {
       'Runs',
       'Orders',
       'Alerts',
+      'My purchases',
     ]);
+    expect(screen.getByText('Purchasing')).toBeInTheDocument();
   });
 
   it('when an admin signs in, then People and Outbox under Admin show too', () => {
@@ -40,6 +42,7 @@ describe('SideNav', () => {
       'Runs',
       'Orders',
       'Alerts',
+      'My purchases',
       'People',
       'Outbox',
     ]);

@@ -32,7 +32,8 @@ function Item({ item }: { item: NavItem }) {
 
 export function SideNav({ role }: { role: Role }) {
   const items = navItemsFor(role);
-  const main = items.filter((item) => item.section !== 'admin');
+  const main = items.filter((item) => item.section === undefined);
+  const purchasing = items.filter((item) => item.section === 'purchasing');
   const admin = items.filter((item) => item.section === 'admin');
   return (
     <nav aria-label="Main" className="flex flex-col gap-5 px-3 py-4">
@@ -41,6 +42,18 @@ export function SideNav({ role }: { role: Role }) {
           <Item key={item.to} item={item} />
         ))}
       </ul>
+      {purchasing.length > 0 && (
+        <div>
+          <p className="mb-1 px-2.5 text-xs font-semibold tracking-wide text-ink-600 uppercase">
+            Purchasing
+          </p>
+          <ul className="flex flex-col gap-0.5">
+            {purchasing.map((item) => (
+              <Item key={item.to} item={item} />
+            ))}
+          </ul>
+        </div>
+      )}
       {admin.length > 0 && (
         <div>
           <p className="mb-1 px-2.5 text-xs font-semibold tracking-wide text-ink-600 uppercase">

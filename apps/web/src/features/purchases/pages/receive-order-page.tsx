@@ -1,0 +1,493 @@
+import { useState } from 'react';
+import { Link, useParams } from 'react-router';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { ChevronLeft, PackageCheck, Printer, Lock } from 'lucide-react';
+import {
+  todayIso,
+  type ReceiveOrder,
+  type ReceivingLine,
+  type ReceivingView,
+} from '@lotwise/shared';
+import { HazardCodes } from '../../../components/hazards/hazard-codes';
+import { SafetyCaution } from '../../../components/hazards/safety-caution';
+import { Button, buttonClasses } from '../../../components/ui/button';
+import { useConfirmation } from '../../../components/ui/confirmation-dialog';
+import { ErrorState } from '../../../components/ui/error-state';
+import { Field } from '../../../components/ui/field';
+import { Input, Select } from '../../../components/ui/input';
+import { Notice } from '../../../components/ui/notice';
+import { PageSpinner } from '../../../components/ui/spinner';
+import { paths } from '../../../config/paths';
+import { errorMessage, isApiError, sendWithConfirmation, withQuery } from '../../../lib/api-client';
+import { formatAmount, formatDateTime } from '../../../lib/format';
+import {
+  purchaseKeys,
+  receiveOrder,
+  uploadCertificate,
+  useCloseOrder,
+  usePlaces,
+  useReceiving,
+} from '../api';
+import { OrderStatusBadge } from '../components/order-status-badge';
+
+interface LineInput {
+  packsReceived: string;
+  supplierLotNumber: string;
+  expiresOn: string;
+  certificate: File | null;
+}
+
+const th = 'px-2.5 py-2';
+
+function PlaceSelect({
+  id,
+  value,
+  onChange,
+  emptyLabel,
+  ...rest
+}: {
+  id?: string;
+  value: string;
+  onChange: (value: string) => void;
+  emptyLabel: string;
+  'aria-label'?: string;
+  'aria-describedby'?: string;
+  'aria-invalid'?: boolean;
+}) {
+  const places = usePlaces();
+  return (
+    <Select
+      id={id}
+      value={value}
+      onChange={(event) => onChange(event.target.value)}
+      disabled={places.isPending}
+      {...rest}
+    >
+      <option value="">{places.isPending ? 'Loading places…' : emptyLabel}</option>
+      {(places.data?.items ?? []).map((place) => (
+        <option key={place.id} value={place.id}>
+          {place.path}
+        </option>
+      ))}
+    </Select>
+  );
+}
+
+function ChemicalCell({ line }: { line: ReceivingLine }) {
+  return (
+    <div className="flex flex-col gap-1">
+      <p className="font-semibold text-ink-900">{line.chemical.name}</p>
+      <p className="text-xs text-ink-600">
+        <span className="font-mono">{line.sku}</span> · {line.packs} ×{' '}
+        {formatAmount(line.packSize, line.packUnit)}
+        {line.grade ? ` · ${line.grade}` : ''}
+        {line.hazardous ? ' · ships as hazardous goods' : ''}
+      </p>
+      <HazardCodes
+        pictograms={line.chemical.ghsPictograms}
+        statements={line.chemical.hazardStatements}
+      />
+    </div>
+  );
+}
+
+/** After receiving: each portion's container, its owner and place, and closing the order. */
+function ReceivedView({ view }: { view: ReceivingView }) {
+  const close = useCloseOrder(view.orderId);
+  const ids = view.lines.flatMap((line) =>
+    line.shares.flatMap((share) => (share.container ? [share.container.id] : [])),
+  );
+  return (
+    <div className="flex flex-col gap-4">
+      <Notice tone="ok" title="The delivery is in stock">
+        Received {view.receivedAt ? formatDateTime(view.receivedAt) : ''}. Each portion below is its
+        own labelled container; members were e-mailed where theirs is. Put a label with its code on
+        each container.
+      </Notice>
+      <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+        <table className="w-full text-sm" aria-label="Containers made for the portions">
+          <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs font-semibold tracking-wide text-ink-600 uppercase">
+            <tr>
+              <th className={th}>Chemical</th>
+              <th className={th}>Lot</th>
+              <th className={th}>Belongs to</th>
+              <th className={th}>Label code</th>
+              <th className={`${th} text-right`}>Quantity</th>
+              <th className={th}>Location</th>
+            </tr>
+          </thead>
+          <tbody>
+            {view.lines.flatMap((line) =>
+              line.shares.map((share, index) => (
+                <tr
+                  key={share.shareId}
+                  className="border-b border-ink-100 align-top last:border-b-0"
+                >
+                  <td className={th}>{index === 0 ? <ChemicalCell line={line} /> : null}</td>
+                  <td className={th}>
+                    {index === 0 && line.lot
+                      ? (line.lot.supplierLotNumber ?? `#${line.lot.id}`)
+                      : null}
+                  </td>
+                  <td className={th}>{share.holder}</td>
+                  <td className={th}>
+                    {share.container ? (
+                      <Link
+                        to={paths.stockContainer(share.container.id)}
+                        className="font-mono font-semibold text-accent-700 underline-offset-2 hover:underline"
+                      >
+                        {share.container.labelCode}
+                      </Link>
+                    ) : (
+                      '—'
+                    )}
+                  </td>
+                  <td className={`${th} text-right tabular-nums`}>
+                    {share.container
+                      ? formatAmount(share.container.quantity, share.container.unit)
+                      : '—'}
+                  </td>
+                  <td className={th}>{share.container?.locationPath ?? '—'}</td>
+                </tr>
+              )),
+            )}
+          </tbody>
+        </table>
+      </div>
+      <div className="flex flex-wrap items-center gap-2">
+        <Link
+          to={withQuery(paths.stockLabels, { ids: ids.join(',') })}
+          className={buttonClasses('primary')}
+        >
+          <Printer aria-hidden="true" className="size-4" />
+          Print labels
+        </Link>
+        {view.status === 'received' && (
+          <Button
+            onClick={() => close.mutate()}
+            busy={close.isPending}
+            disabled={!view.closable}
+            icon={<Lock aria-hidden="true" className="size-4" />}
+          >
+            Close order
+          </Button>
+        )}
+        {view.status === 'closed' && <OrderStatusBadge status="closed" />}
+      </div>
+      {view.status === 'received' && view.closeBlockers.length > 0 && (
+        <Notice tone="warn" title="Not ready to close">
+          {view.closeBlockers.join(' ')}
+        </Notice>
+      )}
+      {close.isError && <Notice tone="danger">{errorMessage(close.error)}</Notice>}
+    </div>
+  );
+}
+
+function ReceiveForm({ view }: { view: ReceivingView }) {
+  const queryClient = useQueryClient();
+  const confirmation = useConfirmation();
+  const [receivedOn, setReceivedOn] = useState(todayIso());
+  const [locationId, setLocationId] = useState('');
+  const [lines, setLines] = useState<Record<number, LineInput>>(() =>
+    Object.fromEntries(
+      view.lines.map((line) => [
+        line.lineId,
+        {
+          packsReceived: String(line.packs),
+          supplierLotNumber: '',
+          expiresOn: '',
+          certificate: null,
+        },
+      ]),
+    ),
+  );
+  const [places, setPlaces] = useState<Record<number, string>>({});
+  const [fields, setFields] = useState<Record<string, string>>({});
+  const [certificateError, setCertificateError] = useState<string | null>(null);
+
+  const receive = useMutation({
+    mutationFn: async (body: ReceiveOrder) => {
+      const result = await sendWithConfirmation(
+        (confirm) => receiveOrder(view.orderId, { ...body, confirm }),
+        confirmation.ask,
+      );
+      if (!result) return null;
+      // The certificates go to the lots just made, through the lots' own upload.
+      const failed: string[] = [];
+      for (const line of result.lines) {
+        const file = lines[line.lineId]?.certificate;
+        if (!file || !line.lot) continue;
+        try {
+          await uploadCertificate(line.lot.id, file);
+        } catch (error) {
+          failed.push(`${line.chemical.name}: ${errorMessage(error)}`);
+        }
+      }
+      if (failed.length > 0) {
+        setCertificateError(
+          `The delivery was received, but a certificate was not stored (${failed.join('; ')}). Add it on the container’s page.`,
+        );
+      }
+      return result;
+    },
+    onSuccess: (result) => {
+      if (!result) return;
+      queryClient.setQueryData(purchaseKeys.receiving(view.orderId), result);
+      void queryClient.invalidateQueries({ queryKey: purchaseKeys.all });
+      void queryClient.invalidateQueries({ queryKey: ['stock'] });
+      void queryClient.invalidateQueries({ queryKey: ['orders'] });
+    },
+    onError: (error) => {
+      if (isApiError(error)) setFields(error.fields);
+    },
+  });
+
+  function setLine(lineId: number, change: Partial<LineInput>) {
+    setLines((current) => ({ ...current, [lineId]: { ...current[lineId]!, ...change } }));
+  }
+
+  function handleSubmit(event: React.FormEvent) {
+    event.preventDefault();
+    setFields({});
+    setCertificateError(null);
+    if (!locationId) {
+      setFields({ locationId: 'Choose where the portions are stored.' });
+      return;
+    }
+    receive.mutate({
+      receivedOn,
+      locationId: Number(locationId),
+      lines: view.lines.map((line) => {
+        const input = lines[line.lineId]!;
+        return {
+          lineId: line.lineId,
+          packsReceived: Number(input.packsReceived),
+          supplierLotNumber: input.supplierLotNumber,
+          expiresOn: input.expiresOn || null,
+        };
+      }),
+      shares: Object.entries(places)
+        .filter(([, place]) => place !== '')
+        .map(([shareId, place]) => ({ shareId: Number(shareId), locationId: Number(place) })),
+    });
+  }
+
+  const count = view.lines.reduce((sum, line) => sum + line.shares.length, 0);
+  return (
+    <form noValidate onSubmit={handleSubmit} className="flex flex-col gap-5">
+      <section
+        aria-labelledby="receive-where-heading"
+        className="grid gap-3 rounded-lg border border-ink-200 bg-white px-4 py-3 sm:grid-cols-2"
+      >
+        <h2 id="receive-where-heading" className="text-base font-semibold sm:col-span-2">
+          1. When and where
+        </h2>
+        <Field label="Received on" error={fields.receivedOn}>
+          {(c) => (
+            <Input
+              {...c}
+              type="date"
+              value={receivedOn}
+              onChange={(e) => setReceivedOn(e.target.value)}
+            />
+          )}
+        </Field>
+        <Field
+          label="Store the portions in"
+          hint="Every portion goes here unless you choose another place for it below"
+          error={fields.locationId}
+        >
+          {(c) => (
+            <PlaceSelect
+              {...c}
+              value={locationId}
+              onChange={setLocationId}
+              emptyLabel="Choose a location"
+            />
+          )}
+        </Field>
+      </section>
+
+      {view.lines.map((line, lineIndex) => {
+        const input = lines[line.lineId]!;
+        const prefix = `lines.${lineIndex}`;
+        return (
+          <section
+            key={line.lineId}
+            aria-label={`What came for ${line.chemical.name}`}
+            className="flex flex-col gap-3 rounded-lg border border-ink-200 bg-white px-4 py-3"
+          >
+            <h2 className="text-base font-semibold">
+              {lineIndex + 2}. {line.chemical.name}
+            </h2>
+            <ChemicalCell line={line} />
+            <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
+              <Field
+                label="Packs received"
+                hint={`${line.packs} ordered`}
+                error={fields[`${prefix}.packsReceived`]}
+              >
+                {(c) => (
+                  <Input
+                    {...c}
+                    inputMode="numeric"
+                    value={input.packsReceived}
+                    onChange={(e) => setLine(line.lineId, { packsReceived: e.target.value })}
+                  />
+                )}
+              </Field>
+              <Field
+                label="Supplier lot number"
+                optional
+                hint="As on the bottle or the certificate"
+                error={fields[`${prefix}.supplierLotNumber`]}
+              >
+                {(c) => (
+                  <Input
+                    {...c}
+                    value={input.supplierLotNumber}
+                    onChange={(e) => setLine(line.lineId, { supplierLotNumber: e.target.value })}
+                  />
+                )}
+              </Field>
+              <Field label="Expires on" optional error={fields[`${prefix}.expiresOn`]}>
+                {(c) => (
+                  <Input
+                    {...c}
+                    type="date"
+                    value={input.expiresOn}
+                    onChange={(e) => setLine(line.lineId, { expiresOn: e.target.value })}
+                  />
+                )}
+              </Field>
+              <Field label="Certificate of analysis" optional hint="PDF, or a scan as PNG or JPEG">
+                {(c) => (
+                  <input
+                    {...c}
+                    type="file"
+                    accept="application/pdf,.pdf,image/png,.png,image/jpeg,.jpg,.jpeg"
+                    className="text-sm"
+                    onChange={(e) =>
+                      setLine(line.lineId, { certificate: e.target.files?.[0] ?? null })
+                    }
+                  />
+                )}
+              </Field>
+            </div>
+            <table className="w-full text-sm" aria-label={`Portions of ${line.chemical.name}`}>
+              <thead className="border-b border-ink-200 text-left text-xs font-semibold tracking-wide text-ink-600 uppercase">
+                <tr>
+                  <th className={th}>Portion for</th>
+                  <th className={`${th} text-right`}>Claimed</th>
+                  <th className={`${th} text-right`}>Into stock</th>
+                  <th className={th}>Location</th>
+                </tr>
+              </thead>
+              <tbody>
+                {line.shares.map((share) => (
+                  <tr key={share.shareId} className="border-b border-ink-100 last:border-b-0">
+                    <td className={th}>{share.holder}</td>
+                    <td className={`${th} text-right tabular-nums`}>
+                      {formatAmount(share.quantity, share.packUnit)}
+                    </td>
+                    <td className={`${th} text-right tabular-nums`}>
+                      {share.stockQuantity === null
+                        ? 'needs the density'
+                        : formatAmount(share.stockQuantity, share.stockUnit)}
+                    </td>
+                    <td className={th}>
+                      <PlaceSelect
+                        aria-label={`Location of ${share.holder}’s portion`}
+                        value={places[share.shareId] ?? ''}
+                        onChange={(value) =>
+                          setPlaces((current) => ({ ...current, [share.shareId]: value }))
+                        }
+                        emptyLabel="Same as above"
+                      />
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </section>
+        );
+      })}
+
+      {receive.isError && (
+        <Notice tone="danger" title="Nothing was received">
+          {errorMessage(receive.error)}
+        </Notice>
+      )}
+      {certificateError && <Notice tone="warn">{certificateError}</Notice>}
+      <div className="flex items-center gap-3">
+        <Button
+          type="submit"
+          variant="primary"
+          busy={receive.isPending}
+          icon={<PackageCheck aria-hidden="true" className="size-4" />}
+        >
+          Receive into {count} {count === 1 ? 'container' : 'containers'}
+        </Button>
+        {receive.isPending && (
+          <span className="text-sm text-ink-600">Making the lots and the members’ containers…</span>
+        )}
+      </div>
+      {confirmation.dialog}
+    </form>
+  );
+}
+
+/** `/orders/:id/receive`: an ordered delivery into stock, one container per member's portion. */
+export function ReceiveOrderPage() {
+  const orderId = Number(useParams().id);
+  const query = useReceiving(orderId);
+  return (
+    <div className="flex flex-col gap-5">
+      <Link
+        to={paths.orders}
+        className="inline-flex items-center gap-1 self-start text-sm text-ink-600 hover:text-ink-900"
+      >
+        <ChevronLeft aria-hidden="true" className="size-4" />
+        Orders
+      </Link>
+      {query.isPending ? (
+        <PageSpinner label="Loading the order…" />
+      ) : query.isError ? (
+        <ErrorState error={query.error} onRetry={() => void query.refetch()} />
+      ) : (
+        <>
+          <header>
+            <h1 className="text-xl font-semibold text-ink-900">
+              Receive order #{query.data.orderId}: {query.data.title}
+            </h1>
+            <p className="flex flex-wrap items-center gap-2 text-sm text-ink-600">
+              <OrderStatusBadge status={query.data.status} />
+              {query.data.supplierName}
+              {query.data.supplierReference && ` · reference ${query.data.supplierReference}`}
+            </p>
+            {query.data.receivable && (
+              <p className="mt-1 max-w-3xl text-sm text-ink-600">
+                Record what came for each line. Lotwise makes a lot per line and pours each pack
+                into one labelled container per share, owned by its member (the lab’s share stays
+                the lab’s). Everything is saved together, or nothing is.
+              </p>
+            )}
+          </header>
+          {query.data.receivable ? (
+            <ReceiveForm view={query.data} />
+          ) : query.data.status === 'received' || query.data.status === 'closed' ? (
+            <ReceivedView view={query.data} />
+          ) : (
+            <Notice tone="info" title="Not ready to receive">
+              Only an order marked ordered can be received; this one is {query.data.status}.
+            </Notice>
+          )}
+          <SafetyCaution compact />
+        </>
+      )}
+    </div>
+  );
+}
+
+export { ReceiveOrderPage as Component };
