@@ -12,6 +12,7 @@ import type { Repositories, Store } from '../../db/store';
 import { nowIso } from '../../db/sql';
 import { AppError } from '../../lib/app-error';
 import { csvLine, csvLines, utf8Bom, type CsvValue } from '../../lib/csv';
+import type { ChemicalRow } from '../chemicals/chemical.entity';
 import type { OrderRecord } from '../orders/orders.repository';
 import type { PaymentRow } from '../payments/payment.entity';
 import { movementsOf, shareFigures, sumFigures } from './money';
@@ -46,10 +47,17 @@ async function orderMoney(
   const people = await repos.receiving.people(
     shares.flatMap((share) => (share.userId === null ? [] : [share.userId])),
   );
-  const chemicalNames = new Map<number, string>();
+  const chemicals = new Map<
+    number,
+    Pick<ChemicalRow, 'name' | 'ghsPictograms' | 'hazardStatements'>
+  >();
   for (const line of lines) {
     const chemical = await repos.chemicals.findRow(line.chemicalId);
-    chemicalNames.set(line.id, chemical?.name ?? `Chemical #${line.chemicalId}`);
+    chemicals.set(line.id, {
+      name: chemical?.name ?? `Chemical #${line.chemicalId}`,
+      ghsPictograms: chemical?.ghsPictograms ?? [],
+      hazardStatements: chemical?.hazardStatements ?? [],
+    });
   }
   const rows = shares.map((share): MoneyShareRow => {
     const line = lines.find((l) => l.id === share.lineId)!;
@@ -66,7 +74,9 @@ async function orderMoney(
       userId: share.userId,
       forLab: share.forLab || share.userId === null,
       sku: line.sku,
-      chemicalName: chemicalNames.get(line.id)!,
+      chemicalName: chemicals.get(line.id)!.name,
+      ghsPictograms: chemicals.get(line.id)!.ghsPictograms,
+      hazardStatements: chemicals.get(line.id)!.hazardStatements,
       quantity: share.quantity,
       unit: line.packUnit,
       // The fixed amount is what the member pays; its fees are what is left after the goods.
@@ -219,6 +229,8 @@ export function purchasesService(store: Store, config: Pick<Config, 'labName'>) 
           shareId: row.shareId,
           sku: row.sku,
           chemicalName: row.chemicalName,
+          ghsPictograms: row.ghsPictograms,
+          hazardStatements: row.hazardStatements,
           quantity: row.quantity,
           unit: row.unit,
           goodsMinor: row.goodsMinor,

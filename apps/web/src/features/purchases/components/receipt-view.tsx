@@ -1,4 +1,6 @@
 import { orderStatusLabels, type MoneyMovement, type Receipt } from '@lotwise/shared';
+import { HazardCodes } from '../../../components/hazards/hazard-codes';
+import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { formatAmount, formatDate, formatDateTime } from '../../../lib/format';
 import { Money, paymentKindLabels } from './money';
 
@@ -144,6 +146,7 @@ export function ReceiptView({ receipt }: { receipt: Receipt }) {
                       Container <span className="font-mono">{line.labelCode}</span>
                     </span>
                   )}
+                  <HazardCodes pictograms={line.ghsPictograms} statements={line.hazardStatements} />
                 </td>
                 <td className="py-1 pr-2 font-mono text-xs">{line.sku}</td>
                 <td className="py-1 pr-2 text-right tabular-nums">
@@ -196,9 +199,12 @@ export function ReceiptView({ receipt }: { receipt: Receipt }) {
         </dl>
       </section>
 
-      <footer className="border-t border-ink-200 pt-3 text-xs text-ink-600">
-        Amounts in {currency}. This receipt records your part of a shared order placed by{' '}
-        {receipt.labName}; it is not the supplier’s invoice.
+      <footer className="flex flex-col gap-2 border-t border-ink-200 pt-3 text-xs text-ink-600">
+        <p>
+          Amounts in {currency}. This receipt records your part of a shared order placed by{' '}
+          {receipt.labName}; it is not the supplier’s invoice.
+        </p>
+        <SafetyCaution compact />
       </footer>
     </article>
   );

@@ -1,6 +1,8 @@
 import { Link, useParams } from 'react-router';
 import { ChevronLeft, Download } from 'lucide-react';
 import { sharePaymentStatusLabels, type OrderMoney } from '@lotwise/shared';
+import { HazardCodes } from '../../../components/hazards/hazard-codes';
+import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { buttonClasses } from '../../../components/ui/button';
 import { ErrorState } from '../../../components/ui/error-state';
 import { PageSpinner } from '../../../components/ui/spinner';
@@ -150,6 +152,7 @@ export function OrderMoneyPage() {
                   <td className={th}>
                     {row.chemicalName}
                     <span className="block font-mono text-xs text-ink-600">{row.sku}</span>
+                    <HazardCodes pictograms={row.ghsPictograms} statements={row.hazardStatements} />
                   </td>
                   <td className={`${num} tabular-nums`}>{formatAmount(row.quantity, row.unit)}</td>
                   <td className={num}>
@@ -250,6 +253,7 @@ export function OrderMoneyPage() {
           </div>
         )}
       </section>
+      <SafetyCaution compact />
     </div>
   );
 }

@@ -24,7 +24,9 @@ const receipt: Receipt = {
     {
       shareId: 11,
       sku: 'KFR-NACL-500',
-      chemicalName: 'Sodium chloride',
+      chemicalName: 'Salicylic acid',
+      ghsPictograms: ['GHS05', 'GHS07'],
+      hazardStatements: ['H302', 'H318'],
       quantity: 100,
       unit: 'g',
       goodsMinor: 1000,
@@ -37,6 +39,8 @@ const receipt: Receipt = {
       shareId: 12,
       sku: 'KFR-ETOH-1L',
       chemicalName: 'Ethanol',
+      ghsPictograms: ['GHS02'],
+      hazardStatements: ['H225'],
       quantity: 1,
       unit: 'L',
       goodsMinor: 1200,
@@ -108,11 +112,14 @@ describe('Receipt page', () => {
     expect(view.getByText('Order reference KFR-2026-014')).toBeInTheDocument();
 
     const lines = within(view.getByRole('region', { name: 'What you took' }));
-    const salt = lines.getByText('Sodium chloride').closest('tr')!;
+    const salt = lines.getByText('Salicylic acid').closest('tr')!;
     expect(within(salt).getByText(eur(1000))).toBeInTheDocument();
     expect(within(salt).getByText(eur(336))).toBeInTheDocument();
     expect(within(salt).getByText(eur(1336))).toBeInTheDocument();
     expect(within(salt).getByText('LW-00101')).toBeInTheDocument();
+    // Its hazards stay beside it, and the page defers to the SDS.
+    expect(within(salt).getByText('H318')).toBeInTheDocument();
+    expect(screen.getByText(/SDS, local regulations and licensed practice/)).toBeInTheDocument();
 
     const payments = within(view.getByRole('region', { name: 'Payments' }));
     expect(payments.getByText('Online payment')).toBeInTheDocument();

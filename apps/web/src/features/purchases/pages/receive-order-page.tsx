@@ -73,10 +73,10 @@ function PlaceSelect({
   );
 }
 
-function ChemicalCell({ line }: { line: ReceivingLine }) {
+function ChemicalCell({ line, named = true }: { line: ReceivingLine; named?: boolean }) {
   return (
     <div className="flex flex-col gap-1">
-      <p className="font-semibold text-ink-900">{line.chemical.name}</p>
+      {named && <p className="font-semibold text-ink-900">{line.chemical.name}</p>}
       <p className="text-xs text-ink-600">
         <span className="font-mono">{line.sku}</span> · {line.packs} ×{' '}
         {formatAmount(line.packSize, line.packUnit)}
@@ -321,7 +321,7 @@ function ReceiveForm({ view }: { view: ReceivingView }) {
             <h2 className="text-base font-semibold">
               {lineIndex + 2}. {line.chemical.name}
             </h2>
-            <ChemicalCell line={line} />
+            <ChemicalCell line={line} named={false} />
             <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
               <Field
                 label="Packs received"
