@@ -342,16 +342,8 @@ export function receivingService(store: Store, alerts: AlertsService, config: Co
                 actor,
               )
             ).container;
-            if (keeper) {
-              made.push({
-                share: keeper.share,
-                container: packRow,
-                location: packLocation,
-                chemical,
-              });
-              if (!containerOfShare.has(keeper.share.id)) {
-                containerOfShare.set(keeper.share.id, packRow.id);
-              }
+            if (keeper && !containerOfShare.has(keeper.share.id)) {
+              containerOfShare.set(keeper.share.id, packRow.id);
             }
             for (const portion of poured) {
               const location = locationOf(portion.share);
@@ -418,6 +410,15 @@ export function receivingService(store: Store, alerts: AlertsService, config: Co
               if (!containerOfShare.has(portion.share.id)) {
                 containerOfShare.set(portion.share.id, created.id);
               }
+            }
+            // The kept portion is told with what is left in the pack once the others are poured.
+            if (keeper) {
+              made.push({
+                share: keeper.share,
+                container: packRow,
+                location: packLocation,
+                chemical,
+              });
             }
           }
         }
