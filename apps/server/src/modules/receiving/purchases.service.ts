@@ -15,7 +15,7 @@ import { csvLine, csvLines, utf8Bom, type CsvValue } from '../../lib/csv';
 import type { ChemicalRow } from '../chemicals/chemical.entity';
 import type { OrderRecord } from '../orders/orders.repository';
 import type { PaymentRow } from '../payments/payment.entity';
-import { movementsOf, shareFigures, sumFigures } from './money';
+import { movementsOf, requireOrder, shareFigures, sumFigures } from './money';
 
 /**
  * The money views of shared orders: a member's purchases and receipts, the coordinator's
@@ -23,16 +23,6 @@ import { movementsOf, shareFigures, sumFigures } from './money';
  * and fees of each share), the shares' fixed amounts and the payment rows; nothing here
  * works out a price of its own.
  */
-
-function notFound(id: number) {
-  return AppError.notFound(`There is no order #${id}.`);
-}
-
-async function loadOrder(repos: Repositories, id: number): Promise<OrderRecord> {
-  const record = await repos.orders.load(id);
-  if (!record) throw notFound(id);
-  return record;
-}
 
 /** Every share of an order with its goods, fees and money, and the order's totals. */
 async function orderMoney(
@@ -193,7 +183,7 @@ export function purchasesService(store: Store, config: Pick<Config, 'labName'>) 
     /** The member's receipt for one order: 404 when they have no share in it. */
     async receipt(orderId: number, actor: User): Promise<Receipt> {
       const repos = store.repos;
-      const record = await loadOrder(repos, orderId);
+      const record = await requireOrder(repos, orderId);
       const mine = record.shares.filter((share) => share.userId === actor.id);
       if (mine.length === 0) {
         throw AppError.notFound(`You have no share in order #${orderId}.`);
@@ -253,12 +243,12 @@ export function purchasesService(store: Store, config: Pick<Config, 'labName'>) 
 
     /** The coordinator's view of one order's money. */
     async orderMoney(orderId: number): Promise<OrderMoney> {
-      return money(store.repos, await loadOrder(store.repos, orderId));
+      return money(store.repos, await requireOrder(store.repos, orderId));
     },
 
     /** One order's shares as CSV for the books: plain decimals, one currency column. */
     async orderMoneyCsv(orderId: number): Promise<string> {
-      const summary = await money(store.repos, await loadOrder(store.repos, orderId));
+      const summary = await money(store.repos, await requireOrder(store.repos, orderId));
       const decimal = (minor: number | null) =>
         minor === null ? '' : minorToDecimalText(minor, summary.currency);
       const records: CsvValue[][] = summary.shares.map((row) => [

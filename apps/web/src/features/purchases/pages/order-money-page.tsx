@@ -1,5 +1,5 @@
-import { Link, useParams } from 'react-router';
-import { ChevronLeft, Download } from 'lucide-react';
+import { useParams } from 'react-router';
+import { Download } from 'lucide-react';
 import { sharePaymentStatusLabels, type OrderMoney } from '@lotwise/shared';
 import { HazardCodes } from '../../../components/hazards/hazard-codes';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
@@ -10,6 +10,7 @@ import { paths } from '../../../config/paths';
 import { formatAmount, formatDateTime } from '../../../lib/format';
 import { moneyCsvUrl, useOrderMoney } from '../api';
 import { Money, paymentKindLabels } from '../components/money';
+import { BackLink } from '../components/back-link';
 import { OrderStatusBadge } from '../components/order-status-badge';
 
 const th = 'px-2.5 py-2';
@@ -57,13 +58,7 @@ export function OrderMoneyPage() {
   const { currency } = money;
   return (
     <div className="flex flex-col gap-5">
-      <Link
-        to={paths.orders}
-        className="inline-flex items-center gap-1 self-start text-sm text-ink-600 hover:text-ink-900"
-      >
-        <ChevronLeft aria-hidden="true" className="size-4" />
-        Orders
-      </Link>
+      <BackLink to={paths.orders}>Orders</BackLink>
       <header className="flex flex-wrap items-start justify-between gap-3">
         <div>
           <h1 className="text-xl font-semibold text-ink-900">

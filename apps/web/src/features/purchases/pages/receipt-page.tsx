@@ -1,10 +1,11 @@
-import { Link, useParams } from 'react-router';
-import { ChevronLeft, Printer } from 'lucide-react';
+import { useParams } from 'react-router';
+import { Printer } from 'lucide-react';
 import { Button } from '../../../components/ui/button';
 import { ErrorState } from '../../../components/ui/error-state';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { paths } from '../../../config/paths';
 import { useReceipt } from '../api';
+import { BackLink } from '../components/back-link';
 import { ReceiptView } from '../components/receipt-view';
 
 /** `/orders/:id/receipt`: the signed-in member's receipt, printable or saved as PDF. */
@@ -14,13 +15,7 @@ export function ReceiptPage() {
   return (
     <div className="flex flex-col gap-4">
       <div className="flex flex-wrap items-center justify-between gap-3 print:hidden">
-        <Link
-          to={paths.purchases}
-          className="inline-flex items-center gap-1 text-sm text-ink-600 hover:text-ink-900"
-        >
-          <ChevronLeft aria-hidden="true" className="size-4" />
-          My purchases
-        </Link>
+        <BackLink to={paths.purchases}>My purchases</BackLink>
         <Button
           variant="primary"
           onClick={() => window.print()}

@@ -1,34 +1,24 @@
 import { useState } from 'react';
-import { Link, useParams } from 'react-router';
+import { useParams } from 'react-router';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { ChevronLeft, PackageCheck, Printer, Lock } from 'lucide-react';
-import {
-  todayIso,
-  type ReceiveOrder,
-  type ReceivingLine,
-  type ReceivingView,
-} from '@lotwise/shared';
-import { HazardCodes } from '../../../components/hazards/hazard-codes';
+import { PackageCheck } from 'lucide-react';
+import { todayIso, type ReceiveOrder, type ReceivingView } from '@lotwise/shared';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
-import { Button, buttonClasses } from '../../../components/ui/button';
+import { Button } from '../../../components/ui/button';
 import { useConfirmation } from '../../../components/ui/confirmation-dialog';
 import { ErrorState } from '../../../components/ui/error-state';
 import { Field } from '../../../components/ui/field';
-import { Input, Select } from '../../../components/ui/input';
+import { Input } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { paths } from '../../../config/paths';
-import { errorMessage, isApiError, sendWithConfirmation, withQuery } from '../../../lib/api-client';
-import { formatAmount, formatDateTime } from '../../../lib/format';
-import {
-  purchaseKeys,
-  receiveOrder,
-  uploadCertificate,
-  useCloseOrder,
-  usePlaces,
-  useReceiving,
-} from '../api';
+import { errorMessage, isApiError, sendWithConfirmation } from '../../../lib/api-client';
+import { formatAmount } from '../../../lib/format';
+import { purchaseKeys, receiveOrder, uploadCertificate, useReceiving } from '../api';
+import { BackLink } from '../components/back-link';
+import { ChemicalCell, PlaceSelect } from '../components/line-parts';
 import { OrderStatusBadge } from '../components/order-status-badge';
+import { ReceivedView } from '../components/received-portions';
 
 interface LineInput {
   packsReceived: string;
@@ -38,151 +28,6 @@ interface LineInput {
 }
 
 const th = 'px-2.5 py-2';
-
-function PlaceSelect({
-  id,
-  value,
-  onChange,
-  emptyLabel,
-  ...rest
-}: {
-  id?: string;
-  value: string;
-  onChange: (value: string) => void;
-  emptyLabel: string;
-  'aria-label'?: string;
-  'aria-describedby'?: string;
-  'aria-invalid'?: boolean;
-}) {
-  const places = usePlaces();
-  return (
-    <Select
-      id={id}
-      value={value}
-      onChange={(event) => onChange(event.target.value)}
-      disabled={places.isPending}
-      {...rest}
-    >
-      <option value="">{places.isPending ? 'Loading places…' : emptyLabel}</option>
-      {(places.data?.items ?? []).map((place) => (
-        <option key={place.id} value={place.id}>
-          {place.path}
-        </option>
-      ))}
-    </Select>
-  );
-}
-
-function ChemicalCell({ line, named = true }: { line: ReceivingLine; named?: boolean }) {
-  return (
-    <div className="flex flex-col gap-1">
-      {named && <p className="font-semibold text-ink-900">{line.chemical.name}</p>}
-      <p className="text-xs text-ink-600">
-        <span className="font-mono">{line.sku}</span> · {line.packs} ×{' '}
-        {formatAmount(line.packSize, line.packUnit)}
-        {line.grade ? ` · ${line.grade}` : ''}
-        {line.hazardous ? ' · ships as hazardous goods' : ''}
-      </p>
-      <HazardCodes
-        pictograms={line.chemical.ghsPictograms}
-        statements={line.chemical.hazardStatements}
-      />
-    </div>
-  );
-}
-
-/** After receiving: each portion's container, its owner and place, and closing the order. */
-function ReceivedView({ view }: { view: ReceivingView }) {
-  const close = useCloseOrder(view.orderId);
-  const ids = view.lines.flatMap((line) =>
-    line.shares.flatMap((share) => (share.container ? [share.container.id] : [])),
-  );
-  return (
-    <div className="flex flex-col gap-4">
-      <Notice tone="ok" title="The delivery is in stock">
-        Received {view.receivedAt ? formatDateTime(view.receivedAt) : ''}. Each portion below is its
-        own labelled container; members were e-mailed where theirs is. Put a label with its code on
-        each container.
-      </Notice>
-      <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
-        <table className="w-full text-sm" aria-label="Containers made for the portions">
-          <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs font-semibold tracking-wide text-ink-600 uppercase">
-            <tr>
-              <th className={th}>Chemical</th>
-              <th className={th}>Lot</th>
-              <th className={th}>Belongs to</th>
-              <th className={th}>Label code</th>
-              <th className={`${th} text-right`}>Quantity</th>
-              <th className={th}>Location</th>
-            </tr>
-          </thead>
-          <tbody>
-            {view.lines.flatMap((line) =>
-              line.shares.map((share, index) => (
-                <tr
-                  key={share.shareId}
-                  className="border-b border-ink-100 align-top last:border-b-0"
-                >
-                  <td className={th}>{index === 0 ? <ChemicalCell line={line} /> : null}</td>
-                  <td className={th}>
-                    {index === 0 && line.lot
-                      ? (line.lot.supplierLotNumber ?? `#${line.lot.id}`)
-                      : null}
-                  </td>
-                  <td className={th}>{share.holder}</td>
-                  <td className={th}>
-                    {share.container ? (
-                      <Link
-                        to={paths.stockContainer(share.container.id)}
-                        className="font-mono font-semibold text-accent-700 underline-offset-2 hover:underline"
-                      >
-                        {share.container.labelCode}
-                      </Link>
-                    ) : (
-                      '—'
-                    )}
-                  </td>
-                  <td className={`${th} text-right tabular-nums`}>
-                    {share.container
-                      ? formatAmount(share.container.quantity, share.container.unit)
-                      : '—'}
-                  </td>
-                  <td className={th}>{share.container?.locationPath ?? '—'}</td>
-                </tr>
-              )),
-            )}
-          </tbody>
-        </table>
-      </div>
-      <div className="flex flex-wrap items-center gap-2">
-        <Link
-          to={withQuery(paths.stockLabels, { ids: ids.join(',') })}
-          className={buttonClasses('primary')}
-        >
-          <Printer aria-hidden="true" className="size-4" />
-          Print labels
-        </Link>
-        {view.status === 'received' && (
-          <Button
-            onClick={() => close.mutate()}
-            busy={close.isPending}
-            disabled={!view.closable}
-            icon={<Lock aria-hidden="true" className="size-4" />}
-          >
-            Close order
-          </Button>
-        )}
-        {view.status === 'closed' && <OrderStatusBadge status="closed" />}
-      </div>
-      {view.status === 'received' && view.closeBlockers.length > 0 && (
-        <Notice tone="warn" title="Not ready to close">
-          {view.closeBlockers.join(' ')}
-        </Notice>
-      )}
-      {close.isError && <Notice tone="danger">{errorMessage(close.error)}</Notice>}
-    </div>
-  );
-}
 
 function ReceiveForm({ view }: { view: ReceivingView }) {
   const queryClient = useQueryClient();
@@ -444,13 +289,7 @@ export function ReceiveOrderPage() {
   const query = useReceiving(orderId);
   return (
     <div className="flex flex-col gap-5">
-      <Link
-        to={paths.orders}
-        className="inline-flex items-center gap-1 self-start text-sm text-ink-600 hover:text-ink-900"
-      >
-        <ChevronLeft aria-hidden="true" className="size-4" />
-        Orders
-      </Link>
+      <BackLink to={paths.orders}>Orders</BackLink>
       {query.isPending ? (
         <PageSpinner label="Loading the order…" />
       ) : query.isError ? (
