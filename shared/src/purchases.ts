@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ghsCodeSchema } from './hazards';
 import { orderStatuses, packUnits, paymentKinds, sharePaymentStatuses } from './purchasing';
 
 /**
@@ -61,6 +62,8 @@ export const receiptLineSchema = z.object({
   shareId: z.number().int(),
   sku: z.string(),
   chemicalName: z.string(),
+  ghsPictograms: z.array(ghsCodeSchema),
+  hazardStatements: z.array(z.string()),
   quantity: z.number(),
   unit: z.enum(packUnits),
   goodsMinor: minor,
@@ -106,6 +109,8 @@ export const moneyShareRowSchema = moneyFiguresSchema.extend({
   forLab: z.boolean(),
   sku: z.string(),
   chemicalName: z.string(),
+  ghsPictograms: z.array(ghsCodeSchema),
+  hazardStatements: z.array(z.string()),
   quantity: z.number(),
   unit: z.enum(packUnits),
   goodsMinor: minor,

@@ -83,6 +83,58 @@ const stockRoutes: RouteObject[] = [
   })),
 ];
 
+/** A page of shared purchasing's money and receiving, loaded when first opened. */
+function purchasePage(
+  path: string,
+  load: () => Promise<{ Component: ComponentType }>,
+  permission: Permission,
+): RouteObject {
+  return {
+    path,
+    lazy: async () => {
+      const { Component } = await load();
+      return {
+        element: (
+          <RequirePermission permission={permission}>
+            <Component />
+          </RequirePermission>
+        ),
+      };
+    },
+  };
+}
+
+const purchaseRoutes: RouteObject[] = [
+  purchasePage(
+    paths.purchases,
+    async () => ({
+      Component: (await import('../features/purchases/pages/my-purchases-page')).MyPurchasesPage,
+    }),
+    'orders.join',
+  ),
+  purchasePage(
+    paths.orderReceipt(),
+    async () => ({
+      Component: (await import('../features/purchases/pages/receipt-page')).ReceiptPage,
+    }),
+    'orders.join',
+  ),
+  purchasePage(
+    paths.orderMoney(),
+    async () => ({
+      Component: (await import('../features/purchases/pages/order-money-page')).OrderMoneyPage,
+    }),
+    'orders.manage',
+  ),
+  purchasePage(
+    paths.orderReceive(),
+    async () => ({
+      Component: (await import('../features/purchases/pages/receive-order-page')).ReceiveOrderPage,
+    }),
+    'orders.manage',
+  ),
+];
+
 /** Every screen of the web app. Forms and admin pages load their code when first opened. */
 export const routes: RouteObject[] = [
   {
@@ -191,6 +243,7 @@ export const routes: RouteObject[] = [
               };
             },
           },
+          ...purchaseRoutes,
           {
             path: paths.alerts,
             lazy: async () => {

@@ -51,6 +51,14 @@ export const paths = {
   supplier: (id: number | string = ':id') => `/purchasing/suppliers/${id}`,
   /** The price-list import for one supplier: the import page with the supplier chosen. */
   priceListImport: (supplierId: number) => `/stock/import?kind=price-list&supplierId=${supplierId}`,
+  /** The signed-in member's shared orders and what they paid. */
+  purchases: '/purchases',
+  /** A member's receipt for one order (print view). */
+  orderReceipt: (id: number | string = ':id') => `/orders/${id}/receipt`,
+  /** The coordinator's money summary of one order. */
+  orderMoney: (id: number | string = ':id') => `/orders/${id}/money`,
+  /** Receiving an ordered delivery into members' containers. */
+  orderReceive: (id: number | string = ':id') => `/orders/${id}/receive`,
   alerts: '/alerts',
   alertPreferences: '/alerts/preferences',
   adminOutbox: '/admin/outbox',

@@ -1,5 +1,8 @@
 import type { MoneyFigures, MoneyMovement } from '@lotwise/shared';
+import type { Repositories } from '../../db/store';
+import { AppError } from '../../lib/app-error';
 import type { OrderRow } from '../orders/order.entity';
+import type { OrderRecord } from '../orders/orders.repository';
 import type { OrderShareRow } from '../orders/order-share.entity';
 import type { PaymentRow } from '../payments/payment.entity';
 
@@ -90,4 +93,11 @@ export function closeBlockers(
     blockers.push('A payment is still being processed by the payment provider.');
   }
   return blockers;
+}
+
+/** The order with its lines, shares and cost; 404 for an unknown id. */
+export async function requireOrder(repos: Repositories, id: number): Promise<OrderRecord> {
+  const record = await repos.orders.load(id);
+  if (!record) throw AppError.notFound(`There is no order #${id}.`);
+  return record;
 }

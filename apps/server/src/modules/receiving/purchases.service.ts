@@ -12,9 +12,10 @@ import type { Repositories, Store } from '../../db/store';
 import { nowIso } from '../../db/sql';
 import { AppError } from '../../lib/app-error';
 import { csvLine, csvLines, utf8Bom, type CsvValue } from '../../lib/csv';
+import type { ChemicalRow } from '../chemicals/chemical.entity';
 import type { OrderRecord } from '../orders/orders.repository';
 import type { PaymentRow } from '../payments/payment.entity';
-import { movementsOf, shareFigures, sumFigures } from './money';
+import { movementsOf, requireOrder, shareFigures, sumFigures } from './money';
 
 /**
  * The money views of shared orders: a member's purchases and receipts, the coordinator's
@@ -22,16 +23,6 @@ import { movementsOf, shareFigures, sumFigures } from './money';
  * and fees of each share), the shares' fixed amounts and the payment rows; nothing here
  * works out a price of its own.
  */
-
-function notFound(id: number) {
-  return AppError.notFound(`There is no order #${id}.`);
-}
-
-async function loadOrder(repos: Repositories, id: number): Promise<OrderRecord> {
-  const record = await repos.orders.load(id);
-  if (!record) throw notFound(id);
-  return record;
-}
 
 /** Every share of an order with its goods, fees and money, and the order's totals. */
 async function orderMoney(
@@ -46,10 +37,17 @@ async function orderMoney(
   const people = await repos.receiving.people(
     shares.flatMap((share) => (share.userId === null ? [] : [share.userId])),
   );
-  const chemicalNames = new Map<number, string>();
+  const chemicals = new Map<
+    number,
+    Pick<ChemicalRow, 'name' | 'ghsPictograms' | 'hazardStatements'>
+  >();
   for (const line of lines) {
     const chemical = await repos.chemicals.findRow(line.chemicalId);
-    chemicalNames.set(line.id, chemical?.name ?? `Chemical #${line.chemicalId}`);
+    chemicals.set(line.id, {
+      name: chemical?.name ?? `Chemical #${line.chemicalId}`,
+      ghsPictograms: chemical?.ghsPictograms ?? [],
+      hazardStatements: chemical?.hazardStatements ?? [],
+    });
   }
   const rows = shares.map((share): MoneyShareRow => {
     const line = lines.find((l) => l.id === share.lineId)!;
@@ -66,7 +64,9 @@ async function orderMoney(
       userId: share.userId,
       forLab: share.forLab || share.userId === null,
       sku: line.sku,
-      chemicalName: chemicalNames.get(line.id)!,
+      chemicalName: chemicals.get(line.id)!.name,
+      ghsPictograms: chemicals.get(line.id)!.ghsPictograms,
+      hazardStatements: chemicals.get(line.id)!.hazardStatements,
       quantity: share.quantity,
       unit: line.packUnit,
       // The fixed amount is what the member pays; its fees are what is left after the goods.
@@ -183,7 +183,7 @@ export function purchasesService(store: Store, config: Pick<Config, 'labName'>) 
     /** The member's receipt for one order: 404 when they have no share in it. */
     async receipt(orderId: number, actor: User): Promise<Receipt> {
       const repos = store.repos;
-      const record = await loadOrder(repos, orderId);
+      const record = await requireOrder(repos, orderId);
       const mine = record.shares.filter((share) => share.userId === actor.id);
       if (mine.length === 0) {
         throw AppError.notFound(`You have no share in order #${orderId}.`);
@@ -219,6 +219,8 @@ export function purchasesService(store: Store, config: Pick<Config, 'labName'>) 
           shareId: row.shareId,
           sku: row.sku,
           chemicalName: row.chemicalName,
+          ghsPictograms: row.ghsPictograms,
+          hazardStatements: row.hazardStatements,
           quantity: row.quantity,
           unit: row.unit,
           goodsMinor: row.goodsMinor,
@@ -241,12 +243,12 @@ export function purchasesService(store: Store, config: Pick<Config, 'labName'>) 
 
     /** The coordinator's view of one order's money. */
     async orderMoney(orderId: number): Promise<OrderMoney> {
-      return money(store.repos, await loadOrder(store.repos, orderId));
+      return money(store.repos, await requireOrder(store.repos, orderId));
     },
 
     /** One order's shares as CSV for the books: plain decimals, one currency column. */
     async orderMoneyCsv(orderId: number): Promise<string> {
-      const summary = await money(store.repos, await loadOrder(store.repos, orderId));
+      const summary = await money(store.repos, await requireOrder(store.repos, orderId));
       const decimal = (minor: number | null) =>
         minor === null ? '' : minorToDecimalText(minor, summary.currency);
       const records: CsvValue[][] = summary.shares.map((row) => [

@@ -30,7 +30,7 @@ import type { OrderLineRow } from '../orders/order-line.entity';
 import type { OrderShareRow } from '../orders/order-share.entity';
 import type { OrderRecord } from '../orders/orders.repository';
 import { segregationService } from '../segregation/segregation.service';
-import { closeBlockers } from './money';
+import { closeBlockers, requireOrder } from './money';
 import { planPacks } from './pack-portions';
 
 const labHolder = 'Lab';
@@ -41,16 +41,6 @@ interface MadePortion {
   container: ContainerRow;
   location: LocationRow;
   chemical: ChemicalRow;
-}
-
-function notFound(id: number) {
-  return AppError.notFound(`There is no order #${id}.`);
-}
-
-async function loadOrder(repos: Repositories, id: number): Promise<OrderRecord> {
-  const record = await repos.orders.load(id);
-  if (!record) throw notFound(id);
-  return record;
 }
 
 /** A share's amount in the chemical's stock unit, or null when it cannot be converted. */
@@ -211,7 +201,7 @@ export function receivingService(store: Store, alerts: AlertsService, config: Co
 
   return {
     async view(id: number): Promise<ReceivingView> {
-      return receivingView(store.repos, await loadOrder(store.repos, id));
+      return receivingView(store.repos, await requireOrder(store.repos, id));
     },
 
     /**
@@ -228,7 +218,7 @@ export function receivingService(store: Store, alerts: AlertsService, config: Co
         );
       }
       return store.transaction(async (repos) => {
-        const record = await loadOrder(repos, id);
+        const record = await requireOrder(repos, id);
         const { order } = record;
         if (order.status !== 'ordered' || !mayMove(order.status, 'received')) {
           throw AppError.conflict(
@@ -342,16 +332,8 @@ export function receivingService(store: Store, alerts: AlertsService, config: Co
                 actor,
               )
             ).container;
-            if (keeper) {
-              made.push({
-                share: keeper.share,
-                container: packRow,
-                location: packLocation,
-                chemical,
-              });
-              if (!containerOfShare.has(keeper.share.id)) {
-                containerOfShare.set(keeper.share.id, packRow.id);
-              }
+            if (keeper && !containerOfShare.has(keeper.share.id)) {
+              containerOfShare.set(keeper.share.id, packRow.id);
             }
             for (const portion of poured) {
               const location = locationOf(portion.share);
@@ -419,6 +401,15 @@ export function receivingService(store: Store, alerts: AlertsService, config: Co
                 containerOfShare.set(portion.share.id, created.id);
               }
             }
+            // The kept portion is told with what is left in the pack once the others are poured.
+            if (keeper) {
+              made.push({
+                share: keeper.share,
+                container: packRow,
+                location: packLocation,
+                chemical,
+              });
+            }
           }
         }
         if (warnings.length > 0) {
@@ -436,14 +427,14 @@ export function receivingService(store: Store, alerts: AlertsService, config: Co
           updatedAt: now,
         });
         await portionReadyMails(repos, order.id, order.title, made);
-        return receivingView(repos, await loadOrder(repos, id));
+        return receivingView(repos, await requireOrder(repos, id));
       });
     },
 
     /** Closes a received order once nothing is owed and no payment or refund is in flight. */
     async close(id: number): Promise<ReceivingView> {
       return store.transaction(async (repos) => {
-        const record = await loadOrder(repos, id);
+        const record = await requireOrder(repos, id);
         const view = await receivingView(repos, record);
         if (record.order.status !== 'received' || !mayMove(record.order.status, 'closed')) {
           throw AppError.conflict(
@@ -457,7 +448,7 @@ export function receivingService(store: Store, alerts: AlertsService, config: Co
         }
         const now = nowIso();
         await repos.orders.updateOrder(id, { status: 'closed', closedAt: now, updatedAt: now });
-        return receivingView(repos, await loadOrder(repos, id));
+        return receivingView(repos, await requireOrder(repos, id));
       });
     },
   };

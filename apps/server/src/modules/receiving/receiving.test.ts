@@ -193,6 +193,8 @@ describe('receiving a shared order', () => {
     const aliceMail = mails.find((m) => m.user_id === alice.id)!;
     expect(aliceMail.text).toContain(powderLine!.shares[0]!.container!.labelCode);
     expect(aliceMail.text).toContain(shelf.path);
+    const brunoMail = mails.find((m) => m.user_id === bruno.id)!;
+    expect(brunoMail.text).toContain(`300.00 g in container ${pack.labelCode}`);
   });
 
   it('when a share is sent to another place, then its portion goes there and the rest to the default place', async () => {

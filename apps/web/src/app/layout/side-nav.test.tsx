@@ -23,6 +23,7 @@ describe('SideNav', () => {
 
   it('when a member signs in, then runs, alerts and orders (under Purchasing) show but not administration', () => {
   it('when a member signs in, then runs, orders, alerts and suppliers show but not administration', () => {
+  it('when a member signs in, then runs, orders, alerts and their purchases show but not administration', () => {
     expect(navLabels('member')).toEqual([
       'Chemicals',
       'Stock',
@@ -33,6 +34,7 @@ describe('SideNav', () => {
       'Alerts',
       'Orders',
       'Suppliers',
+      'My purchases',
     ]);
     expect(screen.getByText('Purchasing')).toBeInTheDocument();
   });
@@ -48,6 +50,7 @@ describe('SideNav', () => {
       'Alerts',
       'Orders',
       'Suppliers',
+      'My purchases',
       'People',
       'Outbox',
     ]);

@@ -66,12 +66,19 @@ const columns = column.columns([
     id: 'location',
     header: 'Location',
     cell: ({ row }) => (
-      <Link
-        to={paths.stockLocation(row.original.location.id)}
-        className="block max-w-48 min-w-36 text-ink-800 underline-offset-2 hover:underline"
-      >
-        {row.original.location.path}
-      </Link>
+      <div className="max-w-48 min-w-36">
+        <Link
+          to={paths.stockLocation(row.original.location.id)}
+          className="block text-ink-800 underline-offset-2 hover:underline"
+        >
+          {row.original.location.path}
+        </Link>
+        {row.original.owner && (
+          <span className="block text-xs text-ink-600">
+            Belongs to {row.original.owner.displayName}
+          </span>
+        )}
+      </div>
     ),
   }),
   column.accessor('quantity', {

@@ -153,4 +153,25 @@ describe('Container page', () => {
     }
     expect(screen.getByRole('link', { name: /Stock/ })).toBeInTheDocument();
   });
+
+  it('when a container is a member’s portion of a shared order, then it says whom it belongs to', async () => {
+    stockRoutes();
+    mockFetch({
+      'GET /api/auth/me': { body: { user: member } },
+      'GET /api/containers/42': {
+        body: { ...acetone, owner: { id: 9, displayName: 'Ines Okafor' } },
+      },
+      'GET /api/containers/42/ledger': { body: page([received], 1, 1, 10) },
+      'GET /api/locations': { body: page([]) },
+    });
+    await openContainer();
+    const term = screen.getByText('Belongs to');
+    expect(term.nextElementSibling).toHaveTextContent('Ines Okafor');
+  });
+
+  it('when a container has no owner, then it is the lab’s', async () => {
+    stockRoutes();
+    await openContainer();
+    expect(screen.getByText('Belongs to').nextElementSibling).toHaveTextContent('The lab');
+  });
 });

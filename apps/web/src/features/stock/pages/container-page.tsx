@@ -118,6 +118,7 @@ function ContainerView({ container: c }: { container: ContainerDetail }) {
                 {c.location.path}
               </Link>
             </Property>
+            <Property term="Belongs to">{c.owner ? c.owner.displayName : 'The lab'}</Property>
             <Property term="Tare (empty, cap on)">
               <span className="tabular-nums">
                 {c.tareMass === null ? 'Not recorded' : formatAmount(c.tareMass, 'g')}
