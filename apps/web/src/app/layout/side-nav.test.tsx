@@ -21,20 +21,17 @@ describe('SideNav', () => {
     expect(navLabels('viewer')).toEqual(['Chemicals', 'Stock', 'Preparations']);
   });
 
-  it('when a member signs in, then runs, alerts and orders (under Purchasing) show but not administration', () => {
-  it('when a member signs in, then runs, orders, alerts and suppliers show but not administration', () => {
-  it('when a member signs in, then runs, orders, alerts and their purchases show but not administration', () => {
+  it('when a member signs in, then runs, alerts and purchasing (orders, restock, suppliers, their purchases) show but not administration', () => {
     expect(navLabels('member')).toEqual([
       'Chemicals',
       'Stock',
       'Preparations',
       'Runs',
-      'Orders',
-      'Restock',
       'Alerts',
       'Orders',
-      'Suppliers',
+      'Restock',
       'My purchases',
+      'Suppliers',
     ]);
     expect(screen.getByText('Purchasing')).toBeInTheDocument();
   });
@@ -45,12 +42,11 @@ describe('SideNav', () => {
       'Stock',
       'Preparations',
       'Runs',
-      'Orders',
-      'Restock',
       'Alerts',
       'Orders',
-      'Suppliers',
+      'Restock',
       'My purchases',
+      'Suppliers',
       'People',
       'Outbox',
     ]);
