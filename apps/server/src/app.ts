@@ -120,6 +120,8 @@ export function createApp({
   const alerts = alertsService(store, config, { logger, onQueued: onMailQueued });
   // Alert rules run before every transaction that changed the ledger commits.
   store.onLedgerChange((repos, chemicalIds) => alerts.ledgerChanged(repos, chemicalIds));
+  // Card payments; the orders module calls payments.refundPaidShares when an order is cancelled.
+  const payments = paymentsService(store, config, { alerts, logger });
   const routes = [
     ...healthRoutes(store, logger),
     ...authRoutes(authService(store, config), session, config),
@@ -139,7 +141,7 @@ export function createApp({
     ...exportRoutes(exportsService(store)),
     ...uploadRoutes(uploadsService(store, files), files),
     ...alertRoutes(alerts),
-    ...paymentRoutes(paymentsService(store, config, { alerts, logger })),
+    ...paymentRoutes(payments),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;
