@@ -143,6 +143,7 @@ export function createApp({
   });
   // Alert rules run before every transaction that changed the ledger commits.
   store.onLedgerChange((repos, chemicalIds) => alerts.ledgerChanged(repos, chemicalIds));
+  // Card payments; the orders module calls payments.refundPaidShares when an order is cancelled.
   const payments = paymentsService(store, config, { alerts, logger });
   const routes = [
     ...healthRoutes(store, logger),

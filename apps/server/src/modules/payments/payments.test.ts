@@ -229,6 +229,19 @@ describe('paying a share by card', () => {
   });
 });
 
+describe('a payment the service refuses', () => {
+  it('when the payment service refuses the checkout, then the member is told it was refused and nothing is recorded as paid', async () => {
+    const fixture = await orderReadyToPay(manager.cookie, [{ userId: bob.user.id, quantity: 500 }]);
+    const target = fixture.shares[0]!;
+    // a currency code the service does not take
+    await testContext().store.repos.orders.updateOrder(fixture.orderId, { currency: 'E1R' });
+    const answer = await checkout(bob.cookie, fixture.orderId, target.id).expect(503);
+    expect(answer.body.error.code).toBe('payment_provider_unavailable');
+    expect(answer.body.error.message).toMatch(/refused this payment .*Invalid currency/);
+    expect(await share(target.id)).toMatchObject({ paymentStatus: 'unpaid', paidMinor: 0 });
+  });
+});
+
 describe('webhooks', () => {
   it('when a completed event is delivered again three times, then the share is credited once', async () => {
     const fixture = await orderReadyToPay(manager.cookie, [

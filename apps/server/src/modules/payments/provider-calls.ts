@@ -21,6 +21,10 @@ export function providerCalls(store: Store, logger: Logger) {
       logger.warn(`The payment service did not answer while ${what}`, { message });
     } else {
       logger.error(`The payment service refused a request while ${what}`, { message });
+      return new AppError(
+        'payment_provider_unavailable',
+        `The payment service refused this payment (${message}), so nothing was charged and nothing was recorded as paid. A coordinator can record a cash payment instead.`,
+      );
     }
     return new AppError(
       'payment_provider_unavailable',
