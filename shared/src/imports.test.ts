@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import {
   chemicalSchema,
   importColumnForHeader,
+  importCreateQuerySchema,
   importColumns,
   importSchema,
   lotSchema,
@@ -43,6 +44,8 @@ describe('stock import columns', () => {
   it('when an import is described, then a sample parses', () => {
     const sample = {
       id: 1,
+      kind: 'stock',
+      supplier: null,
       fileName: 'stock.csv',
       status: 'invalid',
       totalRows: 3,
@@ -55,6 +58,7 @@ describe('stock import columns', () => {
       errorsPageSize: 100,
       warnings: [],
       summary: null,
+      priceList: null,
       failure: null,
       createdBy: null,
       createdAt: '2026-01-01T00:00:00.000Z',
@@ -62,6 +66,19 @@ describe('stock import columns', () => {
       committedAt: null,
     };
     expect(importSchema.parse(sample).errors[0]!.field).toBe('casNumber');
+    const priceList = { ...sample, kind: 'price-list', supplier: { id: 3, name: 'Northfield' } };
+    priceList.errors = [{ row: 2, column: 'price', field: 'price', value: '1.005', message: 'x' }];
+    expect(importSchema.parse(priceList).errors[0]!.field).toBe('price');
+  });
+
+  it('when a price list is uploaded without its supplier, then the query names supplierId', () => {
+    expect(importCreateQuerySchema.parse({})).toEqual({ kind: 'stock' });
+    const result = importCreateQuerySchema.safeParse({ kind: 'price-list' });
+    expect(result.error?.issues[0]?.path).toEqual(['supplierId']);
+    expect(importCreateQuerySchema.parse({ kind: 'price-list', supplierId: '3' })).toEqual({
+      kind: 'price-list',
+      supplierId: 3,
+    });
   });
 });
 
