@@ -146,7 +146,11 @@ describe('Restock page', () => {
       'GET /api/requests': { body: page([request]) },
     });
     renderApp('/orders/restock');
-    const table = await screen.findByRole('table', { name: 'Reorder suggestions' });
+    const table = await screen.findByRole(
+      'table',
+      { name: 'Reorder suggestions' },
+      { timeout: 5000 },
+    );
     const rows = within(table).getAllByRole('row').slice(1);
     expect(rows).toHaveLength(3);
     const [acetoneRow, salicylicRow, ethanolRow] = rows as [HTMLElement, HTMLElement, HTMLElement];
@@ -186,9 +190,15 @@ describe('Restock page', () => {
       },
     });
     renderApp('/orders/restock');
-    const draft = await screen.findByRole('button', { name: 'Draft a shared order' });
+    const draft = await screen.findByRole(
+      'button',
+      { name: 'Draft a shared order' },
+      { timeout: 5000 },
+    );
     expect(draft).toBeDisabled();
-    await userEvent.click(await screen.findByRole('checkbox', { name: 'Choose Acetone' }));
+    await userEvent.click(
+      await screen.findByRole('checkbox', { name: 'Choose Acetone' }, { timeout: 5000 }),
+    );
     await userEvent.click(screen.getByRole('checkbox', { name: 'Choose Salicylic acid' }));
     await userEvent.click(screen.getByRole('button', { name: 'Draft a shared order (2 chosen)' }));
     expect(
@@ -212,7 +222,9 @@ describe('Restock page', () => {
       },
     });
     const { router } = renderApp('/orders/restock');
-    await userEvent.click(await screen.findByRole('checkbox', { name: 'Choose Acetone' }));
+    await userEvent.click(
+      await screen.findByRole('checkbox', { name: 'Choose Acetone' }, { timeout: 5000 }),
+    );
     await userEvent.click(screen.getByRole('button', { name: 'Draft a shared order (1 chosen)' }));
     await waitFor(() => expect(router.state.location.pathname).toBe('/orders/23'));
   });
@@ -228,7 +240,11 @@ describe('Restock page', () => {
     });
     renderApp('/orders/restock');
     await userEvent.click(
-      await screen.findByRole('button', { name: 'Add to a draft order as their share' }),
+      await screen.findByRole(
+        'button',
+        { name: 'Add to a draft order as their share' },
+        { timeout: 5000 },
+      ),
     );
     expect(await screen.findByRole('link', { name: 'order #24' })).toHaveAttribute(
       'href',
@@ -247,7 +263,7 @@ describe('Restock page', () => {
       },
     });
     renderApp('/orders/restock');
-    await screen.findByRole('table', { name: 'Reorder suggestions' });
+    await screen.findByRole('table', { name: 'Reorder suggestions' }, { timeout: 5000 });
     expect(screen.queryByRole('button', { name: /Draft a shared order/ })).not.toBeInTheDocument();
     expect(screen.queryByRole('checkbox', { name: /Choose/ })).not.toBeInTheDocument();
     expect(screen.getByRole('form', { name: 'Request a chemical' })).toBeInTheDocument();
