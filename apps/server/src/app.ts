@@ -168,7 +168,9 @@ export function createApp({
     ...supplierRoutes(suppliersService(store, config.currency)),
     // Before the orders routes: `/api/orders/money.csv` must not be read as an order id.
     ...purchaseRoutes(purchasesService(store, config)),
-    ...orderRoutes(ordersService(store, config, { alerts, cancellation: orderCancellation ?? payments })),
+    ...orderRoutes(
+      ordersService(store, config, { alerts, cancellation: orderCancellation ?? payments }),
+    ),
     ...reorderRoutes(reorderService(store, config)),
     ...requestRoutes(requestsService(store, config)),
     ...receivingRoutes(receivingService(store, alerts, config)),
