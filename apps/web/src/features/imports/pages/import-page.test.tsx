@@ -100,7 +100,11 @@ describe('Stock import', () => {
     const input = await screen.findByLabelText(/Drop the CSV file here/, {}, { timeout: 5000 });
     await user.upload(input, csv('stock.csv'));
 
-    const problems = await screen.findByRole('table', { name: 'Problems in the file' });
+    const problems = await screen.findByRole(
+      'table',
+      { name: 'Problems in the file' },
+      { timeout: 8000 },
+    );
     const rows = within(problems).getAllByRole('row');
     expect(rows).toHaveLength(3);
     expect(within(rows[1]!).getByText('3')).toBeInTheDocument();
