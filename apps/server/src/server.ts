@@ -4,6 +4,7 @@ import { createApp } from './app';
 import type { Config } from './config';
 import { hasDemoAccounts, openDatabase } from './db/database-file';
 import { createStore } from './db/store';
+import { seedDemoOrders } from './db/seed/demo-orders';
 import { demoAccounts, demoPassword } from './db/seed/demo-seed';
 import { createLogger } from './lib/logger';
 import { alertScheduler } from './modules/alerts/alerts-scheduler';
@@ -24,7 +25,10 @@ export async function startServer(config: Config): Promise<RunningServer> {
   const logger = createLogger(config.logLevel);
   const { dataSource, applied, seeded } = await openDatabase(config, logger);
   if (applied.length) logger.info(`Applied migrations: ${applied.join(', ')}`);
-  if (seeded) logger.info('Seeded the demo lab');
+  if (seeded) {
+    await seedDemoOrders(dataSource, config, logger);
+    logger.info('Seeded the demo lab');
+  }
 
   let worker: OutboxWorker | null = null;
   const app = createApp({ dataSource, config, logger, onMailQueued: () => worker?.kick() });

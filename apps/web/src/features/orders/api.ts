@@ -1,6 +1,7 @@
 import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
 import {
+  type CashPaymentBody,
   orderDetailSchema,
   orderSummarySchema,
   packUnits,
@@ -227,11 +228,8 @@ export function useCheckout(orderId: number) {
 export function useRecordPayment(orderId: number) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (input: { shareId: number; kind: 'cash' | 'lab_funds'; note: string }) =>
-      api.post(`/api/orders/${orderId}/shares/${input.shareId}/cash-payment`, {
-        kind: input.kind,
-        note: input.note,
-      }),
+    mutationFn: ({ shareId, ...body }: CashPaymentBody & { shareId: number }) =>
+      api.post(`/api/orders/${orderId}/shares/${shareId}/cash-payment`, body),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: orderKeys.all }),
   });
 }

@@ -22,7 +22,6 @@ function RecordPaymentDialog({
 }) {
   const record = useRecordPayment(order.id);
   const [note, setNote] = useState('');
-  const kind = share.forLab ? 'lab_funds' : 'cash';
   const who = share.forLab ? 'the lab' : (share.member?.displayName ?? 'this member');
   return (
     <Dialog
@@ -39,8 +38,9 @@ function RecordPaymentDialog({
           <Button
             variant="primary"
             busy={record.isPending}
+            disabled={note.trim() === ''}
             onClick={() =>
-              record.mutate({ shareId: share.id, kind, note: note.trim() }, { onSuccess: onClose })
+              record.mutate({ shareId: share.id, note: note.trim() }, { onSuccess: onClose })
             }
           >
             Record {money(share.amountMinor, order.currency)}
@@ -51,8 +51,11 @@ function RecordPaymentDialog({
       <div className="flex flex-col gap-3">
         <Field
           label="Note"
-          optional
-          hint={share.forLab ? 'e.g. which budget pays it' : 'e.g. received at the club evening'}
+          hint={
+            share.forLab
+              ? 'Which budget pays it, e.g. the club’s consumables budget'
+              : 'Who paid and when, e.g. received at the club evening on 3 March'
+          }
         >
           {(control) => (
             <Textarea

@@ -9,6 +9,8 @@ import { isApiError } from '../../../lib/api-client';
 import { formatDate } from '../../../lib/format';
 import { useOrder } from '../api';
 import { CoordinatorActions } from '../components/coordinator-actions';
+import { OrderMoneyLinks } from '../../../components/purchasing/order-money-links';
+import { useCurrentUser } from '../../../lib/auth';
 import { DeadlineEditor } from '../components/deadline-editor';
 import { OrderLinesTable } from '../components/order-lines-table';
 import { OrderTotals } from '../components/order-totals';
@@ -117,6 +119,7 @@ export function OrderPage() {
   const paid = shareParam(search.get('paid'));
   const cancelled = shareParam(search.get('cancelled'));
   const order = useOrder(orderId, paid);
+  const user = useCurrentUser().data;
 
   if (order.isPending) return <PageSpinner label="Loading the order…" />;
   if (order.isError) {
@@ -135,6 +138,14 @@ export function OrderPage() {
       <OrderHeader order={data} />
       <PaymentReturn order={data} paid={paid} cancelled={cancelled} />
       <CoordinatorActions order={data} />
+      {user && (
+        <OrderMoneyLinks
+          orderId={data.id}
+          status={data.status}
+          role={user.role}
+          hasShare={data.shares.some((share) => share.mine)}
+        />
+      )}
       <div className="grid gap-5 lg:grid-cols-[1fr_20rem]">
         <div className="flex min-w-0 flex-col gap-5">
           <YourSharePanel order={data} />

@@ -1,8 +1,8 @@
 import { Link } from 'react-router';
 import { Coins, PackageCheck, ReceiptText } from 'lucide-react';
 import { can, type OrderStatus, type Role } from '@lotwise/shared';
-import { buttonClasses } from '../../../components/ui/button';
-import { paths } from '../../../config/paths';
+import { buttonClasses } from '../ui/button';
+import { paths } from '../../config/paths';
 
 /**
  * Links from an order's page to what this feature shows about it: the member's receipt (when
