@@ -1,5 +1,6 @@
 import type { Repositories } from '../../db/store';
 import { nowIso } from '../../db/sql';
+import { addOrderLines, draftOrderFromLines } from '../orders/order-drafts';
 import type { OfferRow } from './reorder.repository';
 
 /** Packs of one catalogue item to put on an order. */
@@ -17,10 +18,9 @@ export interface DraftedLines {
 
 /**
  * Adds packs to a draft order of the lines' supplier: the order `orderId` when given, else
- * that supplier's newest draft, else a new draft (fees copied from the supplier, the fee
- * split by value). A catalogue item already on the order gets the packs added to its line;
- * another gets a new line with the catalogue's pack, price and flags copied. Runs inside the
- * caller's transaction.
+ * that supplier's newest draft, else a new draft — through the orders module's drafting, so
+ * fees, copied catalogue values and the audit trail are the same as for any order. Runs inside
+ * the caller's transaction.
  */
 export async function addToDraftOrder(
   repos: Repositories,
@@ -33,69 +33,28 @@ export async function addToDraftOrder(
     orderId?: number;
   },
 ): Promise<DraftedLines> {
-  const now = nowIso();
-  const first = input.lines[0]?.item;
-  let orderId = input.orderId ?? (await repos.reorder.latestDraftOrderOf(input.supplierId));
-  let created = false;
-  if (orderId === null) {
-    orderId = await repos.orders.insertOrder({
+  const lines = input.lines.map(({ item, packs }) => ({
+    catalogItemId: item.catalogItemId,
+    packs,
+  }));
+  const found = input.orderId ?? (await repos.reorder.latestDraftOrderOf(input.supplierId));
+  const order = found === null ? null : await repos.orders.findOrder(found);
+  let orderId: number;
+  if (order) {
+    orderId = order.id;
+    await addOrderLines(repos, order, lines);
+    await repos.orders.updateOrder(orderId, { updatedAt: nowIso() });
+  } else {
+    orderId = await draftOrderFromLines(repos, {
       supplierId: input.supplierId,
-      title: `Restock from ${input.supplierName}, ${now.slice(0, 10)}`,
-      status: 'draft',
-      feeRule: 'value',
-      shippingFeeMinor: first?.shippingFeeMinor ?? 0,
-      hazardousFeeMinor: first?.hazardousFeeMinor ?? 0,
+      lines,
+      actor: { id: input.coordinatorId },
+      title: `Restock from ${input.supplierName}, ${nowIso().slice(0, 10)}`,
       currency: input.currency,
-      claimDeadline: null,
-      claimsClosedAt: null,
-      supplierInvoiceMinor: null,
-      supplierReference: '',
-      notes: '',
-      coordinatorId: input.coordinatorId,
-      openedAt: null,
-      orderedAt: null,
-      receivedAt: null,
-      closedAt: null,
-      cancelledAt: null,
-      cancelReason: '',
-      createdAt: now,
-      updatedAt: now,
     });
-    created = true;
   }
-  const existing = await repos.orders.linesOf(orderId);
-  let position = existing.reduce((top, line) => Math.max(top, line.position), 0);
-  const lineIds = new Map<number, number>();
-  for (const { item, packs } of input.lines) {
-    const line = existing.find((candidate) => candidate.catalogItemId === item.catalogItemId);
-    if (line) {
-      line.packs += packs;
-      await repos.orders.updateLine(line.id, { packs: line.packs, updatedAt: now });
-      lineIds.set(item.catalogItemId, line.id);
-      continue;
-    }
-    position += 1;
-    const values = {
-      orderId,
-      catalogItemId: item.catalogItemId,
-      chemicalId: item.chemicalId,
-      position,
-      sku: item.sku,
-      packs,
-      packSize: item.packSize,
-      packUnit: item.packUnit,
-      unitPriceMinor: item.priceMinor,
-      grade: item.grade,
-      purityPercent: item.purityPercent,
-      hazardous: item.hazardous,
-      splittable: item.splittable,
-      createdAt: now,
-      updatedAt: now,
-    };
-    const id = await repos.orders.insertLine(values);
-    existing.push({ id, ...values });
-    lineIds.set(item.catalogItemId, id);
-  }
-  if (!created) await repos.orders.updateOrder(orderId, { updatedAt: now });
-  return { orderId, created, lineIds };
+  const lineIds = new Map(
+    (await repos.orders.linesOf(orderId)).map((line) => [line.catalogItemId, line.id]),
+  );
+  return { orderId, created: order === null, lineIds };
 }
