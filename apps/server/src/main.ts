@@ -30,6 +30,8 @@ try {
       webhookEndpoint(config.host, config.port),
     );
   }
+  // The demo seed queues e-mails at once: let the inbox answer before anything is sent.
+  await devMail?.ready;
   const server = await startServer(config);
   if (devMail)
     console.log(`Development mail inbox (every e-mail Lotwise sends): ${devMail.inboxUrl}`);

@@ -1,11 +1,37 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdirSync } from 'node:fs';
+import { connect } from 'node:net';
 import path from 'node:path';
 import { repoRoot } from '../../config';
 
 export interface DevMailServer {
   inboxUrl: string;
+  /**
+   * Settles once the fake SMTP server accepts connections (or after `timeoutMs`, or when it
+   * exits): start sending only then, so the first e-mails do not fail and wait for a retry.
+   */
+  ready: Promise<void>;
   stop(): void;
+}
+
+/** Resolves when something accepts TCP connections on 127.0.0.1:`port`, or after `timeoutMs`. */
+export function portAnswers(port: number, timeoutMs = 10_000): Promise<boolean> {
+  const until = Date.now() + timeoutMs;
+  return new Promise((resolve) => {
+    const attempt = () => {
+      const socket = connect({ host: '127.0.0.1', port });
+      socket.once('connect', () => {
+        socket.destroy();
+        resolve(true);
+      });
+      socket.once('error', () => {
+        socket.destroy();
+        if (Date.now() >= until) resolve(false);
+        else setTimeout(attempt, 100);
+      });
+    };
+    attempt();
+  });
 }
 
 /** Where the local fake mail server is installed (a development dependency of the workspace). */
@@ -59,5 +85,7 @@ export function startDevMail(
   };
   // Never leave it running behind us, however the server stops.
   process.once('exit', stop);
-  return { inboxUrl: `http://127.0.0.1:${settings.webPort}`, stop };
+  const exited = new Promise<boolean>((resolve) => child.once('exit', () => resolve(false)));
+  const ready = Promise.race([portAnswers(settings.port), exited]).then(() => undefined);
+  return { inboxUrl: `http://127.0.0.1:${settings.webPort}`, ready, stop };
 }
