@@ -71,21 +71,44 @@ export interface ImportRowValues {
 const headerOf = new Map(importColumns.map((column) => [column.key, column.header]));
 const requiredColumns = importColumns.filter((column) => column.required);
 
-export interface HeaderMap {
+/** What a header row says: column key -> index and header as written, and what is wrong. */
+export interface HeaderRead<K extends string> {
   /** Column key -> index in the record and the header as written. */
-  columns: Map<ImportColumnKey, { index: number; header: string }>;
+  columns: Map<K, { index: number; header: string }>;
   /** File-level problems (missing or doubled columns): rows are not read when there are any. */
   problems: ImportProblem[];
   warnings: string[];
 }
 
-function fileProblem(message: string, column: string | null = null): ImportProblem {
+export type HeaderMap = HeaderRead<ImportColumnKey>;
+
+/** A problem of the whole file (its header), not of one row. */
+export function fileProblem(message: string, column: string | null = null): ImportProblem {
   return { row: null, column, field: null, value: null, message };
 }
 
-/** Reads the header row: which column is which, and what is missing or doubled. */
-export function mapHeader(header: string[]): HeaderMap {
-  const columns: HeaderMap['columns'] = new Map();
+/** How one kind of import names its columns, for {@link readHeaderRow}. */
+export interface HeaderSpec<K extends string> {
+  /** The column a header means, however it is spelled; undefined for none. */
+  columnFor(header: string): K | null | undefined;
+  headerOf: ReadonlyMap<K, string>;
+  required: readonly { key: K; header: string }[];
+  /** Who reads the columns, for the messages: "Lotwise", "a price list". */
+  reader: string;
+  /** Where every column name is documented. */
+  guide: string;
+}
+
+/**
+ * Reads the header row of an import: which column is which, unknown and unnamed columns
+ * (warnings), and doubled or missing required ones (problems). Every kind of import reads its
+ * header this way.
+ */
+export function readHeaderRow<K extends string>(
+  header: string[],
+  spec: HeaderSpec<K>,
+): HeaderRead<K> {
+  const columns: HeaderRead<K>['columns'] = new Map();
   const problems: ImportProblem[] = [];
   const warnings: string[] = [];
   header.forEach((raw, index) => {
@@ -94,16 +117,16 @@ export function mapHeader(header: string[]): HeaderMap {
       warnings.push(`Column ${index + 1} has no header; it is not read.`);
       return;
     }
-    const key = importColumnForHeader(text);
+    const key = spec.columnFor(text);
     if (!key) {
-      warnings.push(`Column "${text}" is not one Lotwise reads; it is not imported.`);
+      warnings.push(`Column "${text}" is not one ${spec.reader} reads; it is not imported.`);
       return;
     }
     const earlier = columns.get(key);
     if (earlier) {
       problems.push(
         fileProblem(
-          `Columns "${earlier.header}" and "${text}" both mean ${headerOf.get(key)}; keep one of them.`,
+          `Columns "${earlier.header}" and "${text}" both mean ${spec.headerOf.get(key)}; keep one of them.`,
           text,
         ),
       );
@@ -111,21 +134,28 @@ export function mapHeader(header: string[]): HeaderMap {
     }
     columns.set(key, { index, header: text });
   });
-  const missing = requiredColumns.filter((column) => !columns.has(column.key));
+  const missing = spec.required.filter((column) => !columns.has(column.key));
   if (missing.length > 0) {
+    const names = (list: readonly { header: string }[]) =>
+      list.map((column) => column.header).join(', ');
     problems.unshift(
       fileProblem(
-        `The file has no ${missing.length === 1 ? 'column' : 'columns'} for ${missing
-          .map((column) => column.header)
-          .join(
-            ', ',
-          )}. The first row must name the columns; Lotwise needs at least ${requiredColumns
-          .map((column) => column.header)
-          .join(', ')} (see docs/importing-stock.md for every name it reads).`,
+        `The file has no ${missing.length === 1 ? 'column' : 'columns'} for ${names(missing)}. The first row must name the columns; ${spec.reader} needs at least ${names(spec.required)} (see ${spec.guide} for every name it reads).`,
       ),
     );
   }
   return { columns, problems, warnings };
+}
+
+/** Reads the header row of a stock import. */
+export function mapHeader(header: string[]): HeaderMap {
+  return readHeaderRow<ImportColumnKey>(header, {
+    columnFor: importColumnForHeader,
+    headerOf,
+    required: requiredColumns,
+    reader: 'Lotwise',
+    guide: 'docs/importing-stock.md',
+  });
 }
 
 export interface RowOptions {

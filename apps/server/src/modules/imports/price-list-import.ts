@@ -15,6 +15,7 @@ import {
   type PriceListSummary,
 } from '@lotwise/shared';
 import { unescapeFormula } from '../../lib/csv';
+import { readHeaderRow, type HeaderRead } from './import-rows';
 import type { Repositories } from '../../db/store';
 import { currencyProblem } from '../suppliers/suppliers.service';
 
@@ -40,11 +41,7 @@ export interface PriceListRowValues {
   splittable: boolean;
 }
 
-export interface PriceListHeader {
-  columns: Map<PriceListColumnKey, { index: number; header: string }>;
-  problems: ImportProblem[];
-  warnings: string[];
-}
+export type PriceListHeader = HeaderRead<PriceListColumnKey>;
 
 const headerOf = new Map(priceListColumns.map((column) => [column.key, column.header]));
 const columnOrder = new Map(priceListColumns.map((column, i) => [column.key, i]));
@@ -57,53 +54,15 @@ const columnByHeader = new Map<string, PriceListColumnKey>(
 );
 const requiredColumns = priceListColumns.filter((column) => column.required);
 
-function fileProblem(message: string, column: string | null = null): ImportProblem {
-  return { row: null, column, field: null, value: null, message };
-}
-
 /** Reads the header row of a price list: which column is which, what is missing or doubled. */
 export function mapPriceListHeader(header: string[]): PriceListHeader {
-  const columns: PriceListHeader['columns'] = new Map();
-  const problems: ImportProblem[] = [];
-  const warnings: string[] = [];
-  header.forEach((raw, index) => {
-    const text = unescapeFormula(raw.trim());
-    if (text === '') {
-      warnings.push(`Column ${index + 1} has no header; it is not read.`);
-      return;
-    }
-    const key = columnByHeader.get(normalizeHeader(text));
-    if (!key) {
-      warnings.push(`Column "${text}" is not one a price list has; it is not imported.`);
-      return;
-    }
-    const earlier = columns.get(key);
-    if (earlier) {
-      problems.push(
-        fileProblem(
-          `Columns "${earlier.header}" and "${text}" both mean ${headerOf.get(key)}; keep one of them.`,
-          text,
-        ),
-      );
-      return;
-    }
-    columns.set(key, { index, header: text });
+  return readHeaderRow(header, {
+    columnFor: (text) => columnByHeader.get(normalizeHeader(text)),
+    headerOf,
+    required: requiredColumns,
+    reader: 'a price list',
+    guide: 'docs/importing-price-lists.md',
   });
-  const missing = requiredColumns.filter((column) => !columns.has(column.key));
-  if (missing.length > 0) {
-    problems.unshift(
-      fileProblem(
-        `The file has no ${missing.length === 1 ? 'column' : 'columns'} for ${missing
-          .map((column) => column.header)
-          .join(
-            ', ',
-          )}. The first row must name the columns; a price list needs at least ${requiredColumns
-          .map((column) => column.header)
-          .join(', ')} (see docs/importing-price-lists.md).`,
-      ),
-    );
-  }
-  return { columns, problems, warnings };
 }
 
 const packUnitByText: Record<string, PackUnit> = { g: 'g', kg: 'kg', mg: 'mg', ml: 'mL', l: 'L' };
