@@ -7,7 +7,7 @@ import request from 'supertest';
 import { afterAll, bench, describe } from 'vitest';
 import { createApp } from '../src/app';
 import { createDataSource } from '../src/db/data-source';
-import { createStore } from '../src/db/store';
+import { openStore } from '../src/db/repositories';
 import { hashPassword } from '../src/modules/auth/passwords';
 import { testConfig } from '../src/test/harness';
 
@@ -22,7 +22,7 @@ const config = testConfig(dir);
 const dataSource = createDataSource(config.databasePath);
 await dataSource.initialize();
 await dataSource.runMigrations({ transaction: 'all' });
-const store = createStore(dataSource);
+const store = openStore(dataSource);
 const today = todayIso();
 const now = new Date().toISOString();
 

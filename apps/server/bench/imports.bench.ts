@@ -9,7 +9,7 @@ import { createDataSource } from '../src/db/data-source';
 import { hashPassword } from '../src/modules/auth/passwords';
 import { csvLine } from '../src/lib/csv';
 import { testConfig } from '../src/test/harness';
-import { createStore } from '../src/db/store';
+import { openStore } from '../src/db/repositories';
 
 /**
  * A 10,000-row stock import over HTTP, in-process: validation (POST until ready) and commit
@@ -24,7 +24,7 @@ const config = testConfig(dir);
 const dataSource = createDataSource(config.databasePath);
 await dataSource.initialize();
 await dataSource.runMigrations({ transaction: 'all' });
-const store = createStore(dataSource);
+const store = openStore(dataSource);
 const now = new Date().toISOString();
 await store.repos.users.insert({
   email: 'bench@example.test',

@@ -3,7 +3,7 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import type { DataSource } from 'typeorm';
 import type { Config } from './config';
-import { createStore } from './db/store';
+import { openStore } from './db/repositories';
 import { errorMiddleware, notFoundMiddleware } from './lib/error-middleware';
 import { createLogger, type Logger } from './lib/logger';
 import { mountRoutes, type ApiRoute } from './lib/route-table';
@@ -126,7 +126,7 @@ export function createApp({
   app.use(express.json({ limit: '1mb' }));
   app.use(cookieParser());
 
-  const store = createStore(dataSource);
+  const store = openStore(dataSource);
   const session = sessions(config, store.repos.users);
   const files = fileStore({
     dir: config.uploadDir,

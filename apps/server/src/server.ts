@@ -3,7 +3,7 @@ import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
 import type { Config } from './config';
 import { hasDemoAccounts, openDatabase } from './db/database-file';
-import { createStore } from './db/store';
+import { openStore } from './db/repositories';
 import { seedDemoOrders } from './db/seed/demo-orders';
 import { demoAccounts, demoPassword } from './db/seed/demo-seed';
 import { createLogger } from './lib/logger';
@@ -34,7 +34,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
   const app = createApp({ dataSource, config, logger, onMailQueued: () => worker?.kick() });
   // Alerts: a scheduler evaluates the rules, a worker sends what the outbox holds.
   const transport = createMailTransport(config.mail.smtp);
-  const store = createStore(dataSource);
+  const store = openStore(dataSource);
   if (transport && config.alerts.outboxIntervalSeconds > 0) {
     worker = outboxWorker({ store, transport, config, logger });
     worker.start();

@@ -3,7 +3,7 @@ import { formatDecimal } from '@lotwise/shared';
 import type { Config } from '../config';
 import { createDataSource } from '../db/data-source';
 import { isDatabaseBusy, retryWhenBusy } from '../db/busy-retry';
-import { createStore } from '../db/store';
+import { openStore } from '../db/repositories';
 import { createLogger } from '../lib/logger';
 import { alertsService } from '../modules/alerts/alerts.service';
 import { createMailTransport } from '../modules/alerts/mail-transport';
@@ -71,7 +71,7 @@ export async function runAlertsEvaluate(
   try {
     await dataSource.initialize();
     await whenBusy(() => dataSource.runMigrations({ transaction: 'all' }));
-    const store = createStore(dataSource);
+    const store = openStore(dataSource);
     const result = await whenBusy(() => alertsService(store, config).evaluateNow());
     io.out(
       `Conditions found: ${result.conditions}; e-mails queued: ${result.queued}; already sent within the window: ${result.duplicates}`,

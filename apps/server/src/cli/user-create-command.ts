@@ -2,7 +2,7 @@ import { parseArgs } from 'node:util';
 import { emailSchema, passwordSchema, roleSchema, roles, type User } from '@lotwise/shared';
 import type { Config } from '../config';
 import { createDataSource } from '../db/data-source';
-import { createStore } from '../db/store';
+import { openStore } from '../db/repositories';
 import { AppError } from '../lib/app-error';
 import { generatePassword } from '../modules/auth/passwords';
 import { usersService } from '../modules/users/users.service';
@@ -70,7 +70,7 @@ export async function runUserCreate(
   await dataSource.initialize();
   try {
     await dataSource.runMigrations({ transaction: 'all' });
-    const store = createStore(dataSource);
+    const store = openStore(dataSource);
     if (!values.force && (await store.repos.users.countActiveAdmins()) > 0) {
       io.err(
         'This database already has an admin: add users from the Admin screen, or pass --force.',

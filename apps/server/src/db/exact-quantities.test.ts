@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { checkLedger } from '../modules/maintenance/ledger-check';
 import { createDataSource } from './data-source';
 import { fromMicro, toMicro } from './quantities';
-import { createStore } from './store';
+import { openStore } from './repositories';
 
 const now = '2026-01-31T09:15:00.000Z';
 
@@ -97,7 +97,7 @@ describe('exact quantities migration', () => {
       expect(reservation.q).toBe(700_000);
 
       // The app reads them back in g, and the ledger check finds them exact.
-      const repos = createStore(dataSource).repos;
+      const repos = openStore(dataSource).repos;
       expect((await repos.containers.findRow(1))?.quantity).toBe(1.323455);
       const ledger = await repos.containers.entries(1, 1, 10);
       expect(ledger.items.map((e) => e.quantity).reverse()).toEqual(entries.map((e) => e.quantity));

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import type { EntityManager } from 'typeorm';
 import { testContext } from '../test/harness';
+import { createStore, type RepositoryFactories } from './store';
 
 describe('store transactions', () => {
   it('when transactions overlap in time, then they run one after another (no interleaved read-check-write)', async () => {
@@ -72,5 +74,57 @@ describe('store transactions', () => {
     const { store } = testContext();
     const answer = await store.transaction(async () => store.transaction(async () => 'joined'));
     expect(answer).toBe('joined');
+  });
+
+  it('when a long write transaction is open, then a read outside it answers at once with the last committed state', async () => {
+    const { store } = testContext();
+    const now = new Date().toISOString();
+    let release!: () => void;
+    const gate = new Promise<void>((resolve) => (release = resolve));
+    let inserted = false;
+    const writing = store.transaction(async (repos) => {
+      await repos.locations.insert(
+        {
+          name: 'Room being written',
+          kind: 'room',
+          parentId: null,
+          storageGroups: [],
+          notes: '',
+          createdAt: now,
+          updatedAt: now,
+        },
+        null,
+      );
+      inserted = true;
+      await gate;
+    });
+    while (!inserted) await new Promise((resolve) => setTimeout(resolve, 1));
+    // the read does not wait for the gate (it would never resolve if it queued behind it)
+    expect(await store.repos.locations.siblingNamed(null, 'Room being written')).toBeNull();
+    release();
+    await writing;
+    expect(await store.repos.locations.siblingNamed(null, 'Room being written')).not.toBeNull();
+  });
+
+  it('when a method named as a read writes, then it is refused on the read connection and runs in the write queue', async () => {
+    const { dataSource } = testContext();
+    const factories = {
+      probe: (manager: EntityManager) => ({
+        async countAndTouch(name: string) {
+          await manager.query(
+            "INSERT INTO locations (name, kind, parent_id, storage_groups, notes, path, id_path, depth, created_at, updated_at) VALUES (?, 'room', NULL, '[]', '', ?, '/0/', 0, datetime('now'), datetime('now'))",
+            [name, name],
+          );
+          const [row] = await manager.query('SELECT COUNT(*) AS n FROM locations WHERE name = ?', [
+            name,
+          ]);
+          return Number(row.n);
+        },
+      }),
+    } as unknown as RepositoryFactories;
+    const probe = (createStore(dataSource, factories).repos as unknown as {
+      probe: { countAndTouch(name: string): Promise<number> };
+    }).probe;
+    expect(await probe.countAndTouch('Touched room')).toBe(1);
   });
 });

@@ -1,52 +1,22 @@
 import { AsyncLocalStorage } from 'node:async_hooks';
-import type { DataSource, EntityManager } from 'typeorm';
-import { alertsRepository } from '../modules/alerts/alerts.repository';
-import { auditRepository } from '../modules/audit/audit.repository';
-import { chemicalsRepository } from '../modules/chemicals/chemicals.repository';
-import { importsRepository } from '../modules/imports/imports.repository';
-import { containersRepository } from '../modules/containers/containers.repository';
-import { locationsRepository } from '../modules/locations/locations.repository';
-import { lotsRepository } from '../modules/lots/lots.repository';
-import { ordersRepository } from '../modules/orders/orders.repository';
-import { paymentsRepository } from '../modules/payments/payments.repository';
-import { plansRepository } from '../modules/plans/plans.repository';
-import { reorderRepository } from '../modules/reorder/reorder.repository';
-import { requestsRepository } from '../modules/requests/requests.repository';
-import { receivingRepository } from '../modules/receiving/receiving.repository';
-import { proceduresRepository } from '../modules/procedures/procedures.repository';
-import { runsRepository } from '../modules/runs/runs.repository';
-import { segregationRepository } from '../modules/segregation/segregation.repository';
-import { stockRepository } from '../modules/stock/stock.repository';
-import { suppliersRepository } from '../modules/suppliers/suppliers.repository';
-import { usersRepository } from '../modules/users/users.repository';
+import { type DataSource, type EntityManager } from 'typeorm';
+import type { Repositories } from './repositories';
+import { readConnection } from './read-connection';
 
-function repositoriesFor(manager: EntityManager) {
-  return {
-    users: usersRepository(manager),
-    audit: auditRepository(manager),
-    chemicals: chemicalsRepository(manager),
-    locations: locationsRepository(manager),
-    lots: lotsRepository(manager),
-    containers: containersRepository(manager),
-    segregation: segregationRepository(manager),
-    stock: stockRepository(manager),
-    imports: importsRepository(manager),
-    procedures: proceduresRepository(manager),
-    plans: plansRepository(manager),
-    runs: runsRepository(manager),
-    alerts: alertsRepository(manager),
-    orders: ordersRepository(manager),
-    payments: paymentsRepository(manager),
-    suppliers: suppliersRepository(manager),
-    reorder: reorderRepository(manager),
-    requests: requestsRepository(manager),
-    receiving: receivingRepository(manager),
-  };
-}
-export type Repositories = ReturnType<typeof repositoriesFor>;
+export type { Repositories } from './repositories';
+
+/** How the store builds each module's repository on a connection or a transaction. */
+export type RepositoryFactories = {
+  [K in keyof Repositories]: (manager: EntityManager) => Repositories[K];
+};
 
 /** What services get: repositories, and a way to run several writes in one transaction. */
 export interface Store {
+  /**
+   * Repositories for work outside a transaction. Reads go to a read-only connection of their
+   * own, so they never wait behind a write; a method that writes waits its turn in the write
+   * queue (or joins the open transaction).
+   */
   repos: Repositories;
   transaction<T>(work: (repos: Repositories) => Promise<T>): Promise<T>;
   /** Throws when the database does not answer a read of the users table. */
@@ -54,9 +24,11 @@ export interface Store {
   /**
    * Runs `listener` at the end of every transaction of this store that appended ledger
    * entries, before it commits, with the chemicals concerned: what it writes commits or
-   * rolls back together with the entries (the alert rules queue their e-mails this way).
+   * rolls back together with the entries (the alert rules note the chemicals this way).
    */
   onLedgerChange(listener: LedgerChangeListener): void;
+  /** Runs `listener` after such a transaction committed (not when it rolled back). */
+  afterLedgerCommit(listener: (chemicalIds: number[]) => void): void;
 }
 
 export type LedgerChangeListener = (repos: Repositories, chemicalIds: number[]) => Promise<void>;
@@ -70,11 +42,12 @@ export function noteLedgerChange(repos: Repositories, chemicalId: number) {
 }
 
 /**
- * The tail of the queue per database. better-sqlite3 has one connection and TypeORM one query
- * runner for it, so anything that runs while a transaction awaits would land inside that
- * transaction: two transactions would share one BEGIN…COMMIT, and a lone write made during a
- * long import would be rolled back with it. Every transaction and every call on `store.repos`
- * therefore waits its turn; code already inside a transaction runs at once, in it.
+ * The tail of the write queue per database. better-sqlite3 has one connection and TypeORM one
+ * query runner for it, so anything that runs on it while a transaction awaits would land inside
+ * that transaction: two transactions would share one BEGIN…COMMIT, and a lone write made during
+ * a long import would be rolled back with it. Every transaction and every write outside one
+ * therefore waits its turn; code already inside a transaction runs at once, in it. Reads
+ * outside a transaction do not queue: they run on the read-only connection.
  */
 const queues = new WeakMap<DataSource, Promise<unknown>>();
 const openTransaction = new AsyncLocalStorage<Repositories>();
@@ -89,41 +62,93 @@ function serialized<T>(dataSource: DataSource, work: () => Promise<T>): Promise<
   return run;
 }
 
-type AsyncMethods<R> = {
-  [K in keyof R]: R[K] extends (...args: infer _A) => Promise<unknown> ? R[K] : never;
-};
+/**
+ * Repository methods that write, by name. Everything else is a read and runs on the read-only
+ * connection; a read-named method that writes all the same fails there before it changed
+ * anything (SQLITE_READONLY) and runs again in the write queue.
+ */
+export const writingMethod =
+  /^(insert|update|delete|save|replace|set|claim|renew|finish|release|end|create|mark|append|record|remove|add|touch|note|clear|take|drain)/;
 
-/** Repositories whose every call waits its turn in the queue (or joins the open transaction). */
-function queuedRepositories(dataSource: DataSource): Repositories {
-  const direct = repositoriesFor(dataSource.manager);
-  const queued = {} as Record<string, Record<string, unknown>>;
-  for (const [name, repository] of Object.entries(direct)) {
-    // every repository method answers a promise, so each can wait in the queue
-    const methods: AsyncMethods<typeof repository> = repository;
-    queued[name] = Object.fromEntries(
-      Object.entries(methods).map(([key, method]) => [
-        key,
-        (...args: unknown[]) => {
-          const call = () =>
-            (method as (...a: unknown[]) => Promise<unknown>).apply(repository, args);
-          return openTransaction.getStore() ? call() : serialized(dataSource, call);
-        },
-      ]),
-    );
+/** True for SQLite's "this connection may not write" answer. */
+export function isReadOnlyRefusal(error: unknown): boolean {
+  for (let e: unknown = error, depth = 0; e && typeof e === 'object' && depth < 4; depth++) {
+    const code = (e as { code?: unknown }).code;
+    if (typeof code === 'string' && code.startsWith('SQLITE_READONLY')) return true;
+    e = (e as { driverError?: unknown }).driverError;
   }
-  return queued as unknown as Repositories;
+  return false;
 }
 
-export function createStore(dataSource: DataSource): Store {
+type AnyMethod = (...args: unknown[]) => Promise<unknown>;
+
+function buildRepositories(factories: RepositoryFactories, manager: EntityManager): Repositories {
+  const built = {} as Record<string, unknown>;
+  for (const [name, factory] of Object.entries(factories)) {
+    built[name] = (factory as (m: EntityManager) => unknown)(manager);
+  }
+  return built as Repositories;
+}
+
+/**
+ * Repositories for calls made outside a transaction: inside an open transaction a call joins
+ * it; a write waits its turn in the queue; a read runs on the read-only connection when there
+ * is one (a file database), else in the queue.
+ */
+function routedRepositories(
+  dataSource: DataSource,
+  factories: RepositoryFactories,
+): Repositories {
+  const onWriter = buildRepositories(factories, dataSource.manager);
+  let onReader: Promise<Repositories | null> | null = null;
+  const reader = () =>
+    (onReader ??= readConnection(dataSource).then((connection) =>
+      connection ? buildRepositories(factories, connection.manager) : null,
+    ));
+  const routed = {} as Record<string, Record<string, AnyMethod>>;
+  for (const [name, repository] of Object.entries(onWriter) as [string, Record<string, unknown>][]) {
+    routed[name] = {};
+    for (const [key, method] of Object.entries(repository)) {
+      if (typeof method !== 'function') continue;
+      const onWriterCall = (args: unknown[]) => () =>
+        (method as AnyMethod).apply(repository, args);
+      routed[name][key] = async (...args: unknown[]) => {
+        const open = openTransaction.getStore();
+        if (open) {
+          const inTransaction = (open as unknown as Record<string, Record<string, AnyMethod>>)[
+            name
+          ]![key]!;
+          return inTransaction(...args);
+        }
+        if (writingMethod.test(key)) return serialized(dataSource, onWriterCall(args));
+        const readers = await reader();
+        if (!readers) return serialized(dataSource, onWriterCall(args));
+        const readRepository = (readers as unknown as Record<string, Record<string, AnyMethod>>)[
+          name
+        ]!;
+        try {
+          return await readRepository[key]!(...args);
+        } catch (error) {
+          if (!isReadOnlyRefusal(error)) throw error;
+          return serialized(dataSource, onWriterCall(args));
+        }
+      };
+    }
+  }
+  return routed as unknown as Repositories;
+}
+
+export function createStore(dataSource: DataSource, factories: RepositoryFactories): Store {
   const listeners: LedgerChangeListener[] = [];
+  const committed: ((chemicalIds: number[]) => void)[] = [];
   const transaction = <T>(work: (repos: Repositories) => Promise<T>): Promise<T> => {
     // a transaction opened inside another one joins it instead of waiting for itself
     const open = openTransaction.getStore();
     if (open) return work(open);
-    return serialized(dataSource, () =>
+    const changed = new Set<number>();
+    const done = serialized(dataSource, () =>
       dataSource.transaction(async (manager) => {
-        const repos = repositoriesFor(manager);
-        const changed = new Set<number>();
+        const repos = buildRepositories(factories, manager);
         ledgerChanges.set(repos, changed);
         const result = await openTransaction.run(repos, () => work(repos));
         if (changed.size > 0) {
@@ -134,12 +159,20 @@ export function createStore(dataSource: DataSource): Store {
         return result;
       }),
     );
+    return done.then((result) => {
+      if (changed.size > 0) for (const listener of committed) listener([...changed]);
+      return result;
+    });
   };
+  const repos = routedRepositories(dataSource, factories);
   return {
-    repos: queuedRepositories(dataSource),
+    repos,
     transaction,
     onLedgerChange(listener) {
       listeners.push(listener);
+    },
+    afterLedgerCommit(listener) {
+      committed.push(listener);
     },
     async ping() {
       // A real table, so a database that lost its tables (or was swapped) does not look healthy.

@@ -6,7 +6,8 @@ import type { DataSource } from 'typeorm';
 import { createApp } from '../app';
 import { loadConfig, type Config } from '../config';
 import { createDataSource } from '../db/data-source';
-import { createStore, type Store } from '../db/store';
+import { type Store } from '../db/store';
+import { openStore } from '../db/repositories';
 
 export interface TestContext {
   dir: string;
@@ -43,7 +44,7 @@ export async function openTestContext(): Promise<TestContext> {
     dir,
     config,
     dataSource,
-    store: createStore(dataSource),
+    store: openStore(dataSource),
     app: createApp({ dataSource, config }),
   };
 }

@@ -13,7 +13,7 @@ import { segregationService } from '../../modules/segregation/segregation.servic
 import { requestsService } from '../../modules/requests/requests.service';
 import { CatalogItemEntity } from '../../modules/suppliers/catalog-item.entity';
 import { presentUser } from '../../modules/users/users.service';
-import { createStore } from '../store';
+import { openStore } from '../repositories';
 import { demoAccounts } from './demo-seed';
 
 /**
@@ -31,7 +31,7 @@ import { demoAccounts } from './demo-seed';
  * services send (portion ready, payment recorded) in the development inbox.
  */
 export async function seedDemoOrders(dataSource: DataSource, config: Config, logger: Logger) {
-  const store = createStore(dataSource);
+  const store = openStore(dataSource);
   const alerts = alertsService(store, config, { logger });
   const payments = paymentsService(store, config, { alerts, logger });
   const orders = ordersService(store, config, { alerts, cancellation: payments });

@@ -7,7 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { DataSource } from 'typeorm';
 import { createApp } from '../../app';
 import { createDataSource } from '../data-source';
-import { createStore } from '../store';
+import { openStore } from '../repositories';
 import { testConfig } from '../../test/harness';
 import { demoAccounts, demoPassword, seedDemo } from './demo-seed';
 import { demoChemicals } from './demo-chemicals';
@@ -30,7 +30,7 @@ describe('demo seed', () => {
   it('when the database is empty, then it seeds the demo lab once; a second run does nothing', async () => {
     expect(await seedDemo(dataSource, 4)).toBe(true);
     expect(await seedDemo(dataSource, 4)).toBe(false);
-    const store = createStore(dataSource);
+    const store = openStore(dataSource);
     expect(await store.repos.users.count()).toBe(demoAccounts.length);
     const all = await store.repos.chemicals.list({
       q: '',
@@ -43,7 +43,7 @@ describe('demo seed', () => {
   });
 
   it('when seeded, then every chemical is valid with a molar mass, a unit that fits its state; people have example.test addresses', async () => {
-    const store = createStore(dataSource);
+    const store = openStore(dataSource);
     const { items } = await store.repos.chemicals.list({
       q: '',
       sort: 'name.asc',
@@ -182,7 +182,7 @@ describe('demo seed', () => {
   });
 
   it('when searching the demo stock, then synonyms such as aspirin and THF find their chemical', async () => {
-    const store = createStore(dataSource);
+    const store = openStore(dataSource);
     for (const [q, name] of [
       ['aspirin', 'Acetylsalicylic acid'],
       ['THF', 'Tetrahydrofuran'],

@@ -3,7 +3,7 @@ import type { DataSource } from 'typeorm';
 import { hashPassword } from '../../modules/auth/passwords';
 import { newChemicalValues } from '../../modules/chemicals/chemicals.service';
 import { nowIso } from '../sql';
-import { createStore } from '../store';
+import { openStore } from '../repositories';
 import { demoChemicals } from './demo-chemicals';
 import { seedDemoStock } from './demo-stock';
 import { preparedOnlyChemicals, seedDemoPreparations } from './demo-preparations';
@@ -31,7 +31,7 @@ export async function seedDemo(
   bcryptCost: number,
   currency = 'EUR',
 ): Promise<boolean> {
-  const store = createStore(dataSource);
+  const store = openStore(dataSource);
   const chemicals = demoChemicals.map((chemical) => chemicalCreateBodySchema.parse(chemical));
   const passwordHash = await hashPassword(demoPassword, bcryptCost);
   return store.transaction(async (repos) => {
