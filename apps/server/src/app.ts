@@ -12,6 +12,11 @@ import { fileStore } from './lib/uploads';
 import { serveWebApp } from './lib/web-app';
 import { alertRoutes } from './modules/alerts/alerts.routes';
 import { alertsService } from './modules/alerts/alerts.service';
+import {
+  ledgerNotesWorker,
+  noteLedgerChanges,
+  type LedgerNotesWorker,
+} from './modules/alerts/ledger-notes-worker';
 import { auditRoutes } from './modules/audit/audit.routes';
 import { auditService } from './modules/audit/audit.service';
 import { authRoutes } from './modules/auth/auth.routes';
@@ -71,10 +76,16 @@ export interface AppOptions {
 }
 
 const routeTableKey = 'lotwiseRoutes';
+const ledgerNotesKey = 'lotwiseLedgerNotes';
 
 /** The route table the app was built from (the permission walk test reads it). */
 export function routeTable(app: Express): ApiRoute[] {
   return app.locals[routeTableKey] as ApiRoute[];
+}
+
+/** The worker that runs the alert rules after ledger changes (the server starts and stops it). */
+export function ledgerNotesOf(app: Express): LedgerNotesWorker {
+  return app.locals[ledgerNotesKey] as LedgerNotesWorker;
 }
 
 /** Builds the Express app on an initialized, migrated DataSource; does not listen. */
@@ -141,8 +152,12 @@ export function createApp({
       claimedChemicals: (userIds) => store.repos.orders.claimedChemicals(userIds, claimingStatuses),
     },
   });
-  // Alert rules run before every transaction that changed the ledger commits.
-  store.onLedgerChange((repos, chemicalIds) => alerts.ledgerChanged(repos, chemicalIds));
+  // A transaction that changed the ledger notes the chemicals before it commits; the alert
+  // rules run for them after the commit, outside the write.
+  store.onLedgerChange(noteLedgerChanges);
+  const ledgerNotes = ledgerNotesWorker({ store, alerts, logger });
+  store.afterLedgerCommit(() => ledgerNotes.kick());
+  app.locals[ledgerNotesKey] = ledgerNotes;
   // Card payments; the orders module calls payments.refundPaidShares when an order is cancelled.
   const payments = paymentsService(store, config, { alerts, logger });
   const routes = [

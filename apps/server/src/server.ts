@@ -1,6 +1,6 @@
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { createApp } from './app';
+import { createApp, ledgerNotesOf } from './app';
 import type { Config } from './config';
 import { hasDemoAccounts, openDatabase } from './db/database-file';
 import { openStore } from './db/repositories';
@@ -47,6 +47,8 @@ export async function startServer(config: Config): Promise<RunningServer> {
     logger,
   );
   scheduler.start();
+  const ledgerNotes = ledgerNotesOf(app);
+  ledgerNotes.start();
   const server: Server = await new Promise((resolve, reject) => {
     const listening = app.listen(config.port, config.host, () => resolve(listening));
     listening.once('error', reject);
@@ -70,6 +72,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
     url,
     async close() {
       await scheduler.stop();
+      await ledgerNotes.stop();
       await worker?.stop();
       transport?.close();
       await new Promise<void>((resolve) => server.close(() => resolve()));

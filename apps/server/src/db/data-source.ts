@@ -3,7 +3,9 @@ import { chmodSync, existsSync } from 'node:fs';
 import path from 'node:path';
 import { DataSource } from 'typeorm';
 import { repoRoot } from '../config';
+import { bindNumbersAsParameters } from './bound-parameters';
 import { AlertPreferenceEntity } from '../modules/alerts/alert-preference.entity';
+import { LedgerChangeNoteEntity } from '../modules/alerts/ledger-change-note.entity';
 import { OutboxMessageEntity } from '../modules/alerts/outbox-message.entity';
 import { AuditEventEntity } from '../modules/audit/audit-event.entity';
 import { ChemicalEntity } from '../modules/chemicals/chemical.entity';
@@ -39,6 +41,7 @@ import { SessionVersion1796650000000 } from './migrations/1796650000000-session-
 import { OutboxLeases1796660000000 } from './migrations/1796660000000-outbox-leases';
 import { Purchasing1796700000000 } from './migrations/1796700000000-purchasing';
 import { ImportKinds1796730000000 } from './migrations/1796730000000-import-kinds';
+import { LedgerChangeNotes1796810000000 } from './migrations/1796810000000-ledger-change-notes';
 import { ChemicalMeasures1796630000000 } from './migrations/1796630000000-chemical-measures';
 import { RunCrudeYieldFlag1796620000000 } from './migrations/1796620000000-run-crude-yield-flag';
 
@@ -69,6 +72,7 @@ export const entities = [
   OrderShareEntity,
   PaymentEntity,
   PaymentEventEntity,
+  LedgerChangeNoteEntity,
 ];
 
 /** In order; listed by hand so tsx, vitest and the TypeORM CLI all load the same classes. */
@@ -85,7 +89,11 @@ export const migrations = [
   OutboxLeases1796660000000,
   Purchasing1796700000000,
   ImportKinds1796730000000,
+  LedgerChangeNotes1796810000000,
 ];
+
+/** How many prepared statements each connection keeps (the API has a few hundred queries). */
+export const statementCacheSize = 1000;
 
 /** The database file and the WAL and shared-memory files SQLite keeps beside it. */
 export function databaseFiles(databasePath: string): string[] {
@@ -114,7 +122,7 @@ export function createDataSource(
   /** How long a statement waits for another connection's write lock before SQLITE_BUSY. */
   { busyTimeoutMs = 5000 }: { busyTimeoutMs?: number } = {},
 ): DataSource {
-  return new DataSource({
+  const dataSource = new DataSource({
     type: 'better-sqlite3',
     database: databasePath,
     entities,
@@ -128,7 +136,11 @@ export function createDataSource(
       db.pragma('foreign_keys = ON');
       db.pragma(`busy_timeout = ${Math.max(0, Math.round(busyTimeoutMs))}`);
     },
+    // Prepared statements are kept by their SQL text; numbers are bound, not written into it.
+    statementCacheSize: statementCacheSize,
   });
+  bindNumbersAsParameters(dataSource);
+  return dataSource;
 }
 
 /** For the TypeORM CLI (`npm run migration:run -w apps/server`). */

@@ -1,4 +1,5 @@
 import { DataSource } from 'typeorm';
+import { bindNumbersAsParameters } from './bound-parameters';
 
 /**
  * A read-only connection per database file, opened beside the writing one. SQLite in WAL mode
@@ -32,6 +33,7 @@ async function open(dataSource: DataSource): Promise<DataSource | null> {
       db.pragma('busy_timeout = 5000');
     },
   } as ConstructorParameters<typeof DataSource>[0]);
+  bindNumbersAsParameters(reader);
   await reader.initialize();
   // The writer's destroy closes its reader too (tests, restarts, shutdown).
   const destroy = dataSource.destroy.bind(dataSource);

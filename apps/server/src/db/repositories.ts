@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import { alertsRepository } from '../modules/alerts/alerts.repository';
+import { ledgerNotesRepository } from '../modules/alerts/ledger-notes.repository';
 import { auditRepository } from '../modules/audit/audit.repository';
 import { chemicalsRepository } from '../modules/chemicals/chemicals.repository';
 import { containersRepository } from '../modules/containers/containers.repository';
@@ -40,6 +41,7 @@ export const repositoryFactories = {
   plans: plansRepository,
   runs: runsRepository,
   alerts: alertsRepository,
+  ledgerNotes: ledgerNotesRepository,
   orders: ordersRepository,
   payments: paymentsRepository,
   suppliers: suppliersRepository,

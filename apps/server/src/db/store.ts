@@ -68,7 +68,7 @@ function serialized<T>(dataSource: DataSource, work: () => Promise<T>): Promise<
  * anything (SQLITE_READONLY) and runs again in the write queue.
  */
 export const writingMethod =
-  /^(insert|update|delete|save|replace|set|claim|renew|finish|release|end|create|mark|append|record|remove|add|touch|note|clear|take|drain)/;
+  /^(insert|update|delete|save|replace|set|claim|renew|finish|release|end|create|mark|append|record|remove|add|touch|note|clear|take|drain|defer)/;
 
 /** True for SQLite's "this connection may not write" answer. */
 export function isReadOnlyRefusal(error: unknown): boolean {

@@ -3,7 +3,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { Express } from 'express';
 import type { DataSource } from 'typeorm';
-import { createApp } from '../app';
+import { createApp, ledgerNotesOf } from '../app';
 import { loadConfig, type Config } from '../config';
 import { createDataSource } from '../db/data-source';
 import { type Store } from '../db/store';
@@ -49,7 +49,13 @@ export async function openTestContext(): Promise<TestContext> {
   };
 }
 
+/** Waits until the alert rules ran for every ledger change made so far. */
+export async function alertRulesSettled(context: TestContext = testContext()): Promise<void> {
+  await ledgerNotesOf(context.app).idle();
+}
+
 export async function closeTestContext(context: TestContext) {
+  await ledgerNotesOf(context.app).stop();
   if (context.dataSource.isInitialized) await context.dataSource.destroy();
   rmSync(context.dir, { recursive: true, force: true });
 }

@@ -285,17 +285,25 @@ export function alertsRepository(manager: EntityManager) {
         .getRawMany();
       return rows.map((row) => ({ ...row, id: Number(row.id) }) as AlertRecipientRow);
     },
-    /** Per user, the chemicals they have ledger entries for (draws, receipts, corrections). */
-    async usedChemicals(userIds: number[]): Promise<Map<number, Set<number>>> {
+    /**
+     * Per user, which of `chemicalIds` they have ledger entries for (draws, receipts,
+     * corrections). Read through the containers of those chemicals and the ledger's index by
+     * person, never by scanning the ledger.
+     */
+    async usedChemicals(
+      userIds: number[],
+      chemicalIds: number[],
+    ): Promise<Map<number, Set<number>>> {
       const used = new Map<number, Set<number>>();
-      if (userIds.length === 0) return used;
+      if (userIds.length === 0 || chemicalIds.length === 0) return used;
       const rows: { userId: number; chemicalId: number }[] = await manager
         .createQueryBuilder()
         .select('DISTINCT e.user_id', 'userId')
         .addSelect('c.chemical_id', 'chemicalId')
-        .from('ledger_entries', 'e')
-        .innerJoin('containers', 'c', 'c.id = e.container_id')
-        .where('e.user_id IN (:...userIds)', { userIds })
+        .from('containers', 'c')
+        .innerJoin('ledger_entries', 'e', 'e.container_id = c.id')
+        .where('c.chemical_id IN (:...chemicalIds)', { chemicalIds })
+        .andWhere('e.user_id IN (:...userIds)', { userIds })
         .getRawMany();
       for (const row of rows) {
         const userId = Number(row.userId);

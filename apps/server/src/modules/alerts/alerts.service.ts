@@ -270,7 +270,8 @@ export function alertsService(store: Store, config: Config, options: AlertsServi
     const topics = mailTopics(conditions);
     const everyone = await people(repos);
     const mineIds = everyone.filter((p) => !fullScopeRoles.includes(p.role)).map((p) => p.id);
-    const used = await repos.alerts.usedChemicals(mineIds);
+    const topicChemicalIds = [...new Set(topics.map((topic) => topic.chemical.id))];
+    const used = await repos.alerts.usedChemicals(mineIds, topicChemicalIds);
     const claimed = options.claims ? await options.claims.claimedChemicals(mineIds) : new Map();
     for (const topic of topics) {
       const content = topicMessage(topic, config.publicUrl, config.text);
@@ -304,21 +305,6 @@ export function alertsService(store: Store, config: Config, options: AlertsServi
     /** One evaluation in its own transaction (scheduler, admin button, command line). */
     evaluateNow(now = new Date()): Promise<AlertEvaluation> {
       return store.transaction((repos) => evaluate(repos, { now }));
-    },
-
-    /**
-     * Called before a transaction that appended ledger entries commits. A fault here is
-     * logged instead of refusing the draw: the scheduler evaluates again within its interval.
-     */
-    async ledgerChanged(repos: Repositories, chemicalIds: number[]): Promise<void> {
-      try {
-        await evaluate(repos, { chemicalIds });
-      } catch (error) {
-        logger.error('Alert rules failed after a ledger change', {
-          chemicalIds,
-          error: error instanceof Error ? error.message : String(error),
-        });
-      }
     },
 
     /** The general message API; see `NotifyInput`. Answers how many were queued. */

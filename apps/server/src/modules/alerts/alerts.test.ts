@@ -10,7 +10,7 @@ import {
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { signedIn, stockFactory } from '../../test/factories';
-import { testContext } from '../../test/harness';
+import { alertRulesSettled, testContext } from '../../test/harness';
 import { alertsService } from './alerts.service';
 
 type Person = Awaited<ReturnType<typeof signedIn>>;
@@ -42,6 +42,8 @@ interface OutboxDbRow {
 }
 
 async function outboxRows(keyPrefix: string): Promise<OutboxDbRow[]> {
+  // the rules run after a ledger change commits: wait for them before reading the outbox
+  await alertRulesSettled();
   return testContext().dataSource.query(
     'SELECT * FROM outbox WHERE dedup_key LIKE ? ORDER BY user_id',
     [`${keyPrefix}%`],

@@ -10,7 +10,7 @@ import {
   type StockUnit,
   type StorageGroup,
 } from '@lotwise/shared';
-import type { EntityManager, SelectQueryBuilder } from 'typeorm';
+import { In, type EntityManager, type SelectQueryBuilder } from 'typeorm';
 import { fromMicro, microPerUnit } from '../../db/quantities';
 import { containsPattern } from '../../db/sql';
 import { ContainerEntity, type ContainerRow } from './container.entity';
@@ -223,6 +223,12 @@ export function containersRepository(manager: EntityManager) {
   return {
     async findRow(id: number): Promise<ContainerRow | null> {
       return repo.findOneBy({ id });
+    },
+    /** The containers of `ids` in one read, by id (missing ids are absent). */
+    async rowsByIds(ids: number[]): Promise<Map<number, ContainerRow>> {
+      const unique = [...new Set(ids)];
+      if (unique.length === 0) return new Map();
+      return new Map((await repo.findBy({ id: In(unique) })).map((row) => [row.id, row]));
     },
     async findView(id: number): Promise<ContainerView | null> {
       const raw = await view().where('c.id = :id', { id }).getRawOne<Record<string, unknown>>();

@@ -431,6 +431,19 @@ export function containersService(store: Store) {
     return { container, entries, warnings, ...(newContainer ? { newContainer } : {}) };
   }
 
+  /**
+   * Runs a ledger write in one transaction, then reads the answer (the container with its holds
+   * and storage warnings) after the commit, outside the write queue.
+   */
+  async function writeThenShow(
+    work: (
+      repos: Repositories,
+    ) => Promise<{ id: number; entries: LedgerEntry[]; newContainerId?: number }>,
+  ): Promise<ContainerChange> {
+    const written = await store.transaction(work);
+    return change(store.repos, written.id, written.entries, written.newContainerId);
+  }
+
   return {
     async list(query: ContainerListQuery): Promise<Page<Container>> {
       const today = todayIso();
@@ -479,7 +492,7 @@ export function containersService(store: Store) {
     },
 
     async create(input: ContainerCreateParsed, actor: User): Promise<ContainerChange> {
-      return store.transaction(async (repos) => {
+      return writeThenShow(async (repos) => {
         const lot = await requireLot(repos, input.lotId);
         const location = await requireLocation(repos, input.locationId);
         const chemical = await chemicalOf(repos, lot.chemicalId);
@@ -517,7 +530,7 @@ export function containersService(store: Store) {
           actor,
           quantity <= epsilon ? { status: 'empty' } : {},
         );
-        return change(repos, row.id, [entry]);
+        return { id: row.id, entries: [entry] };
       });
     },
 
@@ -539,7 +552,7 @@ export function containersService(store: Store) {
      * transaction, so parallel draws can never take the balance below zero.
      */
     async draw(id: number, input: DrawParsed, actor: User): Promise<ContainerChange> {
-      return store.transaction(async (repos) => {
+      return writeThenShow(async (repos) => {
         const { container, chemical } = await loadForWrite(repos, id);
         refuseDisposed(container);
         let drawn: number;
@@ -614,12 +627,12 @@ export function containersService(store: Store) {
             ),
           },
         );
-        return change(repos, id, [entry]);
+        return { id: id, entries: [entry] };
       });
     },
 
     async adjust(id: number, input: AdjustmentParsed, actor: User): Promise<ContainerChange> {
-      return store.transaction(async (repos) => {
+      return writeThenShow(async (repos) => {
         const { container, chemical } = await loadForWrite(repos, id);
         refuseDisposed(container);
         const delta =
@@ -636,12 +649,12 @@ export function containersService(store: Store) {
           );
         }
         const result = await recordAdjustment(repos, container, delta, input.note, actor, null);
-        return change(repos, id, [result]);
+        return { id: id, entries: [result] };
       });
     },
 
     async split(id: number, input: SplitParsed, actor: User): Promise<ContainerChange> {
-      return store.transaction(async (repos) => {
+      return writeThenShow(async (repos) => {
         const { container, chemical } = await loadForWrite(repos, id);
         refuseDisposed(container);
         const location = await requireLocation(repos, input.locationId);
@@ -719,12 +732,12 @@ export function containersService(store: Store) {
           },
           actor,
         );
-        return change(repos, id, [out.entry, into.entry], created.id);
+        return { id: id, entries: [out.entry, into.entry], newContainerId: created.id };
       });
     },
 
     async transfer(id: number, input: TransferParsed, actor: User): Promise<ContainerChange> {
-      return store.transaction(async (repos) => {
+      return writeThenShow(async (repos) => {
         const { container, chemical } = await loadForWrite(repos, id);
         refuseDisposed(container);
         const to = await requireLocation(repos, input.locationId);
@@ -753,16 +766,16 @@ export function containersService(store: Store) {
           actor,
           { locationId: to.id },
         );
-        return change(repos, id, [entry]);
+        return { id: id, entries: [entry] };
       });
     },
 
     async dispose(id: number, input: DisposalParsed, actor: User): Promise<ContainerChange> {
-      return store.transaction(async (repos) => {
+      return writeThenShow(async (repos) => {
         const { container } = await loadForWrite(repos, id);
         refuseDisposed(container);
         const entry = await recordDisposal(repos, container, input.note || 'Disposed', actor, null);
-        return change(repos, id, [entry]);
+        return { id: id, entries: [entry] };
       });
     },
   };

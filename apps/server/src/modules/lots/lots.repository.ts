@@ -1,5 +1,5 @@
 import { parseSort, type Lot, type LotListQuery } from '@lotwise/shared';
-import type { EntityManager } from 'typeorm';
+import { In, type EntityManager } from 'typeorm';
 import { containsPattern } from '../../db/sql';
 import { LotEntity, type LotRow } from './lot.entity';
 
@@ -101,6 +101,12 @@ export function lotsRepository(manager: EntityManager) {
   return {
     async findRow(id: number): Promise<LotRow | null> {
       return repo.findOneBy({ id });
+    },
+    /** The lots of `ids` in one read, by id (missing ids are absent). */
+    async rowsByIds(ids: number[]): Promise<Map<number, LotRow>> {
+      const unique = [...new Set(ids)];
+      if (unique.length === 0) return new Map();
+      return new Map((await repo.findBy({ id: In(unique) })).map((row) => [row.id, row]));
     },
     async findById(id: number): Promise<Lot | null> {
       const row = await select().where('l.id = :id', { id }).getRawOne<RawLot>();

@@ -82,8 +82,10 @@ export async function resolveDraws(
   chemicalOf: (id: number) => Promise<ChemicalRow>,
 ): Promise<ResolvedDraw[]> {
   const resolved: ResolvedDraw[] = [];
-  for (const draw of plannedDraws(procedure, input)) {
-    const container = await repos.containers.findRow(draw.containerId);
+  const planned = plannedDraws(procedure, input);
+  const containers = await repos.containers.rowsByIds(planned.map((draw) => draw.containerId));
+  for (const draw of planned) {
+    const container = containers.get(draw.containerId);
     if (!container) {
       throw AppError.validation(`There is no container #${draw.containerId}.`, {
         [`${draw.path}.containerId`]: `no container #${draw.containerId}`,
@@ -204,11 +206,12 @@ export async function applyDraws(
   const current = new Map<number, ContainerRow>();
   const drawnByLine: DrawnByLine = new Map();
   const taken: { container: ContainerRow; drawn: number }[] = [];
+  const lots = await repos.lots.rowsByIds(resolved.map(({ container }) => container.lotId));
   for (const { draw, chemical, forLineChemical, ...looked } of resolved) {
     // A container drawn twice in one run: the second draw sees the first.
     const container = current.get(looked.container.id) ?? looked.container;
     const { drawn, note } = drawnAmount(draw, container, chemical);
-    const lot = (await repos.lots.findRow(container.lotId))!;
+    const lot = lots.get(container.lotId)!;
     const purity = lot.purityPercent ?? chemical.defaultPurityPercent;
     const next = statusAfter(
       container.status,

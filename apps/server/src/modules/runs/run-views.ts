@@ -80,8 +80,10 @@ export async function presentRun(repos: Repositories, id: number): Promise<Run> 
     return chemicals.get(chemicalId)!;
   };
   const draws = [];
-  for (const input of await repos.runs.inputsOf(id)) {
-    const container = await repos.containers.findRow(input.containerId);
+  const inputs = await repos.runs.inputsOf(id);
+  const containers = await repos.containers.rowsByIds(inputs.map((input) => input.containerId));
+  for (const input of inputs) {
+    const container = containers.get(input.containerId);
     draws.push({
       id: input.id,
       lineIndex: input.lineIndex,

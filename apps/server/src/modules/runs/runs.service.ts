@@ -38,17 +38,14 @@ export function runsService(store: Store) {
     get: (id: number): Promise<Run> => presentRun(store.repos, id),
 
     async create(input: RunCreateParsed, actor: User): Promise<Run> {
-      return store.transaction(async (repos) => {
-        const id = await openRun(repos, input, actor);
-        return presentRun(repos, id);
-      });
+      const id = await store.transaction((repos) => openRun(repos, input, actor));
+      return presentRun(store.repos, id);
     },
 
+    /** Records the run in one transaction; its answer is read after the commit. */
     async record(id: number, input: RunRecordParsed, actor: User): Promise<Run> {
-      return store.transaction(async (repos) => {
-        await recordRunWith(repos, id, input, actor);
-        return presentRun(repos, id);
-      });
+      await store.transaction((repos) => recordRunWith(repos, id, input, actor));
+      return presentRun(store.repos, id);
     },
 
     procedureRuns: (procedureId: number): Promise<ProcedureRuns> =>
