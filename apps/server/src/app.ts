@@ -145,7 +145,6 @@ export function createApp({
     maxMb: config.uploadMaxMb,
   });
   const alerts = alertsService(store, config, {
-    logger,
     onQueued: onMailQueued,
     claims: {
       // Members hear about the chemicals they claimed in a shared order as about those they use.

@@ -42,7 +42,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
     logger.warn('No mail server is configured: alert e-mails stay queued in the outbox');
   }
   const scheduler = alertScheduler(
-    alertsService(store, config, { logger, onQueued: () => worker?.kick() }),
+    alertsService(store, config, { onQueued: () => worker?.kick() }),
     config.alerts.intervalSeconds,
     logger,
   );

@@ -32,7 +32,7 @@ import { demoAccounts } from './demo-seed';
  */
 export async function seedDemoOrders(dataSource: DataSource, config: Config, logger: Logger) {
   const store = openStore(dataSource);
-  const alerts = alertsService(store, config, { logger });
+  const alerts = alertsService(store, config);
   const payments = paymentsService(store, config, { alerts, logger });
   const orders = ordersService(store, config, { alerts, cancellation: payments });
   const receiving = receivingService(store, alerts, config);

@@ -23,7 +23,6 @@ import {
 import type { Config, TextConfig } from '../../config';
 import type { Repositories, Store } from '../../db/store';
 import { AppError } from '../../lib/app-error';
-import { createLogger, type Logger } from '../../lib/logger';
 import type { AlertRecipientRow, OutboxListRow } from './alerts.repository';
 import { textToHtml, topicMessage } from './messages';
 import {
@@ -66,7 +65,6 @@ export interface ClaimSource {
 }
 
 export interface AlertsServiceOptions {
-  logger?: Logger;
   /** Called after messages were queued (the outbox worker uses it to send promptly). */
   onQueued?: () => void;
   /** Where lapsing reservations come from; by default the plans' reservations table. */
@@ -167,7 +165,6 @@ function presentCondition(condition: Condition, style: TextConfig): Alert {
 }
 
 export function alertsService(store: Store, config: Config, options: AlertsServiceOptions = {}) {
-  const logger = options.logger ?? createLogger(config.logLevel);
   const settings = config.alerts;
 
   function unsubscribeUrl(userId: number, kind: AlertKind | 'all'): string {
