@@ -176,7 +176,11 @@ export function createStore(dataSource: DataSource, factories: RepositoryFactori
     },
     async ping() {
       // A real table, so a database that lost its tables (or was swapped) does not look healthy.
-      await serialized(dataSource, () => dataSource.query('SELECT id FROM users LIMIT 1'));
+      // On the read connection when there is one: a long import does not make the server look down.
+      const sql = 'SELECT id FROM users LIMIT 1';
+      const reader = await readConnection(dataSource);
+      if (reader) await reader.query(sql);
+      else await serialized(dataSource, () => dataSource.query(sql));
     },
   };
 }
