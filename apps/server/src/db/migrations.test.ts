@@ -27,6 +27,7 @@ describe('migrations', () => {
         'chemicals',
         'containers',
         'imports',
+        'ledger_change_notes',
         'ledger_entries',
         'locations',
         'lots',
