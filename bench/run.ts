@@ -56,6 +56,8 @@ function errorShare(m: Measurement): number {
 const dir = mkdtempSync(path.join(os.tmpdir(), 'lotwise-bench-'));
 const databasePath = path.join(dir, 'lab.sqlite');
 const servers: ChildServer[] = [];
+// The commit and the date of the start: files edited while the bench runs do not change them.
+const host = machine();
 let failed = false;
 try {
   log(`generating the lab (scale ${settings.scale}) into ${databasePath}`);
@@ -171,7 +173,6 @@ try {
     coldStartMs: api.startMs,
   });
   const table = markdownTable(rows);
-  const host = machine();
 
   // Every answer that was not 2xx is counted; a question the API answered with errors is void.
   const measured = [

@@ -68,8 +68,8 @@ export interface WebWeights {
 }
 
 export const signInPages = [/features\/auth\/pages\/sign-in-page/];
+/** A signed-in person opening the chemicals list: the app shell and the list page. */
 export const chemicalsListPages = [
-  /features\/auth\/pages\/sign-in-page/,
   /src\/app\/(layout|routes|router)/,
   /features\/chemicals\/pages\/chemicals-list-page/,
 ];

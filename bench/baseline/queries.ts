@@ -39,18 +39,20 @@ export function baselineQueries(db: Database.Database) {
     l.expires_on AS lotExpiresOn, loc.name AS locationName, loc.path AS locationPath`;
   const containerJoins = `FROM containers c JOIN chemicals ch ON ch.id = c.chemical_id
     JOIN lots l ON l.id = c.lot_id JOIN locations loc ON loc.id = c.location_id`;
+  // Hand-tuned as a person writing SQL would: `+c.status` keeps SQLite on the location index
+  // (a subtree is a few thousand rows) instead of the status index (half the table).
   const subtreeFilter = `c.location_id IN (SELECT id FROM locations WHERE id_path LIKE ? ESCAPE '\\')`;
 
   const statements = {
     locationIdPath: db.prepare('SELECT id_path AS idPath FROM locations WHERE id = ?'),
     containersPage: db.prepare(
       `SELECT ${containerColumns} ${containerJoins}
-       WHERE ${subtreeFilter} AND c.status = ?
+       WHERE ${subtreeFilter} AND +c.status = ?
        ORDER BY CASE WHEN c.expires_on IS NULL THEN 1 ELSE 0 END, c.expires_on, c.id
        LIMIT ? OFFSET ?`,
     ),
     containersCount: db.prepare(
-      `SELECT COUNT(*) AS n FROM containers c WHERE ${subtreeFilter} AND c.status = ?`,
+      `SELECT COUNT(*) AS n FROM containers c WHERE ${subtreeFilter} AND +c.status = ?`,
     ),
     stockPage: db.prepare(
       `WITH page AS (
