@@ -21,6 +21,8 @@ export interface Measurement {
   errors: number;
   /** Non-2xx status codes seen, with counts. */
   statuses: Record<string, number>;
+  /** Non-2xx answers and errors during the warm-up before it (not in the figures above). */
+  warmupFailures?: number;
 }
 
 /** Sends `plan` over `connections` for `seconds` with autocannon. */
@@ -79,6 +81,7 @@ export async function measure(
   headers: Record<string, string>,
   options: { seconds: number; warmupSeconds: number; connections: number },
 ): Promise<Measurement> {
-  await hammer(origin, plan, headers, options.warmupSeconds, options.connections);
-  return hammer(origin, plan, headers, options.seconds, options.connections);
+  const warmup = await hammer(origin, plan, headers, options.warmupSeconds, options.connections);
+  const measured = await hammer(origin, plan, headers, options.seconds, options.connections);
+  return { ...measured, warmupFailures: warmup.non2xx + warmup.errors };
 }

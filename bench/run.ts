@@ -9,7 +9,7 @@ import { benchTechnician, benchUsers } from './lab/shape';
 import { hammer, measure, type Measurement } from './measure';
 import { benchQuestions, readsWhileWrites } from './questions';
 import { dropOf, markdownTable, replaceMarked, reportRows, type QuestionResult } from './report';
-import { startApi, startBaseline, type ChildServer } from './servers';
+import { serverBuildScript, startApi, startBaseline, type ChildServer } from './servers';
 import { benchSettings, repoRoot } from './settings';
 import { webWeights } from './web-size';
 
@@ -73,12 +73,16 @@ try {
   );
 
   log(
-    settings.skipWebBuild
+    settings.skipBuild
       ? 'weighing the existing web build'
       : 'building the web app and weighing its first pages',
   );
-  const web = webWeights(settings.skipWebBuild);
+  const web = webWeights(settings.skipBuild);
 
+  if (!settings.skipBuild && serverBuildScript()) {
+    log('compiling the server (npm run build -w apps/server)');
+    execFileSync('npm', ['run', 'build', '-w', 'apps/server'], { cwd: repoRoot, stdio: 'pipe' });
+  }
   log('starting Lotwise and the baseline');
   const api = await startApi(databasePath);
   servers.push(api);
@@ -187,13 +191,14 @@ try {
   ];
   const erroneous = measured.filter(({ m }) => errorShare(m) > settings.maxErrorShare);
   const errors = measured
-    .filter(({ m }) => m.non2xx + m.errors > 0)
+    .filter(({ m }) => m.non2xx + m.errors + (m.warmupFailures ?? 0) > 0)
     .map(({ name, m }) => ({
       question: name,
       non2xx: m.non2xx,
       errors: m.errors,
       statuses: m.statuses,
       requests: m.requests,
+      warmupFailures: m.warmupFailures ?? 0,
     }));
 
   const report = {
@@ -232,11 +237,19 @@ try {
     `${lab.counts.chemicals.toLocaleString('en')} chemicals, ${lab.counts.ledgerEntries.toLocaleString('en')} ledger rows, ` +
     `${lab.counts.procedures} procedures, generated in ${(lab.milliseconds / 1000).toFixed(1)} s. ` +
     `${settings.connections} connections, ${settings.warmupSeconds} s warm-up, ${settings.seconds} s measured per question; ` +
-    `server: ${api.command}. Non-2xx answers: ${errors.length === 0 ? 'none' : errors.map((e) => `${e.question} ${e.non2xx + e.errors}`).join(', ')}.`;
+    `server: ${api.command}. Non-2xx answers: ${errors.length === 0 ? 'none' : errors.map((e) => `${e.question} ${e.non2xx + e.errors} (+ ${e.warmupFailures} in the warm-up)`).join(', ')}.`;
   const docsPath = path.join(repoRoot, 'docs/performance.md');
   writeFileSync(
     docsPath,
     replaceMarked(readFileSync(docsPath, 'utf8'), settings.saveAs, `${note}\n\n${table}`),
+  );
+  // Written as Prettier writes them, so the repository stays formatted.
+  execFileSync(
+    path.join(repoRoot, 'node_modules/.bin/prettier'),
+    ['--write', docsPath, resultsFile],
+    {
+      stdio: 'ignore',
+    },
   );
 
   console.log(`\n${table}\n\n${note}\n`);

@@ -28,6 +28,18 @@ export function freePort(): Promise<number> {
   });
 }
 
+function serverScripts(): Record<string, string> {
+  const file = path.join(repoRoot, 'apps/server/package.json');
+  return (
+    (JSON.parse(readFileSync(file, 'utf8')) as { scripts?: Record<string, string> }).scripts ?? {}
+  );
+}
+
+/** True when apps/server compiles ahead (`build` script): the bench builds it as `npm start` would. */
+export function serverBuildScript(): boolean {
+  return Boolean(serverScripts().build);
+}
+
 /**
  * How `npm start` runs the server: the start script of apps/server. A `node <file>` start of a
  * file that exists (the server compiled ahead) is used as it is; otherwise the sources run
@@ -35,10 +47,7 @@ export function freePort(): Promise<number> {
  */
 export function serverCommand(): { args: string[]; cwd: string; label: string } {
   const cwd = path.join(repoRoot, 'apps/server');
-  const pkg = JSON.parse(readFileSync(path.join(cwd, 'package.json'), 'utf8')) as {
-    scripts?: Record<string, string>;
-  };
-  const start = pkg.scripts?.start ?? '';
+  const start = serverScripts().start ?? '';
   const compiled = /(?:^|&&|;)\s*node\s+(?:--[\w-]+(?:=\S+)?\s+)*(\S+\.[cm]?js)\b/.exec(start);
   if (compiled && existsSync(path.join(cwd, compiled[1]!))) {
     return { args: [compiled[1]!], cwd, label: `node ${compiled[1]} (compiled ahead)` };

@@ -26,8 +26,8 @@ export interface BenchSettings {
   scale: number;
   /** Rows of the timed CSV import (BENCH_IMPORT_ROWS, default 10,000). */
   importRows: number;
-  /** Use apps/web/dist as it is instead of building it (BENCH_SKIP_WEB_BUILD=1). */
-  skipWebBuild: boolean;
+  /** Use apps/web/dist and a compiled server as they are instead of building them (BENCH_SKIP_BUILD=1). */
+  skipBuild: boolean;
   /** `before` writes bench/results-before.json and the "before" table (BENCH_SAVE_AS). */
   saveAs: 'latest' | 'before';
   /** Keep the generated database file (BENCH_KEEP_DB=1) and print where it is. */
@@ -45,7 +45,7 @@ export function benchSettings(): BenchSettings {
     writeConnections: Math.round(numberFrom('BENCH_WRITE_CONNECTIONS', 2)),
     scale: numberFrom('BENCH_SCALE', 1),
     importRows: Math.round(numberFrom('BENCH_IMPORT_ROWS', 10_000)),
-    skipWebBuild: flag('BENCH_SKIP_WEB_BUILD'),
+    skipBuild: flag('BENCH_SKIP_BUILD'),
     saveAs: process.env.BENCH_SAVE_AS === 'before' ? 'before' : 'latest',
     keepDatabase: flag('BENCH_KEEP_DB'),
     maxErrorShare: numberFrom('BENCH_MAX_ERROR_SHARE', 0.02),
