@@ -11,5 +11,6 @@ export default defineConfig({
   preview: {
     proxy: { '/api': { target: 'http://127.0.0.1:3000', changeOrigin: false } },
   },
-  build: { outDir: 'dist', emptyOutDir: true, sourcemap: true },
+  // The manifest lets `npm run bench` weigh what each page loads (bench/web-size.ts).
+  build: { outDir: 'dist', emptyOutDir: true, sourcemap: true, manifest: true },
 });
