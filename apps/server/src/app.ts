@@ -62,6 +62,7 @@ import { supplierRoutes } from './modules/suppliers/suppliers.routes';
 import { suppliersService } from './modules/suppliers/suppliers.service';
 import { uploadRoutes } from './modules/uploads/uploads.routes';
 import { uploadsService } from './modules/uploads/uploads.service';
+import { userCacheOf } from './modules/users/user-cache';
 import { userRoutes } from './modules/users/users.routes';
 import { usersService } from './modules/users/users.service';
 
@@ -138,7 +139,7 @@ export function createApp({
   app.use(cookieParser());
 
   const store = openStore(dataSource);
-  const session = sessions(config, store.repos.users);
+  const session = sessions(config, store.repos.users, userCacheOf(dataSource));
   const files = fileStore({
     dir: config.uploadDir,
     maxBytes: config.uploadMaxBytes,

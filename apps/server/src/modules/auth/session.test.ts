@@ -3,6 +3,7 @@ import request from 'supertest';
 import { describe, expect, it } from 'vitest';
 import { signIn, signedIn, testPassword } from '../../test/factories';
 import { testContext } from '../../test/harness';
+import { readsOf, recordStatements } from '../../test/statements';
 import { sessionCookieName } from './session';
 
 const app = () => testContext().app;
@@ -119,5 +120,49 @@ describe('sessions end when they should', () => {
     await me(sign({})).expect(401);
     await me(sign({ expiresIn: '30d' })).expect(401);
     await me(sign({ expiresIn: '1h', noTimestamp: true })).expect(401);
+  });
+});
+
+describe('the signed-in user is read once for a few seconds, and again at once after a change', () => {
+  it('when a signed-in person asks twice, then the second request reads no user row', async () => {
+    const { cookie } = await signedIn('member');
+    await me(cookie).expect(200);
+    const recording = recordStatements(testContext().dataSource);
+    await me(cookie).expect(200);
+    expect(readsOf(recording.stop(), 'users')).toEqual([]);
+  });
+
+  it('when an admin renames a user, then the next request of that user shows the new name', async () => {
+    const admin = await signedIn('admin');
+    const { cookie, user } = await signedIn('member');
+    await me(cookie).expect(200);
+    await request(app())
+      .patch(`/api/users/${user.id}`)
+      .set('Cookie', admin.cookie)
+      .send({ displayName: 'Newly Named Person' })
+      .expect(200);
+    expect((await me(cookie).expect(200)).body.user.displayName).toBe('Newly Named Person');
+  });
+
+  it('when a user row is deactivated through the users repository, then the next request answers 401', async () => {
+    const { cookie, user } = await signedIn('member');
+    await me(cookie).expect(200);
+    await testContext().store.repos.users.update(user.id, { active: false });
+    await me(cookie).expect(401);
+  });
+
+  it('when a change to a user is rolled back, then requests see the row as stored, before and after', async () => {
+    const { cookie, user } = await signedIn('member');
+    const { store } = testContext();
+    await me(cookie).expect(200);
+    await expect(
+      store.transaction(async (repos) => {
+        await repos.users.update(user.id, { displayName: 'Never Stored' });
+        await repos.users.endSessions(user.id);
+        throw new Error('changed my mind');
+      }),
+    ).rejects.toThrow('changed my mind');
+    const answer = await me(cookie).expect(200);
+    expect(answer.body.user.displayName).toBe(user.displayName);
   });
 });

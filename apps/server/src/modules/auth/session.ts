@@ -3,6 +3,7 @@ import type { CookieOptions, Response } from 'express';
 import jwt from 'jsonwebtoken';
 import type { Config } from '../../config';
 import type { SessionResolver } from '../../lib/auth-middleware';
+import type { UserCache } from '../users/user-cache';
 import type { UsersRepository } from '../users/users.repository';
 import { presentUser } from '../users/users.service';
 
@@ -32,11 +33,12 @@ function readClaims(payload: string | jwt.JwtPayload): SessionClaims | null {
 
 /**
  * Signed session cookies: a JWT with the user id and the user's session version, HttpOnly,
- * SameSite=Lax, 12 hours. The user row is read on every request; a token whose session
- * version is not the user's current one is refused, so raising the version (users.repository
- * `endSessions`) signs that user out everywhere.
+ * SameSite=Lax, 12 hours. The user row comes from the user cache (a few seconds, dropped on
+ * every write to the user); a token whose session version is not the user's current one is
+ * refused, so raising the version (users.repository `endSessions`) signs that user out
+ * everywhere at once.
  */
-export function sessions(config: SessionConfig, users: UsersRepository) {
+export function sessions(config: SessionConfig, users: UsersRepository, cache: UserCache) {
   // Prepared once: jsonwebtoken would otherwise turn the string into a key on every request.
   const key = createSecretKey(Buffer.from(config.jwtSecret, 'utf8'));
   const cookieOptions: CookieOptions = {
@@ -58,7 +60,7 @@ export function sessions(config: SessionConfig, users: UsersRepository) {
   const resolve: SessionResolver = async (req) => {
     const claims = claimsOf(req.cookies?.[sessionCookieName]);
     if (!claims) return null;
-    const row = await users.findById(claims.userId);
+    const row = await cache.get(claims.userId, () => users.findById(claims.userId));
     if (!row?.active || row.sessionVersion !== claims.sessionVersion) return null;
     return presentUser(row);
   };

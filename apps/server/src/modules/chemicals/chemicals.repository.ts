@@ -1,5 +1,5 @@
 import { parseSort, type Chemical, type ChemicalListQuery } from '@lotwise/shared';
-import type { EntityManager } from 'typeorm';
+import { type EntityManager, In } from 'typeorm';
 import { AppError } from '../../lib/app-error';
 import { containsPattern, isUniqueViolation } from '../../db/sql';
 import { ChemicalEntity, type ChemicalRow } from './chemical.entity';
@@ -60,6 +60,11 @@ export function chemicalsRepository(manager: EntityManager) {
     /** The row as stored (with its search key), for services that need every column. */
     async findRow(id: number): Promise<ChemicalRow | null> {
       return repo.findOneBy({ id });
+    },
+    /** The stored rows of `ids` (those that exist), in one statement. */
+    async findRows(ids: number[]): Promise<ChemicalRow[]> {
+      if (ids.length === 0) return [];
+      return repo.findBy({ id: In([...new Set(ids)]) });
     },
     async findByCasNumber(casNumber: string): Promise<Chemical | null> {
       const row = await repo.findOneBy({ casNumber });

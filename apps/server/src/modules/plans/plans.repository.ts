@@ -227,6 +227,15 @@ export function plansRepository(manager: EntityManager) {
         .getRawMany<Record<string, unknown>>();
       return rows.map(toReservation);
     },
+    /** The reservations of every plan of `planIds`, in one statement. */
+    async reservationsOfPlans(planIds: number[]): Promise<ReservationView[]> {
+      if (planIds.length === 0) return [];
+      const rows = await reservationView()
+        .where('r.plan_id IN (:...planIds)', { planIds: [...new Set(planIds)] })
+        .orderBy('r.id', 'ASC')
+        .getRawMany<Record<string, unknown>>();
+      return rows.map(toReservation);
+    },
     async insertReservation(values: ReservationValues): Promise<number> {
       const result = await reservations.insert(values);
       return Number(result.identifiers[0]?.id);

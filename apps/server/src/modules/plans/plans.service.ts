@@ -169,10 +169,10 @@ export function plansService(
         ])
       ).map((user) => [user.id, user]),
     );
+    const reservations = await repos.plans.reservationsOfPlans(rows.map((row) => row.id));
     const result: Plan[] = [];
     for (const row of rows) {
-      const reservations = await repos.plans.reservationsOf(row.id);
-      const active = reservations.filter((r) => r.status === 'active');
+      const active = reservations.filter((r) => r.planId === row.id && r.status === 'active');
       const creator = row.createdById === null ? undefined : users.get(row.createdById);
       result.push({
         id: row.id,

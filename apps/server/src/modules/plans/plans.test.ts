@@ -11,6 +11,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { signedIn } from '../../test/factories';
 import { testContext } from '../../test/harness';
 import { preparationFactory } from '../../test/preparations';
+import { readsOf, recordStatements } from '../../test/statements';
 import { sweepLapsedPlans } from './plans.service';
 
 const app = () => testContext().app;
@@ -445,5 +446,38 @@ describe('reservations', () => {
       .set('Cookie', otherMember)
       .send({ benches: 2 })
       .expect(403);
+  });
+});
+
+describe('prep plans: reads', () => {
+  it('when a plan with several chemicals is read, then its chemicals, procedures and stock come in one statement each', async () => {
+    const s = await stockedAspirin();
+    const created = await plan({
+      procedureId: s.procedure.id,
+      scaleFactor: 1,
+      benches: 10,
+      plannedOn: nextWeek,
+    });
+    const recording = recordStatements(testContext().dataSource);
+    const response = await get(`/api/plans/${created.id}`).expect(200);
+    const statements = recording.stop();
+    expect(planDetailSchema.parse(response.body).stockCheck.lines).toHaveLength(3);
+    // Four chemicals (three lines and the product) read together, not one by one; which
+    // procedures make the two short chemicals, asked once for both.
+    expect(readsOf(statements, 'chemicals')).toHaveLength(1);
+    expect(readsOf(statements, 'procedure_lines')).toHaveLength(2);
+    expect(readsOf(statements, 'containers')).toHaveLength(1);
+  });
+
+  it('when a page of plans is listed, then their reservations come in one statement', async () => {
+    const s = await stockedAspirin();
+    for (let i = 0; i < 3; i++) {
+      await plan({ procedureId: s.procedure.id, scaleFactor: 1, benches: 1, plannedOn: nextWeek });
+    }
+    const recording = recordStatements(testContext().dataSource);
+    const response = await get('/api/plans?pageSize=50').expect(200);
+    const statements = recording.stop();
+    expect(response.body.items.length).toBeGreaterThanOrEqual(3);
+    expect(readsOf(statements, 'reservations')).toHaveLength(1);
   });
 });

@@ -175,9 +175,10 @@ async function prepareSuggestions(
   shortfall: number,
   excludeId: number,
   cache: Map<number, LoadedProcedure>,
+  producers: number[],
 ): Promise<StockSuggestion[]> {
   const suggestions: StockSuggestion[] = [];
-  for (const procedureId of await repos.procedures.producing(chemical.id)) {
+  for (const procedureId of producers) {
     if (procedureId === excludeId) continue;
     let procedure = cache.get(procedureId);
     if (!procedure) {
@@ -287,6 +288,8 @@ export async function stockCheckOf(
     stock.map((row) => [row.id, Math.max(0, row.quantity - (reservedByOthers.get(row.id) ?? 0))]),
   );
   const cache = new Map<number, LoadedProcedure>([[loaded.row.id, loaded]]);
+  // Which procedures make each chemical: read once for every chemical, at the first shortfall.
+  let producers: Map<number, number[]> | null = null;
   const lines: StockCheckLine[] = [];
   for (const [index, requirement] of requirements.entries()) {
     const chemical = requirement.chemical;
@@ -340,8 +343,16 @@ export async function stockCheckOf(
         reorderQuantity: chemical.reorderQuantity,
         href: `/orders/new?chemicalId=${chemical.id}&quantity=${shortfall}&unit=${chemical.stockUnit}`,
       });
+      producers ??= await repos.procedures.producingAny(chemicalIds);
       suggestions.push(
-        ...(await prepareSuggestions(repos, chemical, shortfall, loaded.row.id, cache)),
+        ...(await prepareSuggestions(
+          repos,
+          chemical,
+          shortfall,
+          loaded.row.id,
+          cache,
+          producers.get(chemical.id) ?? [],
+        )),
       );
     }
     const covered = benchesCovered(plan.benches, requiredPure, shortPure);

@@ -55,14 +55,27 @@ export function proceduresRepository(manager: EntityManager) {
       await lines.delete({ procedureId });
       for (const line of values) await lines.insert(line);
     },
-    /** Ids of procedures with a product line of this chemical. */
-    async producing(chemicalId: number): Promise<number[]> {
+    /** Per chemical of `chemicalIds`, ids of procedures with a product line of it (one statement). */
+    async producingAny(chemicalIds: number[]): Promise<Map<number, number[]>> {
+      const producing = new Map<number, number[]>();
+      if (chemicalIds.length === 0) return producing;
       const rows = await lines
         .createQueryBuilder('l')
-        .select('DISTINCT l.procedure_id', 'id')
-        .where("l.chemical_id = :chemicalId AND l.role = 'product'", { chemicalId })
-        .getRawMany<{ id: number }>();
-      return rows.map((row) => Number(row.id));
+        .select('l.chemical_id', 'chemicalId')
+        .addSelect('l.procedure_id', 'id')
+        .where("l.chemical_id IN (:...chemicalIds) AND l.role = 'product'", {
+          chemicalIds: [...new Set(chemicalIds)],
+        })
+        .groupBy('l.chemical_id')
+        .addGroupBy('l.procedure_id')
+        .orderBy('l.procedure_id', 'ASC')
+        .getRawMany<{ chemicalId: number; id: number }>();
+      for (const row of rows) {
+        const list = producing.get(Number(row.chemicalId)) ?? [];
+        list.push(Number(row.id));
+        producing.set(Number(row.chemicalId), list);
+      }
+      return producing;
     },
     /** Procedures listing the chemical on a line (or as a solvent to dissolve in). */
     async using(chemicalId: number): Promise<{ procedureId: number; role: string }[]> {

@@ -72,11 +72,8 @@ export async function chemicalsById(
   ids: Iterable<number>,
   into = new Map<number, ChemicalRow>(),
 ): Promise<Map<number, ChemicalRow>> {
-  for (const id of new Set(ids)) {
-    if (into.has(id)) continue;
-    const row = await repos.chemicals.findRow(id);
-    if (row) into.set(id, row);
-  }
+  const missing = [...new Set(ids)].filter((id) => !into.has(id));
+  for (const row of await repos.chemicals.findRows(missing)) into.set(row.id, row);
   return into;
 }
 

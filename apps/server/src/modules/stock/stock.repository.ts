@@ -23,9 +23,11 @@ export interface StockRow {
   nextExpiresOn: string | null;
 }
 
+const totalSql = 'COALESCE(s.total, 0)';
+
 const sortColumns: Record<string, string> = {
   name: 'LOWER(ch.name)',
-  total: 'COALESCE(s.total, 0)',
+  total: totalSql,
   containerCount: 'COALESCE(s.container_count, 0)',
   nextExpiresOn: 's.next_expires_on',
 };
@@ -34,39 +36,140 @@ const sortColumns: Record<string, string> = {
 export function stockRepository(manager: EntityManager) {
   const stocktakes = manager.getRepository(StocktakeEntity);
 
+  /** The sums the overview shows or filters on, per chemical; see `perChemicalSums`. */
+  const sumColumns = {
+    total: `SUM(CASE WHEN ${usableSql('c')} THEN c.quantity_micro ELSE 0 END)`,
+    container_count: 'COUNT(*)',
+    usable_count: `SUM(CASE WHEN ${usableSql('c')} THEN 1 ELSE 0 END)`,
+    expired_count:
+      "SUM(CASE WHEN c.status IN ('sealed', 'open') AND c.expires_on < :today THEN 1 ELSE 0 END)",
+    next_expires_on: `MIN(CASE WHEN ${usableSql('c')} THEN c.expires_on END)`,
+    expiring_count: `SUM(CASE WHEN ${usableSql('c')} AND c.expires_on <= :expiringBefore THEN 1 ELSE 0 END)`,
+  };
+  type SumColumn = keyof typeof sumColumns;
+
+  /**
+   * Containers summed per chemical (not disposed; only below the asked place, if any), only
+   * the `columns` asked. Needs `:today`, `:expiringBefore` and, with a place, `:prefix`.
+   */
+  function perChemicalSums(
+    context: { locationIdPath?: string },
+    columns: SumColumn[] = Object.keys(sumColumns) as SumColumn[],
+  ) {
+    const sums = manager
+      .createQueryBuilder()
+      .select('c.chemical_id', 'chemical_id')
+      .from('containers', 'c')
+      .where("c.status <> 'disposed'")
+      .groupBy('c.chemical_id');
+    for (const column of new Set(columns)) sums.addSelect(sumColumns[column], column);
+    if (context.locationIdPath) {
+      sums.andWhere(
+        "c.location_id IN (SELECT sl.id FROM locations sl WHERE sl.id_path LIKE :prefix ESCAPE '\\')",
+      );
+    }
+    return sums;
+  }
+
   return {
+    /**
+     * A page of the stock overview. Page first: the chemicals of the page are picked (filters
+     * and sort applied), then containers are summed for those alone. Only a filter or sort on
+     * the sums (a place, reorder point, expiring, sort by total, count or next expiry) sums
+     * first, and then only over the chemicals the other filters let through, from the
+     * covering index `containers_stock_idx` (no table rows read).
+     */
     async overview(
       query: StockListQuery,
       context: { today: string; locationIdPath?: string; expiringBefore?: string },
     ): Promise<{ rows: StockRow[]; total: number }> {
-      const usable = usableSql('c');
-      // Containers are summed per chemical first (one pass over the containers index), then
-      // joined to the chemicals, so the outer query has no GROUP BY.
-      const perChemical = manager
-        .createQueryBuilder()
-        .select('c.chemical_id', 'chemical_id')
-        .addSelect(`SUM(CASE WHEN ${usable} THEN c.quantity_micro ELSE 0 END)`, 'total')
-        .addSelect('COUNT(*)', 'container_count')
-        .addSelect(`SUM(CASE WHEN ${usable} THEN 1 ELSE 0 END)`, 'usable_count')
-        .addSelect(
-          "SUM(CASE WHEN c.status IN ('sealed', 'open') AND c.expires_on < :today THEN 1 ELSE 0 END)",
-          'expired_count',
-        )
-        .addSelect(`MIN(CASE WHEN ${usable} THEN c.expires_on END)`, 'next_expires_on')
-        .addSelect(
-          `SUM(CASE WHEN ${usable} AND c.expires_on <= :expiringBefore THEN 1 ELSE 0 END)`,
-          'expiring_count',
-        )
-        .from('containers', 'c')
-        .where("c.status <> 'disposed'")
-        .groupBy('c.chemical_id');
-      if (context.locationIdPath) {
-        perChemical.andWhere(
-          "c.location_id IN (SELECT sl.id FROM locations sl WHERE sl.id_path LIKE :prefix ESCAPE '\\')",
+      const parameters: Record<string, unknown> = {
+        today: context.today,
+        prefix: `${context.locationIdPath ?? ''}%`,
+        expiringBefore: context.expiringBefore ?? '',
+      };
+      /** Conditions on the chemical row alone, for the alias `alias`. */
+      const chemicalFilters = (alias: string): string[] => {
+        const conditions: string[] = [];
+        if (query.q) conditions.push(`${alias}.search_text LIKE :q ESCAPE '\\'`);
+        if (query.storageGroup) conditions.push(`${alias}.storage_group = :group`);
+        // Only a chemical with a reorder point can be at or below it.
+        if (query.belowReorderPoint === true) conditions.push(`${alias}.reorder_point IS NOT NULL`);
+        return conditions;
+      };
+      if (query.q) parameters.q = containsPattern(query.q.toLowerCase());
+      if (query.storageGroup) parameters.group = query.storageGroup;
+
+      const { field, direction } = parseSort(query.sort);
+
+      // 1. The ids of the page, in order, and how many chemicals match.
+      const picked = manager.createQueryBuilder().select('ch.id', 'id').from('chemicals', 'ch');
+      for (const condition of chemicalFilters('ch')) picked.andWhere(condition);
+      const needed: SumColumn[] = [];
+      if (field === 'total' || query.belowReorderPoint !== undefined) needed.push('total');
+      if (field === 'containerCount' || context.locationIdPath) needed.push('container_count');
+      if (field === 'nextExpiresOn') needed.push('next_expires_on');
+      if (context.expiringBefore) needed.push('expiring_count');
+      if (needed.length > 0) {
+        const restrict = chemicalFilters('f');
+        const sums = perChemicalSums(context, needed);
+        if (restrict.length > 0) {
+          sums.andWhere(
+            `c.chemical_id IN (SELECT f.id FROM chemicals f WHERE ${restrict.join(' AND ')})`,
+          );
+        }
+        if (context.expiringBefore) {
+          // Chemicals with a usable container expiring soon (anywhere: a superset when a
+          // place is asked), found from the expiry index.
+          sums.andWhere(
+            "c.chemical_id IN (SELECT soon.chemical_id FROM containers soon WHERE soon.expires_on >= :today AND soon.expires_on <= :expiringBefore AND soon.status IN ('sealed', 'open'))",
+          );
+        }
+        picked[context.locationIdPath || context.expiringBefore ? 'innerJoin' : 'leftJoin'](
+          `(${sums.getQuery()})`,
+          's',
+          's.chemical_id = ch.id',
         );
+        if (query.belowReorderPoint === true) {
+          picked.andWhere(atOrBelowReorderPointCondition('ch', totalSql));
+        } else if (query.belowReorderPoint === false) {
+          picked.andWhere(`NOT (${atOrBelowReorderPointCondition('ch', totalSql)})`);
+        }
+        if (context.expiringBefore) picked.andWhere('s.expiring_count > 0');
       }
-      const totalSql = 'COALESCE(s.total, 0)';
-      const qb = manager
+      picked.setParameters(parameters);
+      const column = sortColumns[field] ?? sortColumns.name!;
+      // When the sums must be worked out for every chemical anyway, the count comes with the
+      // page in the same pass (a window over the whole result, before LIMIT).
+      const countWithPage = needed.length > 0;
+      if (countWithPage) picked.addSelect('COUNT(*) OVER ()', 'matching');
+      if (field === 'nextExpiresOn')
+        picked.orderBy(`CASE WHEN ${column} IS NULL THEN 1 ELSE 0 END`, 'ASC');
+      const page = await picked
+        .addOrderBy(column, direction === 'desc' ? 'DESC' : 'ASC')
+        .addOrderBy('ch.id', 'ASC')
+        .offset((query.page - 1) * query.pageSize)
+        .limit(query.pageSize)
+        .getRawMany<{ id: number; matching?: number }>();
+      const ids = page.map((row) => Number(row.id));
+      const total =
+        countWithPage && page.length > 0
+          ? Number(page[0]!.matching)
+          : Number(
+              (
+                await manager
+                  .createQueryBuilder()
+                  .select('COUNT(*)', 'n')
+                  .from(`(${picked.orderBy().offset(undefined).limit(undefined).getQuery()})`, 'x')
+                  .setParameters(parameters)
+                  .getRawOne<{ n: number }>()
+              )?.n ?? 0,
+            );
+      if (ids.length === 0) return { rows: [], total };
+
+      // 2. The chemicals of the page with their sums, over their containers only.
+      const pageSums = perChemicalSums(context).andWhere('c.chemical_id IN (:...ids)');
+      const raw = await manager
         .createQueryBuilder()
         .select('ch.id', 'id')
         .addSelect('ch.name', 'name')
@@ -84,65 +187,25 @@ export function stockRepository(manager: EntityManager) {
         .addSelect('COALESCE(s.expired_count, 0)', 'expiredContainerCount')
         .addSelect('s.next_expires_on', 'nextExpiresOn')
         .from('chemicals', 'ch')
-        .leftJoin(`(${perChemical.getQuery()})`, 's', 's.chemical_id = ch.id')
-        .where('1 = 1')
-        .setParameters({
-          today: context.today,
-          prefix: `${context.locationIdPath ?? ''}%`,
-          expiringBefore: context.expiringBefore ?? '',
-        });
-      if (query.q) {
-        qb.andWhere("ch.search_text LIKE :q ESCAPE '\\'", {
-          q: containsPattern(query.q.toLowerCase()),
-        });
-      }
-      if (query.storageGroup)
-        qb.andWhere('ch.storage_group = :group', { group: query.storageGroup });
-      if (context.locationIdPath) qb.andWhere('s.container_count > 0');
-      if (query.belowReorderPoint === true) {
-        qb.andWhere(atOrBelowReorderPointCondition('ch', totalSql));
-      } else if (query.belowReorderPoint === false) {
-        qb.andWhere(`NOT (${atOrBelowReorderPointCondition('ch', totalSql)})`);
-      }
-      if (context.expiringBefore) qb.andWhere('s.expiring_count > 0');
-      // Without filters on the sums, the count needs only the chemicals (no pass over containers).
-      const needsSums =
-        Boolean(context.locationIdPath) ||
-        query.belowReorderPoint !== undefined ||
-        Boolean(context.expiringBefore);
-      const countQuery = needsSums
-        ? manager.createQueryBuilder().select('COUNT(*)', 'n').from(`(${qb.getQuery()})`, 'x')
-        : manager
-            .createQueryBuilder()
-            .select('COUNT(*)', 'n')
-            .from('chemicals', 'ch')
-            .where('1 = 1');
-      if (!needsSums && query.q) countQuery.andWhere("ch.search_text LIKE :q ESCAPE '\\'");
-      if (!needsSums && query.storageGroup) countQuery.andWhere('ch.storage_group = :group');
-      const total = Number(
-        (await countQuery.setParameters(qb.getParameters()).getRawOne<{ n: number }>())?.n ?? 0,
-      );
-      const { field, direction } = parseSort(query.sort);
-      const column = sortColumns[field] ?? sortColumns.name!;
-      if (field === 'nextExpiresOn')
-        qb.orderBy(`CASE WHEN ${column} IS NULL THEN 1 ELSE 0 END`, 'ASC');
-      const rows = await qb
-        .addOrderBy(column, direction === 'desc' ? 'DESC' : 'ASC')
-        .addOrderBy('ch.id', 'ASC')
-        .offset((query.page - 1) * query.pageSize)
-        .limit(query.pageSize)
+        .leftJoin(`(${pageSums.getQuery()})`, 's', 's.chemical_id = ch.id')
+        .where('ch.id IN (:...ids)')
+        .setParameters({ ...parameters, ids })
         .getRawMany<StockRow>();
+      const byId = new Map(raw.map((row) => [Number(row.id), row]));
       return {
-        rows: rows.map((row) => ({
-          ...row,
-          id: Number(row.id),
-          total: fromMicro(row.total),
-          containerCount: Number(row.containerCount),
-          usableContainerCount: Number(row.usableContainerCount ?? 0),
-          expiredContainerCount: Number(row.expiredContainerCount ?? 0),
-          reorderPoint: row.reorderPoint === null ? null : Number(row.reorderPoint),
-          reorderQuantity: row.reorderQuantity === null ? null : Number(row.reorderQuantity),
-        })),
+        rows: ids.map((id) => {
+          const row = byId.get(id)!;
+          return {
+            ...row,
+            id,
+            total: fromMicro(row.total),
+            containerCount: Number(row.containerCount),
+            usableContainerCount: Number(row.usableContainerCount ?? 0),
+            expiredContainerCount: Number(row.expiredContainerCount ?? 0),
+            reorderPoint: row.reorderPoint === null ? null : Number(row.reorderPoint),
+            reorderQuantity: row.reorderQuantity === null ? null : Number(row.reorderQuantity),
+          };
+        }),
         total,
       };
     },

@@ -1,6 +1,7 @@
 import { parseSort, type UserListQuery } from '@lotwise/shared';
 import { type EntityManager, In } from 'typeorm';
 import { containsPattern } from '../../db/sql';
+import { userWritten } from './user-cache';
 import { UserEntity, type UserRow } from './user.entity';
 
 const sortColumns: Record<string, string> = {
@@ -14,7 +15,10 @@ const sortColumns: Record<string, string> = {
 /** A row to insert; a new user starts at session version 0. */
 export type NewUser = Omit<UserRow, 'id' | 'sessionVersion'> & { sessionVersion?: number };
 
-/** Data access for `users`; answers plain rows. */
+/**
+ * Data access for `users`; answers plain rows. Every write to the table is one of the write
+ * methods here, and each tells the session cache (user-cache.ts) which user changed.
+ */
 export function usersRepository(manager: EntityManager) {
   const repo = manager.getRepository(UserEntity);
   const plain = (row: UserRow | null): UserRow | null => (row ? { ...row } : null);
@@ -36,15 +40,18 @@ export function usersRepository(manager: EntityManager) {
     async insert(values: NewUser): Promise<UserRow> {
       const result = await repo.insert(values);
       const id = Number(result.identifiers[0]?.id);
+      userWritten(manager, id);
       return (await this.findById(id)) as UserRow;
     },
     async update(id: number, changes: Partial<NewUser>): Promise<UserRow> {
       await repo.update({ id }, changes);
+      userWritten(manager, id);
       return (await this.findById(id)) as UserRow;
     },
     /** Ends every session of the user: tokens carrying the old session version are refused. */
     async endSessions(id: number): Promise<void> {
       await repo.increment({ id }, 'sessionVersion', 1);
+      userWritten(manager, id);
     },
     countActiveAdmins() {
       return repo.countBy({ role: 'admin', active: true });
