@@ -37,7 +37,7 @@ export default defineConfig({
     },
   },
   webServer: {
-    command: 'npx tsx apps/server/src/main.ts',
+    command: 'node --enable-source-maps apps/server/dist/main.js',
     cwd: path.resolve(import.meta.dirname, '..'),
     url: `${baseURL}/api/health`,
     reuseExistingServer: false,

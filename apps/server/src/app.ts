@@ -9,7 +9,7 @@ import { createLogger, type Logger } from './lib/logger';
 import { mountRoutes, type ApiRoute } from './lib/route-table';
 import { sameOriginWrites } from './lib/same-origin';
 import { fileStore } from './lib/uploads';
-import { serveWebApp } from './lib/web-app';
+import { compressAnswers, serveWebApp } from './lib/web-app';
 import { alertRoutes } from './modules/alerts/alerts.routes';
 import { alertsService } from './modules/alerts/alerts.service';
 import {
@@ -110,6 +110,7 @@ export function createApp({
       strictTransportSecurity: config.cookieSecure,
     }),
   );
+  app.use(compressAnswers([paymentWebhookPath]));
   app.use((req, res, next) => {
     const started = performance.now();
     res.on('finish', () => {

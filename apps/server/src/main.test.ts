@@ -1,5 +1,5 @@
-import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
+import { existsSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -28,10 +28,15 @@ interface Started {
   exited: Promise<number | null>;
 }
 
-/** Starts `tsx src/main.ts` from the repository root, as the e2e config does. */
-function start(env: NodeJS.ProcessEnv, args: string[] = []): Started {
+/** How the server is run: from source under tsx (`npm run dev`), or compiled (`npm start`). */
+const fromSource = [tsx, 'apps/server/src/main.ts'];
+const compiled = [process.execPath, '--enable-source-maps', 'apps/server/dist/main.js'];
+
+/** Starts the server from the repository root, from source unless told otherwise. */
+function start(env: NodeJS.ProcessEnv, args: string[] = [], command = fromSource): Started {
   let output = '';
-  const child = spawn(tsx, ['apps/server/src/main.ts', ...args], {
+  const [program = tsx, ...programArgs] = command;
+  const child = spawn(program, [...programArgs, ...args], {
     cwd: path.resolve(serverDir, '../..'),
     env: { ...process.env, BCRYPT_COST: '4', ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -173,5 +178,58 @@ describe('src/main.ts', { timeout: 90_000 }, () => {
     expect(await started.exited).toBe(1);
     expect(started.output()).toContain(`The database file ${file} cannot be used`);
     expect(started.output()).not.toMatch(/\n\s+at /);
+  });
+});
+
+describe('dist/main.js, the server `npm start` runs', { timeout: 90_000 }, () => {
+  it('when compiled ahead and started on an empty database, then it migrates, seeds, serves the web app, and a demo user signs in and draws', async () => {
+    execFileSync(process.execPath, ['build.mjs'], { cwd: serverDir, stdio: 'pipe' });
+    const web = path.join(dir, 'compiled-web');
+    mkdirSync(web, { recursive: true });
+    writeFileSync(path.join(web, 'index.html'), '<!doctype html><title>Lotwise</title>');
+    const port = await freePort();
+    const url = `http://127.0.0.1:${port}`;
+    const started = start(
+      {
+        PORT: String(port),
+        DATABASE_PATH: path.join(dir, 'compiled', 'lotwise.sqlite'),
+        WEB_DIST: web,
+        DEV_MAIL: 'false',
+        PAYMENTS_FAKE: 'false',
+        ALERT_INTERVAL_SECONDS: '0',
+      },
+      [],
+      compiled,
+    );
+    running.push(started);
+    await waitForHealth(url, started);
+    expect(started.output()).toContain('Applied migrations: Initial1796160000000');
+    expect(started.output()).toContain('Seeded the demo lab');
+
+    const page = await fetch(`${url}/chemicals`);
+    expect(await page.text()).toContain('<title>Lotwise</title>');
+    const login = await fetch(`${url}/api/auth/login`, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json', Origin: url },
+      body: JSON.stringify({ email: 'technician@example.test', password: demoPassword }),
+    });
+    expect(login.status).toBe(200);
+    const cookie = (login.headers.get('set-cookie') ?? '').split(';')[0] ?? '';
+    const list = (await (
+      await fetch(`${url}/api/containers?status=open`, { headers: { Cookie: cookie } })
+    ).json()) as { items: { id: number; quantity: number; unit: string }[] };
+    const container = list.items.find((item) => item.quantity > 1);
+    if (!container) throw new Error('The demo lab has no open container to draw from');
+    const draw = await fetch(`${url}/api/containers/${container.id}/draws`, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json', Cookie: cookie, Origin: url },
+      body: JSON.stringify({ amount: 0.5, unit: container.unit, confirm: true }),
+    });
+    expect(draw.status).toBe(201);
+    const drawn = (await draw.json()) as { container: { quantity: number } };
+    expect(drawn.container.quantity).toBeCloseTo(container.quantity - 0.5, 6);
+
+    started.child.kill('SIGTERM');
+    expect(await started.exited).toBe(0);
   });
 });

@@ -6,7 +6,6 @@ import {
   webhookEndpoint,
   type DevPaymentsServer,
 } from './modules/payments/dev-payments';
-import { startServer } from './server';
 
 let devMail: DevMailServer | null = null;
 let devPayments: DevPaymentsServer | null = null;
@@ -30,7 +29,9 @@ try {
       webhookEndpoint(config.host, config.port),
     );
   }
-  // The demo seed queues e-mails at once: let the inbox answer before anything is sent.
+  // The server's code (the app, TypeORM, every module) loads while the inbox starts up in its
+  // own process; the demo seed queues e-mails at once, so nothing is sent before it answers.
+  const { startServer } = await import('./server');
   await devMail?.ready;
   const server = await startServer(config);
   if (devMail)
