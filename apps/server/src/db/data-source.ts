@@ -95,6 +95,17 @@ export const migrations = [
 /** How many prepared statements each connection keeps (the API has a few hundred queries). */
 export const statementCacheSize = 1000;
 
+/**
+ * Page cache and memory-mapped reads of a connection. SQLite's default cache (2 MB) holds a
+ * sliver of a lab with years of history, so a read of the few hundred containers on a shelf,
+ * scattered over the file, went back to the operating system page by page (10 ms instead of
+ * 1 ms). Both are upper bounds: a small database uses what it needs.
+ */
+export function tuneConnection(db: { pragma(sql: string): unknown }) {
+  db.pragma('cache_size = -65536'); // 64 MiB
+  db.pragma('mmap_size = 268435456'); // 256 MiB
+}
+
 /** The database file and the WAL and shared-memory files SQLite keeps beside it. */
 export function databaseFiles(databasePath: string): string[] {
   return [databasePath, `${databasePath}-wal`, `${databasePath}-shm`];
@@ -135,6 +146,7 @@ export function createDataSource(
       db.pragma('journal_mode = WAL');
       db.pragma('foreign_keys = ON');
       db.pragma(`busy_timeout = ${Math.max(0, Math.round(busyTimeoutMs))}`);
+      tuneConnection(db);
     },
     // Prepared statements are kept by their SQL text; numbers are bound, not written into it.
     statementCacheSize: statementCacheSize,

@@ -1,5 +1,6 @@
 import { DataSource } from 'typeorm';
 import { bindNumbersAsParameters } from './bound-parameters';
+import { tuneConnection } from './data-source';
 
 /**
  * A read-only connection per database file, opened beside the writing one. SQLite in WAL mode
@@ -31,6 +32,7 @@ async function open(dataSource: DataSource): Promise<DataSource | null> {
     synchronize: false,
     prepareDatabase: (db: { pragma(sql: string): unknown }) => {
       db.pragma('busy_timeout = 5000');
+      tuneConnection(db);
     },
   } as ConstructorParameters<typeof DataSource>[0]);
   bindNumbersAsParameters(reader);
