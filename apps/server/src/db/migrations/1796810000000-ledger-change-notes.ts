@@ -3,7 +3,8 @@ import { type MigrationInterface, type QueryRunner, Table, TableIndex } from 'ty
 /**
  * Ledger change notes: the chemicals whose ledger changed, written with the entries, so the
  * alert rules run after the commit instead of inside every draw. And an index of the ledger by
- * person, which the rules read to know who uses a chemical (instead of scanning the ledger).
+ * container and person, which the rules read to know who uses a chemical (instead of scanning
+ * the ledger).
  */
 export class LedgerChangeNotes1796810000000 implements MigrationInterface {
   name = 'LedgerChangeNotes1796810000000';
@@ -32,14 +33,14 @@ export class LedgerChangeNotes1796810000000 implements MigrationInterface {
     await queryRunner.createIndex(
       'ledger_entries',
       new TableIndex({
-        name: 'ledger_entries_user_container_idx',
-        columnNames: ['user_id', 'container_id'],
+        name: 'ledger_entries_container_user_idx',
+        columnNames: ['container_id', 'user_id'],
       }),
     );
   }
 
   async down(queryRunner: QueryRunner): Promise<void> {
-    await queryRunner.dropIndex('ledger_entries', 'ledger_entries_user_container_idx');
+    await queryRunner.dropIndex('ledger_entries', 'ledger_entries_container_user_idx');
     await queryRunner.dropTable('ledger_change_notes');
   }
 }

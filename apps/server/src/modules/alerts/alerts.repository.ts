@@ -288,7 +288,7 @@ export function alertsRepository(manager: EntityManager) {
     /**
      * Per user, which of `chemicalIds` they have ledger entries for (draws, receipts,
      * corrections). Read through the containers of those chemicals and the ledger's index by
-     * person, never by scanning the ledger.
+     * container and person (the entries themselves are not read), never by scanning the ledger.
      */
     async usedChemicals(
       userIds: number[],

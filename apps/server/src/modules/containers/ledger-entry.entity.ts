@@ -63,6 +63,6 @@ export const LedgerEntryEntity = new EntitySchema<LedgerEntryRow>({
   indices: [
     { name: 'ledger_entries_container_idx', columns: ['containerId', 'id'] },
     { name: 'ledger_entries_created_at_idx', columns: ['createdAt'] },
-    { name: 'ledger_entries_user_container_idx', columns: ['userId', 'containerId'] },
+    { name: 'ledger_entries_container_user_idx', columns: ['containerId', 'userId'] },
   ],
 });
