@@ -53,6 +53,47 @@ export function segregationRepository(manager: EntityManager) {
       .where("c.status <> 'disposed'");
 
   return {
+    /**
+     * The chemicals (with their groups) that have a container at one place: one row per
+     * chemical, read from the place's index, so a shelf of hundreds of bottles answers in a
+     * few hundred index entries instead of every container row sorted by label.
+     */
+    async chemicalsAt(locationId: number): Promise<
+      { chemicalId: number; storageGroup: StorageGroup; extraHazardGroups: StorageGroup[] }[]
+    > {
+      const rows = await manager
+        .createQueryBuilder()
+        .select('ch.id', 'chemicalId')
+        .addSelect('ch.storage_group', 'storageGroup')
+        .addSelect('ch.extra_hazard_groups', 'extraHazardGroups')
+        .from('chemicals', 'ch')
+        .where(
+          "ch.id IN (SELECT c.chemical_id FROM containers c WHERE c.location_id = :locationId AND c.status <> 'disposed')",
+          { locationId },
+        )
+        .getRawMany<{
+          chemicalId: number;
+          storageGroup: StorageGroup;
+          extraHazardGroups: string | null;
+        }>();
+      return rows.map((row) => ({
+        chemicalId: Number(row.chemicalId),
+        storageGroup: row.storageGroup,
+        extraHazardGroups: row.extraHazardGroups
+          ? (JSON.parse(row.extraHazardGroups) as StorageGroup[])
+          : [],
+      }));
+    },
+    /** The containers of `chemicalIds` at one place (not disposed), by label code. */
+    async placedOf(locationId: number, chemicalIds: number[]): Promise<PlacedContainer[]> {
+      if (chemicalIds.length === 0) return [];
+      const rows = await placed()
+        .andWhere('c.location_id = :locationId', { locationId })
+        .andWhere('c.chemical_id IN (:...chemicalIds)', { chemicalIds })
+        .orderBy('c.label_code', 'ASC')
+        .getRawMany<RawPlaced>();
+      return rows.map(toPlaced);
+    },
     async placedAt(locationIds: number[]): Promise<PlacedContainer[]> {
       if (locationIds.length === 0) return [];
       const rows = await placed()

@@ -123,10 +123,16 @@ export function segregationService(repos: Repositories) {
     chemical: PlacedChemical,
     location: LocationRow,
   ) {
-    const others = (await repos.segregation.placedAt([location.id])).filter(
-      (c) => c.id !== container.id && c.chemicalId !== chemical.id,
-    );
     const mine = hazardGroupsOf(chemical);
+    // Which chemicals there conflict at all, from one row per chemical; only their containers
+    // are read (most places have none).
+    const conflicting = (await repos.segregation.chemicalsAt(location.id))
+      .filter((other) => other.chemicalId !== chemical.id)
+      .filter((other) => rulesBetween(mine, hazardGroupsOf(other)).length > 0)
+      .map((other) => other.chemicalId);
+    const others = (await repos.segregation.placedOf(location.id, conflicting)).filter(
+      (c) => c.id !== container.id,
+    );
     const byRule = new Map<IncompatiblePair, PlacedContainer[]>();
     for (const other of others) {
       for (const rule of rulesBetween(mine, hazardGroupsOf(other))) {
