@@ -59,6 +59,11 @@ const envSchema = z.object({
   DATABASE_PATH: z.string().min(1).default('data/lotwise.sqlite'),
   /** In production, allow this start to create a new, empty database file (same as `--init`). */
   DATABASE_INIT: flag.default(false),
+  /**
+   * `full`: run SQLite's integrity check (it reads the whole file) on every start; `auto` (the
+   * default): only after the file was not closed cleanly.
+   */
+  DATABASE_CHECK: z.enum(['auto', 'full']).default('auto'),
   /** Secret that signs session tokens (32+ characters); generated and kept beside the database when unset. */
   JWT_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
   /**
@@ -250,6 +255,8 @@ export interface Config {
   databasePath: string;
   /** This start may create a new database file (always outside production; `--init` in it). */
   databaseInit: boolean;
+  /** Run the whole-file integrity check on every start, not only after an unclean stop. */
+  databaseFullCheck: boolean;
   jwtSecret: string;
   /**
    * `new-file`: only a database file this start created gets the demo lab (the default outside
@@ -448,6 +455,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     host: values.HOST,
     databasePath,
     databaseInit,
+    databaseFullCheck: values.DATABASE_CHECK === 'full',
     jwtSecret: values.JWT_SECRET ?? storedJwtSecret(databasePath),
     seedDemo:
       production || values.SEED_DEMO === false

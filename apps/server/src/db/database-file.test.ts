@@ -1,5 +1,5 @@
 import Database from 'better-sqlite3';
-import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, openSync, readFileSync, writeFileSync, writeSync, closeSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
@@ -67,6 +67,28 @@ describe('opening the database file', () => {
     await expect(open(dir)).rejects.toThrow(/restore the file from your latest backup/);
     // Nothing was written over the damaged file.
     expect(readFileSync(file).equals(garbage)).toBe(true);
+  });
+
+  it('when a page deep in the file is damaged, then the whole-file check stops start-up after an unclean stop or with DATABASE_CHECK=full', async () => {
+    const dir = folder();
+    const file = path.join(dir, 'lotwise.sqlite');
+    // a database with a table spread over many pages, closed cleanly
+    const db = new Database(file);
+    db.exec('CREATE TABLE users (id INTEGER PRIMARY KEY, filler TEXT)');
+    const insert = db.prepare('INSERT INTO users (filler) VALUES (?)');
+    db.transaction(() => {
+      for (let i = 0; i < 2000; i++) insert.run('x'.repeat(200));
+    })();
+    db.close();
+    // scribble over a page in the middle of the table
+    const handle = openSync(file, 'r+');
+    writeSync(handle, Buffer.alloc(4096, 0x5a), 0, 4096, 4096 * 50);
+    closeSync(handle);
+    const damaged = /cannot be used: .*(integrity check found|malformed)/;
+    await expect(open(dir, { DATABASE_CHECK: 'full' })).rejects.toThrow(damaged);
+    // a write-ahead log left beside the file: the last process did not close it
+    writeFileSync(`${file}-wal`, Buffer.alloc(32, 1));
+    await expect(open(dir)).rejects.toThrow(damaged);
   });
 
   it('when the file is an SQLite database of something else, then start-up stops instead of adding tables to it', async () => {
