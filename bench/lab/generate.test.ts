@@ -5,7 +5,8 @@ import path from 'node:path';
 import { formatLabelCode } from '@lotwise/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { searchTextOf } from '../../apps/server/src/modules/chemicals/chemicals.service';
-import { generateLab, selfCheck, type GeneratedLab } from './generate';
+import { selfCheck } from './check';
+import { generateLab, type GeneratedLab } from './generate';
 
 const dir = mkdtempSync(path.join(tmpdir(), 'lotwise-bench-test-'));
 const databasePath = path.join(dir, 'lab.sqlite');
