@@ -345,10 +345,9 @@ export function containersRepository(manager: EntityManager) {
       const total = Number((await count.getRawOne<{ n: number }>())?.n ?? 0);
       const { field, direction } = parseSort(query.sort);
       const column = sortColumns[field] ?? sortColumns.labelCode!;
-      if (field === 'expiresOn')
-        qb.addOrderBy(`CASE WHEN ${column} IS NULL THEN 1 ELSE 0 END`, 'ASC');
       const rows = await qb
-        .addOrderBy(column, direction === 'desc' ? 'DESC' : 'ASC')
+        // Containers without an expiry last in both directions (an index serves NULLS LAST).
+        .addOrderBy(column, direction === 'desc' ? 'DESC' : 'ASC', 'NULLS LAST')
         .addOrderBy('c.id', 'ASC')
         .offset((query.page - 1) * query.pageSize)
         .limit(query.pageSize)
