@@ -8,110 +8,64 @@ import type { MigrationInterface, QueryRunner } from 'typeorm';
  * name and places by path sort on LOWER(…), so those two are indexes on that expression. The
  * new containers indexes start with the columns of the two they replace.
  */
+/** An index: its name, its table, and its columns (or expression) as SQL. */
+type IndexSpec = [name: string, table: string, columns: string];
+
+const added: IndexSpec[] = [
+  [
+    'containers_stock_idx',
+    'containers',
+    '"chemical_id", "status", "expires_on", "quantity_micro", "location_id"',
+  ],
+  ['containers_location_status_idx', 'containers', '"location_id", "status"'],
+  ['containers_quantity_idx', 'containers', '"quantity_micro"'],
+  ['containers_updated_at_idx', 'containers', '"updated_at"'],
+  ['chemicals_formula_idx', 'chemicals', '"formula"'],
+  ['chemicals_molar_mass_idx', 'chemicals', '"molar_mass"'],
+  ['chemicals_updated_at_idx', 'chemicals', '"updated_at"'],
+  ['chemicals_reorder_point_idx', 'chemicals', '"reorder_point"'],
+  ['chemicals_physical_state_idx', 'chemicals', '"physical_state"'],
+  ['lots_received_on_idx', 'lots', '"received_on"'],
+  ['lots_updated_at_idx', 'lots', '"updated_at"'],
+  ['lots_source_idx', 'lots', '"source", "received_on"'],
+  ['orders_created_at_idx', 'orders', '"created_at"'],
+  ['orders_claim_deadline_idx', 'orders', '"claim_deadline"'],
+  ['orders_title_idx', 'orders', '"title"'],
+  ['runs_created_at_idx', 'runs', '"created_at"'],
+  ['runs_performed_on_idx', 'runs', '"performed_on"'],
+  ['runs_percent_yield_idx', 'runs', '"percent_yield"'],
+  ['runs_status_idx', 'runs', '"status", "created_at"'],
+  ['prep_plans_planned_on_idx', 'prep_plans', '"planned_on"'],
+  ['prep_plans_updated_at_idx', 'prep_plans', '"updated_at"'],
+  ['prep_plans_created_by_idx', 'prep_plans', '"created_by_id", "planned_on"'],
+  ['outbox_attempts_idx', 'outbox', '"attempts"'],
+  ['outbox_kind_idx', 'outbox', '"kind", "created_at"'],
+  ['outbox_next_attempt_idx', 'outbox', '"next_attempt_at"'],
+  ['audit_events_action_idx', 'audit_events', '"action"'],
+  ['audit_events_target_idx', 'audit_events', '"target_type", "target_id", "created_at"'],
+  ['chemicals_name_lower_idx', 'chemicals', 'LOWER("name")'],
+  ['locations_path_lower_idx', 'locations', 'LOWER("path")'],
+];
+
+/** Replaced by the first two above, which start with the same columns. */
+const replaced: IndexSpec[] = [
+  ['containers_chemical_status_idx', 'containers', '"chemical_id", "status"'],
+  ['containers_location_idx', 'containers', '"location_id"'],
+];
+
+const create = ([name, table, columns]: IndexSpec) =>
+  `CREATE INDEX "${name}" ON "${table}" (${columns})`;
+
 export class ListIndexes1796800000000 implements MigrationInterface {
   name = 'ListIndexes1796800000000';
 
   async up(queryRunner: QueryRunner): Promise<void> {
-    await queryRunner.query('DROP INDEX "containers_chemical_status_idx"');
-    await queryRunner.query('DROP INDEX "containers_location_idx"');
-    await queryRunner.query(
-      'CREATE INDEX "containers_stock_idx" ON "containers" ("chemical_id", "status", "expires_on", "quantity_micro", "location_id")',
-    );
-    await queryRunner.query(
-      'CREATE INDEX "containers_location_status_idx" ON "containers" ("location_id", "status")',
-    );
-    await queryRunner.query(
-      'CREATE INDEX "containers_quantity_idx" ON "containers" ("quantity_micro")',
-    );
-    await queryRunner.query(
-      'CREATE INDEX "containers_updated_at_idx" ON "containers" ("updated_at")',
-    );
-    await queryRunner.query('CREATE INDEX "chemicals_formula_idx" ON "chemicals" ("formula")');
-    await queryRunner.query(
-      'CREATE INDEX "chemicals_molar_mass_idx" ON "chemicals" ("molar_mass")',
-    );
-    await queryRunner.query(
-      'CREATE INDEX "chemicals_updated_at_idx" ON "chemicals" ("updated_at")',
-    );
-    await queryRunner.query(
-      'CREATE INDEX "chemicals_reorder_point_idx" ON "chemicals" ("reorder_point")',
-    );
-    await queryRunner.query(
-      'CREATE INDEX "chemicals_physical_state_idx" ON "chemicals" ("physical_state")',
-    );
-    await queryRunner.query('CREATE INDEX "lots_received_on_idx" ON "lots" ("received_on")');
-    await queryRunner.query('CREATE INDEX "lots_updated_at_idx" ON "lots" ("updated_at")');
-    await queryRunner.query('CREATE INDEX "lots_source_idx" ON "lots" ("source", "received_on")');
-    await queryRunner.query('CREATE INDEX "orders_created_at_idx" ON "orders" ("created_at")');
-    await queryRunner.query(
-      'CREATE INDEX "orders_claim_deadline_idx" ON "orders" ("claim_deadline")',
-    );
-    await queryRunner.query('CREATE INDEX "orders_title_idx" ON "orders" ("title")');
-    await queryRunner.query('CREATE INDEX "runs_created_at_idx" ON "runs" ("created_at")');
-    await queryRunner.query('CREATE INDEX "runs_performed_on_idx" ON "runs" ("performed_on")');
-    await queryRunner.query('CREATE INDEX "runs_percent_yield_idx" ON "runs" ("percent_yield")');
-    await queryRunner.query('CREATE INDEX "runs_status_idx" ON "runs" ("status", "created_at")');
-    await queryRunner.query(
-      'CREATE INDEX "prep_plans_planned_on_idx" ON "prep_plans" ("planned_on")',
-    );
-    await queryRunner.query(
-      'CREATE INDEX "prep_plans_updated_at_idx" ON "prep_plans" ("updated_at")',
-    );
-    await queryRunner.query(
-      'CREATE INDEX "prep_plans_created_by_idx" ON "prep_plans" ("created_by_id", "planned_on")',
-    );
-    await queryRunner.query('CREATE INDEX "outbox_attempts_idx" ON "outbox" ("attempts")');
-    await queryRunner.query('CREATE INDEX "outbox_kind_idx" ON "outbox" ("kind", "created_at")');
-    await queryRunner.query(
-      'CREATE INDEX "outbox_next_attempt_idx" ON "outbox" ("next_attempt_at")',
-    );
-    await queryRunner.query('CREATE INDEX "audit_events_action_idx" ON "audit_events" ("action")');
-    await queryRunner.query(
-      'CREATE INDEX "audit_events_target_idx" ON "audit_events" ("target_type", "target_id", "created_at")',
-    );
-    await queryRunner.query(
-      'CREATE INDEX "chemicals_name_lower_idx" ON "chemicals" (LOWER("name"))',
-    );
-    await queryRunner.query(
-      'CREATE INDEX "locations_path_lower_idx" ON "locations" (LOWER("path"))',
-    );
+    for (const [name] of replaced) await queryRunner.query(`DROP INDEX "${name}"`);
+    for (const index of added) await queryRunner.query(create(index));
   }
 
   async down(queryRunner: QueryRunner): Promise<void> {
-    await queryRunner.query('DROP INDEX "locations_path_lower_idx"');
-    await queryRunner.query('DROP INDEX "chemicals_name_lower_idx"');
-    await queryRunner.query('DROP INDEX "audit_events_target_idx"');
-    await queryRunner.query('DROP INDEX "audit_events_action_idx"');
-    await queryRunner.query('DROP INDEX "outbox_next_attempt_idx"');
-    await queryRunner.query('DROP INDEX "outbox_kind_idx"');
-    await queryRunner.query('DROP INDEX "outbox_attempts_idx"');
-    await queryRunner.query('DROP INDEX "prep_plans_created_by_idx"');
-    await queryRunner.query('DROP INDEX "prep_plans_updated_at_idx"');
-    await queryRunner.query('DROP INDEX "prep_plans_planned_on_idx"');
-    await queryRunner.query('DROP INDEX "runs_status_idx"');
-    await queryRunner.query('DROP INDEX "runs_percent_yield_idx"');
-    await queryRunner.query('DROP INDEX "runs_performed_on_idx"');
-    await queryRunner.query('DROP INDEX "runs_created_at_idx"');
-    await queryRunner.query('DROP INDEX "orders_title_idx"');
-    await queryRunner.query('DROP INDEX "orders_claim_deadline_idx"');
-    await queryRunner.query('DROP INDEX "orders_created_at_idx"');
-    await queryRunner.query('DROP INDEX "lots_source_idx"');
-    await queryRunner.query('DROP INDEX "lots_updated_at_idx"');
-    await queryRunner.query('DROP INDEX "lots_received_on_idx"');
-    await queryRunner.query('DROP INDEX "chemicals_physical_state_idx"');
-    await queryRunner.query('DROP INDEX "chemicals_reorder_point_idx"');
-    await queryRunner.query('DROP INDEX "chemicals_updated_at_idx"');
-    await queryRunner.query('DROP INDEX "chemicals_molar_mass_idx"');
-    await queryRunner.query('DROP INDEX "chemicals_formula_idx"');
-    await queryRunner.query('DROP INDEX "containers_updated_at_idx"');
-    await queryRunner.query('DROP INDEX "containers_quantity_idx"');
-    await queryRunner.query('DROP INDEX "containers_location_status_idx"');
-    await queryRunner.query('DROP INDEX "containers_stock_idx"');
-    await queryRunner.query(
-      'CREATE INDEX "containers_chemical_status_idx" ON "containers" ("chemical_id", "status")',
-    );
-    await queryRunner.query(
-      'CREATE INDEX "containers_location_idx" ON "containers" ("location_id")',
-    );
+    for (const [name] of [...added].reverse()) await queryRunner.query(`DROP INDEX "${name}"`);
+    for (const index of replaced) await queryRunner.query(create(index));
   }
 }
