@@ -36,7 +36,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
   // Alerts: a scheduler evaluates the rules, a worker sends what the outbox holds.
   const transport = createMailTransport(config.mail.smtp);
   const store = createStore(dataSource);
-  const optimizer = await startOptimizing(dataSource, store, logger);
+  const optimizer = startOptimizing(dataSource, store, logger);
   if (transport && config.alerts.outboxIntervalSeconds > 0) {
     worker = outboxWorker({ store, transport, config, logger });
     worker.start();

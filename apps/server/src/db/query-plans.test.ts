@@ -41,12 +41,13 @@ beforeAll(async () => {
   const { dataSource, store } = testContext();
   lab = generateLab(dataSource);
   const quiet = () => undefined;
-  const optimizer = await startOptimizing(dataSource, store, {
+  const optimizer = startOptimizing(dataSource, store, {
     debug: quiet,
     info: quiet,
     warn: quiet,
     error: quiet,
   });
+  await optimizer.ready;
   optimizer.stop();
 });
 
