@@ -3,6 +3,7 @@ import type { AddressInfo } from 'node:net';
 import { createApp, ledgerNotesOf } from './app';
 import type { Config } from './config';
 import { hasDemoAccounts, openDatabase } from './db/database-file';
+import { startOptimizing } from './db/optimize';
 import { openStore } from './db/repositories';
 import { seedDemoOrders } from './db/seed/demo-orders';
 import { demoAccounts, demoPassword } from './db/seed/demo-seed';
@@ -35,6 +36,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
   // Alerts: a scheduler evaluates the rules, a worker sends what the outbox holds.
   const transport = createMailTransport(config.mail.smtp);
   const store = openStore(dataSource);
+  const optimizer = startOptimizing(dataSource, store, logger);
   if (transport && config.alerts.outboxIntervalSeconds > 0) {
     worker = outboxWorker({ store, transport, config, logger });
     worker.start();
@@ -71,6 +73,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
   return {
     url,
     async close() {
+      optimizer.stop();
       await scheduler.stop();
       await ledgerNotes.stop();
       await worker?.stop();

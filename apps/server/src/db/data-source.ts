@@ -41,6 +41,7 @@ import { SessionVersion1796650000000 } from './migrations/1796650000000-session-
 import { OutboxLeases1796660000000 } from './migrations/1796660000000-outbox-leases';
 import { Purchasing1796700000000 } from './migrations/1796700000000-purchasing';
 import { ImportKinds1796730000000 } from './migrations/1796730000000-import-kinds';
+import { ListIndexes1796800000000 } from './migrations/1796800000000-list-indexes';
 import { LedgerChangeNotes1796810000000 } from './migrations/1796810000000-ledger-change-notes';
 import { ChemicalMeasures1796630000000 } from './migrations/1796630000000-chemical-measures';
 import { RunCrudeYieldFlag1796620000000 } from './migrations/1796620000000-run-crude-yield-flag';
@@ -89,6 +90,7 @@ export const migrations = [
   OutboxLeases1796660000000,
   Purchasing1796700000000,
   ImportKinds1796730000000,
+  ListIndexes1796800000000,
   LedgerChangeNotes1796810000000,
 ];
 

@@ -21,7 +21,7 @@ export interface LabSize {
 
 export const smallLab: LabSize = {
   chemicals: 1500,
-  containersPerChemical: 4,
+  containersPerChemical: 12,
   rooms: 3,
   cabinetsPerRoom: 5,
   shelvesPerCabinet: 3,

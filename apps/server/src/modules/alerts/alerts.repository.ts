@@ -242,8 +242,8 @@ export function alertsRepository(manager: EntityManager) {
       const { field, direction } = parseSort(query.sort);
       const column = sortColumns[field] ?? sortColumns.createdAt!;
       const rows = await qb
-        .orderBy(`CASE WHEN ${column} IS NULL THEN 1 ELSE 0 END`, 'ASC')
-        .addOrderBy(column, direction === 'desc' ? 'DESC' : 'ASC')
+        // Empty values last in both directions; an index on the column serves NULLS LAST.
+        .orderBy(column, direction === 'desc' ? 'DESC' : 'ASC', 'NULLS LAST')
         .addOrderBy('o.id', direction === 'desc' ? 'DESC' : 'ASC')
         .offset((query.page - 1) * query.pageSize)
         .limit(query.pageSize)

@@ -74,5 +74,8 @@ export const OutboxMessageEntity = new EntitySchema<OutboxRow>({
     { name: 'outbox_dedup_idx', columns: ['recipientEmail', 'dedupKey', 'createdAt'] },
     { name: 'outbox_created_at_idx', columns: ['createdAt'] },
     { name: 'outbox_status_lease_idx', columns: ['status', 'leaseUntil'] },
+    { name: 'outbox_attempts_idx', columns: ['attempts'] },
+    { name: 'outbox_kind_idx', columns: ['kind', 'createdAt'] },
+    { name: 'outbox_next_attempt_idx', columns: ['nextAttemptAt'] },
   ],
 });

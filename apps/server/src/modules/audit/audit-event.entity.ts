@@ -34,5 +34,9 @@ export const AuditEventEntity = new EntitySchema<AuditEventRow>({
       nullable: true,
     },
   },
-  indices: [{ name: 'audit_events_created_at_idx', columns: ['createdAt'] }],
+  indices: [
+    { name: 'audit_events_created_at_idx', columns: ['createdAt'] },
+    { name: 'audit_events_action_idx', columns: ['action'] },
+    { name: 'audit_events_target_idx', columns: ['targetType', 'targetId', 'createdAt'] },
+  ],
 });

@@ -80,5 +80,12 @@ export const ChemicalEntity = new EntitySchema<ChemicalRow>({
     { name: 'chemicals_name_idx', columns: ['name'] },
     { name: 'chemicals_cas_number_unique', columns: ['casNumber'], unique: true },
     { name: 'chemicals_storage_group_idx', columns: ['storageGroup'] },
+    { name: 'chemicals_formula_idx', columns: ['formula'] },
+    { name: 'chemicals_molar_mass_idx', columns: ['molarMass'] },
+    { name: 'chemicals_updated_at_idx', columns: ['updatedAt'] },
+    { name: 'chemicals_reorder_point_idx', columns: ['reorderPoint'] },
+    { name: 'chemicals_physical_state_idx', columns: ['physicalState'] },
+    // On LOWER(name): made by the migration, not by TypeORM, which cannot declare it.
+    { name: 'chemicals_name_lower_idx', columns: ['name'], synchronize: false },
   ],
 });

@@ -13,8 +13,6 @@ const sortColumns: Record<string, string> = {
   updatedAt: 'c.updatedAt',
 };
 
-const nullableSortFields = new Set(['casNumber', 'formula', 'molarMass']);
-
 export type ChemicalValues = Omit<ChemicalRow, 'id'>;
 
 function toChemical({
@@ -110,12 +108,10 @@ export function chemicalsRepository(manager: EntityManager) {
       const total = await qb.getCount();
       const { field, direction } = parseSort(query.sort);
       const column = sortColumns[field] ?? sortColumns.name!;
-      if (nullableSortFields.has(field)) {
-        // Empty values last in both directions, the same on SQLite and PostgreSQL.
-        qb.orderBy(`CASE WHEN ${column} IS NULL THEN 1 ELSE 0 END`, 'ASC');
-      }
       const rows = await qb
-        .addOrderBy(column, direction === 'desc' ? 'DESC' : 'ASC')
+        // Empty values last in both directions, the same on SQLite and PostgreSQL; an index
+        // on the column serves NULLS LAST.
+        .addOrderBy(column, direction === 'desc' ? 'DESC' : 'ASC', 'NULLS LAST')
         .addOrderBy('c.id', 'ASC')
         .offset((query.page - 1) * query.pageSize)
         .limit(query.pageSize)

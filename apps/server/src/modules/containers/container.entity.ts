@@ -87,11 +87,16 @@ export const ContainerEntity = new EntitySchema<ContainerRow>({
     { name: 'containers_owner_idx', columns: ['ownerId'] },
     { name: 'containers_label_code_unique', columns: ['labelCode'], unique: true },
     { name: 'containers_label_number_unique', columns: ['labelNumber'], unique: true },
-    { name: 'containers_chemical_status_idx', columns: ['chemicalId', 'status'] },
     { name: 'containers_lot_idx', columns: ['lotId'] },
-    { name: 'containers_location_idx', columns: ['locationId'] },
     { name: 'containers_status_idx', columns: ['status'] },
     { name: 'containers_expires_on_idx', columns: ['expiresOn'] },
     { name: 'containers_peroxide_due_on_idx', columns: ['peroxideDueOn'] },
+    {
+      name: 'containers_stock_idx',
+      columns: ['chemicalId', 'status', 'expiresOn', 'quantity', 'locationId'],
+    },
+    { name: 'containers_location_status_idx', columns: ['locationId', 'status', 'chemicalId'] },
+    { name: 'containers_quantity_idx', columns: ['quantity'] },
+    { name: 'containers_updated_at_idx', columns: ['updatedAt'] },
   ],
 });

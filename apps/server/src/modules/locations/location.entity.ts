@@ -49,5 +49,7 @@ export const LocationEntity = new EntitySchema<LocationRow>({
   indices: [
     { name: 'locations_parent_idx', columns: ['parentId'] },
     { name: 'locations_id_path_idx', columns: ['idPath'] },
+    // On LOWER(path): made by the migration, not by TypeORM, which cannot declare it.
+    { name: 'locations_path_lower_idx', columns: ['path'], synchronize: false },
   ],
 });

@@ -87,5 +87,8 @@ export const LotEntity = new EntitySchema<LotRow>({
   indices: [
     { name: 'lots_chemical_idx', columns: ['chemicalId'] },
     { name: 'lots_expires_on_idx', columns: ['expiresOn'] },
+    { name: 'lots_received_on_idx', columns: ['receivedOn'] },
+    { name: 'lots_updated_at_idx', columns: ['updatedAt'] },
+    { name: 'lots_source_idx', columns: ['source', 'receivedOn'] },
   ],
 });

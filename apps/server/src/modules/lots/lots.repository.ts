@@ -153,9 +153,9 @@ export function lotsRepository(manager: EntityManager) {
       );
       const { field, direction } = parseSort(query.sort);
       const column = sortColumns[field] ?? sortColumns.receivedOn!;
-      if (field === 'expiresOn') qb.orderBy(`CASE WHEN ${column} IS NULL THEN 1 ELSE 0 END`, 'ASC');
       const rows = await qb
-        .addOrderBy(column, direction === 'desc' ? 'DESC' : 'ASC')
+        // Lots without an expiry last in both directions (an index serves NULLS LAST).
+        .addOrderBy(column, direction === 'desc' ? 'DESC' : 'ASC', 'NULLS LAST')
         .addOrderBy('l.id', 'ASC')
         .offset((query.page - 1) * query.pageSize)
         .limit(query.pageSize)

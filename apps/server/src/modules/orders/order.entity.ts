@@ -72,5 +72,8 @@ export const OrderEntity = new EntitySchema<OrderRow>({
   indices: [
     { name: 'orders_status_idx', columns: ['status'] },
     { name: 'orders_supplier_idx', columns: ['supplierId'] },
+    { name: 'orders_created_at_idx', columns: ['createdAt'] },
+    { name: 'orders_claim_deadline_idx', columns: ['claimDeadline'] },
+    { name: 'orders_title_idx', columns: ['title'] },
   ],
 });

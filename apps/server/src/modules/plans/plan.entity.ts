@@ -46,5 +46,8 @@ export const PlanEntity = new EntitySchema<PlanRow>({
   indices: [
     { name: 'prep_plans_procedure_idx', columns: ['procedureId'] },
     { name: 'prep_plans_status_idx', columns: ['status', 'plannedOn'] },
+    { name: 'prep_plans_planned_on_idx', columns: ['plannedOn'] },
+    { name: 'prep_plans_updated_at_idx', columns: ['updatedAt'] },
+    { name: 'prep_plans_created_by_idx', columns: ['createdById', 'plannedOn'] },
   ],
 });

@@ -82,5 +82,9 @@ export const RunEntity = new EntitySchema<RunRow>({
   indices: [
     { name: 'runs_procedure_idx', columns: ['procedureId', 'status'] },
     { name: 'runs_plan_idx', columns: ['planId'] },
+    { name: 'runs_created_at_idx', columns: ['createdAt'] },
+    { name: 'runs_performed_on_idx', columns: ['performedOn'] },
+    { name: 'runs_percent_yield_idx', columns: ['percentYield'] },
+    { name: 'runs_status_idx', columns: ['status', 'createdAt'] },
   ],
 });

@@ -53,8 +53,8 @@ export function runsRepository(manager: EntityManager) {
       const { field, direction } = parseSort(query.sort);
       const column = sortColumns[field] ?? sortColumns.createdAt!;
       const rows = await qb
-        .orderBy(`CASE WHEN ${column} IS NULL THEN 1 ELSE 0 END`, 'ASC')
-        .addOrderBy(column, direction === 'desc' ? 'DESC' : 'ASC')
+        // Empty values last in both directions; an index on the column serves NULLS LAST.
+        .orderBy(column, direction === 'desc' ? 'DESC' : 'ASC', 'NULLS LAST')
         .addOrderBy('r.id', direction === 'desc' ? 'DESC' : 'ASC')
         .skip((query.page - 1) * query.pageSize)
         .take(query.pageSize)
