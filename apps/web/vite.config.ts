@@ -11,5 +11,5 @@ export default defineConfig({
   preview: {
     proxy: { '/api': { target: 'http://127.0.0.1:3000', changeOrigin: false } },
   },
-  build: { outDir: 'dist', emptyOutDir: true, sourcemap: true },
+  build: { outDir: 'dist', emptyOutDir: true, sourcemap: true, manifest: true },
 });
