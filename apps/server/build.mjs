@@ -3,6 +3,7 @@
 // and the chunks it imports when needed). npm packages stay outside the bundle and load from
 // node_modules as usual (better-sqlite3 is native; the others gain nothing from being copied).
 import { rmSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { build } from 'esbuild';
@@ -10,13 +11,38 @@ import { build } from 'esbuild';
 const serverDir = path.dirname(fileURLToPath(import.meta.url));
 const outdir = path.join(serverDir, 'dist');
 
-/** Bare imports are npm packages, left to Node's resolution, except our own workspaces. */
+const requireFromServer = createRequire(path.join(serverDir, 'package.json'));
+
+/** True when Node's require() can load the package (CommonJS, or a dual package's CJS build). */
+function requirable(specifier) {
+  try {
+    requireFromServer.resolve(specifier);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/**
+ * Bare imports are npm packages, left to Node's resolution, except our own workspaces. Those
+ * require() can load are loaded with require(): an ES module importing CommonJS makes Node scan
+ * the package's files for export names first (for TypeORM, hundreds of files at every start).
+ * ESM-only packages stay `import`s.
+ */
 const npmPackagesOutside = {
   name: 'npm-packages-outside',
   setup(build) {
-    build.onResolve({ filter: /^[^./]/ }, (args) =>
-      args.path.startsWith('@lotwise/') ? undefined : { path: args.path, external: true },
-    );
+    build.onResolve({ filter: /^[^./]/ }, (args) => {
+      if (args.path.startsWith('@lotwise/') || args.namespace === 'required') return undefined;
+      if (args.path.startsWith('node:') || !requirable(args.path)) {
+        return { path: args.path, external: true };
+      }
+      return { path: args.path, namespace: 'required' };
+    });
+    build.onLoad({ filter: /.*/, namespace: 'required' }, (args) => ({
+      contents: `module.exports = __requireOutside(${JSON.stringify(args.path)});`,
+      loader: 'js',
+    }));
   },
 };
 
@@ -42,5 +68,8 @@ await build({
   keepNames: true,
   sourcemap: true,
   logLevel: 'warning',
+  banner: {
+    js: "import { createRequire as __createRequire } from 'node:module';\nconst __requireOutside = __createRequire(import.meta.url);",
+  },
   plugins: [npmPackagesOutside],
 });

@@ -10,5 +10,7 @@ export default defineConfig({
     include: ['src/**/*.test.{ts,tsx}'],
     css: false,
     restoreMocks: true,
+    // A test's first visit to a page compiles that page's lazily loaded code inside the test.
+    testTimeout: 15_000,
   },
 });

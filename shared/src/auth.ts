@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { regexes } from 'zod/v4/core';
+import { emailAddressMessage } from './email-address';
 import { roles } from './roles';
 
 export const roleSchema = z.enum(roles, { message: `must be one of: ${roles.join(', ')}` });
@@ -7,7 +9,7 @@ export const emailSchema = z
   .string()
   .trim()
   .toLowerCase()
-  .pipe(z.email({ message: 'must be an e-mail address such as name@example.test' }));
+  .pipe(z.email({ pattern: regexes.email, message: emailAddressMessage }));
 
 /** Minimum password rules: long enough to matter, short enough for bcrypt (72 bytes). */
 export const passwordSchema = z

@@ -5,6 +5,7 @@ export * from './list';
 export * from './amounts';
 export * from './names';
 export * from './hazards';
+export * from './email-address';
 export * from './auth';
 export * from './users';
 export * from './chemicals';

@@ -2,7 +2,7 @@ import type { ComponentType } from 'react';
 import type { RouteObject } from 'react-router';
 import type { Permission } from '@lotwise/shared';
 import { paths } from '../config/paths';
-import { RequirePermission } from './routes/guards';
+import { lazyPage } from './lazy-page';
 
 /** A page of shared orders, loaded when first opened. */
 function orderPage(
@@ -10,19 +10,7 @@ function orderPage(
   load: () => Promise<ComponentType>,
   permission: Permission = 'orders.read',
 ): RouteObject {
-  return {
-    path,
-    lazy: async () => {
-      const Component = await load();
-      return {
-        element: (
-          <RequirePermission permission={permission}>
-            <Component />
-          </RequirePermission>
-        ),
-      };
-    },
-  };
+  return lazyPage(path, load, permission);
 }
 
 /** Shared orders: the list, a new draft (coordinators) and one order with its claims. */

@@ -2,7 +2,7 @@ import type { ComponentType } from 'react';
 import { Navigate, type RouteObject } from 'react-router';
 import type { Permission } from '@lotwise/shared';
 import { paths } from '../config/paths';
-import { RequirePermission } from './routes/guards';
+import { lazyPage } from './lazy-page';
 
 /** A page of preparations, loaded when first opened. */
 function preparationPage(
@@ -10,19 +10,7 @@ function preparationPage(
   load: () => Promise<ComponentType>,
   permission: Permission = 'procedures.read',
 ): RouteObject {
-  return {
-    path,
-    lazy: async () => {
-      const Component = await load();
-      return {
-        element: (
-          <RequirePermission permission={permission}>
-            <Component />
-          </RequirePermission>
-        ),
-      };
-    },
-  };
+  return lazyPage(path, load, permission);
 }
 
 const pages = {

@@ -1,206 +1,148 @@
-import type { ComponentType } from 'react';
 import { Navigate, type RouteObject } from 'react-router';
-import type { Permission } from '@lotwise/shared';
 import { PageSpinner } from '../components/ui/spinner';
 import { paths } from '../config/paths';
-import { ChemicalsListPage } from '../features/chemicals/pages/chemicals-list-page';
-import { ChemicalDetailPage } from '../features/chemicals/pages/chemical-detail-page';
+import { lazyPage } from './lazy-page';
 import { orderRoutes } from './order-routes';
 import { preparationRoutes } from './preparation-routes';
-import { RequirePermission, SignedInLayout } from './routes/guards';
+import { RequirePermission } from './routes/guards';
 import { NotFoundPage, RouteErrorPage } from './routes/status-pages';
 
-/** A page of the stock feature, loaded when first opened. */
-function stockPage(
-  path: string,
-  load: () => Promise<{ Component: ComponentType }>,
-  permission: Permission = 'stock.read',
-): RouteObject {
-  return {
-    // The section's own address is its index page.
-    ...(path === paths.stock ? { index: true } : { path }),
-    lazy: async () => {
-      const { Component } = await load();
-      return {
-        element: (
-          <RequirePermission permission={permission}>
-            <Component />
-          </RequirePermission>
-        ),
-      };
-    },
-  };
-}
-
+/** Pages of the stock section (the section's own address is its index page). */
 const stockRoutes: RouteObject[] = [
-  stockPage(paths.stock, async () => ({
-    Component: (await import('../features/stock/pages/stock-overview-page')).StockOverviewPage,
-  })),
-  stockPage(paths.stockContainers, async () => ({
-    Component: (await import('../features/stock/pages/containers-list-page')).ContainersListPage,
-  })),
-  stockPage(paths.stockContainer(), async () => ({
-    Component: (await import('../features/stock/pages/container-page')).ContainerPage,
-  })),
-  stockPage(paths.stockContainerByLabel(), async () => ({
-    Component: (await import('../features/stock/pages/container-page')).ContainerByLabelPage,
-  })),
-  stockPage(paths.stockChemical(), async () => ({
-    Component: (await import('../features/stock/pages/chemical-stock-page')).ChemicalStockPage,
-  })),
-  stockPage(paths.stockLocations, async () => ({
-    Component: (await import('../features/stock/pages/locations-page')).LocationsPage,
-  })),
-  stockPage(paths.stockLocation(), async () => ({
-    Component: (await import('../features/stock/pages/location-page')).LocationPage,
-  })),
-  stockPage(
+  lazyPage(
+    { index: true },
+    async () => (await import('../features/stock/pages/stock-overview-page')).StockOverviewPage,
+    'stock.read',
+  ),
+  lazyPage(
+    paths.stockContainers,
+    async () => (await import('../features/stock/pages/containers-list-page')).ContainersListPage,
+    'stock.read',
+  ),
+  lazyPage(
+    paths.stockContainer(),
+    async () => (await import('../features/stock/pages/container-page')).ContainerPage,
+    'stock.read',
+  ),
+  lazyPage(
+    paths.stockContainerByLabel(),
+    async () => (await import('../features/stock/pages/container-page')).ContainerByLabelPage,
+    'stock.read',
+  ),
+  lazyPage(
+    paths.stockChemical(),
+    async () => (await import('../features/stock/pages/chemical-stock-page')).ChemicalStockPage,
+    'stock.read',
+  ),
+  lazyPage(
+    paths.stockLocations,
+    async () => (await import('../features/stock/pages/locations-page')).LocationsPage,
+    'stock.read',
+  ),
+  lazyPage(
+    paths.stockLocation(),
+    async () => (await import('../features/stock/pages/location-page')).LocationPage,
+    'stock.read',
+  ),
+  lazyPage(
     paths.stockStocktake(),
-    async () => ({
-      Component: (await import('../features/stock/pages/stocktake-page')).StocktakePage,
-    }),
+    async () => (await import('../features/stock/pages/stocktake-page')).StocktakePage,
     'stock.write',
   ),
-  stockPage(paths.stockSegregation, async () => ({
-    Component: (await import('../features/stock/pages/segregation-page')).SegregationPage,
-  })),
-  stockPage(
+  lazyPage(
+    paths.stockSegregation,
+    async () => (await import('../features/stock/pages/segregation-page')).SegregationPage,
+    'stock.read',
+  ),
+  lazyPage(
     paths.stockReceive,
-    async () => ({
-      Component: (await import('../features/stock/pages/receive-page')).ReceivePage,
-    }),
+    async () => (await import('../features/stock/pages/receive-page')).ReceivePage,
     'stock.write',
   ),
-  stockPage(
+  lazyPage(
     paths.stockImport,
-    async () => ({
-      Component: (await import('../features/imports/pages/import-page')).ImportPage,
-    }),
+    async () => (await import('../features/imports/pages/import-page')).ImportPage,
     'stock.write',
   ),
-  stockPage(paths.stockLabels, async () => ({
-    Component: (await import('../features/stock/pages/labels-page')).LabelsPage,
-  })),
+  lazyPage(
+    paths.stockLabels,
+    async () => (await import('../features/stock/pages/labels-page')).LabelsPage,
+    'stock.read',
+  ),
 ];
 
-/** A page of shared purchasing's money and receiving, loaded when first opened. */
-function purchasePage(
-  path: string,
-  load: () => Promise<{ Component: ComponentType }>,
-  permission: Permission,
-): RouteObject {
-  return {
-    path,
-    lazy: async () => {
-      const { Component } = await load();
-      return {
-        element: (
-          <RequirePermission permission={permission}>
-            <Component />
-          </RequirePermission>
-        ),
-      };
-    },
-  };
-}
-
+/** Shared purchasing's money and receiving. */
 const purchaseRoutes: RouteObject[] = [
-  purchasePage(
+  lazyPage(
     paths.purchases,
-    async () => ({
-      Component: (await import('../features/purchases/pages/my-purchases-page')).MyPurchasesPage,
-    }),
+    async () => (await import('../features/purchases/pages/my-purchases-page')).MyPurchasesPage,
     'orders.join',
   ),
-  purchasePage(
+  lazyPage(
     paths.orderReceipt(),
-    async () => ({
-      Component: (await import('../features/purchases/pages/receipt-page')).ReceiptPage,
-    }),
+    async () => (await import('../features/purchases/pages/receipt-page')).ReceiptPage,
     'orders.join',
   ),
-  purchasePage(
+  lazyPage(
     paths.orderMoney(),
-    async () => ({
-      Component: (await import('../features/purchases/pages/order-money-page')).OrderMoneyPage,
-    }),
+    async () => (await import('../features/purchases/pages/order-money-page')).OrderMoneyPage,
     'orders.manage',
   ),
-  purchasePage(
+  lazyPage(
     paths.orderReceive(),
-    async () => ({
-      Component: (await import('../features/purchases/pages/receive-order-page')).ReceiveOrderPage,
-    }),
+    async () => (await import('../features/purchases/pages/receive-order-page')).ReceiveOrderPage,
     'orders.manage',
   ),
 ];
 
-/** Every screen of the web app. Forms and admin pages load their code when first opened. */
+/**
+ * Every screen of the web app. Each page's code loads when it is first opened, and the
+ * signed-in layout (header, navigation, search) with the first of them: the sign-in page
+ * carries none of it.
+ */
 export const routes: RouteObject[] = [
   {
     errorElement: <RouteErrorPage />,
     hydrateFallbackElement: <PageSpinner label="Opening Lotwise…" />,
     children: [
+      lazyPage(
+        paths.signIn,
+        async () => (await import('../features/auth/pages/sign-in-page')).SignInPage,
+      ),
+      lazyPage(
+        paths.invite(),
+        async () => (await import('../features/auth/pages/accept-invite-page')).AcceptInvitePage,
+      ),
       {
-        path: paths.signIn,
         lazy: async () => ({
-          Component: (await import('../features/auth/pages/sign-in-page')).SignInPage,
+          Component: (await import('./routes/signed-in-layout')).SignedInLayout,
         }),
-      },
-      {
-        path: paths.invite(),
-        lazy: async () => ({
-          Component: (await import('../features/auth/pages/accept-invite-page')).AcceptInvitePage,
-        }),
-      },
-      {
-        element: <SignedInLayout />,
         children: [
           { index: true, element: <Navigate to={paths.chemicals} replace /> },
-          {
-            path: paths.chemicals,
-            element: (
-              <RequirePermission permission="chemicals.read">
-                <ChemicalsListPage />
-              </RequirePermission>
-            ),
-          },
-          {
-            path: paths.chemicalNew,
-            lazy: async () => {
-              const { ChemicalCreatePage } =
-                await import('../features/chemicals/pages/chemical-create-page');
-              return {
-                element: (
-                  <RequirePermission permission="chemicals.write">
-                    <ChemicalCreatePage />
-                  </RequirePermission>
-                ),
-              };
-            },
-          },
-          {
-            path: paths.chemical(),
-            element: (
-              <RequirePermission permission="chemicals.read">
-                <ChemicalDetailPage />
-              </RequirePermission>
-            ),
-          },
-          {
-            path: paths.chemicalEdit(),
-            lazy: async () => {
-              const { ChemicalEditPage } =
-                await import('../features/chemicals/pages/chemical-edit-page');
-              return {
-                element: (
-                  <RequirePermission permission="chemicals.write">
-                    <ChemicalEditPage />
-                  </RequirePermission>
-                ),
-              };
-            },
-          },
+          lazyPage(
+            paths.chemicals,
+            async () =>
+              (await import('../features/chemicals/pages/chemicals-list-page')).ChemicalsListPage,
+            'chemicals.read',
+          ),
+          lazyPage(
+            paths.chemicalNew,
+            async () =>
+              (await import('../features/chemicals/pages/chemical-create-page')).ChemicalCreatePage,
+            'chemicals.write',
+          ),
+          lazyPage(
+            paths.chemical(),
+            async () =>
+              (await import('../features/chemicals/pages/chemical-detail-page')).ChemicalDetailPage,
+            'chemicals.read',
+          ),
+          lazyPage(
+            paths.chemicalEdit(),
+            async () =>
+              (await import('../features/chemicals/pages/chemical-edit-page')).ChemicalEditPage,
+            'chemicals.write',
+          ),
           {
             path: paths.stock,
             element: <RequirePermission permission="stock.read" />,
@@ -230,100 +172,48 @@ export const routes: RouteObject[] = [
           // The runs list moved under Preparations; old links still arrive.
           { path: '/runs', element: <Navigate to={paths.runs} replace /> },
           ...orderRoutes,
-          {
-            path: paths.restock,
-            lazy: async () => {
-              const { RestockPage } = await import('../features/reorder/pages/restock-page');
-              return {
-                element: (
-                  <RequirePermission permission="orders.read">
-                    <RestockPage />
-                  </RequirePermission>
-                ),
-              };
-            },
-          },
+          lazyPage(
+            paths.restock,
+            async () => (await import('../features/reorder/pages/restock-page')).RestockPage,
+            'orders.read',
+          ),
           ...purchaseRoutes,
-          {
-            path: paths.alerts,
-            lazy: async () => {
-              const { AlertsPage } = await import('../features/alerts/pages/alerts-page');
-              return {
-                element: (
-                  <RequirePermission permission="alerts.read">
-                    <AlertsPage />
-                  </RequirePermission>
-                ),
-              };
-            },
-          },
-          {
-            // every e-mail's footer links here, so any signed-in person may open it
-            path: paths.alertPreferences,
-            lazy: async () => ({
-              Component: (await import('../features/alerts/pages/preferences-page'))
-                .AlertPreferencesPage,
-            }),
-          },
-          {
-            path: paths.account,
-            lazy: async () => ({
-              Component: (await import('../features/auth/pages/account-page')).AccountPage,
-            }),
-          },
-          {
-            path: paths.suppliers,
-            lazy: async () => {
-              const { SuppliersListPage } =
-                await import('../features/suppliers/pages/suppliers-list-page');
-              return {
-                element: (
-                  <RequirePermission permission="orders.read">
-                    <SuppliersListPage />
-                  </RequirePermission>
-                ),
-              };
-            },
-          },
-          {
-            path: paths.supplier(),
-            lazy: async () => {
-              const { SupplierPage } = await import('../features/suppliers/pages/supplier-page');
-              return {
-                element: (
-                  <RequirePermission permission="orders.read">
-                    <SupplierPage />
-                  </RequirePermission>
-                ),
-              };
-            },
-          },
-          {
-            path: paths.adminOutbox,
-            lazy: async () => {
-              const { OutboxPage } = await import('../features/alerts/pages/outbox-page');
-              return {
-                element: (
-                  <RequirePermission permission="outbox.manage">
-                    <OutboxPage />
-                  </RequirePermission>
-                ),
-              };
-            },
-          },
-          {
-            path: paths.adminUsers,
-            lazy: async () => {
-              const { UsersPage } = await import('../features/users/pages/users-page');
-              return {
-                element: (
-                  <RequirePermission permission="users.manage">
-                    <UsersPage />
-                  </RequirePermission>
-                ),
-              };
-            },
-          },
+          lazyPage(
+            paths.alerts,
+            async () => (await import('../features/alerts/pages/alerts-page')).AlertsPage,
+            'alerts.read',
+          ),
+          // every e-mail's footer links here, so any signed-in person may open it
+          lazyPage(
+            paths.alertPreferences,
+            async () =>
+              (await import('../features/alerts/pages/preferences-page')).AlertPreferencesPage,
+          ),
+          lazyPage(
+            paths.account,
+            async () => (await import('../features/auth/pages/account-page')).AccountPage,
+          ),
+          lazyPage(
+            paths.suppliers,
+            async () =>
+              (await import('../features/suppliers/pages/suppliers-list-page')).SuppliersListPage,
+            'orders.read',
+          ),
+          lazyPage(
+            paths.supplier(),
+            async () => (await import('../features/suppliers/pages/supplier-page')).SupplierPage,
+            'orders.read',
+          ),
+          lazyPage(
+            paths.adminOutbox,
+            async () => (await import('../features/alerts/pages/outbox-page')).OutboxPage,
+            'outbox.manage',
+          ),
+          lazyPage(
+            paths.adminUsers,
+            async () => (await import('../features/users/pages/users-page')).UsersPage,
+            'users.manage',
+          ),
           { path: '*', element: <NotFoundPage /> },
         ],
       },

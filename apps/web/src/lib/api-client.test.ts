@@ -8,7 +8,10 @@ import {
   setUnauthenticatedHandler,
 } from './api-client';
 
-afterEach(() => setUnauthenticatedHandler(() => {}));
+afterEach(() => {
+  setUnauthenticatedHandler(() => {});
+  vi.unstubAllEnvs();
+});
 
 describe('apiRequest', () => {
   it('when the server answers the uniform error body, then the ApiError carries code, message and fields', async () => {
@@ -93,6 +96,54 @@ describe('apiRequest', () => {
     await expect(
       apiRequest('/api/auth/me', { schema: z.object({ user: z.object({ id: z.number() }) }) }),
     ).rejects.toMatchObject({ code: 'bad_response' });
+  });
+
+  it('when built for production, then an answer is returned as it came, without the contract check', async () => {
+    vi.stubEnv('DEV', false);
+    mockFetch({ 'GET /api/auth/me': { body: { person: 'someone' } } });
+
+    await expect(
+      apiRequest('/api/auth/me', { schema: z.object({ user: z.object({ id: z.number() }) }) }),
+    ).resolves.toEqual({ person: 'someone' });
+  });
+
+  it('when an error body names a code outside the closed list, then it is not taken as ours', async () => {
+    mockFetch({
+      'GET /api/chemicals': {
+        status: 400,
+        body: { error: { code: 'made_up', message: 'Something', fields: { name: 'x' } } },
+      },
+    });
+
+    const error = await apiRequest('/api/chemicals').catch((e: unknown) => e);
+
+    expect(error).toMatchObject({ status: 400, code: 'bad_response', fields: {} });
+  });
+
+  it('when an error body carries fields and warnings of other shapes, then only the well-formed ones are kept', async () => {
+    mockFetch({
+      'POST /api/containers/1/draws': {
+        status: 409,
+        body: {
+          error: {
+            code: 'confirmation_required',
+            message: 'Confirm.',
+            fields: { amount: 'must be positive', broken: 3 },
+            warnings: [{ kind: 'hold', message: 'Held.' }, 'not a warning', { kind: 7 }],
+          },
+        },
+      },
+    });
+
+    const error = await apiRequest('/api/containers/1/draws', { method: 'POST', body: {} }).catch(
+      (e: unknown) => e,
+    );
+
+    expect(error).toMatchObject({
+      code: 'confirmation_required',
+      fields: { amount: 'must be positive' },
+      warnings: [{ kind: 'hold', message: 'Held.' }],
+    });
   });
 
   it('sends JSON with same-origin credentials', async () => {

@@ -1,4 +1,4 @@
-import { errorBodySchema, type ConfirmationWarning, type ErrorCode } from '@lotwise/shared';
+import { errorCodes, type ConfirmationWarning, type ErrorCode } from '@lotwise/shared';
 import type { z } from 'zod';
 
 /** An error answered by the Lotwise API (or a failure to reach it), carrying the uniform body. */
@@ -35,6 +35,45 @@ export function notifyUnauthenticated(): void {
   onUnauthenticated();
 }
 
+function isRecord(value: unknown): value is Record<string, unknown> {
+  return typeof value === 'object' && value !== null && !Array.isArray(value);
+}
+
+interface ErrorBody {
+  code: ErrorCode;
+  message: string;
+  fields: Record<string, string>;
+  warnings: ConfirmationWarning[];
+}
+
+/**
+ * The uniform error body `{ error: { code, message, fields?, warnings? } }` (errorBodySchema
+ * in `@lotwise/shared`), read without zod so that the first page does not load it: a code
+ * outside the closed list, or a body of another shape, answers null.
+ */
+function readErrorBody(body: unknown): ErrorBody | null {
+  const error = isRecord(body) ? body.error : undefined;
+  if (!isRecord(error) || typeof error.message !== 'string') return null;
+  const code = errorCodes.find((known) => known === error.code);
+  if (!code) return null;
+  const fields = isRecord(error.fields)
+    ? Object.fromEntries(
+        Object.entries(error.fields).filter(
+          (entry): entry is [string, string] => typeof entry[1] === 'string',
+        ),
+      )
+    : {};
+  const warnings = Array.isArray(error.warnings)
+    ? (error.warnings.filter(
+        (warning) =>
+          isRecord(warning) &&
+          typeof warning.kind === 'string' &&
+          typeof warning.message === 'string',
+      ) as ConfirmationWarning[])
+    : [];
+  return { code, message: error.message, fields, warnings };
+}
+
 /** Reads an error response into an ApiError, tolerating bodies that are not ours. */
 export async function toApiError(response: Response): Promise<ApiError> {
   let body: unknown;
@@ -43,11 +82,9 @@ export async function toApiError(response: Response): Promise<ApiError> {
   } catch (_error) {
     body = undefined;
   }
-  const parsed = errorBodySchema.safeParse(body);
-  if (parsed.success) {
-    const { code, message, fields, warnings } = parsed.data.error;
-    return new ApiError(response.status, code, message, fields ?? {}, warnings ?? []);
-  }
+  const read = readErrorBody(body);
+  if (read)
+    return new ApiError(response.status, read.code, read.message, read.fields, read.warnings);
   const fallback =
     response.status >= 500
       ? 'The Lotwise server had a problem answering. Try again in a moment.'
@@ -59,10 +96,29 @@ export async function toApiError(response: Response): Promise<ApiError> {
   );
 }
 
+/**
+ * Checks an answer against its contract schema in development and tests (vitest, `npm run
+ * dev`), where a server and a page that disagree should fail loudly. A production build
+ * trusts its own server and returns the JSON as it came: the schemas describe answers, they
+ * do not change them (no defaults or transforms are relied on), so both give the same data.
+ */
+export function checkAnswer<T>(status: number, json: unknown, schema?: z.ZodType<T>): T {
+  if (!schema || !import.meta.env.DEV) return json as T;
+  const parsed = schema.safeParse(json);
+  if (!parsed.success) {
+    throw new ApiError(
+      status,
+      'bad_response',
+      'The server answered in a shape this version of Lotwise does not expect.',
+    );
+  }
+  return parsed.data;
+}
+
 interface RequestOptions<T> {
   method?: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
   body?: unknown;
-  /** Checks the answer against the contract; without it the JSON is returned as is. */
+  /** The answer's contract, checked in development and tests (see {@link checkAnswer}). */
   schema?: z.ZodType<T>;
   signal?: AbortSignal;
   /** Skip the global 401 handling (the sign-in and session check handle it themselves). */
@@ -112,16 +168,7 @@ export async function apiRequest<T = unknown>(
       'The server answered with something that is not JSON.',
     );
   }
-  if (!options.schema) return json as T;
-  const parsed = options.schema.safeParse(json);
-  if (!parsed.success) {
-    throw new ApiError(
-      response.status,
-      'bad_response',
-      'The server answered in a shape this version of Lotwise does not expect.',
-    );
-  }
-  return parsed.data;
+  return checkAnswer(response.status, json, options.schema);
 }
 
 export const api = {

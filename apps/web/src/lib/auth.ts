@@ -2,6 +2,13 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { can, meResponseSchema, type Permission, type User } from '@lotwise/shared';
 import { apiRequest, isApiError } from './api-client';
 
+/**
+ * The answer naming the signed-in user, checked against the contract in development and tests
+ * only. Left out of a production build altogether, so that the first page (sign-in, and the
+ * session check every page starts with) does not load zod and the contract's schemas.
+ */
+export const meAnswerSchema = import.meta.env.DEV ? meResponseSchema : undefined;
+
 /** Root of every session-related query key. */
 export const sessionKeys = {
   all: ['session'] as const,
@@ -12,7 +19,7 @@ export const sessionKeys = {
 export async function fetchCurrentUser(signal?: AbortSignal): Promise<User | null> {
   try {
     const { user } = await apiRequest('/api/auth/me', {
-      schema: meResponseSchema,
+      schema: meAnswerSchema,
       signal,
       allowUnauthenticated: true,
     });

@@ -1,6 +1,6 @@
 import type { z } from 'zod';
 import { formatDecimal, uploadFieldName } from '@lotwise/shared';
-import { ApiError, isApiError, notifyUnauthenticated, toApiError } from './api-client';
+import { ApiError, checkAnswer, isApiError, notifyUnauthenticated, toApiError } from './api-client';
 
 export interface UploadProgress {
   loaded: number;
@@ -9,7 +9,7 @@ export interface UploadProgress {
 
 interface UploadOptions<T> {
   method?: 'POST' | 'PUT';
-  /** Checks the answer against the contract; without it the JSON is returned as is. */
+  /** The answer's contract, checked in development and tests (see `checkAnswer`). */
   schema?: z.ZodType<T>;
   onProgress?: (progress: UploadProgress) => void;
   signal?: AbortSignal;
@@ -76,16 +76,7 @@ export function uploadFile<T = unknown>(
         'The server answered with something that is not JSON.',
       );
     }
-    if (!schema) return json as T;
-    const parsed = schema.safeParse(json);
-    if (!parsed.success) {
-      throw new ApiError(
-        response.status,
-        'bad_response',
-        'The server answered in a shape this version of Lotwise does not expect.',
-      );
-    }
-    return parsed.data;
+    return checkAnswer(response.status, json, schema);
   }
 }
 

@@ -1,9 +1,11 @@
-import { Link, Outlet, useNavigate } from 'react-router';
+import { Suspense } from 'react';
+import { Link, Outlet, useNavigate, useNavigation } from 'react-router';
 import { LogOut } from 'lucide-react';
 import { can, roleLabels, type User } from '@lotwise/shared';
 import { Wordmark } from '../../components/brand/wordmark';
 import { Badge } from '../../components/ui/badge';
 import { Button } from '../../components/ui/button';
+import { PageSpinner } from '../../components/ui/spinner';
 import { paths } from '../../config/paths';
 import { useSignOut } from '../../features/auth/api';
 import { GlobalSearch } from '../../features/search/components/global-search';
@@ -12,6 +14,8 @@ import { SideNav } from './side-nav';
 export function AppShell({ user }: { user: User }) {
   const signOut = useSignOut();
   const navigate = useNavigate();
+  // A page opened for the first time fetches its code: the page on screen stays meanwhile.
+  const opening = useNavigation().state === 'loading';
 
   return (
     <div className="flex min-h-screen flex-col">
@@ -22,6 +26,13 @@ export function AppShell({ user }: { user: User }) {
         Skip to content
       </a>
       <header className="sticky top-0 z-20 flex h-14 print:hidden items-center justify-between gap-4 border-b border-ink-200 bg-white px-4">
+        {opening && (
+          <span
+            aria-hidden="true"
+            data-testid="page-opening"
+            className="absolute inset-x-0 -bottom-px h-0.5 animate-pulse bg-accent-600"
+          />
+        )}
         <Link to={paths.home} aria-label="Lotwise, home" className="shrink-0 rounded">
           <Wordmark />
         </Link>
@@ -67,10 +78,14 @@ export function AppShell({ user }: { user: User }) {
         <main
           id="main"
           tabIndex={-1}
+          aria-busy={opening || undefined}
           className="min-w-0 flex-1 px-4 py-6 outline-none md:px-8 print:p-0"
         >
           <div className="mx-auto max-w-7xl print:max-w-none">
-            <Outlet />
+            {/* Code a page loads on its own (a chart) waits here, inside the layout. */}
+            <Suspense fallback={<PageSpinner label="Opening the page…" />}>
+              <Outlet />
+            </Suspense>
           </div>
         </main>
       </div>

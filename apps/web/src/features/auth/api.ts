@@ -1,13 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import {
-  meResponseSchema,
-  type AcceptInviteBody,
-  type ChangePasswordBody,
-  type LoginBody,
-} from '@lotwise/shared';
-import { z } from 'zod';
+import type { AcceptInviteBody, ChangePasswordBody, LoginBody, MeResponse } from '@lotwise/shared';
 import { apiRequest } from '../../lib/api-client';
-import { sessionKeys } from '../../lib/auth';
+import { meAnswerSchema, sessionKeys } from '../../lib/auth';
 
 export const authKeys = {
   all: ['auth'] as const,
@@ -18,10 +12,10 @@ export function useSignIn() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: LoginBody) =>
-      apiRequest('/api/auth/login', {
+      apiRequest<MeResponse>('/api/auth/login', {
         method: 'POST',
         body,
-        schema: meResponseSchema,
+        schema: meAnswerSchema,
         allowUnauthenticated: true,
       }),
     onSuccess: ({ user }) => {
@@ -43,31 +37,43 @@ export function useSignOut() {
   });
 }
 
+/** Who an invitation is for, as the greeting on the invitation page names them. */
+export interface InviteGreeting {
+  email: string | null;
+  displayName: string | null;
+}
+
+function text(value: unknown): string | null {
+  return typeof value === 'string' ? value : null;
+}
+
 /**
  * What the server tells about an invitation before it is accepted. The contract does not
- * name this shape yet, so it is read leniently: a greeting works with any of these fields.
+ * name this shape yet, so it is read leniently: a greeting works with any of these fields,
+ * at the top level or under `user`.
  */
-const inviteGreetingSchema = z
-  .object({
-    email: z.string().optional(),
-    displayName: z.string().optional(),
-    user: z.object({ email: z.string().optional(), displayName: z.string().optional() }).optional(),
-  })
-  .transform((body) => ({
-    email: body.email ?? body.user?.email ?? null,
-    displayName: body.displayName ?? body.user?.displayName ?? null,
-  }));
-export type InviteGreeting = z.output<typeof inviteGreetingSchema>;
+export function inviteGreeting(body: unknown): InviteGreeting {
+  const record = typeof body === 'object' && body !== null ? (body as Record<string, unknown>) : {};
+  const user =
+    typeof record.user === 'object' && record.user !== null
+      ? (record.user as Record<string, unknown>)
+      : {};
+  return {
+    email: text(record.email) ?? text(user.email),
+    displayName: text(record.displayName) ?? text(user.displayName),
+  };
+}
 
 export const inviteQueryOptions = (token: string) =>
   queryOptions({
     queryKey: authKeys.invite(token),
-    queryFn: ({ signal }) =>
-      apiRequest(`/api/auth/invite/${encodeURIComponent(token)}`, {
-        schema: inviteGreetingSchema,
-        signal,
-        allowUnauthenticated: true,
-      }),
+    queryFn: async ({ signal }) =>
+      inviteGreeting(
+        await apiRequest(`/api/auth/invite/${encodeURIComponent(token)}`, {
+          signal,
+          allowUnauthenticated: true,
+        }),
+      ),
     retry: false,
   });
 
@@ -91,7 +97,11 @@ export function useChangePassword() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: ChangePasswordBody) =>
-      apiRequest('/api/auth/password', { method: 'POST', body, schema: meResponseSchema }),
+      apiRequest<MeResponse>('/api/auth/password', {
+        method: 'POST',
+        body,
+        schema: meAnswerSchema,
+      }),
     onSuccess: ({ user }) => {
       queryClient.setQueryData(sessionKeys.me(), user);
     },

@@ -1,6 +1,10 @@
 import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import { loginBodySchema, type LoginBody } from '@lotwise/shared';
+import {
+  emailAddressMessage,
+  isEmailAddress,
+  normalizeEmail,
+  type LoginBody,
+} from '@lotwise/shared';
 import { LogIn } from 'lucide-react';
 import { Button } from '../../../components/ui/button';
 import { Field, fieldMessage } from '../../../components/ui/field';
@@ -32,22 +36,23 @@ export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
     handleSubmit,
     setError,
     formState: { errors },
-  } = useForm<LoginBody>({
-    resolver: zodResolver(loginBodySchema),
-    defaultValues: { email: '', password: '' },
-  });
+  } = useForm<LoginBody>({ defaultValues: { email: '', password: '' } });
 
+  // The contract's rules for a sign-in (loginBodySchema) without zod: this is the first page.
   const onSubmit = handleSubmit((values) => {
-    signIn.mutate(values, {
-      onSuccess: onSignedIn,
-      onError: (error) => {
-        if (isApiError(error)) {
-          for (const [field, message] of Object.entries(error.fields)) {
-            if (field === 'email' || field === 'password') setError(field, { message });
+    signIn.mutate(
+      { email: normalizeEmail(values.email), password: values.password },
+      {
+        onSuccess: onSignedIn,
+        onError: (error) => {
+          if (isApiError(error)) {
+            for (const [field, message] of Object.entries(error.fields)) {
+              if (field === 'email' || field === 'password') setError(field, { message });
+            }
           }
-        }
+        },
       },
-    });
+    );
   });
 
   const problem = signInProblem(signIn.error);
@@ -66,7 +71,10 @@ export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
             type="email"
             autoComplete="username"
             autoFocus
-            {...register('email')}
+            {...register('email', {
+              validate: (value) =>
+                isEmailAddress(normalizeEmail(value)) ? true : emailAddressMessage,
+            })}
           />
         )}
       </Field>
@@ -76,7 +84,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
             {...control}
             type="password"
             autoComplete="current-password"
-            {...register('password')}
+            {...register('password', { required: 'is required' })}
           />
         )}
       </Field>
