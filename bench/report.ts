@@ -134,7 +134,7 @@ export function reportRows(questions: QuestionResult[], extra: ExtraFigures): Re
       extra.web.chemicalsListJsBytes <= targets.chemicalsListJsBytes,
     ),
     figure(
-      'cold start (spawn → GET /api/health answers)',
+      'cold start (spawn → GET /api/health answers, restart)',
       ms(extra.coldStartMs),
       `< ${ms(targets.coldStartMs)}`,
       extra.coldStartMs < targets.coldStartMs,
