@@ -80,6 +80,8 @@ export function ledgerNotesWorker({
           message,
         );
       }
+      // A short batch was all that was due; notes written since then kick the worker again.
+      if (due.length < batchSize) return;
     }
   }
 
