@@ -15,15 +15,21 @@ export function ledgerNotesRepository(manager: EntityManager) {
     /** One note per chemical, due at once. */
     async noteChanges(chemicalIds: number[], at: string): Promise<void> {
       if (chemicalIds.length === 0) return;
-      await notes.insert(
-        chemicalIds.map((chemicalId) => ({
-          chemicalId,
-          notedAt: at,
-          attempts: 0,
-          nextAttemptAt: at,
-          lastError: null,
-        })),
-      );
+      // `updateEntity(false)`: nothing to read back, one statement per transaction
+      await notes
+        .createQueryBuilder()
+        .insert()
+        .values(
+          chemicalIds.map((chemicalId) => ({
+            chemicalId,
+            notedAt: at,
+            attempts: 0,
+            nextAttemptAt: at,
+            lastError: null,
+          })),
+        )
+        .updateEntity(false)
+        .execute();
     },
     /** Up to `limit` notes due at `now`, oldest first. */
     async dueNotes(now: string, limit: number): Promise<DueNote[]> {
