@@ -9,7 +9,7 @@ const logger = { debug: quiet, info: quiet, warn: quiet, error: quiet };
 describe('database statistics', () => {
   it('when the server starts, then the tables are analysed once, and again every interval', async () => {
     const { dataSource, store } = testContext();
-    const recording = recordStatements(dataSource);
+    const recording = await recordStatements(dataSource);
     // 0.2 s instead of hours
     const optimizer = startOptimizing(dataSource, store, logger, 0.2 / 3600);
     await optimizer.ready;

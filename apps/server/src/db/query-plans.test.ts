@@ -59,7 +59,7 @@ interface Plan {
 /** The SELECT statements `work` sends, each with its query plan. */
 async function plansOf(work: () => Promise<unknown>): Promise<Plan[]> {
   const { dataSource } = testContext();
-  const recording = recordStatements(dataSource);
+  const recording = await recordStatements(dataSource);
   await work();
   const statements = recording.stop().filter((s) => /^\s*SELECT/i.test(s.query));
   const plans: Plan[] = [];

@@ -1,4 +1,5 @@
 import type { DataSource, EntitySubscriberInterface } from 'typeorm';
+import { readConnection } from '../db/read-connection';
 
 export interface RecordedStatement {
   query: string;
@@ -6,10 +7,11 @@ export interface RecordedStatement {
 }
 
 /**
- * Records every statement the data source runs until `stop()` (through a TypeORM subscriber,
- * so statements run from TypeORM's statement cache are seen too).
+ * Records every statement the data source runs until `stop()`, on its writing connection and
+ * on its read-only one (through a TypeORM subscriber, so statements run from TypeORM's
+ * statement cache are seen too).
  */
-export function recordStatements(dataSource: DataSource) {
+export async function recordStatements(dataSource: DataSource) {
   const statements: RecordedStatement[] = [];
   let recording = true;
   const subscriber: EntitySubscriberInterface = {
@@ -21,13 +23,18 @@ export function recordStatements(dataSource: DataSource) {
         });
     },
   };
-  dataSource.subscribers.push(subscriber);
+  const connections = [dataSource];
+  const reader = await readConnection(dataSource);
+  if (reader) connections.push(reader);
+  for (const connection of connections) connection.subscribers.push(subscriber);
   return {
     statements,
     stop() {
       recording = false;
-      const index = dataSource.subscribers.indexOf(subscriber);
-      if (index >= 0) dataSource.subscribers.splice(index, 1);
+      for (const connection of connections) {
+        const index = connection.subscribers.indexOf(subscriber);
+        if (index >= 0) connection.subscribers.splice(index, 1);
+      }
       return statements;
     },
   };

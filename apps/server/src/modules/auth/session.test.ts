@@ -127,7 +127,7 @@ describe('the signed-in user is read once for a few seconds, and again at once a
   it('when a signed-in person asks twice, then the second request reads no user row', async () => {
     const { cookie } = await signedIn('member');
     await me(cookie).expect(200);
-    const recording = recordStatements(testContext().dataSource);
+    const recording = await recordStatements(testContext().dataSource);
     await me(cookie).expect(200);
     expect(readsOf(recording.stop(), 'users')).toEqual([]);
   });

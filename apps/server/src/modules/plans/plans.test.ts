@@ -458,7 +458,7 @@ describe('prep plans: reads', () => {
       benches: 10,
       plannedOn: nextWeek,
     });
-    const recording = recordStatements(testContext().dataSource);
+    const recording = await recordStatements(testContext().dataSource);
     const response = await get(`/api/plans/${created.id}`).expect(200);
     const statements = recording.stop();
     expect(planDetailSchema.parse(response.body).stockCheck.lines).toHaveLength(3);
@@ -474,7 +474,7 @@ describe('prep plans: reads', () => {
     for (let i = 0; i < 3; i++) {
       await plan({ procedureId: s.procedure.id, scaleFactor: 1, benches: 1, plannedOn: nextWeek });
     }
-    const recording = recordStatements(testContext().dataSource);
+    const recording = await recordStatements(testContext().dataSource);
     const response = await get('/api/plans?pageSize=50').expect(200);
     const statements = recording.stop();
     expect(response.body.items.length).toBeGreaterThanOrEqual(3);
