@@ -67,7 +67,7 @@ export async function runAlertsEvaluate(
           `The database is busy (the server is writing); trying again in ${formatDecimal(waitMs / 1000, 1)} s (attempt ${attempt + 1}).`,
         ),
     });
-  const dataSource = createDataSource(config.databasePath, { busyTimeoutMs });
+  const dataSource = createDataSource(config.databaseUrl ?? config.databasePath, { busyTimeoutMs });
   try {
     await dataSource.initialize();
     await whenBusy(() => dataSource.runMigrations({ transaction: 'all' }));

@@ -66,7 +66,7 @@ export async function runUserCreate(
     return 1;
   }
 
-  const dataSource = createDataSource(config.databasePath);
+  const dataSource = createDataSource(config.databaseUrl ?? config.databasePath);
   await dataSource.initialize();
   try {
     await dataSource.runMigrations({ transaction: 'all' });

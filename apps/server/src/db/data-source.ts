@@ -4,6 +4,7 @@ import path from 'node:path';
 import { DataSource } from 'typeorm';
 import { repoRoot } from '../config';
 import { bindNumbersAsParameters } from './bound-parameters';
+import { isPostgresUrl, lotwiseTypes } from './postgres';
 import { AlertPreferenceEntity } from '../modules/alerts/alert-preference.entity';
 import { LedgerChangeNoteEntity } from '../modules/alerts/ledger-change-note.entity';
 import { OutboxMessageEntity } from '../modules/alerts/outbox-message.entity';
@@ -125,12 +126,45 @@ function restrictDatabaseFiles(databasePath: string) {
   }
 }
 
+/** Connections each app instance keeps open to PostgreSQL. */
+export const postgresPoolSize = 10;
+
 /**
- * A DataSource on the SQLite file at `databasePath` (not yet initialized): WAL journal,
- * foreign keys enforced, files mode 0600, never `synchronize` — the schema only changes
- * through migrations.
+ * A DataSource (not yet initialized) on `location`: a `postgres://` URL (DATABASE_URL) or the
+ * path of an SQLite file. Never `synchronize`: the schema only changes through migrations.
  */
 export function createDataSource(
+  location: string,
+  options: { busyTimeoutMs?: number } = {},
+): DataSource {
+  return isPostgresUrl(location)
+    ? createPostgresDataSource(location)
+    : createSqliteDataSource(location, options);
+}
+
+/**
+ * PostgreSQL: a pool of connections on which transactions run side by side; what SQLite's
+ * single writer guaranteed, row locks guarantee here (docs/decisions.md). bigint and numeric
+ * values come back as exact numbers (db/postgres.ts).
+ */
+function createPostgresDataSource(url: string): DataSource {
+  return new DataSource({
+    type: 'postgres',
+    url,
+    entities,
+    migrations,
+    synchronize: false,
+    migrationsRun: false,
+    poolSize: postgresPoolSize,
+    applicationName: 'lotwise',
+    extra: { types: lotwiseTypes },
+  });
+}
+
+/**
+ * SQLite: WAL journal, foreign keys enforced, files mode 0600.
+ */
+function createSqliteDataSource(
   databasePath: string,
   /** How long a statement waits for another connection's write lock before SQLITE_BUSY. */
   { busyTimeoutMs = 5000 }: { busyTimeoutMs?: number } = {},
@@ -157,7 +191,8 @@ export function createDataSource(
   return dataSource;
 }
 
-/** For the TypeORM CLI (`npm run migration:run -w apps/server`). */
+/** For the TypeORM CLI (`npm run migration:run -w apps/server`): DATABASE_URL, else the file. */
 export default createDataSource(
-  path.resolve(repoRoot, process.env.DATABASE_PATH || 'data/lotwise.sqlite'),
+  process.env.DATABASE_URL ||
+    path.resolve(repoRoot, process.env.DATABASE_PATH || 'data/lotwise.sqlite'),
 );

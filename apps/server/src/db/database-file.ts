@@ -3,6 +3,8 @@ import type { DataSource } from 'typeorm';
 import { StartupError, type Config } from '../config';
 import type { Logger } from '../lib/logger';
 import { createDataSource } from './data-source';
+import { onPostgres, redactedUrl } from './postgres';
+import { withPlaceholders } from './sql';
 import { demoAccounts, seedDemo } from './seed/demo-seed';
 
 /** What was at the database path before this start opened it. */
@@ -20,7 +22,13 @@ export interface OpenedDatabase {
 
 type DatabaseConfig = Pick<
   Config,
-  'databasePath' | 'databaseInit' | 'databaseFullCheck' | 'production' | 'seedDemo' | 'bcryptCost'
+  | 'databasePath'
+  | 'databaseUrl'
+  | 'databaseInit'
+  | 'databaseFullCheck'
+  | 'production'
+  | 'seedDemo'
+  | 'bcryptCost'
 > &
   Partial<Pick<Config, 'currency'>>;
 
@@ -39,6 +47,12 @@ function fileState(databasePath: string): DatabaseFileState {
 }
 
 async function tableNames(dataSource: DataSource): Promise<string[]> {
+  if (onPostgres(dataSource)) {
+    const tables: { name: string }[] = await dataSource.query(
+      "SELECT table_name AS name FROM information_schema.tables WHERE table_schema = current_schema() AND table_type = 'BASE TABLE'",
+    );
+    return tables.map((row) => row.name);
+  }
   const rows: { name: string }[] = await dataSource.query(
     "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%'",
   );
@@ -93,6 +107,7 @@ export async function openDatabase(
   config: DatabaseConfig,
   logger: Logger,
 ): Promise<OpenedDatabase> {
+  if (config.databaseUrl !== null) return openPostgres(config, config.databaseUrl, logger);
   const found = fileState(config.databasePath);
   if (found !== 'present' && !config.databaseInit) {
     throw new StartupError(
@@ -129,6 +144,64 @@ export async function openDatabase(
   }
 }
 
+/** Serialises migrations of app instances that start together on one PostgreSQL database. */
+const migrationLockKey = 7_469_631_001;
+
+/**
+ * PostgreSQL: connects, refuses a database that holds tables but is not Lotwise's, applies
+ * migrations under an advisory lock (two instances starting at once migrate once) and seeds
+ * as for a file: a database without tables counts as a new one. Its integrity is PostgreSQL's
+ * own business (checksums, WAL), so there is no file check.
+ */
+async function openPostgres(
+  config: DatabaseConfig,
+  url: string,
+  logger: Logger,
+): Promise<OpenedDatabase> {
+  const where = `The PostgreSQL database ${redactedUrl(url)}`;
+  const dataSource = createDataSource(url);
+  try {
+    await dataSource.initialize();
+  } catch (error) {
+    throw new StartupError(
+      `${where} cannot be reached: ${error instanceof Error ? error.message : String(error)}. Check DATABASE_URL and that the server is running.`,
+    );
+  }
+  try {
+    const tables = await tableNames(dataSource);
+    if (tables.length > 0 && !tables.includes('migrations')) {
+      throw new StartupError(
+        `${where} holds tables but is not a Lotwise database (it has no migrations table). Point DATABASE_URL at an empty database or at Lotwise's.`,
+      );
+    }
+    if (tables.length === 0 && !config.databaseInit) {
+      throw new StartupError(
+        `${where} holds no tables. Restore it from your latest backup (or point DATABASE_URL at the right database), or for a new installation start once with --init (or DATABASE_INIT=true).`,
+      );
+    }
+    const found: DatabaseFileState = tables.length === 0 ? 'missing' : 'present';
+    const lock = dataSource.createQueryRunner();
+    let applied: string[];
+    try {
+      await lock.query('SELECT pg_advisory_lock($1)', [migrationLockKey]);
+      applied = (await dataSource.runMigrations({ transaction: 'all' })).map((m) => m.name);
+    } finally {
+      await lock.query('SELECT pg_advisory_unlock($1)', [migrationLockKey]).catch(() => undefined);
+      await lock.release();
+    }
+    const seeded = await seedIfAllowed(dataSource, config, found);
+    if (!seeded && (await dataSource.query('SELECT id FROM users LIMIT 1')).length === 0) {
+      logger.warn(
+        `${where} has no users yet: create the first admin with npm run user:create -- --email <address> --role admin`,
+      );
+    }
+    return { dataSource, found, applied, seeded };
+  } catch (error) {
+    await dataSource.destroy().catch(() => undefined);
+    throw error;
+  }
+}
+
 function seedIfAllowed(
   dataSource: DataSource,
   config: DatabaseConfig,
@@ -150,5 +223,6 @@ function seedIfAllowed(
 /** True when the demo admin exists, so the start-up banner may list the demo accounts. */
 export async function hasDemoAccounts(dataSource: DataSource): Promise<boolean> {
   const email = demoAccounts[0]?.email ?? '';
-  return (await dataSource.query('SELECT id FROM users WHERE email = ?', [email])).length > 0;
+  const sql = withPlaceholders(dataSource, 'SELECT id FROM users WHERE email = ?');
+  return (await dataSource.query(sql, [email])).length > 0;
 }

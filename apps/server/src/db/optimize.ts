@@ -1,5 +1,6 @@
 import type { DataSource } from 'typeorm';
 import type { Logger } from '../lib/logger';
+import { onPostgres } from './postgres';
 import type { Store } from './store';
 
 /** How often the running server refreshes SQLite's table statistics. */
@@ -22,6 +23,8 @@ export function startOptimizing(
   logger: Logger,
   intervalHours = optimizeIntervalHours,
 ): { ready: Promise<void>; stop(): void } {
+  // PostgreSQL's autovacuum keeps its statistics current by itself.
+  if (onPostgres(dataSource)) return { ready: Promise.resolve(), stop() {} };
   const run = (pragma: string) =>
     store
       .transaction(async () => {

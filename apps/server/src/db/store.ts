@@ -1,6 +1,7 @@
 import { AsyncLocalStorage } from 'node:async_hooks';
 import { type DataSource, type EntityManager } from 'typeorm';
 import type { Repositories } from './repositories';
+import { isTransactionConflict, onPostgres } from './postgres';
 import { readConnection } from './read-connection';
 
 export type { Repositories } from './repositories';
@@ -13,11 +14,17 @@ export type RepositoryFactories = {
 /** What services get: repositories, and a way to run several writes in one transaction. */
 export interface Store {
   /**
-   * Repositories for work outside a transaction. Reads go to a read-only connection of their
-   * own, so they never wait behind a write; a method that writes waits its turn in the write
-   * queue (or joins the open transaction).
+   * Repositories for work outside a transaction. On SQLite, reads go to a read-only
+   * connection of their own, so they never wait behind a write; a method that writes waits its
+   * turn in the write queue (or joins the open transaction). On PostgreSQL each call takes a
+   * pool connection (or joins the open transaction).
    */
   repos: Repositories;
+  /**
+   * Runs `work` in one transaction; called inside an open one, it joins it. On SQLite
+   * transactions take turns; on PostgreSQL they run side by side (READ COMMITTED), protect
+   * their invariants with row locks, and run again when rolled back by a deadlock.
+   */
   transaction<T>(work: (repos: Repositories) => Promise<T>): Promise<T>;
   /** Throws when the database does not answer a read of the users table. */
   ping(): Promise<void>;
@@ -53,6 +60,8 @@ const queues = new WeakMap<DataSource, Promise<unknown>>();
 const openTransaction = new AsyncLocalStorage<Repositories>();
 
 function serialized<T>(dataSource: DataSource, work: () => Promise<T>): Promise<T> {
+  // PostgreSQL gives each transaction a pool connection of its own: nothing to queue for.
+  if (onPostgres(dataSource)) return work();
   const previous = queues.get(dataSource) ?? Promise.resolve();
   const run = previous.then(work, work);
   queues.set(
@@ -95,23 +104,23 @@ function buildRepositories(factories: RepositoryFactories, manager: EntityManage
  * it; a write waits its turn in the queue; a read runs on the read-only connection when there
  * is one (a file database), else in the queue.
  */
-function routedRepositories(
-  dataSource: DataSource,
-  factories: RepositoryFactories,
-): Repositories {
+function routedRepositories(dataSource: DataSource, factories: RepositoryFactories): Repositories {
   const onWriter = buildRepositories(factories, dataSource.manager);
+  if (onPostgres(dataSource)) return joiningRepositories(onWriter);
   let onReader: Promise<Repositories | null> | null = null;
   const reader = () =>
     (onReader ??= readConnection(dataSource).then((connection) =>
       connection ? buildRepositories(factories, connection.manager) : null,
     ));
   const routed = {} as Record<string, Record<string, AnyMethod>>;
-  for (const [name, repository] of Object.entries(onWriter) as [string, Record<string, unknown>][]) {
+  for (const [name, repository] of Object.entries(onWriter) as [
+    string,
+    Record<string, unknown>,
+  ][]) {
     routed[name] = {};
     for (const [key, method] of Object.entries(repository)) {
       if (typeof method !== 'function') continue;
-      const onWriterCall = (args: unknown[]) => () =>
-        (method as AnyMethod).apply(repository, args);
+      const onWriterCall = (args: unknown[]) => () => (method as AnyMethod).apply(repository, args);
       routed[name][key] = async (...args: unknown[]) => {
         const open = openTransaction.getStore();
         if (open) {
@@ -138,6 +147,45 @@ function routedRepositories(
   return routed as unknown as Repositories;
 }
 
+/**
+ * PostgreSQL: every call outside a transaction runs on a pool connection of its own; inside an
+ * open transaction it joins it.
+ */
+function joiningRepositories(onPool: Repositories): Repositories {
+  const joined = {} as Record<string, Record<string, AnyMethod>>;
+  for (const [name, repository] of Object.entries(onPool) as [string, Record<string, unknown>][]) {
+    joined[name] = {};
+    for (const [key, method] of Object.entries(repository)) {
+      if (typeof method !== 'function') continue;
+      joined[name][key] = (...args: unknown[]) => {
+        const open = openTransaction.getStore() as unknown as
+          Record<string, Record<string, AnyMethod>> | undefined;
+        return open ? open[name]![key]!(...args) : (method as AnyMethod).apply(repository, args);
+      };
+    }
+  }
+  return joined as unknown as Repositories;
+}
+
+/**
+ * How often a PostgreSQL transaction that was rolled back because it ran into another one
+ * (deadlock, serialization failure) runs again: it changed nothing, and the other one has
+ * finished or holds what it waited for.
+ */
+export const conflictRetries = 4;
+
+async function retryOnConflict<T>(dataSource: DataSource, attempt: () => Promise<T>): Promise<T> {
+  if (!onPostgres(dataSource)) return attempt();
+  for (let tries = 1; ; tries++) {
+    try {
+      return await attempt();
+    } catch (error) {
+      if (tries > conflictRetries || !isTransactionConflict(error)) throw error;
+      await new Promise((resolve) => setTimeout(resolve, Math.random() * 20 * tries));
+    }
+  }
+}
+
 export function createStore(dataSource: DataSource, factories: RepositoryFactories): Store {
   const listeners: LedgerChangeListener[] = [];
   const committed: ((chemicalIds: number[]) => void)[] = [];
@@ -147,16 +195,19 @@ export function createStore(dataSource: DataSource, factories: RepositoryFactori
     if (open) return work(open);
     const changed = new Set<number>();
     const done = serialized(dataSource, () =>
-      dataSource.transaction(async (manager) => {
-        const repos = buildRepositories(factories, manager);
-        ledgerChanges.set(repos, changed);
-        const result = await openTransaction.run(repos, () => work(repos));
-        if (changed.size > 0) {
-          for (const listener of listeners) {
-            await openTransaction.run(repos, () => listener(repos, [...changed]));
+      retryOnConflict(dataSource, () => {
+        changed.clear();
+        return dataSource.transaction(async (manager) => {
+          const repos = buildRepositories(factories, manager);
+          ledgerChanges.set(repos, changed);
+          const result = await openTransaction.run(repos, () => work(repos));
+          if (changed.size > 0) {
+            for (const listener of listeners) {
+              await openTransaction.run(repos, () => listener(repos, [...changed]));
+            }
           }
-        }
-        return result;
+          return result;
+        });
       }),
     );
     return done.then((result) => {
@@ -178,6 +229,10 @@ export function createStore(dataSource: DataSource, factories: RepositoryFactori
       // A real table, so a database that lost its tables (or was swapped) does not look healthy.
       // On the read connection when there is one: a long import does not make the server look down.
       const sql = 'SELECT id FROM users LIMIT 1';
+      if (onPostgres(dataSource)) {
+        await dataSource.query(sql);
+        return;
+      }
       const reader = await readConnection(dataSource);
       if (reader) await reader.query(sql);
       else await serialized(dataSource, () => dataSource.query(sql));

@@ -2,15 +2,27 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { Express } from 'express';
-import type { DataSource } from 'typeorm';
+import { randomBytes } from 'node:crypto';
+import { DataSource } from 'typeorm';
 import { createApp, ledgerNotesOf } from '../app';
 import { loadConfig, type Config } from '../config';
 import { createDataSource } from '../db/data-source';
 import { type Store } from '../db/store';
 import { openStore } from '../db/repositories';
 
+/**
+ * The admin URL of a PostgreSQL server to run the tests on (`npm run test:postgres`); unset,
+ * they run on SQLite files. Each test file then gets a database of its own, dropped at the end.
+ */
+export const testPostgresUrl = process.env.LOTWISE_TEST_POSTGRES_URL || null;
+
+/** True when this run's tests use PostgreSQL: `describe.skipIf(onPostgres)` for SQLite-only ones. */
+export const onPostgres = testPostgresUrl !== null;
+
 export interface TestContext {
   dir: string;
+  /** The PostgreSQL database of this context (dropped on close), or null on SQLite. */
+  postgresDatabase?: string | null;
   config: Config;
   dataSource: DataSource;
   store: Store;
@@ -33,15 +45,41 @@ export function testConfig(dir: string, env: NodeJS.ProcessEnv = {}): Config {
   });
 }
 
+async function onAdminDatabase<T>(work: (admin: DataSource) => Promise<T>): Promise<T> {
+  const admin = new DataSource({ type: 'postgres', url: testPostgresUrl!, poolSize: 1 });
+  await admin.initialize();
+  try {
+    return await work(admin);
+  } finally {
+    await admin.destroy();
+  }
+}
+
+/** A new, empty PostgreSQL database on the test server; answers its name and URL. */
+export async function createTestPostgresDatabase(): Promise<{ name: string; url: string }> {
+  const name = `lotwise_test_${process.pid}_${randomBytes(4).toString('hex')}`;
+  await onAdminDatabase((admin) => admin.query(`CREATE DATABASE "${name}"`));
+  const url = new URL(testPostgresUrl!);
+  url.pathname = `/${name}`;
+  return { name, url: url.toString() };
+}
+
+/** Drops a database made by createTestPostgresDatabase, closing what still uses it. */
+export async function dropTestPostgresDatabase(name: string): Promise<void> {
+  await onAdminDatabase((admin) => admin.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`));
+}
+
 /** A fresh temporary database with every migration applied, and an app on it. */
 export async function openTestContext(): Promise<TestContext> {
   const dir = mkdtempSync(path.join(tmpdir(), 'lotwise-test-'));
-  const config = testConfig(dir);
-  const dataSource = createDataSource(config.databasePath);
+  const postgres = testPostgresUrl ? await createTestPostgresDatabase() : null;
+  const config = testConfig(dir, postgres ? { DATABASE_URL: postgres.url } : {});
+  const dataSource = createDataSource(config.databaseUrl ?? config.databasePath);
   await dataSource.initialize();
   await dataSource.runMigrations({ transaction: 'all' });
   return {
     dir,
+    postgresDatabase: postgres?.name ?? null,
     config,
     dataSource,
     store: openStore(dataSource),
@@ -57,6 +95,7 @@ export async function alertRulesSettled(context: TestContext = testContext()): P
 export async function closeTestContext(context: TestContext) {
   await ledgerNotesOf(context.app).stop();
   if (context.dataSource.isInitialized) await context.dataSource.destroy();
+  if (context.postgresDatabase) await dropTestPostgresDatabase(context.postgresDatabase);
   rmSync(context.dir, { recursive: true, force: true });
 }
 

@@ -1,5 +1,6 @@
 import { ChemError, canonicalFormula } from '@lotwise/chem';
 import { type MigrationInterface, type QueryRunner, TableColumn } from 'typeorm';
+import { withPlaceholders } from '../sql';
 
 /**
  * The stored formula as it was read when it was saved: "CuSO4.5H2O" was then a hydrate, so
@@ -43,7 +44,8 @@ export class ChemicalMeasures1796630000000 implements MigrationInterface {
         .split('\n')
         .map((line) => (line === row.formula.toLowerCase() ? formula.toLowerCase() : line))
         .join('\n');
-      await queryRunner.query('UPDATE chemicals SET formula = ?, search_text = ? WHERE id = ?', [
+      const update = 'UPDATE chemicals SET formula = ?, search_text = ? WHERE id = ?';
+      await queryRunner.query(withPlaceholders(queryRunner.connection, update), [
         formula,
         searchText,
         row.id,
