@@ -3,7 +3,7 @@ import type { DataSource } from 'typeorm';
 import { StartupError, type Config } from '../config';
 import type { Logger } from '../lib/logger';
 import { createDataSource } from './data-source';
-import { onPostgres, redactedUrl } from './postgres';
+import { advisoryLocks, onPostgres, redactedUrl } from './postgres';
 import { withPlaceholders } from './sql';
 import { demoAccounts, seedDemo } from './seed/demo-seed';
 
@@ -144,9 +144,6 @@ export async function openDatabase(
   }
 }
 
-/** Serialises migrations of app instances that start together on one PostgreSQL database. */
-const migrationLockKey = 7_469_631_001;
-
 /**
  * PostgreSQL: connects, refuses a database that holds tables but is not Lotwise's, applies
  * migrations under an advisory lock (two instances starting at once migrate once) and seeds
@@ -183,10 +180,12 @@ async function openPostgres(
     const lock = dataSource.createQueryRunner();
     let applied: string[];
     try {
-      await lock.query('SELECT pg_advisory_lock($1)', [migrationLockKey]);
+      await lock.query('SELECT pg_advisory_lock($1)', [advisoryLocks.migrations]);
       applied = (await dataSource.runMigrations({ transaction: 'all' })).map((m) => m.name);
     } finally {
-      await lock.query('SELECT pg_advisory_unlock($1)', [migrationLockKey]).catch(() => undefined);
+      await lock
+        .query('SELECT pg_advisory_unlock($1)', [advisoryLocks.migrations])
+        .catch(() => undefined);
       await lock.release();
     }
     const seeded = await seedIfAllowed(dataSource, config, found);

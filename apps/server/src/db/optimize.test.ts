@@ -1,12 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { testContext } from '../test/harness';
+import { onPostgres, testContext } from '../test/harness';
 import { recordStatements } from '../test/statements';
 import { startOptimizing } from './optimize';
 
 const quiet = () => undefined;
 const logger = { debug: quiet, info: quiet, warn: quiet, error: quiet };
 
-describe('database statistics', () => {
+// SQLite's statistics; PostgreSQL's autovacuum keeps its own.
+describe.skipIf(onPostgres)('database statistics', () => {
   it('when the server starts, then the tables are analysed once, and again every interval', async () => {
     const { dataSource, store } = testContext();
     const recording = await recordStatements(dataSource);

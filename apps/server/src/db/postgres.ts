@@ -1,5 +1,5 @@
 import pg from 'pg';
-import type { DataSource } from 'typeorm';
+import type { DataSource, EntityManager } from 'typeorm';
 
 /** True for a `postgres://` or `postgresql://` URL (DATABASE_URL), false for a file path. */
 export function isPostgresUrl(location: string): boolean {
@@ -73,4 +73,53 @@ export function postgresCode(error: unknown): string | null {
 export function isTransactionConflict(error: unknown): boolean {
   const code = postgresCode(error);
   return code === '40001' || code === '40P01';
+}
+
+/**
+ * Find options that lock the rows read (`SELECT … FOR UPDATE`) until the transaction ends, on
+ * PostgreSQL inside a transaction; nothing on SQLite, whose one writer already keeps other
+ * transactions out, nor outside a transaction. For rows a transaction reads in order to
+ * change them (a container's balance before a draw): a second transaction on another
+ * connection or another app instance waits, then reads the committed result.
+ */
+export function lockForWrite(manager: EntityManager): { lock?: { mode: 'pessimistic_write' } } {
+  const inTransaction = manager.queryRunner?.isTransactionActive ?? false;
+  return onPostgres(manager.connection) && inTransaction
+    ? { lock: { mode: 'pessimistic_write' } }
+    : {};
+}
+
+/** Advisory lock keys: each names one sequence that concurrent transactions take turns on. */
+export const advisoryLocks = {
+  migrations: 7_469_631_001,
+  labelNumbers: 7_469_631_002,
+} as const;
+
+/**
+ * On PostgreSQL inside a transaction, waits until no other transaction holds `key`, and
+ * holds it until this one ends (`pg_advisory_xact_lock`). For a read-then-insert with no row
+ * to lock, such as the next label number (MAX + 1). Nothing on SQLite.
+ */
+export async function takeTurn(manager: EntityManager, key: number): Promise<void> {
+  if (!onPostgres(manager.connection) || !manager.queryRunner?.isTransactionActive) return;
+  await manager.query('SELECT pg_advisory_xact_lock($1)', [key]);
+}
+
+/**
+ * Runs `work` so that, when it fails, the transaction goes on without it, as after a failed
+ * statement on SQLite. PostgreSQL marks the whole transaction failed instead, so there the
+ * work runs inside a savepoint that is rolled back on error. For a write whose failure is
+ * answered by reading more in the same transaction (a label code taken since the preview).
+ */
+export async function undoneOnError<T>(manager: EntityManager, work: () => Promise<T>): Promise<T> {
+  if (!onPostgres(manager.connection) || !manager.queryRunner?.isTransactionActive) return work();
+  await manager.query('SAVEPOINT lotwise_attempt');
+  try {
+    const result = await work();
+    await manager.query('RELEASE SAVEPOINT lotwise_attempt');
+    return result;
+  } catch (error) {
+    await manager.query('ROLLBACK TO SAVEPOINT lotwise_attempt');
+    throw error;
+  }
 }

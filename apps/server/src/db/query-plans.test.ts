@@ -11,7 +11,7 @@ import {
 } from '@lotwise/shared';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { generateLab, type GeneratedLab } from '../test/generated-lab';
-import { testContext } from '../test/harness';
+import { onPostgres, testContext } from '../test/harness';
 import { recordStatements, type RecordedStatement } from '../test/statements';
 import { startOptimizing } from './optimize';
 
@@ -38,6 +38,7 @@ const largeTables = [
 let lab: GeneratedLab;
 
 beforeAll(async () => {
+  if (onPostgres) return;
   const { dataSource, store } = testContext();
   lab = generateLab(dataSource);
   const quiet = () => undefined;
@@ -269,7 +270,8 @@ function listCases(): [string, () => Promise<unknown>][] {
   ];
 }
 
-describe('query plans of the list queries on a generated lab', () => {
+// SQLite's query planner (EXPLAIN QUERY PLAN), on a lab generated through better-sqlite3.
+describe.skipIf(onPostgres)('query plans of the list queries on a generated lab', () => {
   it('when the database has been analysed, then the statistics cover the containers and their indexes', async () => {
     const rows: { idx: string | null }[] = await testContext().dataSource.query(
       "SELECT idx FROM sqlite_stat1 WHERE tbl = 'containers'",

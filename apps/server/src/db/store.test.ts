@@ -1,23 +1,27 @@
 import { describe, expect, it } from 'vitest';
 import type { EntityManager } from 'typeorm';
-import { testContext } from '../test/harness';
+import { onPostgres, testContext } from '../test/harness';
 import { createStore, type RepositoryFactories } from './store';
 
 describe('store transactions', () => {
-  it('when transactions overlap in time, then they run one after another (no interleaved read-check-write)', async () => {
-    const { store } = testContext();
-    const log: string[] = [];
-    await Promise.all(
-      [1, 2, 3].map((n) =>
-        store.transaction(async () => {
-          log.push(`start ${n}`);
-          await new Promise((resolve) => setTimeout(resolve, 5));
-          log.push(`end ${n}`);
-        }),
-      ),
-    );
-    expect(log).toEqual(['start 1', 'end 1', 'start 2', 'end 2', 'start 3', 'end 3']);
-  });
+  // SQLite's write queue; on PostgreSQL transactions overlap and lock rows instead.
+  it.skipIf(onPostgres)(
+    'when transactions overlap in time, then they run one after another (no interleaved read-check-write)',
+    async () => {
+      const { store } = testContext();
+      const log: string[] = [];
+      await Promise.all(
+        [1, 2, 3].map((n) =>
+          store.transaction(async () => {
+            log.push(`start ${n}`);
+            await new Promise((resolve) => setTimeout(resolve, 5));
+            log.push(`end ${n}`);
+          }),
+        ),
+      );
+      expect(log).toEqual(['start 1', 'end 1', 'start 2', 'end 2', 'start 3', 'end 3']);
+    },
+  );
 
   it('when a transaction fails, then the next one still runs', async () => {
     const { store } = testContext();
@@ -106,25 +110,32 @@ describe('store transactions', () => {
     expect(await store.repos.locations.siblingNamed(null, 'Room being written')).not.toBeNull();
   });
 
-  it('when a method named as a read writes, then it is refused on the read connection and runs in the write queue', async () => {
-    const { dataSource } = testContext();
-    const factories = {
-      probe: (manager: EntityManager) => ({
-        async countAndTouch(name: string) {
-          await manager.query(
-            "INSERT INTO locations (name, kind, parent_id, storage_groups, notes, path, id_path, depth, created_at, updated_at) VALUES (?, 'room', NULL, '[]', '', ?, '/0/', 0, datetime('now'), datetime('now'))",
-            [name, name],
-          );
-          const [row] = await manager.query('SELECT COUNT(*) AS n FROM locations WHERE name = ?', [
-            name,
-          ]);
-          return Number(row.n);
-        },
-      }),
-    } as unknown as RepositoryFactories;
-    const probe = (createStore(dataSource, factories).repos as unknown as {
-      probe: { countAndTouch(name: string): Promise<number> };
-    }).probe;
-    expect(await probe.countAndTouch('Touched room')).toBe(1);
-  });
+  // SQLite's read-only second connection; PostgreSQL has a pool and no such split.
+  it.skipIf(onPostgres)(
+    'when a method named as a read writes, then it is refused on the read connection and runs in the write queue',
+    async () => {
+      const { dataSource } = testContext();
+      const factories = {
+        probe: (manager: EntityManager) => ({
+          async countAndTouch(name: string) {
+            await manager.query(
+              "INSERT INTO locations (name, kind, parent_id, storage_groups, notes, path, id_path, depth, created_at, updated_at) VALUES (?, 'room', NULL, '[]', '', ?, '/0/', 0, datetime('now'), datetime('now'))",
+              [name, name],
+            );
+            const [row] = await manager.query(
+              'SELECT COUNT(*) AS n FROM locations WHERE name = ?',
+              [name],
+            );
+            return Number(row.n);
+          },
+        }),
+      } as unknown as RepositoryFactories;
+      const probe = (
+        createStore(dataSource, factories).repos as unknown as {
+          probe: { countAndTouch(name: string): Promise<number> };
+        }
+      ).probe;
+      expect(await probe.countAndTouch('Touched room')).toBe(1);
+    },
+  );
 });

@@ -9,6 +9,7 @@ import { loadConfig, type Config } from '../config';
 import { createDataSource } from '../db/data-source';
 import { type Store } from '../db/store';
 import { openStore } from '../db/repositories';
+import { withPlaceholders } from '../db/sql';
 
 /**
  * The admin URL of a PostgreSQL server to run the tests on (`npm run test:postgres`); unset,
@@ -36,7 +37,7 @@ export function testConfig(dir: string, env: NodeJS.ProcessEnv = {}): Config {
   return loadConfig({
     DATABASE_PATH: path.join(dir, 'lotwise.sqlite'),
     BCRYPT_COST: '4',
-    LOG_LEVEL: 'silent',
+    LOG_LEVEL: process.env.LOTWISE_TEST_LOG_LEVEL ?? 'silent',
     LOGIN_RATE_LIMIT: '1000',
     LOGIN_RATE_LIMIT_IP: '1000',
     PUBLIC_URL: 'http://lotwise.example.test',
@@ -77,6 +78,7 @@ export async function openTestContext(): Promise<TestContext> {
   const dataSource = createDataSource(config.databaseUrl ?? config.databasePath);
   await dataSource.initialize();
   await dataSource.runMigrations({ transaction: 'all' });
+  if (postgres) acceptQuestionMarks(dataSource);
   return {
     dir,
     postgresDatabase: postgres?.name ?? null,
@@ -85,6 +87,17 @@ export async function openTestContext(): Promise<TestContext> {
     store: openStore(dataSource),
     app: createApp({ dataSource, config }),
   };
+}
+
+/**
+ * Tests set up and inspect rows with raw SQL written with `?` placeholders; on PostgreSQL the
+ * test context's DataSource numbers them. Only raw `dataSource.query` calls are affected: the
+ * app itself goes through the query builder.
+ */
+function acceptQuestionMarks(dataSource: DataSource) {
+  const query = dataSource.query.bind(dataSource);
+  dataSource.query = ((sql: string, parameters?: unknown[], queryRunner?: never) =>
+    query(withPlaceholders(dataSource, sql), parameters, queryRunner)) as typeof dataSource.query;
 }
 
 /** Waits until the alert rules ran for every ledger change made so far. */

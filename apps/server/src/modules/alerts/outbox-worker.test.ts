@@ -2,7 +2,7 @@ import { safetyDeferral } from '@lotwise/shared';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { signedIn, stockFactory } from '../../test/factories';
-import { testConfig, testContext } from '../../test/harness';
+import { alertRulesSettled, testConfig, testContext } from '../../test/harness';
 import { startSmtpSink, type SmtpSink } from '../../test/smtp-sink';
 import { alertsService, nextDigestAt } from './alerts.service';
 import { createMailTransport } from './mail-transport';
@@ -317,6 +317,8 @@ describe('outbox worker', () => {
       .set('Cookie', manager.cookie)
       .send({ amount: 200, unit: 'mL' })
       .expect(201);
+    // the alert rules run after the draw's commit (on PostgreSQL nothing queues them first)
+    await alertRulesSettled();
 
     const { worker, close } = workerAt(new Date(Date.now() + 1000));
     const before = sink.messages.length;

@@ -12,6 +12,7 @@ import {
 } from '@lotwise/shared';
 import { In, type EntityManager, type SelectQueryBuilder } from 'typeorm';
 import { fromMicro, microPerUnit } from '../../db/quantities';
+import { advisoryLocks, lockForWrite, takeTurn } from '../../db/postgres';
 import { containsPattern } from '../../db/sql';
 import { ContainerEntity, type ContainerRow } from './container.entity';
 import { LedgerEntryEntity, type LedgerEntryRow } from './ledger-entry.entity';
@@ -228,14 +229,23 @@ export function containersRepository(manager: EntityManager) {
   }
 
   return {
+    /** In a transaction on PostgreSQL the row stays locked until it ends (its balance may change). */
     async findRow(id: number): Promise<ContainerRow | null> {
-      return repo.findOneBy({ id });
+      return repo.findOne({ where: { id }, ...lockForWrite(manager) });
     },
-    /** The containers of `ids` in one read, by id (missing ids are absent). */
+    /**
+     * The containers of `ids` in one read, by id (missing ids are absent); locked like findRow,
+     * in id order, so two transactions locking overlapping sets wait instead of deadlocking.
+     */
     async rowsByIds(ids: number[]): Promise<Map<number, ContainerRow>> {
       const unique = [...new Set(ids)];
       if (unique.length === 0) return new Map();
-      return new Map((await repo.findBy({ id: In(unique) })).map((row) => [row.id, row]));
+      const rows = await repo.find({
+        where: { id: In(unique) },
+        order: { id: 'ASC' },
+        ...lockForWrite(manager),
+      });
+      return new Map(rows.map((row) => [row.id, row]));
     },
     async findView(id: number): Promise<ContainerView | null> {
       const raw = await view().where('c.id = :id', { id }).getRawOne<Record<string, unknown>>();
@@ -256,8 +266,12 @@ export function containersRepository(manager: EntityManager) {
         .getRawMany<Record<string, unknown>>();
       return rows.map(toView);
     },
-    /** The next free `LW-` number. */
+    /**
+     * The next free `LW-` number. On PostgreSQL the transaction takes its turn first, so two
+     * instances creating containers at once do not pick the same number.
+     */
     async nextLabelNumber(): Promise<number> {
+      await takeTurn(manager, advisoryLocks.labelNumbers);
       const row = await manager
         .createQueryBuilder()
         .select('MAX(c.label_number)', 'n')

@@ -1,5 +1,6 @@
 import type { ImportListQuery, ImportStatus } from '@lotwise/shared';
 import type { EntityManager } from 'typeorm';
+import { undoneOnError } from '../../db/postgres';
 import { ChemicalEntity } from '../chemicals/chemical.entity';
 import { ContainerEntity } from '../containers/container.entity';
 import type { ContainerValues, LedgerEntryValues } from '../containers/containers.repository';
@@ -196,13 +197,16 @@ export function importsRepository(manager: EntityManager) {
     async insertContainers(values: ContainerValues[]): Promise<Map<string, number>> {
       const ids = new Map<string, number>();
       for (const part of chunks(values, insertChunk)) {
-        await manager
-          .createQueryBuilder()
-          .insert()
-          .into(ContainerEntity)
-          .values(part)
-          .updateEntity(false)
-          .execute();
+        // A taken label code fails the insert; the caller then reads which one it was.
+        await undoneOnError(manager, () =>
+          manager
+            .createQueryBuilder()
+            .insert()
+            .into(ContainerEntity)
+            .values(part)
+            .updateEntity(false)
+            .execute(),
+        );
         const codes = part.map((c) => c.labelCode);
         const rows: { id: number; code: string }[] = await manager
           .createQueryBuilder()

@@ -106,7 +106,7 @@ export function ordersRepository(manager: EntityManager) {
         .createQueryBuilder('sh')
         .innerJoin('order_lines', 'l', 'l.id = sh.lineId')
         .innerJoin('orders', 'o', 'o.id = sh.orderId')
-        .select(['sh.userId AS userId', 'l.chemical_id AS chemicalId'])
+        .select(['sh.userId AS "userId"', 'l.chemical_id AS "chemicalId"'])
         .where('sh.userId IN (:...userIds)', { userIds })
         .andWhere('o.status IN (:...statuses)', { statuses: [...statuses] })
         .getRawMany<{ userId: number; chemicalId: number }>();

@@ -57,13 +57,13 @@ export interface PendingLineRow {
 export const pendingOrderStatuses: readonly OrderStatus[] = ['draft', 'open', 'funded', 'ordered'];
 
 const chemicalColumns = (alias: string) => `
-  ${alias}.id AS id, ${alias}.name AS name, ${alias}.cas_number AS casNumber,
-  ${alias}.formula AS formula, ${alias}.physical_state AS physicalState,
-  ${alias}.stock_unit AS stockUnit, ${alias}.ghs_pictograms AS ghsPictograms,
-  ${alias}.hazard_statements AS hazardStatements, ${alias}.storage_group AS storageGroup,
+  ${alias}.id AS id, ${alias}.name AS name, ${alias}.cas_number AS "casNumber",
+  ${alias}.formula AS formula, ${alias}.physical_state AS "physicalState",
+  ${alias}.stock_unit AS "stockUnit", ${alias}.ghs_pictograms AS "ghsPictograms",
+  ${alias}.hazard_statements AS "hazardStatements", ${alias}.storage_group AS "storageGroup",
   ${alias}.restricted AS restricted, ${alias}.density AS density,
-  ${alias}.bulk_density AS bulkDensity, ${alias}.reorder_point AS reorderPoint,
-  ${alias}.reorder_quantity AS reorderQuantity`;
+  ${alias}.bulk_density AS "bulkDensity", ${alias}.reorder_point AS "reorderPoint",
+  ${alias}.reorder_quantity AS "reorderQuantity"`;
 
 const numberOrNull = (value: unknown) =>
   value === null || value === undefined ? null : Number(value);

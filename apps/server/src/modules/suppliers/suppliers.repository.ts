@@ -41,7 +41,13 @@ export function suppliersRepository(manager: EntityManager) {
   const items = manager.getRepository(CatalogItemEntity);
   const chemicals = manager.getRepository(ChemicalEntity);
 
-  async function countBy(table: string, column: string, ids: number[], where = '') {
+  async function countBy(
+    table: string,
+    column: string,
+    ids: number[],
+    where = '',
+    parameters: Record<string, unknown> = {},
+  ) {
     if (ids.length === 0) return new Map<number, number>();
     const rows: { id: number; n: number }[] = await manager
       .createQueryBuilder()
@@ -49,7 +55,7 @@ export function suppliersRepository(manager: EntityManager) {
       .addSelect('COUNT(*)', 'n')
       .from(table, 't')
       .where(`t.${column} IN (:...ids)`, { ids })
-      .andWhere(where || '1 = 1')
+      .andWhere(where || '1 = 1', parameters)
       .groupBy(`t.${column}`)
       .getRawMany();
     return new Map(rows.map((r) => [Number(r.id), Number(r.n)]));
@@ -57,7 +63,9 @@ export function suppliersRepository(manager: EntityManager) {
 
   async function withCounts(rows: SupplierRow[]): Promise<SupplierWithCounts[]> {
     const ids = rows.map((r) => r.id);
-    const itemCounts = await countBy('catalog_items', 'supplier_id', ids, 't.discontinued = 0');
+    const itemCounts = await countBy('catalog_items', 'supplier_id', ids, 't.discontinued = :no', {
+      no: false,
+    });
     const orderCounts = await countBy('orders', 'supplier_id', ids);
     return rows.map((row) => ({
       ...row,
