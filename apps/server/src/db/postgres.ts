@@ -93,6 +93,7 @@ export function lockForWrite(manager: EntityManager): { lock?: { mode: 'pessimis
 export const advisoryLocks = {
   migrations: 7_469_631_001,
   labelNumbers: 7_469_631_002,
+  adminCount: 7_469_631_003,
 } as const;
 
 /**

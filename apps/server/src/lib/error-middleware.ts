@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import type { ErrorBody } from '@lotwise/shared';
 import { z } from 'zod';
+import { concurrentWriteConflict } from '../db/sql';
 import { AppError } from './app-error';
 import type { Logger } from './logger';
 import { zodFieldErrors } from './validate';
@@ -26,7 +27,7 @@ function toAppError(error: unknown): AppError | null {
   if (parserError?.type === 'encoding.unsupported' || parserError?.type === 'charset.unsupported') {
     return new AppError('unsupported_media_type', 'Send the request body as UTF-8 JSON.');
   }
-  return null;
+  return concurrentWriteConflict(error);
 }
 
 /** Maps every error to `{ error: { code, message, fields?, warnings? } }`; never sends a stack trace. */

@@ -62,9 +62,11 @@ export function authService(store: Store, config: AuthConfig) {
       const passwordHash = await hashPassword(body.newPassword, config.bcryptCost);
       return store.transaction(async (repos) => {
         const now = nowIso();
+        // read again, locked: a change made meanwhile (a role, a reset) has raised it already
+        const current = (await repos.users.findById(userId)) ?? row;
         const updated = await repos.users.update(userId, {
           passwordHash,
-          sessionVersion: row.sessionVersion + 1,
+          sessionVersion: current.sessionVersion + 1,
           updatedAt: now,
         });
         await repos.audit.insert({

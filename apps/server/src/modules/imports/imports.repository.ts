@@ -1,6 +1,6 @@
 import type { ImportListQuery, ImportStatus } from '@lotwise/shared';
 import type { EntityManager } from 'typeorm';
-import { undoneOnError } from '../../db/postgres';
+import { lockForWrite, undoneOnError } from '../../db/postgres';
 import { ChemicalEntity } from '../chemicals/chemical.entity';
 import { ContainerEntity } from '../containers/container.entity';
 import type { ContainerValues, LedgerEntryValues } from '../containers/containers.repository';
@@ -97,8 +97,13 @@ export function importsRepository(manager: EntityManager) {
     async update(id: number, changes: Partial<ImportValues>): Promise<void> {
       await repo.update({ id }, changes);
     },
+    /** In a transaction on PostgreSQL the import stays locked until it ends (one commit at a time). */
     async findHead(id: number): Promise<ImportHead | null> {
-      const row = await repo.findOne({ where: { id }, select: headColumns });
+      const row = await repo.findOne({
+        where: { id },
+        select: headColumns,
+        ...lockForWrite(manager),
+      });
       return row ? ((await withNames([row]))[0] ?? null) : null;
     },
     async findRows(id: number): Promise<string | null> {

@@ -1,5 +1,6 @@
 import { parseSort, type OrderListQuery, type OrderStatus } from '@lotwise/shared';
 import { In, type EntityManager } from 'typeorm';
+import { lockForWrite } from '../../db/postgres';
 import { containsPattern } from '../../db/sql';
 import { ChemicalEntity, type ChemicalRow } from '../chemicals/chemical.entity';
 import { CatalogItemEntity, type CatalogItemRow } from '../suppliers/catalog-item.entity';
@@ -117,8 +118,12 @@ export function ordersRepository(manager: EntityManager) {
       }
       return claimed;
     },
+    /**
+     * In a transaction on PostgreSQL the order stays locked until it ends, so claims, closing
+     * claims, payments and status changes of one order take turns across app instances.
+     */
     async findOrder(id: number): Promise<OrderRow | null> {
-      return orders.findOneBy({ id });
+      return orders.findOne({ where: { id }, ...lockForWrite(manager) });
     },
     async linesOf(orderId: number): Promise<OrderLineRow[]> {
       return lines.find({ where: { orderId }, order: { position: 'ASC', id: 'ASC' } });
@@ -130,8 +135,9 @@ export function ordersRepository(manager: EntityManager) {
       return shares.findOneBy({ id });
     },
     /** The order with its lines and shares, priced; null for an unknown id. */
+    /** Locked like findOrder; its lines and shares are read after the lock, so they are current. */
     async load(id: number): Promise<OrderRecord | null> {
-      const order = await orders.findOneBy({ id });
+      const order = await orders.findOne({ where: { id }, ...lockForWrite(manager) });
       if (!order) return null;
       const orderLines = await lines.find({
         where: { orderId: id },

@@ -6,6 +6,7 @@ import {
   type StockUnit,
 } from '@lotwise/shared';
 import type { EntityManager } from 'typeorm';
+import { lockForWrite } from '../../db/postgres';
 import { fromMicro } from '../../db/quantities';
 import type { LapsingReservation } from '../alerts/rules';
 import { PlanEntity, type PlanRow } from './plan.entity';
@@ -104,8 +105,9 @@ export function plansRepository(manager: EntityManager) {
   });
 
   return {
+    /** In a transaction on PostgreSQL the plan stays locked until it ends (reserve, cancel, record). */
     async findRow(id: number): Promise<PlanRow | null> {
-      return repo.findOneBy({ id });
+      return repo.findOne({ where: { id }, ...lockForWrite(manager) });
     },
     async insert(values: PlanValues): Promise<number> {
       const result = await repo.insert(values);

@@ -1,5 +1,6 @@
 import { parseSort, type UserListQuery } from '@lotwise/shared';
 import { type EntityManager, In } from 'typeorm';
+import { advisoryLocks, lockForWrite, takeTurn } from '../../db/postgres';
 import { containsPattern } from '../../db/sql';
 import { userWritten } from './user-cache';
 import { UserEntity, type UserRow } from './user.entity';
@@ -24,8 +25,9 @@ export function usersRepository(manager: EntityManager) {
   const plain = (row: UserRow | null): UserRow | null => (row ? { ...row } : null);
 
   return {
+    /** In a transaction on PostgreSQL the user stays locked until it ends (role, session version). */
     async findById(id: number) {
-      return plain(await repo.findOneBy({ id }));
+      return plain(await repo.findOne({ where: { id }, ...lockForWrite(manager) }));
     },
     async findByIds(ids: number[]): Promise<UserRow[]> {
       if (ids.length === 0) return [];
@@ -53,7 +55,12 @@ export function usersRepository(manager: EntityManager) {
       await repo.increment({ id }, 'sessionVersion', 1);
       userWritten(manager, id);
     },
-    countActiveAdmins() {
+    /**
+     * On PostgreSQL in a transaction, changes that count the admins take turns, so two admins
+     * demoting each other at once cannot leave the lab with none.
+     */
+    async countActiveAdmins() {
+      await takeTurn(manager, advisoryLocks.adminCount);
       return repo.countBy({ role: 'admin', active: true });
     },
     count() {

@@ -1,0 +1,85 @@
+import { ledgerCheckResultSchema } from '@lotwise/shared';
+import type { Express } from 'express';
+import request from 'supertest';
+import type { DataSource } from 'typeorm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createApp, ledgerNotesOf } from '../app';
+import { signedIn, stockFactory } from '../test/factories';
+import { onPostgres, testContext } from '../test/harness';
+import { createDataSource } from './data-source';
+
+/**
+ * Two app instances on one PostgreSQL database: each with its own DataSource (its own pool),
+ * as two processes behind one proxy would be. SQLite has one writer per file and no second
+ * instance, so this only runs on PostgreSQL (`npm run test:postgres`).
+ */
+describe.skipIf(!onPostgres)('two app instances on one PostgreSQL database', () => {
+  let second: DataSource;
+  let instances: Express[];
+  let manager = '';
+  let member = '';
+  let admin = '';
+  const make = stockFactory(() => manager);
+
+  beforeAll(async () => {
+    const { config, app } = testContext();
+    second = createDataSource(config.databaseUrl!);
+    await second.initialize();
+    instances = [app, createApp({ dataSource: second, config })];
+    manager = (await signedIn('manager')).cookie;
+    member = (await signedIn('member')).cookie;
+    admin = (await signedIn('admin')).cookie;
+  });
+
+  afterAll(async () => {
+    if (instances?.[1]) await ledgerNotesOf(instances[1]).stop();
+    if (second?.isInitialized) await second.destroy();
+  });
+
+  it('when 60 draws arrive at both instances at once and together would overdraw, then the balance never goes below zero and accepted × amount is what was drawn', async () => {
+    const chemical = await make.chemical({ physicalState: 'solid', stockUnit: 'g' });
+    const lot = await make.lot(chemical.id);
+    const shelf = await make.location();
+    const container = await make.container(lot.id, shelf.id, { quantity: 100, unit: 'g' });
+    const amount = 3; // 60 × 3 g = 180 g > 100 g
+    const responses = await Promise.all(
+      Array.from({ length: 60 }, (_, i) =>
+        request(instances[i % 2]!)
+          .post(`/api/containers/${container.id}/draws`)
+          .set('Cookie', member)
+          .send({ amount, unit: 'g' }),
+      ),
+    );
+    const statuses = responses.map((r) => r.status);
+    const accepted = statuses.filter((s) => s === 201).length;
+    expect(statuses.filter((s) => s !== 201 && s !== 409)).toEqual([]);
+    expect(accepted).toBe(33); // floor(100 / 3)
+    const detail = await request(instances[1]!)
+      .get(`/api/containers/${container.id}`)
+      .set('Cookie', member)
+      .expect(200);
+    expect(detail.body.quantity).toBeCloseTo(100 - accepted * amount, 6);
+    const check = await request(instances[0]!)
+      .get('/api/maintenance/ledger-check')
+      .set('Cookie', admin)
+      .expect(200);
+    expect(ledgerCheckResultSchema.parse(check.body).ok).toBe(true);
+  });
+
+  it('when both instances receive containers at once, then every container gets its own label code', async () => {
+    const chemical = await make.chemical({ physicalState: 'solid', stockUnit: 'g' });
+    const lot = await make.lot(chemical.id);
+    const shelf = await make.location();
+    const responses = await Promise.all(
+      Array.from({ length: 20 }, (_, i) =>
+        request(instances[i % 2]!)
+          .post('/api/containers')
+          .set('Cookie', manager)
+          .send({ lotId: lot.id, locationId: shelf.id, quantity: 10, unit: 'g' }),
+      ),
+    );
+    expect(responses.map((r) => r.status)).toEqual(Array.from({ length: 20 }, () => 201));
+    const codes = responses.map((r) => r.body.container.labelCode as string);
+    expect(new Set(codes).size).toBe(20);
+  });
+});
