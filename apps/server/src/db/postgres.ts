@@ -94,6 +94,7 @@ export const advisoryLocks = {
   migrations: 7_469_631_001,
   labelNumbers: 7_469_631_002,
   adminCount: 7_469_631_003,
+  alertRules: 7_469_631_004,
 } as const;
 
 /**

@@ -7,6 +7,7 @@ import {
   type StockUnit,
 } from '@lotwise/shared';
 import { In, type EntityManager, type SelectQueryBuilder } from 'typeorm';
+import { advisoryLocks, takeTurn } from '../../db/postgres';
 import { fromMicro } from '../../db/quantities';
 import {
   atOrBelowReorderPointCondition,
@@ -103,6 +104,14 @@ export function alertsRepository(manager: EntityManager) {
 
   return {
     // ---- outbox ----
+    /**
+     * On PostgreSQL, waits until no other transaction is evaluating the alert rules and holds
+     * the turn until this one ends, so two app instances never queue the same e-mail twice
+     * (each checks `mailedSince` after the other committed). Nothing on SQLite.
+     */
+    async takeRulesTurn(): Promise<void> {
+      await takeTurn(manager, advisoryLocks.alertRules);
+    },
     async insertMessage(values: OutboxValues): Promise<number> {
       const result = await outbox.insert(values);
       return Number(result.identifiers[0]?.id);

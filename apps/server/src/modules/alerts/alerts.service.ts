@@ -261,6 +261,8 @@ export function alertsService(store: Store, config: Config, options: AlertsServi
     repos: Repositories,
     { now = new Date(), chemicalIds }: { now?: Date; chemicalIds?: number[] } = {},
   ): Promise<AlertEvaluation> {
+    // one evaluation at a time across app instances: the next sees what this one queued
+    await repos.alerts.takeRulesTurn();
     const conditions = await collect(repos, now, chemicalIds);
     const result = { conditions: conditions.length, queued: 0, duplicates: 0 };
     if (conditions.length === 0) return result;
