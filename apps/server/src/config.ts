@@ -448,7 +448,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     const issue = parsed.error.issues[0];
     const key = String(issue?.path[0] ?? 'environment');
     throw new ConfigError(
-      `Invalid configuration: ${key} ${issue?.message ?? 'is not valid'} (got ${JSON.stringify(env[key])})`,
+      `Invalid configuration: ${key} ${issue?.message ?? 'is not valid'} (got ${key === 'DATABASE_URL' ? 'a value not shown here, as it may hold a password' : JSON.stringify(env[key])})`,
     );
   }
   const values = parsed.data;
