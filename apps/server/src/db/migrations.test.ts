@@ -3,9 +3,20 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { createDataSource, migrations } from './data-source';
-import { onPostgres, testContext } from '../test/harness';
+import {
+  createTestPostgresDatabase,
+  dropTestPostgresDatabase,
+  onPostgres,
+  testContext,
+} from '../test/harness';
 
 async function tables(dataSource: ReturnType<typeof createDataSource>): Promise<string[]> {
+  if (dataSource.options.type === 'postgres') {
+    const names: { name: string }[] = await dataSource.query(
+      "SELECT table_name AS name FROM information_schema.tables WHERE table_schema = current_schema() AND table_type = 'BASE TABLE' ORDER BY name",
+    );
+    return names.map((row) => row.name);
+  }
   const rows: { name: string }[] = await dataSource.query(
     "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name",
   );
@@ -63,6 +74,30 @@ describe('migrations', () => {
       await dataSource.destroy();
     }
   });
+
+  it.runIf(onPostgres)(
+    'when run on an empty PostgreSQL database, then every table exists, undoing every migration leaves none, and they run again',
+    async () => {
+      const database = await createTestPostgresDatabase();
+      const dataSource = createDataSource(database.url);
+      await dataSource.initialize();
+      try {
+        await dataSource.runMigrations({ transaction: 'all' });
+        expect(await tables(dataSource)).toHaveLength(28);
+        expect(await tables(dataSource)).toContain('ledger_entries');
+        for (let i = 0; i < migrations.length; i++)
+          await dataSource.undoLastMigration({ transaction: 'all' });
+        expect(await tables(dataSource)).toEqual(['migrations']);
+        await dataSource.runMigrations({ transaction: 'all' });
+        expect(await dataSource.showMigrations()).toBe(false);
+        const pending = await dataSource.driver.createSchemaBuilder().log();
+        expect(pending.upQueries.map((q) => q.query)).toEqual([]);
+      } finally {
+        await dataSource.destroy();
+        await dropTestPostgresDatabase(database.name);
+      }
+    },
+  );
 
   it.skipIf(onPostgres)(
     'when the database is open, then it runs in WAL mode with foreign keys enforced',
