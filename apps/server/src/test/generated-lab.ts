@@ -48,6 +48,56 @@ interface RawDatabase {
 }
 
 /**
+ * The same lab on either database: on SQLite through better-sqlite3 (generateLab); on
+ * PostgreSQL the statements are recorded first (each table's ids count from 1, as in a
+ * migrated, empty database) and then sent in one transaction, consecutive rows of one
+ * statement as multi-row INSERTs.
+ */
+export async function generateLabIn(
+  dataSource: DataSource,
+  size: LabSize = smallLab,
+): Promise<GeneratedLab> {
+  if (dataSource.options.type !== 'postgres') return generateLab(dataSource, size);
+  const recorded: { sql: string; values: unknown[] }[] = [];
+  const lastIds = new Map<string, number>();
+  const recorder: RawDatabase = {
+    prepare: (sql) => ({
+      run: (...values) => {
+        recorded.push({ sql, values });
+        const table = /^INSERT INTO (\w+)/.exec(sql)?.[1];
+        if (!table) return { lastInsertRowid: 0 };
+        const id = (lastIds.get(table) ?? 0) + 1;
+        lastIds.set(table, id);
+        return { lastInsertRowid: id };
+      },
+    }),
+    transaction: (work) => work,
+  };
+  const lab = generateOn(recorder, size);
+  await dataSource.transaction(async (manager) => {
+    for (let start = 0; start < recorded.length;) {
+      const { sql } = recorded[start]!;
+      let end = start + 1;
+      const insert = /^(INSERT INTO .*? VALUES )(\(.*\))$/.exec(sql);
+      if (insert)
+        while (end < recorded.length && end - start < 500 && recorded[end]!.sql === sql) end++;
+      const rows = recorded.slice(start, end);
+      let n = 0;
+      const numbered = (text: string) => text.replace(/\?/g, () => `$${++n}`);
+      const text = insert
+        ? insert[1] + rows.map(() => numbered(insert[2]!)).join(', ')
+        : numbered(sql);
+      await manager.query(
+        text,
+        rows.flatMap((row) => row.values),
+      );
+      start = end;
+    }
+  });
+  return lab;
+}
+
+/**
  * Fills a migrated, empty database with an invented lab of `size` in one transaction, straight
  * through better-sqlite3 (no services: far faster, for tests of query plans and benchmarks).
  * Deterministic: the same size gives the same rows. Names are made up ("Reagent 0042").
@@ -55,6 +105,10 @@ interface RawDatabase {
 export function generateLab(dataSource: DataSource, size: LabSize = smallLab): GeneratedLab {
   const db = (dataSource.driver as unknown as { databaseConnection: RawDatabase })
     .databaseConnection;
+  return generateOn(db, size);
+}
+
+function generateOn(db: RawDatabase, size: LabSize): GeneratedLab {
   let seed = 20260417;
   const random = () => {
     seed = (seed * 1103515245 + 12345) % 2147483648;
@@ -77,11 +131,11 @@ export function generateLab(dataSource: DataSource, size: LabSize = smallLab): G
 
   db.transaction(() => {
     const user = db.prepare(
-      'INSERT INTO users (email, display_name, password_hash, role, active, created_at, updated_at, session_version) VALUES (?, ?, NULL, ?, 1, ?, ?, 0)',
+      'INSERT INTO users (email, display_name, password_hash, role, active, created_at, updated_at, session_version) VALUES (?, ?, NULL, ?, ?, ?, ?, 0)',
     );
     for (let i = 1; i <= size.users; i++) {
       const role = i === 1 ? 'admin' : pick(['manager', 'member', 'member', 'viewer']);
-      const id = user.run(`lab.person.${i}@example.test`, `Lab person ${i}`, role, now, now);
+      const id = user.run(`lab.person.${i}@example.test`, `Lab person ${i}`, role, 1, now, now);
       lab.userIds.push(Number(id.lastInsertRowid));
     }
 
@@ -124,7 +178,7 @@ export function generateLab(dataSource: DataSource, size: LabSize = smallLab): G
     const shelves = lab.locationIds.shelves;
 
     const chemical = db.prepare(
-      "INSERT INTO chemicals (name, synonyms, cas_number, formula, molar_mass, physical_state, density, default_purity_percent, ghs_pictograms, hazard_statements, storage_group, stock_unit, reorder_point, reorder_quantity, restricted, notes, search_text, created_at, updated_at) VALUES (?, '[]', ?, ?, ?, ?, ?, 99, ?, '[]', ?, ?, ?, ?, 0, '', ?, ?, ?)",
+      "INSERT INTO chemicals (name, synonyms, cas_number, formula, molar_mass, physical_state, density, default_purity_percent, ghs_pictograms, hazard_statements, storage_group, stock_unit, reorder_point, reorder_quantity, restricted, notes, search_text, created_at, updated_at) VALUES (?, '[]', ?, ?, ?, ?, ?, 99, ?, '[]', ?, ?, ?, ?, ?, '', ?, ?, ?)",
     );
     const lot = db.prepare(
       "INSERT INTO lots (chemical_id, source, supplier_name, received_on, expires_on, notes, created_at, updated_at) VALUES (?, 'purchased', 'Northgate Lab Supply (fictional)', ?, ?, '', ?, ?)",
@@ -153,6 +207,7 @@ export function generateLab(dataSource: DataSource, size: LabSize = smallLab): G
           unit,
           reorderPoint,
           reorderPoint === null ? null : reorderPoint * 2,
+          0,
           `${name}\n${cas}\nnacl`.toLowerCase(),
           stamp(-Math.floor(random() * 700)),
           now,
@@ -264,10 +319,10 @@ export function generateLab(dataSource: DataSource, size: LabSize = smallLab): G
       );
     }
     const supplier = db.prepare(
-      "INSERT INTO suppliers (name, contact_name, email, phone, website, ordering_notes, minimum_order_minor, shipping_fee_minor, hazardous_fee_minor, archived, created_at, updated_at) VALUES (?, '', 'orders@supplier.example.test', '', '', '', 0, 900, 0, 0, ?, ?)",
+      "INSERT INTO suppliers (name, contact_name, email, phone, website, ordering_notes, minimum_order_minor, shipping_fee_minor, hazardous_fee_minor, archived, created_at, updated_at) VALUES (?, '', 'orders@supplier.example.test', '', '', '', 0, 900, 0, ?, ?, ?)",
     );
     const supplierIds = [1, 2, 3].map((n) =>
-      Number(supplier.run(`Generated supplier ${n} (fictional)`, now, now).lastInsertRowid),
+      Number(supplier.run(`Generated supplier ${n} (fictional)`, 0, now, now).lastInsertRowid),
     );
     const order = db.prepare(
       "INSERT INTO orders (supplier_id, title, status, fee_rule, shipping_fee_minor, hazardous_fee_minor, currency, claim_deadline, supplier_reference, notes, coordinator_id, cancel_reason, created_at, updated_at) VALUES (?, ?, ?, 'even', 900, 0, 'EUR', ?, '', '', ?, '', ?, ?)",

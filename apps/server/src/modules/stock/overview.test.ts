@@ -1,8 +1,8 @@
 import { stockListQuerySchema, type StockListQuery } from '@lotwise/shared';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { fromMicro, microPerUnit } from '../../db/quantities';
-import { generateLab, smallLab, type GeneratedLab } from '../../test/generated-lab';
-import { onPostgres, testContext } from '../../test/harness';
+import { generateLabIn, smallLab, type GeneratedLab } from '../../test/generated-lab';
+import { testContext } from '../../test/harness';
 import type { StockRow } from './stock.repository';
 
 interface Chemical {
@@ -25,9 +25,8 @@ let chemicals: Chemical[];
 let containers: Container[];
 
 beforeAll(async () => {
-  if (onPostgres) return;
   const { dataSource } = testContext();
-  lab = generateLab(dataSource, {
+  lab = await generateLabIn(dataSource, {
     ...smallLab,
     chemicals: 700,
     plans: 0,
@@ -124,8 +123,7 @@ function everythingThenPage(
   return { rows: rows.slice(start, start + query.pageSize).map((r) => r.row), total: rows.length };
 }
 
-// The generated lab is written through better-sqlite3's synchronous API (SQLite only).
-describe.skipIf(onPostgres)('stock overview, page first', () => {
+describe('stock overview, page first', () => {
   const cases: [string, Record<string, string>, 'cabinet' | 'room' | null, number | null][] = [
     ['by name', {}, null, null],
     ['by name, a later page', { page: '5' }, null, null],
