@@ -44,9 +44,10 @@ export async function seedDemoOrders(dataSource: DataSource, config: Config, log
       if (!row) throw new Error(`The demo account ${email} is missing`);
       return presentUser(row);
     };
-    const [technician, one, two, three] = await Promise.all(
-      [1, 2, 3, 4].map((index) => person(demoAccounts[index]!.email)),
-    );
+    const technician = await person(demoAccounts[1]!.email);
+    const one = await person(demoAccounts[2]!.email);
+    const two = await person(demoAccounts[3]!.email);
+    const three = await person(demoAccounts[4]!.email);
     const items = dataSource.getRepository(CatalogItemEntity);
     const item = async (sku: string) => {
       const found = await items.findOneBy({ sku });
@@ -134,14 +135,13 @@ export async function seedDemoOrders(dataSource: DataSource, config: Config, log
             expiresOn: addDays(today, 2 * 365),
           },
         ],
-        shares: await Promise.all(
-          order.shares
-            .filter((share) => share.lineId === hydroxideLine!.id)
-            .map(async (share) => ({
-              shareId: share.id,
-              locationId: await shelfOf(hydroxide.chemicalId),
-            })),
-        ),
+        shares: await (async () => {
+          const portions = [];
+          for (const share of order.shares.filter((s) => s.lineId === hydroxideLine!.id)) {
+            portions.push({ shareId: share.id, locationId: await shelfOf(hydroxide.chemicalId) });
+          }
+          return portions;
+        })(),
         confirm: false,
       },
       technician!,

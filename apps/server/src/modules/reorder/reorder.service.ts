@@ -66,12 +66,11 @@ export function reorderService(store: Store, config: Pick<Config, 'reorder' | 'c
   ): Promise<ReorderSuggestion[]> {
     const ids = chemicals.map((chemical) => chemical.id);
     const windowStart = new Date(now.getTime() - windowWeeks * 7 * DAY_MS);
-    const [draws, firstEntries, offers, pending] = await Promise.all([
-      repos.reorder.drawsSince(ids, windowStart.toISOString()),
-      repos.reorder.firstEntryAt(ids),
-      repos.reorder.offers(ids),
-      repos.reorder.pendingLines(ids),
-    ]);
+    // One after another: in a transaction they share one connection (pg queues, and warns).
+    const draws = await repos.reorder.drawsSince(ids, windowStart.toISOString());
+    const firstEntries = await repos.reorder.firstEntryAt(ids);
+    const offers = await repos.reorder.offers(ids);
+    const pending = await repos.reorder.pendingLines(ids);
     return chemicals.map((chemical) => {
       // A chemical newer than the window has its rate counted from its first entry.
       const first = firstEntries.get(chemical.id);
