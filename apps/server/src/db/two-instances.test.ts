@@ -4,8 +4,9 @@ import request from 'supertest';
 import type { DataSource } from 'typeorm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp, ledgerNotesOf } from '../app';
-import { signedIn, stockFactory } from '../test/factories';
+import { signedIn } from '../test/factories';
 import { onPostgres, testContext } from '../test/harness';
+import { preparationFactory } from '../test/preparations';
 import { createDataSource } from './data-source';
 
 /**
@@ -19,7 +20,7 @@ describe.skipIf(!onPostgres)('two app instances on one PostgreSQL database', () 
   let manager = '';
   let member = '';
   let admin = '';
-  const make = stockFactory(() => manager);
+  const make = preparationFactory(() => manager);
 
   beforeAll(async () => {
     const { config, app } = testContext();
@@ -37,7 +38,7 @@ describe.skipIf(!onPostgres)('two app instances on one PostgreSQL database', () 
   });
 
   it('when 60 draws arrive at both instances at once and together would overdraw, then the balance never goes below zero and accepted × amount is what was drawn', async () => {
-    const chemical = await make.chemical({ physicalState: 'solid', stockUnit: 'g' });
+    const chemical = await make.chemical('Sodium chloride', 'NaCl');
     const lot = await make.lot(chemical.id);
     const shelf = await make.location();
     const container = await make.container(lot.id, shelf.id, { quantity: 100, unit: 'g' });
@@ -67,7 +68,7 @@ describe.skipIf(!onPostgres)('two app instances on one PostgreSQL database', () 
   });
 
   it('when both instances receive containers at once, then every container gets its own label code', async () => {
-    const chemical = await make.chemical({ physicalState: 'solid', stockUnit: 'g' });
+    const chemical = await make.chemical('Sodium chloride', 'NaCl');
     const lot = await make.lot(chemical.id);
     const shelf = await make.location();
     const responses = await Promise.all(
@@ -81,5 +82,37 @@ describe.skipIf(!onPostgres)('two app instances on one PostgreSQL database', () 
     expect(responses.map((r) => r.status)).toEqual(Array.from({ length: 20 }, () => 201));
     const codes = responses.map((r) => r.body.container.labelCode as string);
     expect(new Set(codes).size).toBe(20);
+  });
+
+  it('when one run is recorded through both instances at once, then it is recorded once and its stock drawn once', async () => {
+    const made = await make.aspirin();
+    const shelf = await make.location();
+    const saLot = await make.lot(made.sa.id, { purityPercent: 100 });
+    const sa = await make.container(saLot.id, shelf.id, { quantity: 100, unit: 'g' });
+    const ac2oLot = await make.lot(made.ac2o.id);
+    const ac2o = await make.container(ac2oLot.id, shelf.id, { quantity: 10, unit: 'mL' });
+    const opened = await request(instances[0]!)
+      .post('/api/runs')
+      .set('Cookie', member)
+      .send({ procedureId: made.procedure.id })
+      .expect(201);
+    const record = {
+      lines: [
+        { lineIndex: 0, draws: [{ containerId: sa.id, amount: 2, unit: 'g' }] },
+        { lineIndex: 1, draws: [{ containerId: ac2o.id, amount: 5, unit: 'mL' }] },
+      ],
+      products: [{ portions: [{ label: 'crop', quantity: 2.1, unit: 'g', locationId: shelf.id }] }],
+    };
+    const responses = await Promise.all(
+      instances.map((app) =>
+        request(app).post(`/api/runs/${opened.body.id}/record`).set('Cookie', member).send(record),
+      ),
+    );
+    expect(responses.map((r) => r.status).sort()).toEqual([200, 409]);
+    const after = await request(instances[1]!)
+      .get(`/api/containers/${ac2o.id}`)
+      .set('Cookie', member)
+      .expect(200);
+    expect(after.body.quantity).toBeCloseTo(5, 6); // 10 mL - 5 mL, once
   });
 });

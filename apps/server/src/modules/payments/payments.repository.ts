@@ -1,4 +1,5 @@
 import type { EntityManager } from 'typeorm';
+import { lockForWrite } from '../../db/postgres';
 import { PaymentEventEntity, type PaymentEventRow } from './payment-event.entity';
 import { PaymentEntity, type PaymentRow } from './payment.entity';
 
@@ -18,11 +19,17 @@ export function paymentsRepository(manager: EntityManager) {
     async update(id: number, changes: Partial<PaymentValues>): Promise<void> {
       await payments.update({ id }, changes);
     },
+    /** In a transaction on PostgreSQL the payment stays locked until it ends (status moves once). */
     async findById(id: number): Promise<PaymentRow | null> {
-      return plain(await payments.findOneBy({ id }));
+      return plain(await payments.findOne({ where: { id }, ...lockForWrite(manager) }));
     },
     async findBySession(sessionId: string): Promise<PaymentRow | null> {
-      return plain(await payments.findOneBy({ providerSessionId: sessionId, kind: 'checkout' }));
+      return plain(
+        await payments.findOne({
+          where: { providerSessionId: sessionId, kind: 'checkout' },
+          ...lockForWrite(manager),
+        }),
+      );
     },
     /** Every row of one share, oldest first. */
     async ofShare(shareId: number): Promise<PaymentRow[]> {

@@ -1,5 +1,6 @@
 import type { MemberRequest, RequestListQuery, RequestStatus, StockUnit } from '@lotwise/shared';
 import type { EntityManager } from 'typeorm';
+import { lockForWrite } from '../../db/postgres';
 import { fromMicro } from '../../db/quantities';
 import { PurchaseRequestEntity, type PurchaseRequestRow } from './purchase-request.entity';
 
@@ -79,8 +80,9 @@ export function requestsRepository(manager: EntityManager) {
     async update(id: number, changes: Partial<RequestValues>): Promise<void> {
       await requests.update({ id }, changes);
     },
+    /** In a transaction on PostgreSQL the request stays locked until it ends (folded once). */
     async findRow(id: number): Promise<PurchaseRequestRow | null> {
-      return requests.findOneBy({ id });
+      return requests.findOne({ where: { id }, ...lockForWrite(manager) });
     },
     async findView(id: number): Promise<MemberRequest | null> {
       const raw = await view().where('r.id = :id', { id }).getRawOne<Record<string, unknown>>();

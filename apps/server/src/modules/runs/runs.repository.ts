@@ -1,5 +1,6 @@
 import { parseSort, type RunListQuery } from '@lotwise/shared';
 import type { EntityManager } from 'typeorm';
+import { lockForWrite } from '../../db/postgres';
 import { RunInputEntity, type RunInputRow } from './run-input.entity';
 import { RunProductEntity, type RunProductRow } from './run-product.entity';
 import { RunEntity, type RunRow } from './run.entity';
@@ -23,8 +24,9 @@ export function runsRepository(manager: EntityManager) {
   const inputs = manager.getRepository(RunInputEntity);
   const products = manager.getRepository(RunProductEntity);
   return {
+    /** In a transaction on PostgreSQL the run stays locked until it ends (recorded once). */
     async findRow(id: number): Promise<RunRow | null> {
-      return repo.findOneBy({ id });
+      return repo.findOne({ where: { id }, ...lockForWrite(manager) });
     },
     async rowsByIds(ids: number[]): Promise<RunRow[]> {
       if (ids.length === 0) return [];
