@@ -4,6 +4,11 @@ import request from 'supertest';
 import type { DataSource } from 'typeorm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp, ledgerNotesOf } from '../app';
+import { alertsService } from '../modules/alerts/alerts.service';
+import { createMailTransport } from '../modules/alerts/mail-transport';
+import { outboxWorker } from '../modules/alerts/outbox-worker';
+import { startSmtpSink } from '../test/smtp-sink';
+import { openStore } from './repositories';
 import { signedIn } from '../test/factories';
 import { onPostgres, testContext } from '../test/harness';
 import { preparationFactory } from '../test/preparations';
@@ -114,5 +119,47 @@ describe.skipIf(!onPostgres)('two app instances on one PostgreSQL database', () 
       .set('Cookie', member)
       .expect(200);
     expect(after.body.quantity).toBeCloseTo(5, 6); // 10 mL - 5 mL, once
+  });
+
+  it('when the outbox senders of both instances run at once, then every message is delivered exactly once', async () => {
+    const { store, config, dataSource } = testContext();
+    const sink = await startSmtpSink();
+    const [{ id: adminId }] = await dataSource.query(
+      "SELECT id FROM users WHERE role = 'admin' ORDER BY id LIMIT 1",
+    );
+    const subjects = Array.from({ length: 30 }, (_, i) => `Shared order #${100 + i} is funded`);
+    const alerts = alertsService(store, config);
+    const at = new Date('2026-03-09T09:00:00.000Z');
+    await store.transaction(async (repos) => {
+      for (const subject of subjects) {
+        await alerts.notify(
+          repos,
+          {
+            kind: 'order-opened',
+            recipients: [adminId],
+            subject,
+            text: 'Every share is paid.',
+            link: '/orders/100',
+            dedupKey: `two-instances:${subject}`,
+          },
+          at,
+        );
+      }
+    });
+    const senders = [store, openStore(second)].map((onInstance) => {
+      const transport = createMailTransport({ kind: 'url', url: `smtp://127.0.0.1:${sink.port}` })!;
+      const worker = outboxWorker({ store: onInstance, transport, config, clock: () => at });
+      return { worker, transport };
+    });
+    try {
+      for (let round = 0; round < 4; round++) {
+        await Promise.all(senders.map(({ worker }) => worker.runOnce()));
+      }
+      const delivered = sink.messages.map((m) => m.subject).filter((s) => subjects.includes(s!));
+      expect(delivered.sort()).toEqual([...subjects].sort());
+    } finally {
+      for (const { transport } of senders) transport.close();
+      await sink.close();
+    }
   });
 });

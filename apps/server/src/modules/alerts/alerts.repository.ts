@@ -7,7 +7,7 @@ import {
   type StockUnit,
 } from '@lotwise/shared';
 import { In, type EntityManager, type SelectQueryBuilder } from 'typeorm';
-import { advisoryLocks, takeTurn } from '../../db/postgres';
+import { advisoryLocks, onPostgres, takeTurn } from '../../db/postgres';
 import { fromMicro } from '../../db/quantities';
 import {
   atOrBelowReorderPointCondition,
@@ -145,7 +145,8 @@ export function alertsRepository(manager: EntityManager) {
      * Claims up to `limit` messages that are due for the sender `claimId`, until
      * `leaseUntil`: queued and due, or `sending` under a lease that ran out (its sender
      * stopped). The UPDATE repeats the due condition, so a message another sender claimed in
-     * the meantime is not taken twice. Answers the claimed rows, oldest first.
+     * the meantime is not taken twice (on PostgreSQL the rows are chosen `FOR UPDATE SKIP
+     * LOCKED`, in the same statement). Answers the claimed rows, oldest first.
      */
     async claimDue(
       claimId: string,
@@ -155,21 +156,35 @@ export function alertsRepository(manager: EntityManager) {
     ): Promise<OutboxRow[]> {
       const due =
         "((status = 'queued' AND next_attempt_at <= :now) OR (status = 'sending' AND (lease_until IS NULL OR lease_until <= :now)))";
-      const candidates: { id: number }[] = await outbox
-        .createQueryBuilder('o')
-        .select('o.id', 'id')
-        .where(due.replace(/\b(status|next_attempt_at|lease_until)\b/g, 'o.$1'), { now })
-        .orderBy('o.id', 'ASC')
-        .limit(limit)
-        .getRawMany();
-      if (candidates.length === 0) return [];
-      await outbox
-        .createQueryBuilder()
-        .update()
-        .set({ status: 'sending', claimedBy: claimId, leaseUntil, updatedAt: now })
-        .where('id IN (:...ids)', { ids: candidates.map((c) => Number(c.id)) })
-        .andWhere(due, { now })
-        .execute();
+      if (onPostgres(manager.connection)) {
+        // One statement: rows another sender is claiming right now are skipped, not waited for,
+        // so senders on several app instances share the due messages.
+        await outbox
+          .createQueryBuilder()
+          .update()
+          .set({ status: 'sending', claimedBy: claimId, leaseUntil, updatedAt: now })
+          .where(
+            `id IN (SELECT o.id FROM outbox o WHERE ${due.replace(/\b(status|next_attempt_at|lease_until)\b/g, 'o.$1')} ORDER BY o.id LIMIT :limit FOR UPDATE SKIP LOCKED)`,
+            { now, limit },
+          )
+          .execute();
+      } else {
+        const candidates: { id: number }[] = await outbox
+          .createQueryBuilder('o')
+          .select('o.id', 'id')
+          .where(due.replace(/\b(status|next_attempt_at|lease_until)\b/g, 'o.$1'), { now })
+          .orderBy('o.id', 'ASC')
+          .limit(limit)
+          .getRawMany();
+        if (candidates.length === 0) return [];
+        await outbox
+          .createQueryBuilder()
+          .update()
+          .set({ status: 'sending', claimedBy: claimId, leaseUntil, updatedAt: now })
+          .where('id IN (:...ids)', { ids: candidates.map((c) => Number(c.id)) })
+          .andWhere(due, { now })
+          .execute();
+      }
       const rows = await outbox.find({
         where: { claimedBy: claimId, status: 'sending' },
         order: { id: 'ASC' },
