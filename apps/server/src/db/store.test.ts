@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { EntityManager } from 'typeorm';
+import { signedIn, stockFactory } from '../test/factories';
 import { onPostgres, testContext } from '../test/harness';
 import { createStore, type RepositoryFactories } from './store';
 
@@ -136,6 +137,39 @@ describe('store transactions', () => {
         }
       ).probe;
       expect(await probe.countAndTouch('Touched room')).toBe(1);
+    },
+  );
+
+  it.runIf(onPostgres)(
+    'when two transactions lock two containers in opposite order, then PostgreSQL ends the deadlock and the one it rolled back runs again: both commit',
+    async () => {
+      const { store } = testContext();
+      const manager = (await signedIn('manager')).cookie;
+      const make = stockFactory(() => manager);
+      const chemical = await make.chemical();
+      const lot = await make.lot(chemical.id);
+      const shelf = await make.location();
+      const a = await make.container(lot.id, shelf.id);
+      const b = await make.container(lot.id, shelf.id);
+      let arrived = 0;
+      let release!: () => void;
+      const bothHoldOne = new Promise<void>((resolve) => (release = resolve));
+      const meet = async () => {
+        if (++arrived === 2) release();
+        await bothHoldOne;
+      };
+      let attempts = 0;
+      const lockInOrder = (first: number, second: number) =>
+        store.transaction(async (repos) => {
+          attempts++;
+          await repos.containers.findRow(first);
+          await meet();
+          await repos.containers.findRow(second);
+          return 'committed';
+        });
+      const results = await Promise.all([lockInOrder(a.id, b.id), lockInOrder(b.id, a.id)]);
+      expect(results).toEqual(['committed', 'committed']);
+      expect(attempts).toBe(3);
     },
   );
 });
