@@ -104,7 +104,10 @@ function buildRepositories(factories: RepositoryFactories, manager: EntityManage
  * it; a write waits its turn in the queue; a read runs on the read-only connection when there
  * is one (a file database), else in the queue.
  */
-function routedRepositories(dataSource: DataSource, factories: RepositoryFactories): Repositories {
+function routedRepositories(
+  dataSource: DataSource,
+  factories: RepositoryFactories,
+): Repositories {
   const onWriter = buildRepositories(factories, dataSource.manager);
   if (onPostgres(dataSource)) return joiningRepositories(onWriter);
   let onReader: Promise<Repositories | null> | null = null;
@@ -113,14 +116,12 @@ function routedRepositories(dataSource: DataSource, factories: RepositoryFactori
       connection ? buildRepositories(factories, connection.manager) : null,
     ));
   const routed = {} as Record<string, Record<string, AnyMethod>>;
-  for (const [name, repository] of Object.entries(onWriter) as [
-    string,
-    Record<string, unknown>,
-  ][]) {
+  for (const [name, repository] of Object.entries(onWriter) as [string, Record<string, unknown>][]) {
     routed[name] = {};
     for (const [key, method] of Object.entries(repository)) {
       if (typeof method !== 'function') continue;
-      const onWriterCall = (args: unknown[]) => () => (method as AnyMethod).apply(repository, args);
+      const onWriterCall = (args: unknown[]) => () =>
+        (method as AnyMethod).apply(repository, args);
       routed[name][key] = async (...args: unknown[]) => {
         const open = openTransaction.getStore();
         if (open) {
