@@ -8,6 +8,7 @@ import { createApp, ledgerNotesOf } from '../app';
 import { loadConfig, type Config } from '../config';
 import { createDataSource } from '../db/data-source';
 import { type Store } from '../db/store';
+import { redactedUrl } from '../db/postgres';
 import { openStore } from '../db/repositories';
 import { withPlaceholders } from '../db/sql';
 
@@ -48,7 +49,14 @@ export function testConfig(dir: string, env: NodeJS.ProcessEnv = {}): Config {
 
 async function onAdminDatabase<T>(work: (admin: DataSource) => Promise<T>): Promise<T> {
   const admin = new DataSource({ type: 'postgres', url: testPostgresUrl!, poolSize: 1 });
-  await admin.initialize();
+  try {
+    await admin.initialize();
+  } catch (error) {
+    throw new Error(
+      `The PostgreSQL server of LOTWISE_TEST_POSTGRES_URL (${redactedUrl(testPostgresUrl!)}) cannot be reached: ${String(error)}. Start a throwaway one with scripts/test-postgres.sh start.`,
+      { cause: error },
+    );
+  }
   try {
     return await work(admin);
   } finally {
