@@ -97,6 +97,21 @@ export function importsRepository(manager: EntityManager) {
     async update(id: number, changes: Partial<ImportValues>): Promise<void> {
       await repo.update({ id }, changes);
     },
+    /**
+     * Marks an import failed only if it is still as it was read (`status`, `updatedAt`);
+     * answers false when it moved on meanwhile (its check or commit finished).
+     */
+    async markInterrupted(
+      head: Pick<ImportHead, 'id' | 'status' | 'updatedAt'>,
+      failure: string,
+      now: string,
+    ): Promise<boolean> {
+      const result = await repo.update(
+        { id: head.id, status: head.status, updatedAt: head.updatedAt },
+        { status: 'failed', failure, updatedAt: now },
+      );
+      return (result.affected ?? 0) > 0;
+    },
     /** In a transaction on PostgreSQL the import stays locked until it ends (one commit at a time). */
     async findHead(id: number): Promise<ImportHead | null> {
       const row = await repo.findOne({

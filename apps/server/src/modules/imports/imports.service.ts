@@ -106,8 +106,11 @@ export function importsService(
     if ((head.status === 'validating' || head.status === 'committing') && !running.has(head.id)) {
       const failure =
         'The server stopped while this import was being processed; nothing was written. Upload the file again.';
-      await imports.update(head.id, { status: 'failed', failure, updatedAt: nowIso() });
-      return { ...head, status: 'failed', failure };
+      // The head may be stale: the check or commit can have finished since it was read.
+      if (await imports.markInterrupted(head, failure, nowIso())) {
+        return { ...head, status: 'failed', failure };
+      }
+      return (await imports.findHead(head.id)) ?? head;
     }
     return head;
   }

@@ -473,6 +473,19 @@ describe('all or nothing', () => {
   });
 });
 
+describe('imports left behind by a stopped server', () => {
+  it('when an import was read as still being checked but has finished since, then it is not marked failed', async () => {
+    const checked = await preview(csv([row()]));
+    expect(checked.status).toBe('ready');
+    const { imports } = testContext().store.repos;
+    const head = (await imports.findHead(checked.id))!;
+    const stale = { id: head.id, status: 'validating' as const, updatedAt: head.updatedAt };
+    expect(await imports.markInterrupted(stale, 'stopped', new Date().toISOString())).toBe(false);
+    expect((await imports.findHead(checked.id))!.status).toBe('ready');
+    expect((await get(`/api/imports/${checked.id}`).expect(200)).body.status).toBe('ready');
+  });
+});
+
 describe('large files', () => {
   it('when a file has 10,000 rows, then the POST answers 202 and progress reaches every row, through validation and commit', async () => {
     const chemicalsInFile = Array.from({ length: 40 }, (_, i) => ({
