@@ -95,7 +95,9 @@ export async function startServer(
   ledgerNotes.start();
   handler = app;
 
-  console.log(`Lotwise is running at ${url}`);
+  // a person reads development's console; production's stdout is JSON lines for a collector
+  if (config.production) logger.info(`Lotwise is running at ${url}`, { url });
+  else console.log(`Lotwise is running at ${url}`);
   if (config.production && (await hasDemoAccounts(dataSource))) {
     logger.warn(
       `This database holds the demo accounts, whose password "${demoPassword}" is published: deactivate them or change their passwords.`,

@@ -52,8 +52,11 @@ export function requestLogger(logger: Logger, level: LogLevel): RequestHandler {
     quietResLogger: true,
     customAttributeKeys: { reqId: 'reqId', responseTime: 'ms' },
     customLogLevel: (req, res, error) => {
-      if (error || res.statusCode >= 500) return 'error';
-      return quietRoutes.has(routeLabel(req)) ? 'debug' : 'info';
+      // a probe's 503 is its answer, not a failure of the request (the check logs the cause)
+      if (quietRoutes.has(routeLabel(req))) return 'debug';
+      if (error || (res.statusCode >= 500 && res.statusCode !== 503)) return 'error';
+      // 503: starting, stopping, or the payment provider away; the client is told to retry
+      return res.statusCode === 503 ? 'warn' : 'info';
     },
     customSuccessMessage: () => 'request',
     customErrorMessage: () => 'request failed',

@@ -26,9 +26,11 @@ export function startingApp(logger: Logger, level: LogLevel): Express {
     res.removeHeader('Retry-After');
     res.json({ status: 'ok', version });
   });
-  app.get(['/api/health', '/api/health/ready'], (_req, res) => {
-    res.status(503).json({ status: 'starting', database: 'starting', version });
-  });
+  for (const path of ['/api/health', '/api/health/ready']) {
+    app.get(path, (_req, res) => {
+      res.status(503).json({ status: 'starting', database: 'starting', version });
+    });
+  }
   app.use((_req, res) => {
     const body: ErrorBody = {
       error: {
