@@ -6,7 +6,7 @@ import type { Config } from './config';
 import { openStore } from './db/repositories';
 import { errorMiddleware, notFoundMiddleware } from './lib/error-middleware';
 import { createLogger, type Logger } from './lib/logger';
-import { requestContext } from './lib/request-context';
+import { outsideRequest, requestContext } from './lib/request-context';
 import { requestLogger } from './lib/request-log';
 import { mountRoutes, type ApiRoute } from './lib/route-table';
 import { sameOriginWrites } from './lib/same-origin';
@@ -169,7 +169,7 @@ export function createApp({
   // rules run for them after the commit, outside the write.
   store.onLedgerChange(noteLedgerChanges);
   const ledgerNotes = ledgerNotesWorker({ store, alerts, logger });
-  store.afterLedgerCommit(() => ledgerNotes.kick());
+  store.afterLedgerCommit(() => outsideRequest(() => ledgerNotes.kick()));
   app.locals[ledgerNotesKey] = ledgerNotes;
   // Card payments; the orders module calls payments.refundPaidShares when an order is cancelled.
   const payments = paymentsService(store, config, { alerts, logger });

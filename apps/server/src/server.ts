@@ -9,6 +9,7 @@ import { openStore } from './db/repositories';
 import { seedDemoOrders } from './db/seed/demo-orders';
 import { demoAccounts, demoPassword } from './db/seed/demo-seed';
 import { createLogger } from './lib/logger';
+import { outsideRequest } from './lib/request-context';
 import { alertScheduler } from './modules/alerts/alerts-scheduler';
 import { alertsService } from './modules/alerts/alerts.service';
 import { createMailTransport } from './modules/alerts/mail-transport';
@@ -74,7 +75,12 @@ export async function startServer(
   }
 
   let worker: OutboxWorker | null = null;
-  const app = createApp({ dataSource, config, logger, onMailQueued: () => worker?.kick() });
+  const app = createApp({
+    dataSource,
+    config,
+    logger,
+    onMailQueued: () => outsideRequest(() => worker?.kick()),
+  });
   // Alerts: a scheduler evaluates the rules, a worker sends what the outbox holds.
   const transport = createMailTransport(config.mail.smtp);
   const store = openStore(dataSource);

@@ -67,6 +67,14 @@ export function inRequestContext<T>(req: Request, res: Response, work: () => T):
   return contexts.run(contextOf(req, res), work);
 }
 
+/**
+ * Runs `work` outside any request's context: a worker woken by a request goes on to work for
+ * others, and its lines must not carry that one request's id.
+ */
+export function outsideRequest<T>(work: () => T): T {
+  return contexts.exit(work);
+}
+
 /** For the request logger: the id as `req.id` carries it (node's types know no such field). */
 export function genRequestId(req: IncomingMessage, _res: ServerResponse): string {
   return requestIdOf(req);

@@ -4,7 +4,7 @@ import { createApp } from '../app';
 import { createUser, signIn, testPassword } from '../test/factories';
 import { testContext } from '../test/harness';
 import { createLogger } from './logger';
-import { inRequestContext } from './request-context';
+import { inRequestContext, outsideRequest } from './request-context';
 
 interface LogLine {
   level: string;
@@ -114,5 +114,21 @@ describe('request logs', () => {
     const res = { locals: { user: { id: 77 } } } as never;
     inRequestContext(req, res, () => logged.logger.info('inside'));
     expect(logged.lines()[0]).toMatchObject({ msg: 'inside', reqId: 'ctx-1', userId: 77 });
+  });
+
+  it("when a request wakes a worker, then the worker's later lines carry no request id", async () => {
+    logged.raw.length = 0;
+    const req = { headers: { 'x-request-id': 'ctx-2' } } as never;
+    const res = { locals: {} } as never;
+    let worker: Promise<void> = Promise.resolve();
+    inRequestContext(req, res, () => {
+      worker = outsideRequest(async () => {
+        await new Promise((resolve) => setImmediate(resolve));
+        logged.logger.info('worker batch');
+      });
+    });
+    await worker;
+    expect(logged.lines()[0]).toMatchObject({ msg: 'worker batch' });
+    expect(logged.lines()[0]).not.toHaveProperty('reqId');
   });
 });
