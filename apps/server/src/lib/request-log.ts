@@ -37,6 +37,8 @@ function requestLine(req: IncomingMessage, res: ServerResponse, ms: unknown) {
     status: res.statusCode,
     ms,
     userId: userIdOf(res),
+    // the client went away before the whole answer was sent
+    aborted: res.writableEnded ? undefined : true,
   };
 }
 

@@ -4,6 +4,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { createApp, metricsOf } from '../../app';
 import { signedIn } from '../../test/factories';
 import { testContext } from '../../test/harness';
+import { version } from '../../version';
 
 /** The value of one sample line of the Prometheus text, e.g. `name{label="x"}`. */
 function sample(text: string, series: string): number | null {
@@ -75,8 +76,9 @@ describe('metrics', () => {
     expect(text).not.toContain('31337');
   });
 
-  it('when the process runs, then its default metrics are there too', async () => {
+  it('when the process runs, then its default metrics and the running version are there too', async () => {
     const text = await scrape();
+    expect(sample(text, `lotwise_build_info{version="${version}"}`)).toBe(1);
     expect(text).toContain('process_cpu_user_seconds_total');
     expect(text).toContain('nodejs_eventloop_lag_seconds');
     expect(text).toContain('process_resident_memory_bytes');

@@ -2,6 +2,7 @@ import type { RequestHandler } from 'express';
 import { Gauge, Histogram, Registry, collectDefaultMetrics } from 'prom-client';
 import type { Store } from '../../db/store';
 import { routeLabel } from '../../lib/request-log';
+import { version } from '../../version';
 import type { OutboxDepth, PendingLedgerNotes } from './metrics.repository';
 
 /** When the newest backup was taken; null when there is none yet. */
@@ -63,6 +64,12 @@ export function createMetrics(store: Store): Metrics {
     registers: [registry],
   });
 
+  new Gauge({
+    name: 'lotwise_build_info',
+    help: 'Always 1; the version label names the running Lotwise',
+    labelNames: ['version'] as const,
+    registers: [registry],
+  }).set({ version }, 1);
   new Gauge({
     name: 'lotwise_outbox_messages',
     help: 'E-mails in the outbox by status: queued (waiting), sending (taken by a sender), failed (given up)',
