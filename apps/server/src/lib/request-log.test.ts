@@ -2,6 +2,7 @@ import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../app';
 import { createUser, signIn, testPassword } from '../test/factories';
+import { createDataSource } from '../db/data-source';
 import { testContext } from '../test/harness';
 import { createLogger } from './logger';
 import { inRequestContext, outsideRequest } from './request-context';
@@ -93,6 +94,36 @@ describe('request logs', () => {
       .lines()
       .find((entry) => entry.msg.startsWith('Refused a payment webhook'));
     expect(warning).toMatchObject({ level: 'warn', reqId: id });
+  });
+
+  it('when a request fails on an unexpected error, then the error line with its stack and the request line share the request id', async () => {
+    const raw: string[] = [];
+    const logger = createLogger('info', { write: (line: string) => void raw.push(line) });
+    // a second connection to the test database, closed under its app
+    const { config } = testContext();
+    const dataSource = createDataSource(config.databasePath);
+    await dataSource.initialize();
+    try {
+      const app = createApp({ dataSource, config, logger });
+      const { email } = await createUser({ role: 'viewer' });
+      const cookie = await signIn(app, email);
+      await dataSource.destroy();
+      const failed = await request(app).get('/api/chemicals').set('Cookie', cookie).expect(500);
+      const id = failed.headers['x-request-id'];
+      const lines = raw.map((line) => JSON.parse(line) as LogLine);
+      expect(lines.find((line) => line.msg === 'Unhandled error')).toMatchObject({
+        level: 'error',
+        reqId: id,
+        route: '/api/chemicals',
+      });
+      expect(lines.find((line) => line.msg === 'request failed')).toMatchObject({
+        level: 'error',
+        reqId: id,
+        status: 500,
+      });
+    } finally {
+      if (dataSource.isInitialized) await dataSource.destroy();
+    }
   });
 
   it('when a detail holds a password, a token, a cookie or an Authorization header, then the line shows [redacted]', () => {
