@@ -15,6 +15,7 @@ export const errorCodes = [
   'unsupported_media_type',
   'rate_limited',
   'payment_provider_unavailable',
+  'service_unavailable',
   'internal',
 ] as const;
 export type ErrorCode = (typeof errorCodes)[number];
@@ -33,5 +34,7 @@ export const errorStatus: Record<ErrorCode, number> = {
   rate_limited: 429,
   /** The payment provider did not answer (or answered with a fault); nothing was recorded as paid. */
   payment_provider_unavailable: 503,
+  /** Lotwise is starting (checking and migrating its database) or stopping: try again shortly. */
+  service_unavailable: 503,
   internal: 500,
 };

@@ -6,6 +6,8 @@ import type { Config } from './config';
 import { openStore } from './db/repositories';
 import { errorMiddleware, notFoundMiddleware } from './lib/error-middleware';
 import { createLogger, type Logger } from './lib/logger';
+import { outsideRequest, requestContext } from './lib/request-context';
+import { requestLogger } from './lib/request-log';
 import { mountRoutes, type ApiRoute } from './lib/route-table';
 import { sameOriginWrites } from './lib/same-origin';
 import { fileStore } from './lib/uploads';
@@ -28,7 +30,8 @@ import { containerRoutes } from './modules/containers/containers.routes';
 import { containersService } from './modules/containers/containers.service';
 import { exportRoutes } from './modules/exports/exports.routes';
 import { exportsService } from './modules/exports/exports.service';
-import { healthRoutes } from './modules/health/health.routes';
+import { databaseFileCheck } from './modules/health/database-file-check';
+import { healthRoutes, type Readiness } from './modules/health/health.routes';
 import { importRoutes } from './modules/imports/imports.routes';
 import { importsService } from './modules/imports/imports.service';
 import { locationRoutes } from './modules/locations/locations.routes';
@@ -36,6 +39,8 @@ import { locationsService } from './modules/locations/locations.service';
 import { lotRoutes } from './modules/lots/lots.routes';
 import { lotsService } from './modules/lots/lots.service';
 import { maintenanceRoutes } from './modules/maintenance/maintenance.routes';
+import { createMetrics, type Metrics } from './modules/metrics/metrics';
+import { metricsRoutes } from './modules/metrics/metrics.routes';
 import { paymentRoutes, paymentWebhookPath } from './modules/payments/payments.routes';
 import { paymentsService } from './modules/payments/payments.service';
 import { claimingStatuses } from './modules/orders/order-lifecycle';
@@ -78,6 +83,8 @@ export interface AppOptions {
 
 const routeTableKey = 'lotwiseRoutes';
 const ledgerNotesKey = 'lotwiseLedgerNotes';
+const metricsKey = 'lotwiseMetrics';
+const readinessKey = 'lotwiseReadiness';
 
 /** The route table the app was built from (the permission walk test reads it). */
 export function routeTable(app: Express): ApiRoute[] {
@@ -87,6 +94,16 @@ export function routeTable(app: Express): ApiRoute[] {
 /** The worker that runs the alert rules after ledger changes (the server starts and stops it). */
 export function ledgerNotesOf(app: Express): LedgerNotesWorker {
   return app.locals[ledgerNotesKey] as LedgerNotesWorker;
+}
+
+/** The app's Prometheus metrics (the server gives it the backups' provider). */
+export function metricsOf(app: Express): Metrics {
+  return app.locals[metricsKey] as Metrics;
+}
+
+/** Whether the app takes work (the server sets `accepting` to false when it begins to stop). */
+export function readinessOf(app: Express): Readiness {
+  return app.locals[readinessKey] as Readiness;
 }
 
 /** Builds the Express app on an initialized, migrated DataSource; does not listen. */
@@ -99,6 +116,15 @@ export function createApp({
 }: AppOptions) {
   const app = express();
   app.disable('x-powered-by');
+  const store = openStore(dataSource);
+  const metrics = createMetrics(store);
+  const readiness: Readiness = { accepting: true };
+  app.locals[metricsKey] = metrics;
+  app.locals[readinessKey] = readiness;
+  // First, so every answer is logged (with its request id) and timed, even one helmet ends.
+  app.use(requestLogger(logger, config.logLevel));
+  app.use(requestContext());
+  app.use(metrics.middleware);
   // Behind a reverse proxy, req.ip (and so the sign-in limits) comes from X-Forwarded-For.
   app.set('trust proxy', config.trustProxy);
   app.use(
@@ -111,19 +137,6 @@ export function createApp({
     }),
   );
   app.use(compressAnswers([paymentWebhookPath]));
-  app.use((req, res, next) => {
-    const started = performance.now();
-    res.on('finish', () => {
-      const detail = {
-        status: res.statusCode,
-        ms: Math.round(performance.now() - started),
-      };
-      const line = `${req.method} ${req.originalUrl}`;
-      if (res.statusCode >= 500) logger.warn(line, detail);
-      else logger.debug(line, detail);
-    });
-    next();
-  });
   // The payment provider's webhooks are verified over their exact bytes: the raw body is kept
   // (express.json below then leaves it alone), and no browser sends them.
   app.use(paymentWebhookPath, express.raw({ type: 'application/json', limit: '1mb' }));
@@ -139,7 +152,6 @@ export function createApp({
   app.use(express.json({ limit: '1mb' }));
   app.use(cookieParser());
 
-  const store = openStore(dataSource);
   const session = sessions(config, store.repos.users, userCacheOf(dataSource));
   const files = fileStore({
     dir: config.uploadDir,
@@ -157,12 +169,13 @@ export function createApp({
   // rules run for them after the commit, outside the write.
   store.onLedgerChange(noteLedgerChanges);
   const ledgerNotes = ledgerNotesWorker({ store, alerts, logger });
-  store.afterLedgerCommit(() => ledgerNotes.kick());
+  store.afterLedgerCommit(() => outsideRequest(() => ledgerNotes.kick()));
   app.locals[ledgerNotesKey] = ledgerNotes;
   // Card payments; the orders module calls payments.refundPaidShares when an order is cancelled.
   const payments = paymentsService(store, config, { alerts, logger });
   const routes = [
-    ...healthRoutes(store, logger),
+    ...healthRoutes(store, logger, readiness, databaseFileCheck(dataSource)),
+    ...metricsRoutes(metrics, session.resolve, config.trustProxy),
     ...authRoutes(authService(store, config), session, config),
     ...userRoutes(usersService(store, config), session),
     ...auditRoutes(auditService(store)),

@@ -1,6 +1,7 @@
-import type { Server } from 'node:http';
+import { createServer, type RequestListener, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { createApp, ledgerNotesOf } from './app';
+import type { DataSource } from 'typeorm';
+import { createApp, ledgerNotesOf, readinessOf } from './app';
 import type { Config } from './config';
 import { hasDemoAccounts, openDatabase } from './db/database-file';
 import { startOptimizing } from './db/optimize';
@@ -8,31 +9,78 @@ import { openStore } from './db/repositories';
 import { seedDemoOrders } from './db/seed/demo-orders';
 import { demoAccounts, demoPassword } from './db/seed/demo-seed';
 import { createLogger } from './lib/logger';
+import { outsideRequest } from './lib/request-context';
 import { alertScheduler } from './modules/alerts/alerts-scheduler';
 import { alertsService } from './modules/alerts/alerts.service';
 import { createMailTransport } from './modules/alerts/mail-transport';
 import { outboxWorker, type OutboxWorker } from './modules/alerts/outbox-worker';
+import { startingApp } from './modules/health/starting-app';
 
 export interface RunningServer {
   url: string;
   close(): Promise<void>;
 }
 
+export interface StartOptions {
+  /** Called once the server listens, while it still checks and migrates the database. */
+  onListening?(url: string): void;
+}
+
+function closeServer(server: Server): Promise<void> {
+  return new Promise((resolve) => {
+    server.close(() => resolve());
+    server.closeIdleConnections();
+  });
+}
+
 /**
- * Opens, checks and migrates the database, seeds the demo lab when allowed (see
- * db/database-file.ts), and listens. A StartupError says why the database cannot be used.
+ * Listens at once, answering only the health checks (503 `starting` for readiness) while it
+ * opens, checks and migrates the database and seeds the demo lab when allowed (see
+ * db/database-file.ts); then the app takes over. A StartupError says why the database cannot
+ * be used; the server stops listening before it is thrown.
  */
-export async function startServer(config: Config): Promise<RunningServer> {
+export async function startServer(
+  config: Config,
+  options: StartOptions = {},
+): Promise<RunningServer> {
   const logger = createLogger(config.logLevel);
-  const { dataSource, applied, seeded } = await openDatabase(config, logger);
-  if (applied.length) logger.info(`Applied migrations: ${applied.join(', ')}`);
-  if (seeded) {
-    await seedDemoOrders(dataSource, config, logger);
-    logger.info('Seeded the demo lab');
+  let handler: RequestListener = startingApp(logger, config.logLevel);
+  const server: Server = createServer((req, res) => handler(req, res));
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(config.port, config.host, () => {
+      server.off('error', reject);
+      resolve();
+    });
+  });
+  const { port } = server.address() as AddressInfo;
+  const url = `http://${config.host === '0.0.0.0' ? 'localhost' : config.host}:${port}`;
+  options.onListening?.(url);
+
+  let dataSource: DataSource;
+  try {
+    const opened = await openDatabase(config, logger);
+    dataSource = opened.dataSource;
+    if (opened.applied.length) logger.info(`Applied migrations: ${opened.applied.join(', ')}`);
+    if (opened.seeded) {
+      await seedDemoOrders(dataSource, config, logger).catch(async (error: unknown) => {
+        await dataSource.destroy();
+        throw error;
+      });
+      logger.info('Seeded the demo lab');
+    }
+  } catch (error) {
+    await closeServer(server);
+    throw error;
   }
 
   let worker: OutboxWorker | null = null;
-  const app = createApp({ dataSource, config, logger, onMailQueued: () => worker?.kick() });
+  const app = createApp({
+    dataSource,
+    config,
+    logger,
+    onMailQueued: () => outsideRequest(() => worker?.kick()),
+  });
   // Alerts: a scheduler evaluates the rules, a worker sends what the outbox holds.
   const transport = createMailTransport(config.mail.smtp);
   const store = openStore(dataSource);
@@ -51,14 +99,11 @@ export async function startServer(config: Config): Promise<RunningServer> {
   scheduler.start();
   const ledgerNotes = ledgerNotesOf(app);
   ledgerNotes.start();
-  const server: Server = await new Promise((resolve, reject) => {
-    const listening = app.listen(config.port, config.host, () => resolve(listening));
-    listening.once('error', reject);
-  });
-  const { port } = server.address() as AddressInfo;
-  const url = `http://${config.host === '0.0.0.0' ? 'localhost' : config.host}:${port}`;
+  handler = app;
 
-  console.log(`Lotwise is running at ${url}`);
+  // a person reads development's console; production's stdout is JSON lines for a collector
+  if (config.production) logger.info(`Lotwise is running at ${url}`, { url });
+  else console.log(`Lotwise is running at ${url}`);
   if (config.production && (await hasDemoAccounts(dataSource))) {
     logger.warn(
       `This database holds the demo accounts, whose password "${demoPassword}" is published: deactivate them or change their passwords.`,
@@ -73,12 +118,13 @@ export async function startServer(config: Config): Promise<RunningServer> {
   return {
     url,
     async close() {
+      readinessOf(app).accepting = false;
       optimizer.stop();
       await scheduler.stop();
       await ledgerNotes.stop();
       await worker?.stop();
       transport?.close();
-      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await closeServer(server);
       await dataSource.destroy();
     },
   };

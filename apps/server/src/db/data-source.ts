@@ -44,6 +44,7 @@ import { Purchasing1796700000000 } from './migrations/1796700000000-purchasing';
 import { ImportKinds1796730000000 } from './migrations/1796730000000-import-kinds';
 import { ListIndexes1796800000000 } from './migrations/1796800000000-list-indexes';
 import { LedgerChangeNotes1796810000000 } from './migrations/1796810000000-ledger-change-notes';
+import { OutboxQueuedAge1796900000000 } from './migrations/1796900000000-outbox-queued-age';
 import { ChemicalMeasures1796630000000 } from './migrations/1796630000000-chemical-measures';
 import { RunCrudeYieldFlag1796620000000 } from './migrations/1796620000000-run-crude-yield-flag';
 
@@ -93,6 +94,7 @@ export const migrations = [
   ImportKinds1796730000000,
   ListIndexes1796800000000,
   LedgerChangeNotes1796810000000,
+  OutboxQueuedAge1796900000000,
 ];
 
 /** How many prepared statements each connection keeps (the API has a few hundred queries). */

@@ -5,6 +5,7 @@ import type { Logger } from '../lib/logger';
 import { createDataSource } from './data-source';
 import { advisoryLocks, onPostgres, redactedUrl } from './postgres';
 import { withPlaceholders } from './sql';
+import { runMigrationsAnswering } from './migrate';
 import { demoAccounts, seedDemo } from './seed/demo-seed';
 
 /** What was at the database path before this start opened it. */
@@ -127,7 +128,7 @@ export async function openDatabase(
         `The database file ${config.databasePath} holds no tables. ${restoreAdvice} For a new installation start once with --init (or DATABASE_INIT=true).`,
       );
     }
-    const applied = (await dataSource.runMigrations({ transaction: 'all' })).map((m) => m.name);
+    const applied = await runMigrationsAnswering(dataSource);
     const seeded = await seedIfAllowed(dataSource, config, found);
     if (!seeded && (await dataSource.query('SELECT id FROM users LIMIT 1')).length === 0) {
       logger.warn(

@@ -293,6 +293,16 @@ describe.skipIf(onPostgres)('query plans of the list queries on a generated lab'
     );
   });
 
+  it('when a metrics scrape reads the outbox, then both reads search it by status, the oldest queued one without walking older sent mail', async () => {
+    const plans = await plansOf(() => testContext().store.repos.metrics.outboxDepth());
+    expect(plans.map((plan) => plan.steps.join('; '))).toEqual([
+      expect.stringMatching(/^SEARCH o USING COVERING INDEX outbox_status_\w+ \(status=\?\)/),
+      expect.stringMatching(
+        /^SEARCH o USING COVERING INDEX outbox_status_created_idx \(status=\?\)/,
+      ),
+    ]);
+  });
+
   it('when every list query runs, then no large table is read whole', async () => {
     const problems: string[] = [];
     for (const [label, work] of listCases()) {

@@ -7,6 +7,7 @@ import { containersRepository } from '../modules/containers/containers.repositor
 import { importsRepository } from '../modules/imports/imports.repository';
 import { locationsRepository } from '../modules/locations/locations.repository';
 import { lotsRepository } from '../modules/lots/lots.repository';
+import { metricsRepository } from '../modules/metrics/metrics.repository';
 import { ordersRepository } from '../modules/orders/orders.repository';
 import { paymentsRepository } from '../modules/payments/payments.repository';
 import { plansRepository } from '../modules/plans/plans.repository';
@@ -48,6 +49,7 @@ export const repositoryFactories = {
   reorder: reorderRepository,
   requests: requestsRepository,
   receiving: receivingRepository,
+  metrics: metricsRepository,
 } satisfies Record<string, (manager: EntityManager) => object>;
 
 export type Repositories = {

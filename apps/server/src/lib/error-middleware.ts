@@ -4,6 +4,8 @@ import { z } from 'zod';
 import { concurrentWriteConflict } from '../db/sql';
 import { AppError } from './app-error';
 import type { Logger } from './logger';
+import { inRequestContext } from './request-context';
+import { routeLabel } from './request-log';
 import { zodFieldErrors } from './validate';
 
 /** Errors raised by body-parser carry an HTTP status and a `type`. */
@@ -35,11 +37,13 @@ export function errorMiddleware(logger: Logger): ErrorRequestHandler {
   return (error, req, res, _next) => {
     const known = toAppError(error);
     if (!known) {
-      logger.error('Unhandled error', {
-        method: req.method,
-        path: req.path,
-        error: error instanceof Error ? (error.stack ?? error.message) : String(error),
-      });
+      inRequestContext(req, res, () =>
+        logger.error('Unhandled error', {
+          method: req.method,
+          route: routeLabel(req),
+          error: error instanceof Error ? (error.stack ?? error.message) : String(error),
+        }),
+      );
     }
     const appError = known ?? new AppError('internal', 'Something went wrong on the server.');
     const body: ErrorBody = {

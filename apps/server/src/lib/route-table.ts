@@ -3,6 +3,7 @@ import type { Permission, User } from '@lotwise/shared';
 import type { z } from 'zod';
 import { AppError } from './app-error';
 import { authenticate, authorize, currentUser, type SessionResolver } from './auth-middleware';
+import { inRequestContext } from './request-context';
 import { parsedInput, validate } from './validate';
 
 export type HttpMethod = 'get' | 'post' | 'patch' | 'put' | 'delete';
@@ -60,7 +61,9 @@ export function defineRoute<
           : definition.access === 'signed-in'
             ? [authenticate(resolveSession)]
             : [authenticate(resolveSession), authorize(definition.access)];
-      const run: RequestHandler = async (req, res) => {
+      // In the request's context again: a body or an upload read before resumes outside it.
+      const run: RequestHandler = (req, res) => inRequestContext(req, res, () => handle(req, res));
+      const handle = async (req: Request, res: Response) => {
         const input = parsedInput(res);
         await definition.handle({
           body: input.body as Parsed<B>,

@@ -77,5 +77,7 @@ export const OutboxMessageEntity = new EntitySchema<OutboxRow>({
     { name: 'outbox_attempts_idx', columns: ['attempts'] },
     { name: 'outbox_kind_idx', columns: ['kind', 'createdAt'] },
     { name: 'outbox_next_attempt_idx', columns: ['nextAttemptAt'] },
+    // the oldest queued message (metrics)
+    { name: 'outbox_status_created_idx', columns: ['status', 'createdAt'] },
   ],
 });

@@ -1,6 +1,8 @@
+import { copyFileSync, renameSync, rmSync, truncateSync } from 'node:fs';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
-import { testContext } from '../../test/harness';
+import { readinessOf } from '../../app';
+import { closeTestContext, openTestContext, testContext } from '../../test/harness';
 
 describe('health check', () => {
   it('when the database answers, then health is ok', async () => {
@@ -18,5 +20,62 @@ describe('health check', () => {
       await dataSource.query('ALTER TABLE users_moved_away RENAME TO users');
     }
     await request(app).get('/api/health').expect(200);
+  });
+});
+
+describe('liveness and readiness', () => {
+  it('when the app is up and the database answers, then live and ready are 200', async () => {
+    const { app } = testContext();
+    expect((await request(app).get('/api/health/live').expect(200)).body).toMatchObject({
+      status: 'ok',
+    });
+    expect((await request(app).get('/api/health/ready').expect(200)).body).toMatchObject({
+      status: 'ready',
+      database: 'ok',
+    });
+  });
+
+  it('when the database is closed under the app, then ready is 503 and live stays 200', async () => {
+    const context = await openTestContext();
+    try {
+      await request(context.app).get('/api/health/ready').expect(200);
+      await context.dataSource.destroy();
+      const ready = await request(context.app).get('/api/health/ready').expect(503);
+      expect(ready.body).toMatchObject({ status: 'error', database: 'error' });
+      await request(context.app).get('/api/health/live').expect(200);
+    } finally {
+      await closeTestContext(context);
+    }
+  });
+
+  it('when the database file is emptied, removed or swapped under the open connections, then ready is 503', async () => {
+    const context = await openTestContext();
+    const file = context.config.databasePath;
+    const ready = () => request(context.app).get('/api/health/ready');
+    try {
+      await ready().expect(200);
+      // the open connections still answer from their cache: only the file check notices
+      copyFileSync(file, `${file}.copy`);
+      truncateSync(file, 0);
+      expect((await ready().expect(503)).body).toMatchObject({ database: 'error' });
+      rmSync(file);
+      await ready().expect(503);
+      renameSync(`${file}.copy`, file);
+      await ready().expect(503);
+    } finally {
+      await closeTestContext(context);
+    }
+  });
+
+  it('when the server begins to stop, then ready is 503 with Retry-After', async () => {
+    const context = await openTestContext();
+    try {
+      readinessOf(context.app).accepting = false;
+      const ready = await request(context.app).get('/api/health/ready').expect(503);
+      expect(ready.body).toMatchObject({ status: 'stopping' });
+      expect(ready.headers['retry-after']).toBe('5');
+    } finally {
+      await closeTestContext(context);
+    }
   });
 });
