@@ -12,6 +12,7 @@ import { alertScheduler } from './modules/alerts/alerts-scheduler';
 import { alertsService } from './modules/alerts/alerts.service';
 import { createMailTransport } from './modules/alerts/mail-transport';
 import { outboxWorker, type OutboxWorker } from './modules/alerts/outbox-worker';
+import { backupScheduler } from './modules/backups/backup-scheduler';
 
 export interface RunningServer {
   url: string;
@@ -51,6 +52,10 @@ export async function startServer(config: Config): Promise<RunningServer> {
   scheduler.start();
   const ledgerNotes = ledgerNotesOf(app);
   ledgerNotes.start();
+  // Scheduled backups of the SQLite file (BACKUP_INTERVAL_HOURS; 0 turns them off).
+  const backups =
+    dataSource.options.type === 'better-sqlite3' ? backupScheduler({ config, logger }) : null;
+  backups?.start();
   const server: Server = await new Promise((resolve, reject) => {
     const listening = app.listen(config.port, config.host, () => resolve(listening));
     listening.once('error', reject);
@@ -74,6 +79,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
     url,
     async close() {
       optimizer.stop();
+      await backups?.stop();
       await scheduler.stop();
       await ledgerNotes.stop();
       await worker?.stop();
