@@ -63,8 +63,12 @@ export function listBackups(dir: string): Backup[] {
     if (!stats?.isFile()) continue;
     backups.push({ ...parsed, bytes: stats.size });
   }
+  // Newest first; within one second, the later of `…-manual.sqlite`, `…-manual-2.sqlite` first.
+  const sequence = (name: string) => Number(backupNamePattern.exec(name)?.[3] ?? 1);
   return backups.sort((a, b) =>
-    a.takenAt === b.takenAt ? b.name.localeCompare(a.name) : b.takenAt.localeCompare(a.takenAt),
+    a.takenAt === b.takenAt
+      ? sequence(b.name) - sequence(a.name) || a.name.localeCompare(b.name)
+      : b.takenAt.localeCompare(a.takenAt),
   );
 }
 

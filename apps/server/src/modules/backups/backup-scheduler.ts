@@ -41,6 +41,14 @@ export function backupScheduler({
     return !newest || at - new Date(newest.takenAt).getTime() >= intervalMs;
   }
 
+  function failed(error: unknown) {
+    lastFailure = now().getTime();
+    logger.error('Scheduled backup failed; it is tried again later', {
+      folder: config.backup.dir,
+      error: error instanceof Error ? error.message : String(error),
+    });
+  }
+
   async function backUp(): Promise<void> {
     const started = performance.now();
     try {
@@ -54,11 +62,7 @@ export function backupScheduler({
         deleted: taken.pruned,
       });
     } catch (error) {
-      lastFailure = now().getTime();
-      logger.error('Scheduled backup failed; it is tried again later', {
-        folder: config.backup.dir,
-        error: error instanceof Error ? error.message : String(error),
-      });
+      failed(error);
     }
   }
 
@@ -68,10 +72,7 @@ export function backupScheduler({
     try {
       if (backupRunning(config.backup.dir) || !due()) return Promise.resolve();
     } catch (error) {
-      logger.error('Scheduled backup: the backups folder cannot be read', {
-        folder: config.backup.dir,
-        error: error instanceof Error ? error.message : String(error),
-      });
+      failed(error);
       return Promise.resolve();
     }
     current = backUp().finally(() => {

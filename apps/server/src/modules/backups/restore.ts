@@ -73,11 +73,8 @@ function lockLiveDatabase(databasePath: string): Database.Database | 'damaged' {
     db.pragma('busy_timeout = 0');
     db.pragma('locking_mode = EXCLUSIVE');
     // Takes the lock (and keeps it: exclusive locking mode never lets go until close).
+    // Nothing is written yet: a refusal later leaves the file as it was.
     db.exec('BEGIN EXCLUSIVE; COMMIT');
-    // Everything in the WAL goes into the file, which then stands alone: nothing is lost
-    // when it is set aside.
-    db.pragma('wal_checkpoint(TRUNCATE)');
-    db.pragma('journal_mode = DELETE');
     return db;
   } catch (error) {
     db?.close();
@@ -144,6 +141,10 @@ export function restoreDatabase(
       }
       renameSync(incoming, databasePath);
     } else {
+      // Everything in the WAL goes into the file, which then stands alone: nothing is lost
+      // when it is set aside.
+      live.pragma('wal_checkpoint(TRUNCATE)');
+      live.pragma('journal_mode = DELETE');
       keepReplaced(databasePath, replacedBy);
       // The old file's shared memory (its WAL is gone) must not meet the new file.
       for (const file of databaseFiles(databasePath).slice(1)) rmSync(file, { force: true });
