@@ -1,6 +1,13 @@
 import { StartupError, loadConfig } from '../config';
 import { runBackup } from './backup-command';
 
+if (process.env.DATABASE_URL) {
+  console.error(
+    'DATABASE_URL is set: the database is PostgreSQL, whose backups are taken with pg_dump and restored with pg_restore (see docs/operations.md).',
+  );
+  process.exit(1);
+}
+
 try {
   process.exitCode = await runBackup(
     process.argv.slice(2),

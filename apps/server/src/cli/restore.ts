@@ -1,6 +1,13 @@
 import { StartupError, loadConfig } from '../config';
 import { runRestore } from './restore-command';
 
+if (process.env.DATABASE_URL) {
+  console.error(
+    'DATABASE_URL is set: the database is PostgreSQL, whose backups are taken with pg_dump and restored with pg_restore (see docs/operations.md).',
+  );
+  process.exit(1);
+}
+
 try {
   // A missing database is what a restore may be for: production's refusal to start without
   // one does not apply here.

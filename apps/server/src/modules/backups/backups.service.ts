@@ -3,7 +3,8 @@ import { nowIso } from '../../db/sql';
 import type { Store } from '../../db/store';
 import { AppError } from '../../lib/app-error';
 import { backupFile, listBackups } from './backup-folder';
-import { BackupBusyError, backupRunning, takeBackup, type BackupSettings } from './take-backup';
+import { BackupError } from './database-copy';
+import { backupRunning, takeBackup, type BackupSettings } from './take-backup';
 
 /** The admin's view of the backups folder: list, take one now, download one. */
 export function backupsService(store: Store, config: BackupSettings) {
@@ -36,7 +37,8 @@ export function backupsService(store: Store, config: BackupSettings) {
         await audit(actorId, 'backup.created', taken.name);
         return taken;
       } catch (error) {
-        if (error instanceof BackupBusyError) throw AppError.conflict(error.message);
+        // Busy, or the database file is not there to copy: the admin is told why.
+        if (error instanceof BackupError) throw AppError.conflict(error.message);
         throw error;
       }
     },
