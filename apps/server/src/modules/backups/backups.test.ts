@@ -15,6 +15,7 @@ import {
   removeStalePartials,
 } from './backup-folder';
 import { backupScheduler } from './backup-scheduler';
+import { countRows, countRowsInSteps } from './database-copy';
 
 let admin = '';
 let manager = '';
@@ -217,5 +218,21 @@ describe('scheduled backups', () => {
     await scheduler.check();
     expect(lines).toHaveLength(2);
     await scheduler.stop();
+  });
+});
+
+describe('counting rows a range at a time', () => {
+  it('when row ids have gaps and a table has none, then the counts equal COUNT(*)', async () => {
+    const db = new Database(':memory:');
+    db.exec('CREATE TABLE entries (id INTEGER PRIMARY KEY, note TEXT)');
+    db.exec('CREATE TABLE empty_one (id INTEGER PRIMARY KEY)');
+    db.exec('CREATE TABLE keyed (code TEXT PRIMARY KEY, n INTEGER) WITHOUT ROWID');
+    const insert = db.prepare('INSERT INTO entries (id, note) VALUES (?, ?)');
+    for (let id = 1; id <= 25_000; id++) if (id % 7 !== 0) insert.run(id * 3, 'drawn');
+    db.prepare("INSERT INTO keyed VALUES ('LW-00001', 1), ('LW-00002', 2)").run();
+    const expected = countRows(db);
+    expect(expected).toMatchObject({ entries: 21_429, empty_one: 0, keyed: 2 });
+    expect(await countRowsInSteps(db, 1000)).toEqual(expected);
+    db.close();
   });
 });

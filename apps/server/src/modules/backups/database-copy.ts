@@ -1,12 +1,5 @@
-import {
-  closeSync,
-  existsSync,
-  fsyncSync,
-  openSync,
-  renameSync,
-  statSync,
-  unlinkSync,
-} from 'node:fs';
+import { closeSync, existsSync, openSync, renameSync, statSync, unlinkSync } from 'node:fs';
+import { open } from 'node:fs/promises';
 import path from 'node:path';
 import Database from 'better-sqlite3';
 import { partialSuffix } from './backup-folder';
@@ -43,14 +36,18 @@ export function quoteName(name: string): string {
   return `"${name.replaceAll('"', '""')}"`;
 }
 
-/** Rows of every table of `db` (SQLite's own tables left out), by table name. */
-export function countRows(db: Database.Database): Record<string, number> {
-  const tables = db
+function tableNames(db: Database.Database): string[] {
+  return db
     .prepare(
       "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name",
     )
     .pluck()
     .all() as string[];
+}
+
+/** Rows of every table of `db` (SQLite's own tables left out), by table name. */
+export function countRows(db: Database.Database): Record<string, number> {
+  const tables = tableNames(db);
   return Object.fromEntries(
     tables.map((table) => [
       table,
@@ -62,21 +59,64 @@ export function countRows(db: Database.Database): Record<string, number> {
   );
 }
 
-/** Writes a file's data and its folder's entry to disk, so a power cut keeps the file. */
-export function syncToDisk(file: string): void {
-  const fd = openSync(file, 'r');
-  try {
-    fsyncSync(fd);
-  } finally {
-    closeSync(fd);
+const nextTurn = () => new Promise<void>((resolve) => setImmediate(resolve));
+
+/**
+ * `countRows`, counted a range of row ids at a time with a turn of the event loop between
+ * ranges: one COUNT(*) over a million ledger entries holds the process for about 100 ms, and
+ * the server counts while it serves requests. Call it inside a transaction so that every range
+ * sees the same moment.
+ */
+export async function countRowsInSteps(
+  db: Database.Database,
+  rowsPerStep = 10_000,
+): Promise<Record<string, number>> {
+  const counts: Record<string, number> = {};
+  for (const table of tableNames(db)) {
+    const name = quoteName(table);
+    let low: number | null = null;
+    let high: number | null = null;
+    try {
+      // Two statements: SQLite finds MIN or MAX alone from the b-tree's edge, both in one by
+      // reading the whole table.
+      low = db.prepare(`SELECT MIN(rowid) FROM ${name}`).pluck().get() as number | null;
+      high = db.prepare(`SELECT MAX(rowid) FROM ${name}`).pluck().get() as number | null;
+    } catch {
+      // a table without row ids: counted at once below
+    }
+    if (low === null || high === null || (high - low) / rowsPerStep > 100_000) {
+      counts[table] = db.prepare(`SELECT COUNT(*) FROM ${name}`).pluck().get() as number;
+      continue;
+    }
+    const range = db.prepare(`SELECT COUNT(*) FROM ${name} WHERE rowid BETWEEN ? AND ?`).pluck();
+    let rows = 0;
+    for (let from = low; from <= high; from += rowsPerStep) {
+      rows += range.get(from, from + rowsPerStep - 1) as number;
+      await nextTurn();
+    }
+    counts[table] = rows;
   }
-  const dir = openSync(path.dirname(file), 'r');
+  return counts;
+}
+
+/**
+ * Writes a file's data and its folder's entry to disk, so a power cut keeps the file. On the
+ * thread pool: syncing a large file takes long enough to hold up the server's requests.
+ */
+export async function syncToDisk(file: string): Promise<void> {
+  const handle = await open(file, 'r');
   try {
-    fsyncSync(dir);
+    await handle.sync();
+  } finally {
+    await handle.close();
+  }
+  const dir = await open(path.dirname(file), 'r');
+  try {
+    await dir.sync();
   } catch {
     // some file systems cannot sync a folder; the file itself is on disk
   } finally {
-    closeSync(dir);
+    await dir.close();
   }
 }
 
@@ -112,13 +152,13 @@ export async function copyDatabase(
   closeSync(openSync(partial, 'wx', 0o600));
   try {
     const { takenAt, rowCounts } = await copySnapshot(source, partial, pagesPerStep, atSnapshot);
-    checkCopy(partial, rowCounts, check);
-    syncToDisk(partial);
+    await checkCopy(partial, rowCounts, check);
+    await syncToDisk(partial);
     if (existsSync(destination)) {
       throw new BackupError(`${destination} appeared while the backup was written; it is kept.`);
     }
     renameSync(partial, destination);
-    syncToDisk(destination);
+    await syncToDisk(destination);
     return { file: destination, bytes: statSync(destination).size, takenAt, rowCounts };
   } catch (error) {
     if (existsSync(partial)) unlinkSync(partial);
@@ -144,10 +184,11 @@ async function copySnapshot(
     db.pragma('query_only = ON');
     db.exec('BEGIN');
     // The first read opens the read transaction: from here on the copy sees this moment.
-    const rowCounts = countRows(db);
+    db.prepare('SELECT COUNT(*) FROM sqlite_master').get();
     const takenAt = new Date();
     atSnapshot?.(db);
-    await db.backup(partial, { progress: () => pagesPerStep });
+    const rowCounts = await countRowsInSteps(db);
+    await backUpWithFlushes(db, partial, pagesPerStep);
     db.exec('COMMIT');
     return { takenAt, rowCounts };
   } finally {
@@ -155,7 +196,50 @@ async function copySnapshot(
   }
 }
 
-function checkCopy(file: string, expected: Record<string, number>, check: CopyOptions['check']) {
+/** Pages written to the copy between two flushes to disk (16 MiB of 4 KiB pages). */
+const pagesPerFlush = 4096;
+
+/**
+ * `db.backup()` into `partial`, flushing what it wrote so far to disk on the thread pool every
+ * few thousand pages. SQLite syncs the copy when its last step commits, on the main thread:
+ * without the flushes on the way that one sync writes the whole file out and holds the server
+ * for as long (most of 100 ms for 58 MB here, far longer on a slow disk).
+ */
+async function backUpWithFlushes(db: Database.Database, partial: string, pagesPerStep: number) {
+  const handle = await open(partial, 'r');
+  let flushing: Promise<void> = Promise.resolve();
+  let inFlight = false;
+  let copiedAtLastFlush = 0;
+  try {
+    await db.backup(partial, {
+      progress: ({ totalPages, remainingPages }) => {
+        const copied = totalPages - remainingPages;
+        if (!inFlight && copied - copiedAtLastFlush >= pagesPerFlush) {
+          copiedAtLastFlush = copied;
+          inFlight = true;
+          flushing = handle
+            .datasync()
+            .catch(() => undefined) // the final sync by SQLite still comes
+            .finally(() => {
+              inFlight = false;
+            });
+        }
+        return pagesPerStep;
+      },
+    });
+  } finally {
+    await flushing;
+    await handle.close();
+  }
+  await nextTurn();
+}
+
+async function checkCopy(
+  file: string,
+  expected: Record<string, number>,
+  check: CopyOptions['check'],
+) {
+  await nextTurn();
   const copy = new Database(file, { fileMustExist: true });
   try {
     // The source's WAL mode came along in the header; a backup is one file, without a WAL.
@@ -170,7 +254,7 @@ function checkCopy(file: string, expected: Record<string, number>, check: CopyOp
         );
       }
     }
-    const found = countRows(copy);
+    const found = await countRowsInSteps(copy);
     for (const [table, rows] of Object.entries(expected)) {
       if (found[table] !== rows) {
         throw new BackupError(

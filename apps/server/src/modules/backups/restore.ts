@@ -1,6 +1,9 @@
 import {
   chmodSync,
+  closeSync,
   copyFileSync,
+  fsyncSync,
+  openSync,
   constants as fsConstants,
   existsSync,
   linkSync,
@@ -13,7 +16,6 @@ import path from 'node:path';
 import Database from 'better-sqlite3';
 import { databaseFiles } from '../../db/data-source';
 import { compactUtc } from './backup-folder';
-import { syncToDisk } from './database-copy';
 import { checkDatabaseFile, RestoreRefused, type CheckedDatabase } from './database-check';
 
 export { RestoreRefused } from './database-check';
@@ -24,6 +26,23 @@ export interface RestoreResult {
   replacedBy: string | null;
   /** True when the replaced file could not be opened (it was kept as it was, with its WAL). */
   replacedWasDamaged: boolean;
+}
+
+/** Writes a file and its folder's entry to disk (the restore is a command; it may wait). */
+function syncNow(file: string) {
+  for (const [target, mode] of [
+    [file, 'r'],
+    [path.dirname(file), 'r'],
+  ] as const) {
+    const fd = openSync(target, mode);
+    try {
+      fsyncSync(fd);
+    } catch {
+      // some file systems cannot sync a folder
+    } finally {
+      closeSync(fd);
+    }
+  }
 }
 
 function isFile(file: string): boolean {
@@ -124,7 +143,7 @@ export function restoreDatabase(
       const standalone = new Database(incoming, { fileMustExist: true });
       standalone.pragma('journal_mode = DELETE');
       standalone.close();
-      syncToDisk(incoming);
+      syncNow(incoming);
     } catch (error) {
       for (const file of databaseFiles(incoming)) rmSync(file, { force: true });
       throw error;
@@ -150,7 +169,7 @@ export function restoreDatabase(
       for (const file of databaseFiles(databasePath).slice(1)) rmSync(file, { force: true });
       renameSync(incoming, databasePath);
     }
-    syncToDisk(databasePath);
+    syncNow(databasePath);
     return {
       check,
       replacedBy: live === null ? null : replacedBy,
@@ -171,5 +190,5 @@ function keepReplaced(databasePath: string, replacedBy: string) {
   } catch {
     copyFileSync(databasePath, replacedBy, fsConstants.COPYFILE_EXCL);
   }
-  syncToDisk(replacedBy);
+  syncNow(replacedBy);
 }
