@@ -149,7 +149,12 @@ export async function copyDatabase(
   }
   const partial = destination + partialSuffix;
   // Created empty with mode 0600 first: SQLite writes into it and keeps the mode.
-  closeSync(openSync(partial, 'wx', 0o600));
+  try {
+    closeSync(openSync(partial, 'wx', 0o600));
+  } catch (error) {
+    if ((error as { code?: string }).code !== 'EEXIST') throw error;
+    throw new BackupError(`Another backup is writing ${partial}; try again in a moment.`);
+  }
   try {
     const { takenAt, rowCounts } = await copySnapshot(source, partial, pagesPerStep, atSnapshot);
     await checkCopy(partial, rowCounts, check);
