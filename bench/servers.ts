@@ -141,6 +141,8 @@ export async function startApi(databasePath: string): Promise<ChildServer> {
       JWT_SECRET: randomBytes(32).toString('base64url'),
       LOG_LEVEL: 'warn',
       ALERT_INTERVAL_SECONDS: '0',
+      // a scheduled backup of the generated lab would land in the middle of the timings
+      BACKUP_INTERVAL_HOURS: '0',
     },
     origin,
     '/api/health',

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { listQuerySchema } from './list';
 
-/** What the audit trail records (admin actions on users so far). */
+/** What the audit trail records (admin actions on users and backups). */
 export const auditActions = [
   'user.created',
   'user.role_changed',
@@ -10,6 +10,8 @@ export const auditActions = [
   'user.renamed',
   'user.password_set',
   'user.invite_issued',
+  'backup.created',
+  'backup.downloaded',
 ] as const;
 export type AuditAction = (typeof auditActions)[number];
 

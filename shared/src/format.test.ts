@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
+  formatBytes,
   formatDate,
   formatDateTime,
   formatFullPrecision,
@@ -127,5 +128,15 @@ describe('formatDate', () => {
     expect(formatDate(null)).toBe('—');
     expect(formatDate('soon')).toBe('—');
     expect(formatDateTime(undefined)).toBe('—');
+  });
+});
+
+describe('formatBytes', () => {
+  it('when a file size is shown, then it is in binary units with one decimal, bytes below 1 KiB', () => {
+    // common practice, no source: 1 KiB = 1024 bytes (IEC binary prefixes)
+    expect(formatBytes(512)).toBe('512 bytes');
+    expect(formatBytes(520192)).toBe('508.0 KiB');
+    expect(formatBytes(5 * 1024 * 1024 + 104858)).toBe('5.1 MiB');
+    expect(formatBytes(3 * 1024 ** 3)).toBe('3.0 GiB');
   });
 });

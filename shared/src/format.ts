@@ -223,3 +223,21 @@ export function formatDateTime(
   const zone = options.timeZone ?? Intl.DateTimeFormat().resolvedOptions().timeZone;
   return `${text} ${zone}`;
 }
+
+const byteUnits = ['bytes', 'KiB', 'MiB', 'GiB', 'TiB'] as const;
+
+/**
+ * A file size as people read it, in binary units with one decimal: `508.0 KiB`, `1.2 GiB`;
+ * under 1 KiB in bytes (`512 bytes`).
+ */
+export function formatBytes(bytes: number): string {
+  let value = bytes;
+  let unit = 0;
+  while (value >= 1024 && unit < byteUnits.length - 1) {
+    value /= 1024;
+    unit++;
+  }
+  return unit === 0
+    ? `${formatNumber(bytes, 0)} bytes`
+    : `${formatNumber(value, 1)} ${byteUnits[unit]}`;
+}

@@ -35,3 +35,4 @@ export * from './reorder';
 export * from './requests';
 export * from './receiving';
 export * from './purchases';
+export * from './backups';

@@ -13,7 +13,7 @@ export const roleLabels: Record<Role, string> = {
 };
 
 export const roleDescriptions: Record<Role, string> = {
-  admin: 'Everything, including users, roles and settings',
+  admin: 'Everything, including users, roles, settings and backups',
   manager: 'Stock, procedures, suppliers and orders; approves restricted items',
   member: 'Sees stock, plans sessions, records runs from any plan, joins shared orders',
   viewer: 'Read-only: stock, locations, hazards, procedures',
@@ -42,6 +42,8 @@ export const permissions = [
   'outbox.manage',
   /** Run maintenance checks such as the ledger invariant. */
   'maintenance.run',
+  /** List, take and download backups of the whole database (it holds every account). */
+  'backups.manage',
 ] as const;
 export type Permission = (typeof permissions)[number];
 

@@ -21,6 +21,8 @@ import {
 } from './modules/alerts/ledger-notes-worker';
 import { auditRoutes } from './modules/audit/audit.routes';
 import { auditService } from './modules/audit/audit.service';
+import { backupRoutes } from './modules/backups/backups.routes';
+import { backupsService } from './modules/backups/backups.service';
 import { authRoutes } from './modules/auth/auth.routes';
 import { authService } from './modules/auth/auth.service';
 import { sessions } from './modules/auth/session';
@@ -203,6 +205,7 @@ export function createApp({
     ...reorderRoutes(reorderService(store, config)),
     ...requestRoutes(requestsService(store, config)),
     ...receivingRoutes(receivingService(store, alerts, config)),
+    ...backupRoutes(backupsService(store, config)),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;

@@ -33,6 +33,25 @@ describe('configuration', () => {
     expect(config.text.locale).toBe('en-GB');
   });
 
+  it('when no backup setting is given, then daily backups, 14 kept, go to backups beside the database', () => {
+    const { dir, env } = tempEnv();
+    expect(loadConfig(env).backup).toEqual({
+      dir: path.join(dir, 'sub', 'backups'),
+      intervalHours: 24,
+      keep: 14,
+    });
+    const set = loadConfig({
+      ...env,
+      BACKUP_DIR: path.join(dir, 'elsewhere'),
+      BACKUP_INTERVAL_HOURS: '0',
+      BACKUP_KEEP: '3',
+    });
+    expect(set.backup).toEqual({ dir: path.join(dir, 'elsewhere'), intervalHours: 0, keep: 3 });
+    expect(() => loadConfig({ ...env, BACKUP_KEEP: '0' })).toThrow(
+      /BACKUP_KEEP must be a whole number from 1/,
+    );
+  });
+
   it('when a text locale and time zone are given, then server-written dates use them', () => {
     const { env } = tempEnv();
     const config = loadConfig({ ...env, TEXT_LOCALE: 'de-DE', TEXT_TIME_ZONE: 'Europe/Berlin' });

@@ -114,6 +114,12 @@ const envSchema = z.object({
   UPLOAD_MAX_MB: wholeNumber(1, 1024).default(20),
   /** Folder for uploaded files, outside the web root; defaults to `uploads` beside the database. */
   UPLOAD_DIR: z.string().min(1).optional(),
+  /** Folder of the database backups; defaults to `backups` beside the database. */
+  BACKUP_DIR: z.string().min(1).optional(),
+  /** Hours between the server's scheduled backups; 0 turns them off. */
+  BACKUP_INTERVAL_HOURS: wholeNumber(0, 8760).default(24),
+  /** Scheduled backups kept; older ones are deleted (backups taken by hand are kept). */
+  BACKUP_KEEP: wholeNumber(1, 10000).default(14),
   /** Least severe log lines printed. */
   LOG_LEVEL: z
     .enum(['debug', 'info', 'warn', 'error', 'silent'], {
@@ -242,6 +248,16 @@ export interface AlertConfig {
   outboxMaxAttempts: number;
 }
 
+/** Where backups of the database go and how often the server takes them. */
+export interface BackupConfig {
+  /** Folder of the backup files (BACKUP_DIR, else `backups` beside the database). */
+  dir: string;
+  /** Hours between scheduled backups; 0: none. */
+  intervalHours: number;
+  /** Scheduled backups kept. */
+  keep: number;
+}
+
 /** How the server runs: `production` for a real lab, `development` for `npm start` and `npm run dev`. */
 export type RunEnvironment = 'development' | 'production' | 'test';
 
@@ -292,6 +308,7 @@ export interface Config {
   uploadMaxMb: number;
   uploadDir: string;
   logLevel: 'debug' | 'info' | 'warn' | 'error' | 'silent';
+  backup: BackupConfig;
   /** Reorder suggestions: the weeks of draws the use rate is counted over. */
   reorder: { windowWeeks: number };
   mail: MailConfig;
@@ -492,6 +509,13 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       ? resolveFromRoot(values.UPLOAD_DIR)
       : path.join(path.dirname(databasePath), 'uploads'),
     logLevel: values.LOG_LEVEL,
+    backup: {
+      dir: values.BACKUP_DIR
+        ? resolveFromRoot(values.BACKUP_DIR)
+        : path.join(path.dirname(databasePath), 'backups'),
+      intervalHours: values.BACKUP_INTERVAL_HOURS,
+      keep: values.BACKUP_KEEP,
+    },
     reorder: { windowWeeks: values.REORDER_WINDOW_WEEKS },
     mail: { smtp: smtpSettings(values, values.NODE_ENV === 'development'), from: values.MAIL_FROM },
     payments: paymentsSettings(values),

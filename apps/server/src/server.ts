@@ -1,7 +1,8 @@
 import { createServer, type RequestListener, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { DataSource } from 'typeorm';
-import { createApp, ledgerNotesOf, readinessOf } from './app';
+import { createApp, ledgerNotesOf, metricsOf, readinessOf } from './app';
+import { latestBackup } from './modules/backups/backup-folder';
 import type { Config } from './config';
 import { hasDemoAccounts, openDatabase } from './db/database-file';
 import { startOptimizing } from './db/optimize';
@@ -15,6 +16,7 @@ import { alertsService } from './modules/alerts/alerts.service';
 import { createMailTransport } from './modules/alerts/mail-transport';
 import { outboxWorker, type OutboxWorker } from './modules/alerts/outbox-worker';
 import { startingApp } from './modules/health/starting-app';
+import { backupScheduler } from './modules/backups/backup-scheduler';
 
 export interface RunningServer {
   url: string;
@@ -99,6 +101,11 @@ export async function startServer(
   scheduler.start();
   const ledgerNotes = ledgerNotesOf(app);
   ledgerNotes.start();
+  // Scheduled backups of the SQLite file (BACKUP_INTERVAL_HOURS; 0 turns them off).
+  const backups =
+    dataSource.options.type === 'better-sqlite3' ? backupScheduler({ config, logger }) : null;
+  backups?.start();
+  if (backups) metricsOf(app).setLatestBackupProvider(() => latestBackup(config));
   handler = app;
 
   // a person reads development's console; production's stdout is JSON lines for a collector
@@ -120,6 +127,7 @@ export async function startServer(
     async close() {
       readinessOf(app).accepting = false;
       optimizer.stop();
+      await backups?.stop();
       await scheduler.stop();
       await ledgerNotes.stop();
       await worker?.stop();

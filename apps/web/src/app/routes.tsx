@@ -214,6 +214,11 @@ export const routes: RouteObject[] = [
             async () => (await import('../features/users/pages/users-page')).UsersPage,
             'users.manage',
           ),
+          lazyPage(
+            paths.adminBackups,
+            async () => (await import('../features/backups/pages/backups-page')).BackupsPage,
+            'backups.manage',
+          ),
           { path: '*', element: <NotFoundPage /> },
         ],
       },

@@ -63,6 +63,7 @@ export const paths = {
   alertPreferences: '/alerts/preferences',
   adminOutbox: '/admin/outbox',
   adminUsers: '/admin/users',
+  adminBackups: '/admin/backups',
   /** The signed-in person's own account: change password. */
   account: '/account',
 } as const;

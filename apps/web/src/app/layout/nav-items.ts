@@ -3,6 +3,7 @@ import { can } from '@lotwise/shared';
 import {
   Bell,
   ClipboardList,
+  DatabaseBackup,
   FlaskConical,
   FlaskRound,
   Mail,
@@ -78,6 +79,13 @@ export const navItems: readonly NavItem[] = [
     to: paths.adminOutbox,
     permission: 'outbox.manage',
     icon: Mail,
+    section: 'admin',
+  },
+  {
+    label: 'Backups',
+    to: paths.adminBackups,
+    permission: 'backups.manage',
+    icon: DatabaseBackup,
     section: 'admin',
   },
 ];

@@ -36,7 +36,7 @@ describe('SideNav', () => {
     expect(screen.getByText('Purchasing')).toBeInTheDocument();
   });
 
-  it('when an admin signs in, then People and Outbox under Admin show too', () => {
+  it('when an admin signs in, then People, Outbox and Backups under Admin show too', () => {
     expect(navLabels('admin')).toEqual([
       'Chemicals',
       'Stock',
@@ -49,6 +49,7 @@ describe('SideNav', () => {
       'Suppliers',
       'People',
       'Outbox',
+      'Backups',
     ]);
     expect(screen.getByText('Admin')).toBeInTheDocument();
   });
