@@ -207,6 +207,15 @@ describe('the development mail inbox', () => {
       );
     }
   });
+
+  it('when OUTBOX_LEASE_SECONDS is set, then a sender holds its claim that long; under 5 s is refused', () => {
+    const { env } = tempEnv();
+    expect(loadConfig(env).alerts.outboxLeaseSeconds).toBe(45);
+    expect(loadConfig({ ...env, OUTBOX_LEASE_SECONDS: '120' }).alerts.outboxLeaseSeconds).toBe(120);
+    expect(() => loadConfig({ ...env, OUTBOX_LEASE_SECONDS: '2' })).toThrow(
+      /^Invalid configuration: OUTBOX_LEASE_SECONDS /,
+    );
+  });
 });
 
 describe('payments', () => {

@@ -141,6 +141,8 @@ const envSchema = z.object({
   OUTBOX_INTERVAL_SECONDS: wholeNumber(0, 86400).default(10),
   /** Send attempts before a message is marked failed (an admin can still resend it). */
   OUTBOX_MAX_ATTEMPTS: wholeNumber(1, 100).default(10),
+  /** Seconds a sender's claim on a message holds; a stopped sender's messages go out again after it. */
+  OUTBOX_LEASE_SECONDS: wholeNumber(5, 3600).default(45),
   /** The lab's or club's name as receipts and e-mails about shared orders print it. */
   LAB_NAME: z.string().trim().min(1, 'must not be empty').max(120).default('Lotwise lab'),
   /** The lab's one currency (ISO 4217): every price, fee and payment is in it, in minor units. */
@@ -229,6 +231,8 @@ export interface AlertConfig {
   digestHour: number;
   outboxIntervalSeconds: number;
   outboxMaxAttempts: number;
+  /** Seconds a sender's claim on a message holds without renewal (OUTBOX_LEASE_SECONDS). */
+  outboxLeaseSeconds: number;
 }
 
 /** How the server runs: `production` for a real lab, `development` for `npm start` and `npm run dev`. */
@@ -486,6 +490,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       digestHour: values.ALERT_DIGEST_HOUR,
       outboxIntervalSeconds: values.OUTBOX_INTERVAL_SECONDS,
       outboxMaxAttempts: values.OUTBOX_MAX_ATTEMPTS,
+      outboxLeaseSeconds: values.OUTBOX_LEASE_SECONDS,
     },
     currency: values.CURRENCY,
     labName: values.LAB_NAME,

@@ -224,6 +224,42 @@ describe('outbox worker', () => {
     close();
   });
 
+  it('when a sender dies after the mail server accepted an e-mail but before recording it, then the copy sent after the lease carries the same Message-ID', async () => {
+    const start = new Date('2026-03-05T09:00:00.000Z');
+    const id = await notifyOne(admin, start, 'Order #14 is open');
+    const other = await notifyOne(admin, start, 'Order #15 is open');
+    const before = sink.messages.length;
+    const accepted = workerAt(start);
+    const real = createMailTransport({ kind: 'url', url: `smtp://127.0.0.1:${sink.port}` })!;
+    // Delivered, then the process is gone before the database hears of it.
+    const dies = outboxWorker({
+      store: testContext().store,
+      config: testContext().config,
+      clock: () => start,
+      batchSize: 1,
+      transport: { sendMail: (mail) => real.sendMail(mail).then(() => new Promise(() => {})) },
+    });
+    void dies.runOnce();
+    await vi.waitFor(() => expect(sink.messages.length).toBe(before + 1));
+    expect((await row(id)).status).toBe('sending');
+
+    accepted.advance(46); // the lease ran out
+    await accepted.worker.runOnce();
+    const copies = sink.messages.slice(before).filter((m) => m.subject === 'Order #14 is open');
+    expect(copies).toHaveLength(2);
+    expect(copies[0]!.messageId).toMatch(
+      /^<lotwise\.outbox\.\d+\.[0-9a-z]+@lotwise\.example\.test>$/,
+    );
+    expect(copies[1]!.messageId).toBe(copies[0]!.messageId);
+    const second = sink.messages.slice(before).find((m) => m.subject === 'Order #15 is open');
+    expect(second?.messageId).toMatch(/^<lotwise\.outbox\./);
+    expect(second?.messageId).not.toBe(copies[0]!.messageId);
+    expect((await row(id)).status).toBe('sent');
+    expect((await row(other)).status).toBe('sent');
+    accepted.close();
+    real.close();
+  });
+
   it('when two senders run at the same time, then each message is claimed by one of them and sent once', async () => {
     const start = new Date('2026-03-06T09:00:00.000Z');
     const subjects = Array.from({ length: 6 }, (_, i) => `Order #${20 + i} is funded`);
