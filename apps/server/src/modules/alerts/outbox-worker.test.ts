@@ -260,6 +260,41 @@ describe('outbox worker', () => {
     real.close();
   });
 
+  it('when an e-mail takes longer to send than the lease, then its sender keeps the claim and no other sender sends it again', async () => {
+    const id = await notifyOne(admin, new Date(), 'Order #16 is open');
+    const { store, config } = testContext();
+    const real = createMailTransport({ kind: 'url', url: `smtp://127.0.0.1:${sink.port}` })!;
+    let release = () => {};
+    const slow = outboxWorker({
+      store,
+      config,
+      leaseSeconds: 1,
+      transport: {
+        async sendMail(mail) {
+          if (mail.subject === 'Order #16 is open') {
+            await new Promise<void>((resolve) => (release = resolve));
+          }
+          return real.sendMail(mail);
+        },
+      },
+    });
+    const before = sink.messages.length;
+    const sending = slow.runOnce();
+    await vi.waitFor(async () => expect((await row(id)).status).toBe('sending'));
+    const holder = (await row(id)).claimed_by;
+    await new Promise((resolve) => setTimeout(resolve, 1600)); // past the first lease
+
+    const other = outboxWorker({ store, config, leaseSeconds: 1, transport: real });
+    await other.runOnce();
+    expect((await row(id)).claimed_by).toBe(holder);
+    release();
+    await sending;
+    const copies = sink.messages.slice(before).filter((m) => m.subject === 'Order #16 is open');
+    expect(copies).toHaveLength(1);
+    expect((await row(id)).status).toBe('sent');
+    real.close();
+  });
+
   it('when two senders run at the same time, then each message is claimed by one of them and sent once', async () => {
     const start = new Date('2026-03-06T09:00:00.000Z');
     const subjects = Array.from({ length: 6 }, (_, i) => `Order #${20 + i} is funded`);

@@ -69,8 +69,9 @@ export interface OutboxWorkerOptions {
   batchSize?: number;
   /**
    * How long a claim holds without renewal (default OUTBOX_LEASE_SECONDS, 45 s). A sender
-   * renews it before each e-mail; when it stops (crash, restart) the lease runs out and the
-   * next run — within the send interval — takes the message again.
+   * renews it before each e-mail and while the e-mail is being sent; when it stops (crash,
+   * restart) the lease runs out and the next run — within the send interval — takes the
+   * message again.
    */
   leaseSeconds?: number;
 }
@@ -132,6 +133,8 @@ export function outboxWorker({
   leaseSeconds = config.alerts.outboxLeaseSeconds,
 }: OutboxWorkerOptions) {
   const leaseFrom = (at: Date) => new Date(at.getTime() + leaseSeconds * 1000).toISOString();
+  /** While an e-mail is being sent, its claim is renewed three times per lease. */
+  const renewEveryMs = (leaseSeconds * 1000) / 3;
   let timer: NodeJS.Timeout | null = null;
   let running: Promise<OutboxRunResult> | null = null;
   let again = false;
@@ -253,6 +256,19 @@ export function outboxWorker({
         logger.warn('Another sender took over these e-mails; not sending them here', { ids });
         continue;
       }
+      // A slow mail server must not let the lease run out while the e-mail is on its way:
+      // another sender would take the message and send it a second time.
+      const keep = setInterval(() => {
+        store
+          .transaction((repos) => repos.alerts.renewClaim(ids, claimId, leaseFrom(clock())))
+          .catch((error: unknown) =>
+            logger.warn('Could not renew the claim on e-mails being sent', {
+              ids,
+              error: error instanceof Error ? error.message : String(error),
+            }),
+          );
+      }, renewEveryMs);
+      keep.unref();
       try {
         await transport.sendMail(compose(rows));
       } catch (error) {
@@ -284,6 +300,8 @@ export function outboxWorker({
           error: message,
         });
         continue;
+      } finally {
+        clearInterval(keep);
       }
       const at = clock().toISOString();
       await store.transaction(async (repos) => {
