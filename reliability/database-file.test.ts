@@ -19,15 +19,19 @@ import { freshDatabase, onSqlite, removeDatabases, scratchFolder } from './lib/d
 import { reportFigure } from './lib/figures';
 import { LotwiseServer, type Exit } from './lib/launcher';
 
+const hashOf = (file: string) => createHash('sha256').update(readFileSync(file)).digest('hex');
+
 /** Bytes of every file in a folder (and one level below), to show nothing was written. */
 function snapshot(folder: string): Record<string, string> {
   const files: Record<string, string> = {};
   for (const name of readdirSync(folder)) {
     const file = path.join(folder, name);
     const stats = statSync(file);
-    files[name] = stats.isFile()
-      ? createHash('sha256').update(readFileSync(file)).digest('hex')
-      : `folder ${readdirSync(file).join(',')}`;
+    try {
+      files[name] = stats.isFile() ? hashOf(file) : `folder ${readdirSync(file).join(',')}`;
+    } catch (error) {
+      files[name] = `unreadable (${(error as NodeJS.ErrnoException).code})`;
+    }
   }
   return files;
 }
@@ -160,7 +164,7 @@ describe.skipIf(!onSqlite)('database files in production', () => {
     for (const test of cases) {
       const folder = scratchFolder('file');
       const file = test.prepare(folder, good);
-      const before = asRoot && test.unprivileged ? null : snapshot(folder);
+      const before = snapshot(folder);
       const server = await LotwiseServer.prepare({
         name: `file-${test.name}`,
         database: { kind: 'sqlite', path: file, folder, env: { DATABASE_PATH: file } },
@@ -168,14 +172,20 @@ describe.skipIf(!onSqlite)('database files in production', () => {
         ...(asRoot && test.unprivileged ? { uid: nobody, gid: nobody } : {}),
       });
       const exit = await server.runToExit(30_000);
-      if (asRoot && test.unprivileged) chmodSync(path.dirname(file), 0o755);
-      const after = before === null ? null : snapshot(folder);
+      const after = snapshot(folder);
+      if (test.unprivileged) {
+        // Readable again, so the comparison below and the clean-up can look inside.
+        chmodSync(path.dirname(file), 0o755);
+        chmodSync(file, 0o644);
+      }
+      // An unreadable copy of the good file must still be that file, byte for byte.
+      const bytesKept = !test.unprivileged || hashOf(file) === hashOf(good);
       const result = {
         name: test.name,
         exit,
         named: exit.output.includes(file),
         said: test.says.test(exit.output),
-        same: before === null || JSON.stringify(after) === JSON.stringify(before),
+        same: JSON.stringify(after) === JSON.stringify(before) && bytesKept,
       };
       results.push(result);
       if (exit.code === 0 || exit.code === null || !result.named || !result.said || !result.same) {
