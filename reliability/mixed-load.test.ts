@@ -1,3 +1,4 @@
+import { existsSync } from 'node:fs';
 import { afterAll, expect, it } from 'vitest';
 import { ApiClient, demoUsers, ledgerCheck, type Answer } from './lib/api';
 import { freshDatabase, onSqlite, removeDatabases } from './lib/database';
@@ -107,7 +108,8 @@ it('when 50 clients read and write at once for a bounded time, then no answer is
   await Promise.all(Array.from({ length: clients }, (_, c) => client(c)));
   const elapsed = (performance.now() - started) / 1000;
   const check = await ledgerCheck(admin);
-  await server.stop();
+  const stopped = await server.stop();
+  const walLeft = database.kind === 'sqlite' && existsSync(`${database.path}-wal`);
   const report = await inspectDatabase(database);
 
   const count = (test: (a: { kind: Kind; answer: Answer }) => boolean) =>
@@ -127,7 +129,7 @@ it('when 50 clients read and write at once for a bounded time, then no answer is
 
   reportFigure(
     'mixed-load',
-    `${clients} clients for ${seconds} s, ${Math.round((100 * (answers.length - writes)) / answers.length)} % reads / ${Math.round((100 * writes) / answers.length)} % writes: ${answers.length} requests (${Math.round(answers.length / elapsed)}/s; ${count((a) => a.kind === 'draw')} draws, ${count((a) => a.kind === 'run-record')} runs recorded), ${serverErrors.length} 5xx or dropped, ${refused} 4xx; p50 ${round(percentile(all, 50))} ms, p99 ${round(percentile(all, 99))} ms (reads p99 ${round(percentile(readMs, 99))} ms, writes p99 ${round(percentile(writeMs, 99))} ms); ledger check ${check.ok ? 'ok' : 'FAILED'}${onSqlite ? `, integrity ${report.integrityProblems.length ? 'FAILED' : 'ok'}` : ''}`,
+    `${clients} clients for ${seconds} s, ${Math.round((100 * (answers.length - writes)) / answers.length)} % reads / ${Math.round((100 * writes) / answers.length)} % writes: ${answers.length} requests (${Math.round(answers.length / elapsed)}/s; ${count((a) => a.kind === 'draw')} draws, ${count((a) => a.kind === 'run-record')} runs recorded), ${serverErrors.length} 5xx or dropped, ${refused} 4xx; p50 ${round(percentile(all, 50))} ms, p99 ${round(percentile(all, 99))} ms (reads p99 ${round(percentile(readMs, 99))} ms, writes p99 ${round(percentile(writeMs, 99))} ms); ledger check ${check.ok ? 'ok' : 'FAILED'}${onSqlite ? `, integrity ${report.integrityProblems.length ? 'FAILED' : 'ok'}` : ''}; SIGTERM: exit ${stopped.code ?? stopped.signal}${onSqlite ? (walLeft ? ', write-ahead log LEFT' : ', file closed cleanly') : ''}`,
     {
       clients,
       seconds,
@@ -151,6 +153,8 @@ it('when 50 clients read and write at once for a bounded time, then no answer is
       .map((a) => [a.kind, a.answer.status, a.answer.body]),
   ).toEqual([]);
   expect(check.ok).toBe(true);
+  expect(stopped).toEqual({ code: 0, signal: null });
+  expect(walLeft).toBe(false);
   expect(report.integrityProblems).toEqual([]);
   expect(report.foreignKeyProblems).toBe(0);
   expect(report.balanceMismatches).toBe(0);
