@@ -1,18 +1,13 @@
-import { afterAll, expect, it } from 'vitest';
+import { expect, it } from 'vitest';
 import { ApiClient, demoUsers, ledgerCheck } from './lib/api';
-import { freshDatabase, onSqlite, removeDatabases } from './lib/database';
+import { onSqlite } from './lib/database';
 import { reportFigure } from './lib/figures';
 import { inspectDatabase, openProbe } from './lib/inspect';
 import { labMaker } from './lib/lab';
-import { LotwiseServer } from './lib/launcher';
+import { serverForThisFile } from './lib/suite';
 
-const database = freshDatabase('import');
-let server: LotwiseServer | null = null;
-
-afterAll(async () => {
-  await server?.stop();
-  removeDatabases();
-});
+const lotwise = serverForThisFile('import');
+const { database } = lotwise;
 
 const rows = 20_000;
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
@@ -78,7 +73,7 @@ async function until(
 }
 
 it('when the server is killed while a 20,000-row stock import commits, then nothing of it remains and the import shows as failed after the restart', async () => {
-  server = await LotwiseServer.start({ name: 'import', database });
+  const server = await lotwise.start();
   const manager = await ApiClient.signIn(server.origin, demoUsers.manager);
   const admin = await ApiClient.signIn(server.origin, demoUsers.admin);
   const lab = labMaker(manager);

@@ -1,18 +1,13 @@
-import { afterAll, expect, it } from 'vitest';
+import { expect, it } from 'vitest';
 import { ApiClient, demoUsers, ledgerCheck, type Answer } from './lib/api';
-import { freshDatabase, onSqlite, removeDatabases } from './lib/database';
+import { onSqlite } from './lib/database';
 import { reportFigure } from './lib/figures';
 import { inspectDatabase, openProbe, type DatabaseReport } from './lib/inspect';
 import { labMaker } from './lib/lab';
-import { LotwiseServer } from './lib/launcher';
+import { serverForThisFile } from './lib/suite';
 
-const database = freshDatabase('kills');
-let server: LotwiseServer | null = null;
-
-afterAll(async () => {
-  await server?.stop();
-  removeDatabases();
-});
+const lotwise = serverForThisFile('kills');
+const { database } = lotwise;
 
 const rounds = 5;
 const clients = 6;
@@ -103,7 +98,7 @@ const absent = (run: RunParts) =>
   0;
 
 it('when the server is killed with SIGKILL five times while runs and draws are recorded, then every run is whole or absent and nothing acknowledged is lost', async () => {
-  server = await LotwiseServer.start({ name: 'kills', database });
+  const server = await lotwise.start();
   const origin = server.origin;
   const manager = await ApiClient.signIn(origin, demoUsers.manager);
   const admin = await ApiClient.signIn(origin, demoUsers.admin);

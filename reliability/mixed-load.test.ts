@@ -1,19 +1,14 @@
 import { existsSync } from 'node:fs';
-import { afterAll, expect, it } from 'vitest';
+import { expect, it } from 'vitest';
 import { ApiClient, demoUsers, ledgerCheck, type Answer } from './lib/api';
-import { freshDatabase, onSqlite, removeDatabases } from './lib/database';
+import { onSqlite } from './lib/database';
 import { reportFigure } from './lib/figures';
 import { inspectDatabase } from './lib/inspect';
 import { labMaker } from './lib/lab';
-import { LotwiseServer } from './lib/launcher';
+import { serverForThisFile } from './lib/suite';
 
-const database = freshDatabase('load');
-let server: LotwiseServer | null = null;
-
-afterAll(async () => {
-  await server?.stop();
-  removeDatabases();
-});
+const lotwise = serverForThisFile('load');
+const { database } = lotwise;
 
 const clients = 50;
 const seconds = Number(process.env.RELIABILITY_LOAD_SECONDS ?? 20);
@@ -27,7 +22,7 @@ function percentile(sorted: number[], p: number): number {
 type Kind = 'read' | 'draw' | 'run-open' | 'run-record';
 
 it('when 50 clients read and write at once for a bounded time, then no answer is a server error and the ledger adds up', async () => {
-  server = await LotwiseServer.start({ name: 'load', database });
+  const server = await lotwise.start();
   const origin = server.origin;
   const manager = await ApiClient.signIn(origin, demoUsers.manager);
   const admin = await ApiClient.signIn(origin, demoUsers.admin);

@@ -1,20 +1,16 @@
 import { afterAll, expect, it } from 'vitest';
 import { ApiClient, demoUsers } from './lib/api';
-import { freshDatabase, removeDatabases } from './lib/database';
 import { reportFigure } from './lib/figures';
 import { labMaker } from './lib/lab';
-import { LotwiseServer } from './lib/launcher';
+import { serverForThisFile } from './lib/suite';
 import { freePort } from './lib/ports';
 import { SmtpSink } from './lib/smtp-sink';
 
-const database = freshDatabase('outbox');
-let server: LotwiseServer | null = null;
+const lotwise = serverForThisFile('outbox');
 let sink: SmtpSink | null = null;
 
 afterAll(async () => {
-  await server?.stop();
   await sink?.close();
-  removeDatabases();
 });
 
 const chemicals = 30;
@@ -54,14 +50,10 @@ const rowOf = (messageId: string) => Number(/^<lotwise\.outbox\.(\d+)\./.exec(me
 
 it('when the mail server is down, then up, and the sender is killed mid-batch, then every e-mail is delivered exactly once (counted per Message-ID)', async () => {
   const smtpPort = await freePort(); // nobody listens there yet: the mail server is down
-  server = await LotwiseServer.start({
-    name: 'outbox',
-    database,
-    env: {
-      SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
-      OUTBOX_INTERVAL_SECONDS: '1',
-      OUTBOX_LEASE_SECONDS: '5',
-    },
+  const server = await lotwise.start({
+    SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
+    OUTBOX_INTERVAL_SECONDS: '1',
+    OUTBOX_LEASE_SECONDS: '5',
   });
   const admin = await ApiClient.signIn(server.origin, demoUsers.admin);
   const manager = await ApiClient.signIn(server.origin, demoUsers.manager);
@@ -104,7 +96,7 @@ it('when the mail server is down, then up, and the sender is killed mid-batch, t
   let killedAt = 0;
   sink.hooks.before = async (n) => {
     if (n !== killBeforeAcceptAt) return true;
-    await server!.kill('SIGKILL');
+    await server.kill('SIGKILL');
     killedAt = n;
     return false;
   };
@@ -125,7 +117,7 @@ it('when the mail server is down, then up, and the sender is killed mid-batch, t
   sink.hooks.after = (n) => {
     if (n !== windowFrom) return;
     windowKillAt = n;
-    void server!.kill('SIGKILL');
+    void server.kill('SIGKILL');
   };
   await server.restart();
   await waitFor(

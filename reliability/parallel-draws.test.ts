@@ -1,18 +1,13 @@
-import { afterAll, expect, it } from 'vitest';
+import { expect, it } from 'vitest';
 import { ApiClient, demoUsers, ledgerCheck } from './lib/api';
-import { freshDatabase, onSqlite, removeDatabases } from './lib/database';
+import { onSqlite } from './lib/database';
 import { reportFigure } from './lib/figures';
 import { inspectDatabase } from './lib/inspect';
 import { labMaker } from './lib/lab';
-import { LotwiseServer } from './lib/launcher';
+import { serverForThisFile } from './lib/suite';
 
-const database = freshDatabase('draws');
-let server: LotwiseServer | null = null;
-
-afterAll(async () => {
-  await server?.stop();
-  removeDatabases();
-});
+const lotwise = serverForThisFile('draws');
+const { database } = lotwise;
 
 const draws = 200;
 const amount = 0.15; // g per draw
@@ -20,7 +15,7 @@ const fits = 137; // the container holds exactly 137 draws
 const micro = (grams: number) => Math.round(grams * 1_000_000);
 
 it('when 200 draws from five people hit one container at once, then only what the balance allows is drawn, the rest is refused with 409 and the ledger adds up', async () => {
-  server = await LotwiseServer.start({ name: 'draws', database });
+  const server = await lotwise.start();
   const origin = server.origin;
   const manager = await ApiClient.signIn(origin, demoUsers.manager);
   const people = [
