@@ -21,10 +21,18 @@ const folders: string[] = [];
 
 /** A fresh database for one test: a new SQLite file (not created yet), or the configured URL. */
 export function freshDatabase(name: string): ReliabilityDatabase {
-  if (databaseUrl) return { kind: 'url', url: databaseUrl, env: { DATABASE_URL: databaseUrl } };
   const folder = mkdtempSync(path.join(tmpdir(), `lotwise-reliability-${name}-`));
   folders.push(folder);
   const file = path.join(folder, 'lotwise.sqlite');
+  if (databaseUrl) {
+    // DATABASE_PATH too, pointing at a throwaway file: a server that does not read
+    // DATABASE_URL then fails its checks here instead of using the repository's data/ file.
+    return {
+      kind: 'url',
+      url: databaseUrl,
+      env: { DATABASE_URL: databaseUrl, DATABASE_PATH: file },
+    };
+  }
   return { kind: 'sqlite', path: file, folder, env: { DATABASE_PATH: file } };
 }
 
