@@ -162,6 +162,19 @@ describe('configuration', () => {
     expect(attempt).not.toThrow(/secret/);
   });
 
+  it('when the database path cannot be looked at, then loading stops naming the file and never calls it missing', () => {
+    const { dir } = tempEnv();
+    writeFileSync(path.join(dir, 'not-a-folder'), 'a file where a folder should be');
+    const file = path.join(dir, 'not-a-folder', 'lotwise.sqlite');
+    for (const NODE_ENV of ['production', 'development']) {
+      const attempt = () => loadConfig({ NODE_ENV, DATABASE_PATH: file });
+      expect(attempt).toThrow(StartupError);
+      expect(attempt).toThrow(`The database file ${file} cannot be read`);
+      expect(attempt).toThrow(/a part of the path is a file, not a folder \(ENOTDIR\)/);
+      expect(attempt).not.toThrow(/no database file|restore/i);
+    }
+  });
+
   it('when SEED_DEMO is true in production, then loading stops naming SEED_DEMO', () => {
     const { env } = tempEnv({ NODE_ENV: 'production', DATABASE_INIT: 'true', SEED_DEMO: 'true' });
     expect(() => loadConfig(env)).toThrow(/^Invalid configuration: SEED_DEMO /);
@@ -239,6 +252,15 @@ describe('the development mail inbox', () => {
         /^Invalid configuration: REORDER_WINDOW_WEEKS /,
       );
     }
+  });
+
+  it('when OUTBOX_LEASE_SECONDS is set, then a sender holds its claim that long; under 5 s is refused', () => {
+    const { env } = tempEnv();
+    expect(loadConfig(env).alerts.outboxLeaseSeconds).toBe(45);
+    expect(loadConfig({ ...env, OUTBOX_LEASE_SECONDS: '120' }).alerts.outboxLeaseSeconds).toBe(120);
+    expect(() => loadConfig({ ...env, OUTBOX_LEASE_SECONDS: '2' })).toThrow(
+      /^Invalid configuration: OUTBOX_LEASE_SECONDS /,
+    );
   });
 });
 

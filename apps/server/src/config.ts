@@ -158,6 +158,8 @@ const envSchema = z.object({
   OUTBOX_INTERVAL_SECONDS: wholeNumber(0, 86400).default(10),
   /** Send attempts before a message is marked failed (an admin can still resend it). */
   OUTBOX_MAX_ATTEMPTS: wholeNumber(1, 100).default(10),
+  /** Seconds a sender's claim on a message holds; a stopped sender's messages go out again after it. */
+  OUTBOX_LEASE_SECONDS: wholeNumber(5, 3600).default(45),
   /** The lab's or club's name as receipts and e-mails about shared orders print it. */
   LAB_NAME: z.string().trim().min(1, 'must not be empty').max(120).default('Lotwise lab'),
   /** The lab's one currency (ISO 4217): every price, fee and payment is in it, in minor units. */
@@ -246,6 +248,8 @@ export interface AlertConfig {
   digestHour: number;
   outboxIntervalSeconds: number;
   outboxMaxAttempts: number;
+  /** Seconds a sender's claim on a message holds without renewal (OUTBOX_LEASE_SECONDS). */
+  outboxLeaseSeconds: number;
 }
 
 /** Where backups of the database go and how often the server takes them. */
@@ -333,12 +337,42 @@ export class ConfigError extends StartupError {
 }
 
 /**
+ * The size of what is at the database path, or null when nothing is there. A path this user
+ * cannot look at (a folder above it that may not be entered, a file where a folder should be)
+ * stops the start naming the file: the file may well hold the lab's data, so it is never taken
+ * for missing (which would advise restoring a backup over it).
+ */
+export function databaseFileSize(databasePath: string): number | null {
+  try {
+    return statSync(databasePath).size;
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code ?? 'an error';
+    if (code === 'ENOENT') return null;
+    throw new StartupError(unreachableDatabaseMessage(databasePath, code));
+  }
+}
+
+/** Why the database file cannot be opened by this user, and what to check. */
+export function unreachableDatabaseMessage(databasePath: string, code: string): string {
+  const why =
+    code === 'EACCES' || code === 'EPERM'
+      ? 'permission denied'
+      : code === 'ENOTDIR'
+        ? 'a part of the path is a file, not a folder'
+        : 'the system refused to look at it';
+  return (
+    `The database file ${databasePath} cannot be read: ${why} (${code}).\n` +
+    'Lotwise changed nothing. Check that the user running Lotwise may read and write the file and enter every folder above it (or point DATABASE_PATH at the right file), then start again.'
+  );
+}
+
+/**
  * In production a missing or empty database file is not replaced by a new one unless this
  * start was told to (`--init`, DATABASE_INIT=true): a lost volume must be noticed. Checked
  * before anything is written beside the database.
  */
 function refuseNewDatabaseFile(databasePath: string): void {
-  const size = existsSync(databasePath) ? statSync(databasePath).size : null;
+  const size = databaseFileSize(databasePath);
   if (size !== null && size > 0) return;
   const found = size === null ? 'There is no database file at' : 'The database file is empty:';
   throw new StartupError(
@@ -478,7 +512,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const databasePath = resolveFromRoot(values.DATABASE_PATH);
   const databaseInit = !production || values.DATABASE_INIT;
   const databaseUrl = values.DATABASE_URL ?? null;
-  if (!databaseInit && databaseUrl === null) refuseNewDatabaseFile(databasePath);
+  if (databaseUrl === null) {
+    if (!databaseInit) refuseNewDatabaseFile(databasePath);
+    else databaseFileSize(databasePath);
+  }
   mkdirSync(path.dirname(databasePath), { recursive: true });
   return {
     env: values.NODE_ENV,
@@ -526,6 +563,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       digestHour: values.ALERT_DIGEST_HOUR,
       outboxIntervalSeconds: values.OUTBOX_INTERVAL_SECONDS,
       outboxMaxAttempts: values.OUTBOX_MAX_ATTEMPTS,
+      outboxLeaseSeconds: values.OUTBOX_LEASE_SECONDS,
     },
     currency: values.CURRENCY,
     labName: values.LAB_NAME,

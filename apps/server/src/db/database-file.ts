@@ -1,6 +1,6 @@
-import { existsSync, statSync } from 'node:fs';
+import { accessSync, constants, existsSync, statSync } from 'node:fs';
 import type { DataSource } from 'typeorm';
-import { StartupError, type Config } from '../config';
+import { StartupError, databaseFileSize, unreachableDatabaseMessage, type Config } from '../config';
 import type { Logger } from '../lib/logger';
 import { createDataSource } from './data-source';
 import { advisoryLocks, onPostgres, redactedUrl } from './postgres';
@@ -37,12 +37,18 @@ const restoreAdvice =
   'Stop here and restore the file from your latest backup (or point DATABASE_PATH at the right file), then start Lotwise again.';
 
 function fileState(databasePath: string): DatabaseFileState {
-  if (!existsSync(databasePath)) return 'missing';
+  if (databaseFileSize(databasePath) === null) return 'missing';
   const stats = statSync(databasePath);
   if (!stats.isFile()) {
     throw new StartupError(
       `The database path ${databasePath} is not a file. Point DATABASE_PATH at the Lotwise database file.`,
     );
+  }
+  try {
+    accessSync(databasePath, constants.R_OK | constants.W_OK);
+  } catch (error) {
+    const code = (error as NodeJS.ErrnoException).code ?? 'an error';
+    throw new StartupError(unreachableDatabaseMessage(databasePath, code));
   }
   return stats.size === 0 ? 'empty' : 'present';
 }

@@ -1,98 +1,22 @@
 import { safetyDeferral } from '@lotwise/shared';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { signedIn, stockFactory } from '../../test/factories';
-import { alertRulesSettled, testConfig, testContext } from '../../test/harness';
-import { startSmtpSink, type SmtpSink } from '../../test/smtp-sink';
-import { alertsService, nextDigestAt } from './alerts.service';
-import { createMailTransport } from './mail-transport';
-import { outboxWorker } from './outbox-worker';
+import { alertRulesSettled, testContext } from '../../test/harness';
+import { startSmtpSink } from '../../test/smtp-sink';
+import { nextDigestAt } from './alerts.service';
+import { outboxTestKit } from './outbox-test-kit';
 
-type Person = Awaited<ReturnType<typeof signedIn>>;
-let sink: SmtpSink;
-let admin: Person;
-let manager: Person;
-
-beforeAll(async () => {
-  sink = await startSmtpSink();
-  admin = await signedIn('admin');
-  manager = await signedIn('manager');
-});
-afterAll(async () => {
-  await sink.close();
-});
-
-/** A worker on the test database sending to the sink, on a clock the test moves. */
-function workerAt(start: Date, env: NodeJS.ProcessEnv = {}, port = sink.port) {
-  let now = start;
-  const config = { ...testContext().config, ...pickAlerts(env) };
-  const transport = createMailTransport({ kind: 'url', url: `smtp://127.0.0.1:${port}` })!;
-  const worker = outboxWorker({ store: testContext().store, transport, config, clock: () => now });
-  return {
-    worker,
-    advance(seconds: number) {
-      now = new Date(now.getTime() + seconds * 1000);
-    },
-    now: () => now,
-    close: () => transport.close(),
-  };
-}
-
-function pickAlerts(env: NodeJS.ProcessEnv) {
-  const config = testConfig(testContext().dir, env);
-  return { alerts: config.alerts };
-}
-
-async function row(id: number) {
-  const [found] = await testContext().dataSource.query('SELECT * FROM outbox WHERE id = ?', [id]);
-  return found as {
-    status: string;
-    attempts: number;
-    last_error: string | null;
-    next_attempt_at: string | null;
-    sent_at: string | null;
-    claimed_by: string | null;
-    lease_until: string | null;
-  };
-}
-
-/** The failure notices written about outbox message `id`. */
-async function notices(id: number) {
-  return (await testContext().dataSource.query(
-    'SELECT recipient_email, kind, status FROM outbox WHERE dedup_key = ? ORDER BY id',
-    [`outbox-failed:${id}`],
-  )) as { recipient_email: string; kind: string; status: string }[];
-}
-
-/** Queues one message to `person` through the general message API, as an order would. */
-async function notifyOne(person: Person, at: Date, subject = 'Shared order #7 is open') {
-  const { store, config, dataSource } = testContext();
-  const alerts = alertsService(store, config);
-  await store.transaction((repos) =>
-    alerts.notify(
-      repos,
-      {
-        kind: 'order-opened',
-        recipients: [person.user.id],
-        subject,
-        text: 'Claim your share of the sodium chloride by Friday.',
-        link: '/orders/7',
-        dedupKey: `order-opened:7:${subject}`,
-      },
-      at,
-    ),
-  );
-  const [last] = await dataSource.query('SELECT MAX(id) AS id FROM outbox');
-  return Number(last.id);
-}
+const kit = outboxTestKit();
+const { workerAt, row, notices, notifyOne } = kit;
 
 describe('outbox worker', () => {
   it('when the mail server refuses twice (451), then the message is retried with back-off and delivered on the third attempt', async () => {
     const start = new Date('2026-03-02T09:00:00.000Z');
-    const id = await notifyOne(admin, start);
+    const id = await notifyOne(kit.admin, start);
     const { worker, advance, now, close } = workerAt(start);
-    sink.refuseNext(2);
-    const before = sink.messages.length;
+    kit.sink.refuseNext(2);
+    const before = kit.sink.messages.length;
 
     expect(await worker.runOnce()).toMatchObject({ sent: 0, retrying: 1 });
     let state = await row(id);
@@ -102,7 +26,7 @@ describe('outbox worker', () => {
 
     advance(10); // not due yet
     expect(await worker.runOnce()).toMatchObject({ sent: 0, retrying: 0 });
-    expect(sink.attempts()).toBe(1);
+    expect(kit.sink.attempts()).toBe(1);
 
     advance(21);
     expect(await worker.runOnce()).toMatchObject({ retrying: 1 });
@@ -115,12 +39,12 @@ describe('outbox worker', () => {
     state = await row(id);
     expect(state).toMatchObject({ status: 'sent', attempts: 3, next_attempt_at: null });
     expect(state.sent_at).toBe(now().toISOString());
-    expect(sink.attempts()).toBe(3);
-    expect(sink.messages).toHaveLength(before + 1);
+    expect(kit.sink.attempts()).toBe(3);
+    expect(kit.sink.messages).toHaveLength(before + 1);
 
-    const mail = sink.messages.at(-1)!;
+    const mail = kit.sink.messages.at(-1)!;
     expect(mail.subject).toBe('Shared order #7 is open');
-    expect(mail.to && 'text' in mail.to ? mail.to.text : '').toContain(admin.email);
+    expect(mail.to && 'text' in mail.to ? mail.to.text : '').toContain(kit.admin.email);
     expect(mail.from?.text).toContain('lotwise@example.test');
     expect(mail.text).toContain('http://lotwise.example.test/orders/7');
     expect(mail.text).toMatch(/unsubscribe\?token=/);
@@ -139,7 +63,7 @@ describe('outbox worker', () => {
     const down = await startSmtpSink();
     const port = down.port;
     await down.close(); // nobody listens on that port now
-    const id = await notifyOne(admin, start, 'Deadline near for order #8');
+    const id = await notifyOne(kit.admin, start, 'Deadline near for order #8');
     const { worker, advance, close } = workerAt(start, {}, port);
     expect(await worker.runOnce()).toMatchObject({ retrying: 1 });
     expect((await row(id)).last_error).toMatch(/ECONNREFUSED|connect/i);
@@ -157,9 +81,9 @@ describe('outbox worker', () => {
 
   it('when every attempt fails, then the last one tells the admins as it marks it failed, and an admin resend delivers it', async () => {
     const start = new Date();
-    const id = await notifyOne(manager, start, 'Order #9 was cancelled');
+    const id = await notifyOne(kit.manager, start, 'Order #9 was cancelled');
     const { worker, advance, close } = workerAt(start, { OUTBOX_MAX_ATTEMPTS: '2' });
-    sink.refuseNext(2);
+    kit.sink.refuseNext(2);
     await worker.runOnce();
     expect(await notices(id)).toEqual([]); // not yet: one attempt is left
     advance(31);
@@ -167,17 +91,17 @@ describe('outbox worker', () => {
     expect(await row(id)).toMatchObject({ status: 'failed', attempts: 2, next_attempt_at: null });
     // Written in the same transaction that marked it failed: one notice per admin.
     const queuedNotices = await notices(id);
-    expect(queuedNotices.map((n) => n.recipient_email)).toEqual([admin.email]);
+    expect(queuedNotices.map((n) => n.recipient_email)).toEqual([kit.admin.email]);
     expect(queuedNotices[0]).toMatchObject({ status: 'queued', kind: 'outbox-failed' });
 
-    const before = sink.messages.length;
+    const before = kit.sink.messages.length;
     advance(1);
     expect(await worker.runOnce()).toMatchObject({ sent: 1, failed: 0 });
-    const notice = sink.messages.at(-1)!;
-    expect(sink.messages).toHaveLength(before + 1);
+    const notice = kit.sink.messages.at(-1)!;
+    expect(kit.sink.messages).toHaveLength(before + 1);
     expect(notice.subject).toBe('E-mail not delivered: “Order #9 was cancelled”');
-    expect(notice.to && 'text' in notice.to ? notice.to.text : '').toContain(admin.email);
-    expect(notice.text).toContain(`To: ${manager.email}`);
+    expect(notice.to && 'text' in notice.to ? notice.to.text : '').toContain(kit.admin.email);
+    expect(notice.text).toContain(`To: ${kit.manager.email}`);
     expect(notice.text).toMatch(/Last error: .*451/);
     expect(notice.text).toContain('http://lotwise.example.test/admin/outbox');
     advance(100_000);
@@ -185,90 +109,12 @@ describe('outbox worker', () => {
 
     await request(testContext().app)
       .post(`/api/outbox/${id}/resend`)
-      .set('Cookie', admin.cookie)
+      .set('Cookie', kit.admin.cookie)
       .expect(200);
     // The resend is due now (real time), long before this test's clock.
     expect(await worker.runOnce()).toMatchObject({ sent: 1 });
     expect(await row(id)).toMatchObject({ status: 'sent' });
     close();
-  });
-
-  it('when a sender stops after claiming a message, then another takes it once the lease runs out and it is sent once', async () => {
-    const start = new Date('2026-03-04T09:00:00.000Z');
-    const id = await notifyOne(admin, start, 'Order #12 is open');
-    // The first sender claims it and never finishes (the process stopped mid-send).
-    let now = start;
-    const stuck = outboxWorker({
-      store: testContext().store,
-      transport: { sendMail: () => new Promise(() => {}) },
-      config: testContext().config,
-      clock: () => now,
-    });
-    void stuck.runOnce();
-    await vi.waitFor(async () => expect((await row(id)).status).toBe('sending'));
-    const claim = await row(id);
-    expect(claim.claimed_by).toMatch(/^\d+:[0-9a-f-]{36}$/);
-    expect(claim.lease_until).toBe(new Date(start.getTime() + 45_000).toISOString());
-
-    const before = sink.messages.length;
-    const { worker, advance, close } = workerAt(new Date(start.getTime() + 30_000));
-    expect(await worker.runOnce()).toMatchObject({ claimed: 0 }); // the lease still holds
-    advance(16); // 46 s after the claim: within a minute
-    expect(await worker.runOnce()).toMatchObject({ claimed: 1, sent: 1 });
-    advance(60);
-    expect(await worker.runOnce()).toMatchObject({ claimed: 0, sent: 0 });
-    const delivered = sink.messages.slice(before).filter((m) => m.subject === 'Order #12 is open');
-    expect(delivered).toHaveLength(1);
-    expect(await row(id)).toMatchObject({ status: 'sent', claimed_by: null, lease_until: null });
-    now = new Date(start.getTime() + 10 * 60_000);
-    close();
-  });
-
-  it('when two senders run at the same time, then each message is claimed by one of them and sent once', async () => {
-    const start = new Date('2026-03-06T09:00:00.000Z');
-    const subjects = Array.from({ length: 6 }, (_, i) => `Order #${20 + i} is funded`);
-    for (const subject of subjects) await notifyOne(admin, start, subject);
-    const before = sink.messages.length;
-    const first = workerAt(start);
-    const second = workerAt(start);
-    const results = await Promise.all([first.worker.runOnce(), second.worker.runOnce()]);
-    expect(results[0]!.claimed + results[1]!.claimed).toBe(6);
-    expect(results[0]!.sent + results[1]!.sent).toBe(6);
-    const delivered = sink.messages.slice(before).map((m) => m.subject);
-    expect(delivered.sort()).toEqual([...subjects].sort());
-    first.close();
-    second.close();
-  });
-
-  it('when a slow sender lost its lease before it got to a message, then it neither sends nor records that one', async () => {
-    const start = new Date('2026-03-07T09:00:00.000Z');
-    const first = await notifyOne(admin, start, 'Order #30 is ready');
-    const second = await notifyOne(admin, start, 'Order #31 is ready');
-    const { dataSource, store, config } = testContext();
-    const sent: string[] = [];
-    const worker = outboxWorker({
-      store,
-      config,
-      clock: () => start,
-      transport: {
-        async sendMail(mail) {
-          sent.push(mail.subject);
-          // Meanwhile this sender's lease on the second ran out and another sender took it.
-          await dataSource.query(
-            "UPDATE outbox SET claimed_by = 'other:claim', lease_until = ? WHERE id = ?",
-            [new Date(start.getTime() + 90_000).toISOString(), second],
-          );
-        },
-      },
-    });
-    expect(await worker.runOnce()).toMatchObject({ claimed: 2, sent: 1, lost: 1 });
-    expect(sent).toEqual(['Order #30 is ready']);
-    expect(await row(first)).toMatchObject({ status: 'sent', claimed_by: null });
-    expect(await row(second)).toMatchObject({ status: 'sending', claimed_by: 'other:claim' });
-    await dataSource.query(
-      "UPDATE outbox SET status = 'sent', claimed_by = NULL, lease_until = NULL WHERE id = ?",
-      [second],
-    );
   });
 
   it('when someone chose the daily digest, then their messages wait for the digest hour and go out as one e-mail', async () => {
@@ -285,12 +131,12 @@ describe('outbox worker', () => {
     expect((await row(first)).next_attempt_at).toBe(digestAt.toISOString());
 
     const { worker, advance, close } = workerAt(start);
-    const before = sink.messages.length;
+    const before = kit.sink.messages.length;
     expect(await worker.runOnce()).toMatchObject({ sent: 0 });
     advance((digestAt.getTime() - start.getTime()) / 1000);
     expect(await worker.runOnce()).toMatchObject({ sent: 2 });
-    expect(sink.messages).toHaveLength(before + 1);
-    const digest = sink.messages.at(-1)!;
+    expect(kit.sink.messages).toHaveLength(before + 1);
+    const digest = kit.sink.messages.at(-1)!;
     expect(digest.subject).toBe('Lotwise daily digest: 2 alerts');
     expect(digest.text).toContain('Order #10 is open');
     expect(digest.text).toContain('Order #11 is open');
@@ -299,7 +145,7 @@ describe('outbox worker', () => {
   });
 
   it('when a draw crosses the reorder point, then the e-mail in the inbox says what, how much, where, and links to it', async () => {
-    const make = stockFactory(() => manager.cookie);
+    const make = stockFactory(() => kit.manager.cookie);
     const chemical = await make.chemical({
       name: 'Acetone (demo)',
       physicalState: 'liquid',
@@ -314,18 +160,18 @@ describe('outbox worker', () => {
     const container = await make.container(lot.id, shelf.id, { quantity: 600, unit: 'mL' });
     await request(testContext().app)
       .post(`/api/containers/${container.id}/draws`)
-      .set('Cookie', manager.cookie)
+      .set('Cookie', kit.manager.cookie)
       .send({ amount: 200, unit: 'mL' })
       .expect(201);
     // the alert rules run after the draw's commit (on PostgreSQL nothing queues them first)
     await alertRulesSettled();
 
     const { worker, close } = workerAt(new Date(Date.now() + 1000));
-    const before = sink.messages.length;
+    const before = kit.sink.messages.length;
     await worker.runOnce();
-    const mails = sink.messages.slice(before).filter((m) => m.subject?.includes('Acetone'));
+    const mails = kit.sink.messages.slice(before).filter((m) => m.subject?.includes('Acetone'));
     expect(mails.map((m) => (m.to && 'text' in m.to ? m.to.text : '')).sort()).toEqual(
-      [admin.email, manager.email].sort(),
+      [kit.admin.email, kit.manager.email].sort(),
     );
     const mail = mails[0]!;
     expect(mail.subject).toBe(

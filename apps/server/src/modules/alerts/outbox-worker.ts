@@ -1,4 +1,4 @@
-import { randomUUID } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 import { alertKinds, type AlertKind } from '@lotwise/shared';
 import type { Config } from '../../config';
 import type { Repositories, Store } from '../../db/store';
@@ -23,6 +23,8 @@ export interface MailTransport {
     text: string;
     html: string;
     headers?: Record<string, string>;
+    /** The Message-ID header, angle brackets included (nodemailer's `messageId`). */
+    messageId?: string;
   }): Promise<unknown>;
 }
 
@@ -34,11 +36,25 @@ export function retryDelaySeconds(failedAttempts: number): number {
 }
 
 /**
- * How long a sender's claim on a message holds. A sender renews it before each e-mail; when
- * it stops (crash, restart) the lease runs out and the next run — within the send interval —
- * takes the message again, so it goes out within about a minute.
+ * The Message-ID of the e-mail carrying these outbox rows, the same on every attempt. A
+ * sender that dies after the mail server accepted an e-mail but before the database recorded
+ * it as sent leaves the row claimed; once the lease runs out the e-mail goes out again, and
+ * the second copy carries the first one's Message-ID, so mail systems and people can tell it
+ * is the same message. The row's id and creation time keep it unique across installations.
  */
-export const defaultLeaseSeconds = 45;
+export function outboxMessageId(
+  rows: Pick<OutboxRow, 'id' | 'createdAt'>[],
+  publicUrl: string,
+): string {
+  const host = new URL(publicUrl).hostname.replace(/[^A-Za-z0-9.-]/g, '') || 'lotwise.invalid';
+  const stamp = (row: Pick<OutboxRow, 'id' | 'createdAt'>) =>
+    `${row.id}.${Date.parse(row.createdAt).toString(36)}`;
+  const part =
+    rows.length === 1
+      ? stamp(rows[0]!)
+      : `digest.${createHash('sha256').update(rows.map(stamp).join(',')).digest('hex').slice(0, 24)}`;
+  return `<lotwise.outbox.${part}@${host}>`;
+}
 
 /** The kind of the notice an admin gets when a message is given up; never itself noticed. */
 export const failedMailKind = 'outbox-failed';
@@ -51,7 +67,12 @@ export interface OutboxWorkerOptions {
   /** The time; tests move it forward instead of waiting. */
   clock?: () => Date;
   batchSize?: number;
-  /** How long a claim holds without renewal; see {@link defaultLeaseSeconds}. */
+  /**
+   * How long a claim holds without renewal (default OUTBOX_LEASE_SECONDS, 45 s). A sender
+   * renews it before each e-mail and while the e-mail is being sent; when it stops (crash,
+   * restart) the lease runs out and the next run — within the send interval — takes the
+   * message again.
+   */
   leaseSeconds?: number;
 }
 
@@ -109,9 +130,11 @@ export function outboxWorker({
   logger = createLogger(config.logLevel),
   clock = () => new Date(),
   batchSize = 50,
-  leaseSeconds = defaultLeaseSeconds,
+  leaseSeconds = config.alerts.outboxLeaseSeconds,
 }: OutboxWorkerOptions) {
   const leaseFrom = (at: Date) => new Date(at.getTime() + leaseSeconds * 1000).toISOString();
+  /** While an e-mail is being sent, its claim is renewed three times per lease. */
+  const renewEveryMs = (leaseSeconds * 1000) / 3;
   let timer: NodeJS.Timeout | null = null;
   let running: Promise<OutboxRunResult> | null = null;
   let again = false;
@@ -155,6 +178,7 @@ export function outboxWorker({
       subject: content.subject,
       text: `${content.text}\n\n${end.text}\n`,
       html: htmlDocument(content.subject, `${content.html}${end.html}`),
+      messageId: outboxMessageId(rows, config.publicUrl),
       headers: {
         'Auto-Submitted': 'auto-generated',
         ...(oneClick
@@ -232,6 +256,19 @@ export function outboxWorker({
         logger.warn('Another sender took over these e-mails; not sending them here', { ids });
         continue;
       }
+      // A slow mail server must not let the lease run out while the e-mail is on its way:
+      // another sender would take the message and send it a second time.
+      const keep = setInterval(() => {
+        store
+          .transaction((repos) => repos.alerts.renewClaim(ids, claimId, leaseFrom(clock())))
+          .catch((error: unknown) =>
+            logger.warn('Could not renew the claim on e-mails being sent', {
+              ids,
+              error: error instanceof Error ? error.message : String(error),
+            }),
+          );
+      }, renewEveryMs);
+      keep.unref();
       try {
         await transport.sendMail(compose(rows));
       } catch (error) {
@@ -263,6 +300,8 @@ export function outboxWorker({
           error: message,
         });
         continue;
+      } finally {
+        clearInterval(keep);
       }
       const at = clock().toISOString();
       await store.transaction(async (repos) => {
