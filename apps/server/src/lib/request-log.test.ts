@@ -101,7 +101,7 @@ describe('request logs', () => {
     const logger = createLogger('info', { write: (line: string) => void raw.push(line) });
     // a second connection to the test database, closed under its app
     const { config } = testContext();
-    const dataSource = createDataSource(config.databasePath);
+    const dataSource = createDataSource(config.databaseUrl ?? config.databasePath);
     await dataSource.initialize();
     try {
       const app = createApp({ dataSource, config, logger });

@@ -1,5 +1,6 @@
 import type { AuditAction, BackupList, BackupTaken } from '@lotwise/shared';
 import { nowIso } from '../../db/sql';
+import type { Config } from '../../config';
 import type { Store } from '../../db/store';
 import { AppError } from '../../lib/app-error';
 import { backupFile, listBackups } from './backup-folder';
@@ -7,7 +8,10 @@ import { BackupError } from './database-copy';
 import { backupRunning, takeBackup, type BackupSettings } from './take-backup';
 
 /** The admin's view of the backups folder: list, take one now, download one. */
-export function backupsService(store: Store, config: BackupSettings) {
+export function backupsService(
+  store: Store,
+  config: BackupSettings & Pick<Config, 'databaseUrl'>,
+) {
   const audit = (actorId: number, action: AuditAction, name: string) =>
     store.repos.audit.insert({
       actorId,
@@ -32,6 +36,11 @@ export function backupsService(store: Store, config: BackupSettings) {
     },
 
     async takeNow(actorId: number): Promise<BackupTaken> {
+      if (config.databaseUrl !== null) {
+        throw AppError.conflict(
+          'This lab keeps its data in PostgreSQL, whose backups are taken with pg_dump (see docs/operations.md); the backups here are copies of an SQLite file.',
+        );
+      }
       try {
         const { file: _file, pruned: _pruned, ...taken } = await takeBackup(config, 'manual');
         await audit(actorId, 'backup.created', taken.name);

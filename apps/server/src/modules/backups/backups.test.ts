@@ -6,7 +6,7 @@ import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import type { Logger } from '../../lib/logger';
 import { signedIn } from '../../test/factories';
-import { testContext } from '../../test/harness';
+import { onPostgres, testContext } from '../../test/harness';
 import {
   backupFile,
   latestBackup,
@@ -43,7 +43,8 @@ function recordingLogger() {
   return { logger, lines };
 }
 
-describe('backups on the admin pages', () => {
+// backups copy the SQLite file; PostgreSQL is backed up with pg_dump (docs/operations.md)
+describe.skipIf(onPostgres)('backups on the admin pages', () => {
   it('when an admin takes a backup now, then it is listed, downloads byte for byte and both are in the audit trail', async () => {
     const { config, dataSource } = testContext();
     const empty = backupListSchema.parse(
@@ -161,7 +162,18 @@ describe('the backups folder', () => {
   });
 });
 
-describe('scheduled backups', () => {
+describe.runIf(onPostgres)('backups on PostgreSQL', () => {
+  it('when an admin asks for a backup now, then the answer is 409 pointing at pg_dump', async () => {
+    const { cookie } = await signedIn('admin');
+    const refused = await request(testContext().app)
+      .post('/api/backups')
+      .set('Cookie', cookie)
+      .expect(409);
+    expect(refused.body.error.message).toMatch(/pg_dump/);
+  });
+});
+
+describe.skipIf(onPostgres)('scheduled backups', () => {
   it('when none is due, then none is taken; when the newest is older than the interval, then one is, and the oldest beyond BACKUP_KEEP goes', async () => {
     const { config } = testContext();
     const dir = path.join(testContext().dir, 'scheduled');

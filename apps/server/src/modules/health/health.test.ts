@@ -2,7 +2,7 @@ import { copyFileSync, renameSync, rmSync, truncateSync } from 'node:fs';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
 import { readinessOf } from '../../app';
-import { closeTestContext, openTestContext, testContext } from '../../test/harness';
+import { closeTestContext, onPostgres, openTestContext, testContext } from '../../test/harness';
 
 describe('health check', () => {
   it('when the database answers, then health is ok', async () => {
@@ -48,24 +48,28 @@ describe('liveness and readiness', () => {
     }
   });
 
-  it('when the database file is emptied, removed or swapped under the open connections, then ready is 503', async () => {
-    const context = await openTestContext();
-    const file = context.config.databasePath;
-    const ready = () => request(context.app).get('/api/health/ready');
-    try {
-      await ready().expect(200);
-      // the open connections still answer from their cache: only the file check notices
-      copyFileSync(file, `${file}.copy`);
-      truncateSync(file, 0);
-      expect((await ready().expect(503)).body).toMatchObject({ database: 'error' });
-      rmSync(file);
-      await ready().expect(503);
-      renameSync(`${file}.copy`, file);
-      await ready().expect(503);
-    } finally {
-      await closeTestContext(context);
-    }
-  });
+  // the file check is SQLite's; PostgreSQL's readiness is the database answering
+  it.skipIf(onPostgres)(
+    'when the database file is emptied, removed or swapped under the open connections, then ready is 503',
+    async () => {
+      const context = await openTestContext();
+      const file = context.config.databasePath;
+      const ready = () => request(context.app).get('/api/health/ready');
+      try {
+        await ready().expect(200);
+        // the open connections still answer from their cache: only the file check notices
+        copyFileSync(file, `${file}.copy`);
+        truncateSync(file, 0);
+        expect((await ready().expect(503)).body).toMatchObject({ database: 'error' });
+        rmSync(file);
+        await ready().expect(503);
+        renameSync(`${file}.copy`, file);
+        await ready().expect(503);
+      } finally {
+        await closeTestContext(context);
+      }
+    },
+  );
 
   it('when the server begins to stop, then ready is 503 with Retry-After', async () => {
     const context = await openTestContext();
