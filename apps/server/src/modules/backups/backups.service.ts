@@ -8,10 +8,7 @@ import { BackupError } from './database-copy';
 import { backupRunning, takeBackup, type BackupSettings } from './take-backup';
 
 /** The admin's view of the backups folder: list, take one now, download one. */
-export function backupsService(
-  store: Store,
-  config: BackupSettings & Pick<Config, 'databaseUrl'>,
-) {
+export function backupsService(store: Store, config: BackupSettings & Pick<Config, 'databaseUrl'>) {
   const audit = (actorId: number, action: AuditAction, name: string) =>
     store.repos.audit.insert({
       actorId,
