@@ -29,6 +29,13 @@ export class ApiClient {
     return client;
   }
 
+  /** The same session (its cookie) sent to another server, e.g. a second app instance. */
+  at(origin: string): ApiClient {
+    const other = new ApiClient(origin);
+    other.cookie = this.cookie;
+    return other;
+  }
+
   async signIn(email: string, password = demoPassword): Promise<void> {
     const response = await fetch(`${this.origin}/api/auth/login`, {
       method: 'POST',

@@ -1,5 +1,5 @@
 import { afterAll } from 'vitest';
-import { freshDatabase, removeDatabases } from './database';
+import { createDatabase, dropServerDatabases, freshDatabase, removeDatabases } from './database';
 import { LotwiseServer } from './launcher';
 
 /**
@@ -12,11 +12,13 @@ export function serverForThisFile(name: string) {
   afterAll(async () => {
     await server?.stop();
     removeDatabases();
+    await dropServerDatabases();
   });
   return {
     database,
     /** Starts the server (suite defaults, then `env`) and waits for its health route. */
     async start(env: Record<string, string> = {}): Promise<LotwiseServer> {
+      await createDatabase(database);
       server = await LotwiseServer.start({ name, database, env });
       return server;
     },

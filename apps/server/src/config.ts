@@ -512,6 +512,12 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const databasePath = resolveFromRoot(values.DATABASE_PATH);
   const databaseInit = !production || values.DATABASE_INIT;
   const databaseUrl = values.DATABASE_URL ?? null;
+  if (production && databaseUrl !== null && values.JWT_SECRET === undefined) {
+    // A secret generated beside one instance's files would sign sessions the others refuse.
+    throw new ConfigError(
+      'Invalid configuration: JWT_SECRET must be set with DATABASE_URL in production (the same long random value on every app instance, so a session works on any of them)',
+    );
+  }
   if (databaseUrl === null) {
     if (!databaseInit) refuseNewDatabaseFile(databasePath);
     else databaseFileSize(databasePath);

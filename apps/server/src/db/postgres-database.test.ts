@@ -29,6 +29,7 @@ async function emptyDatabase(): Promise<string> {
 function config(url: string, env: NodeJS.ProcessEnv = {}) {
   return testConfig(mkdtempSync(path.join(tmpdir(), 'lotwise-pgopen-')), {
     DATABASE_URL: url,
+    JWT_SECRET: 'a-long-random-value-shared-by-every-instance-0123456789',
     ...env,
   });
 }
