@@ -97,6 +97,7 @@ export async function startServer(
     alertsService(store, config, { onQueued: () => worker?.kick() }),
     config.alerts.intervalSeconds,
     logger,
+    store.repos.scheduledRuns,
   );
   scheduler.start();
   const ledgerNotes = ledgerNotesOf(app);

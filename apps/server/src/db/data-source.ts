@@ -7,6 +7,7 @@ import { bindNumbersAsParameters } from './bound-parameters';
 import { isPostgresUrl, lotwiseTypes } from './postgres';
 import { AlertPreferenceEntity } from '../modules/alerts/alert-preference.entity';
 import { LedgerChangeNoteEntity } from '../modules/alerts/ledger-change-note.entity';
+import { ScheduledRunEntity } from '../modules/alerts/scheduled-run.entity';
 import { OutboxMessageEntity } from '../modules/alerts/outbox-message.entity';
 import { AuditEventEntity } from '../modules/audit/audit-event.entity';
 import { ChemicalEntity } from '../modules/chemicals/chemical.entity';
@@ -45,6 +46,7 @@ import { ImportKinds1796730000000 } from './migrations/1796730000000-import-kind
 import { ListIndexes1796800000000 } from './migrations/1796800000000-list-indexes';
 import { LedgerChangeNotes1796810000000 } from './migrations/1796810000000-ledger-change-notes';
 import { OutboxQueuedAge1796900000000 } from './migrations/1796900000000-outbox-queued-age';
+import { ScheduledRuns1796910000000 } from './migrations/1796910000000-scheduled-runs';
 import { ChemicalMeasures1796630000000 } from './migrations/1796630000000-chemical-measures';
 import { RunCrudeYieldFlag1796620000000 } from './migrations/1796620000000-run-crude-yield-flag';
 
@@ -76,6 +78,7 @@ export const entities = [
   PaymentEntity,
   PaymentEventEntity,
   LedgerChangeNoteEntity,
+  ScheduledRunEntity,
 ];
 
 /** In order; listed by hand so tsx, vitest and the TypeORM CLI all load the same classes. */
@@ -95,6 +98,7 @@ export const migrations = [
   ListIndexes1796800000000,
   LedgerChangeNotes1796810000000,
   OutboxQueuedAge1796900000000,
+  ScheduledRuns1796910000000,
 ];
 
 /** How many prepared statements each connection keeps (the API has a few hundred queries). */

@@ -57,6 +57,7 @@ describe('migrations', () => {
         'run_inputs',
         'run_products',
         'runs',
+        'scheduled_runs',
         'stocktakes',
         'suppliers',
         'users',
@@ -83,7 +84,7 @@ describe('migrations', () => {
       await dataSource.initialize();
       try {
         await dataSource.runMigrations({ transaction: 'all' });
-        expect(await tables(dataSource)).toHaveLength(28);
+        expect(await tables(dataSource)).toHaveLength(29);
         expect(await tables(dataSource)).toContain('ledger_entries');
         for (let i = 0; i < migrations.length; i++)
           await dataSource.undoLastMigration({ transaction: 'all' });

@@ -98,6 +98,14 @@ export const advisoryLocks = {
 } as const;
 
 /**
+ * Kinds of job a process holds while it works on one row (`store.holdJob`): the first key
+ * of PostgreSQL's two-key advisory locks (a 32-bit integer), the row id the second.
+ */
+export const jobLocks = {
+  imports: 74_696_301,
+} as const;
+
+/**
  * On PostgreSQL inside a transaction, waits until no other transaction holds `key`, and
  * holds it until this one ends (`pg_advisory_xact_lock`). For a read-then-insert with no row
  * to lock, such as the next label number (MAX + 1). Nothing on SQLite.

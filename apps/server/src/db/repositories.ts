@@ -1,6 +1,7 @@
 import type { EntityManager } from 'typeorm';
 import { alertsRepository } from '../modules/alerts/alerts.repository';
 import { ledgerNotesRepository } from '../modules/alerts/ledger-notes.repository';
+import { scheduledRunsRepository } from '../modules/alerts/scheduled-runs.repository';
 import { auditRepository } from '../modules/audit/audit.repository';
 import { chemicalsRepository } from '../modules/chemicals/chemicals.repository';
 import { containersRepository } from '../modules/containers/containers.repository';
@@ -43,6 +44,7 @@ export const repositoryFactories = {
   runs: runsRepository,
   alerts: alertsRepository,
   ledgerNotes: ledgerNotesRepository,
+  scheduledRuns: scheduledRunsRepository,
   orders: ordersRepository,
   payments: paymentsRepository,
   suppliers: suppliersRepository,

@@ -29,6 +29,15 @@ export interface Store {
   /** Throws when the database does not answer a read of the users table. */
   ping(): Promise<void>;
   /**
+   * Marks `job` as being worked on by this process until the returned release is called or
+   * the process ends (on PostgreSQL a session advisory lock on a connection of its own, which
+   * the database drops with a dead process's connection). Nothing to do on SQLite, where one
+   * process owns the file. Null when another process holds it already.
+   */
+  holdJob(job: JobKey): Promise<(() => Promise<void>) | null>;
+  /** False while another process holds `job` (see holdJob); always true on SQLite. */
+  jobIsFree(job: JobKey): Promise<boolean>;
+  /**
    * Runs `listener` at the end of every transaction of this store that appended ledger
    * entries, before it commits, with the chemicals concerned: what it writes commits or
    * rolls back together with the entries (the alert rules note the chemicals this way).
@@ -36,6 +45,12 @@ export interface Store {
   onLedgerChange(listener: LedgerChangeListener): void;
   /** Runs `listener` after such a transaction committed (not when it rolled back). */
   afterLedgerCommit(listener: (chemicalIds: number[]) => void): void;
+}
+
+/** A job that one process works on at a time: its kind's advisory lock and its row id. */
+export interface JobKey {
+  kind: number;
+  id: number;
 }
 
 export type LedgerChangeListener = (repos: Repositories, chemicalIds: number[]) => Promise<void>;
@@ -104,10 +119,7 @@ function buildRepositories(factories: RepositoryFactories, manager: EntityManage
  * it; a write waits its turn in the queue; a read runs on the read-only connection when there
  * is one (a file database), else in the queue.
  */
-function routedRepositories(
-  dataSource: DataSource,
-  factories: RepositoryFactories,
-): Repositories {
+function routedRepositories(dataSource: DataSource, factories: RepositoryFactories): Repositories {
   const onWriter = buildRepositories(factories, dataSource.manager);
   if (onPostgres(dataSource)) return joiningRepositories(onWriter);
   let onReader: Promise<Repositories | null> | null = null;
@@ -116,12 +128,14 @@ function routedRepositories(
       connection ? buildRepositories(factories, connection.manager) : null,
     ));
   const routed = {} as Record<string, Record<string, AnyMethod>>;
-  for (const [name, repository] of Object.entries(onWriter) as [string, Record<string, unknown>][]) {
+  for (const [name, repository] of Object.entries(onWriter) as [
+    string,
+    Record<string, unknown>,
+  ][]) {
     routed[name] = {};
     for (const [key, method] of Object.entries(repository)) {
       if (typeof method !== 'function') continue;
-      const onWriterCall = (args: unknown[]) => () =>
-        (method as AnyMethod).apply(repository, args);
+      const onWriterCall = (args: unknown[]) => () => (method as AnyMethod).apply(repository, args);
       routed[name][key] = async (...args: unknown[]) => {
         const open = openTransaction.getStore();
         if (open) {
@@ -225,6 +239,44 @@ export function createStore(dataSource: DataSource, factories: RepositoryFactori
     },
     afterLedgerCommit(listener) {
       committed.push(listener);
+    },
+    async holdJob(job) {
+      if (!onPostgres(dataSource)) return async () => undefined;
+      const runner = dataSource.createQueryRunner();
+      await runner.connect();
+      let held = false;
+      try {
+        const [row] = (await runner.query('SELECT pg_try_advisory_lock($1, $2) AS held', [
+          job.kind,
+          job.id,
+        ])) as { held: boolean }[];
+        held = row?.held === true;
+      } finally {
+        if (!held) await runner.release();
+      }
+      if (!held) return null;
+      return async () => {
+        try {
+          await runner.query('SELECT pg_advisory_unlock($1, $2)', [job.kind, job.id]);
+        } finally {
+          await runner.release();
+        }
+      };
+    },
+    async jobIsFree(job) {
+      if (!onPostgres(dataSource)) return true;
+      const runner = dataSource.createQueryRunner();
+      await runner.connect();
+      try {
+        const [row] = (await runner.query('SELECT pg_try_advisory_lock($1, $2) AS free', [
+          job.kind,
+          job.id,
+        ])) as { free: boolean }[];
+        if (row?.free) await runner.query('SELECT pg_advisory_unlock($1, $2)', [job.kind, job.id]);
+        return row?.free === true;
+      } finally {
+        await runner.release();
+      }
     },
     async ping() {
       // A real table, so a database that lost its tables (or was swapped) does not look healthy.

@@ -13,6 +13,7 @@ import { signedIn } from '../test/factories';
 import { onPostgres, testContext } from '../test/harness';
 import { preparationFactory } from '../test/preparations';
 import { createDataSource } from './data-source';
+import { jobLocks } from './postgres';
 
 /**
  * Two app instances on one PostgreSQL database: each with its own DataSource (its own pool),
@@ -161,5 +162,58 @@ describe.skipIf(!onPostgres)('two app instances on one PostgreSQL database', () 
       for (const { transport } of senders) transport.close();
       await sink.close();
     }
+  });
+
+  it('when one instance is committing an import, then a look at it from the other leaves it alone; once the first is gone, then it shows as failed', async () => {
+    const stores = [testContext().store, openStore(second)];
+    const now = new Date().toISOString();
+    const id = await stores[0]!.repos.imports.insert({
+      kind: 'stock',
+      supplierId: null,
+      status: 'committing',
+      fileName: 'shelf-count.csv',
+      userId: null,
+      totalRows: 20000,
+      processedRows: 0,
+      errorCount: 0,
+      errors: [],
+      warnings: [],
+      summary: null,
+      rows: null,
+      failure: null,
+      createdAt: now,
+      updatedAt: now,
+      committedAt: null,
+    });
+    const job = { kind: jobLocks.imports, id };
+    const release = await stores[0]!.holdJob(job);
+    expect(release).not.toBeNull();
+    expect(await stores[1]!.holdJob(job)).toBeNull();
+    expect(await stores[1]!.jobIsFree(job)).toBe(false);
+    const seen = await request(instances[1]!)
+      .get(`/api/imports/${id}`)
+      .set('Cookie', manager)
+      .expect(200);
+    expect(seen.body.status).toBe('committing');
+
+    await release!(); // as when the first instance's process (and its connection) ends
+    expect(await stores[1]!.jobIsFree(job)).toBe(true);
+    const after = await request(instances[1]!)
+      .get(`/api/imports/${id}`)
+      .set('Cookie', manager)
+      .expect(200);
+    expect(after.body.status).toBe('failed');
+  });
+
+  it('when both instances claim the scheduled alert evaluation at once, then one runs it', async () => {
+    const stores = [testContext().store, openStore(second)];
+    const now = new Date().toISOString();
+    const cutoff = new Date(Date.now() - 3_600_000).toISOString();
+    const claims = await Promise.all(
+      Array.from({ length: 8 }, (_, i) =>
+        stores[i % 2]!.repos.scheduledRuns.claimTurn('two-instance-job', now, cutoff),
+      ),
+    );
+    expect(claims.filter(Boolean)).toHaveLength(1);
   });
 });

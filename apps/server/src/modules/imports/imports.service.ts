@@ -22,6 +22,7 @@ import type { TextConfig } from '../../config';
 import { AppError } from '../../lib/app-error';
 import { CsvSyntaxError, decodeText, parseCsv } from '../../lib/csv';
 import type { Logger } from '../../lib/logger';
+import { jobLocks } from '../../db/postgres';
 import { noteLedgerChange, type Repositories, type Store } from '../../db/store';
 import { isUniqueViolation, nowIso } from '../../db/sql';
 import { newChemicalValues } from '../chemicals/chemicals.service';
@@ -101,9 +102,19 @@ export function importsService(
   /** Imports being validated or committed by this process: their progress lives here. */
   const running = new Map<number, { processed: number }>();
 
-  /** An import left validating/committing by a stopped server: nothing of it was written. */
-  async function settleInterrupted(head: ImportHead): Promise<ImportHead> {
-    if ((head.status === 'validating' || head.status === 'committing') && !running.has(head.id)) {
+  const importJob = (id: number) => ({ kind: jobLocks.imports, id });
+
+  /**
+   * An import left validating/committing by a stopped server: nothing of it was written. One
+   * that another app instance is working on (it holds the import's job) is left alone;
+   * `heldHere`: this request holds it, so no other process does.
+   */
+  async function settleInterrupted(head: ImportHead, heldHere = false): Promise<ImportHead> {
+    if (
+      (head.status === 'validating' || head.status === 'committing') &&
+      !running.has(head.id) &&
+      (heldHere || (await store.jobIsFree(importJob(head.id))))
+    ) {
       const failure =
         'The server stopped while this import was being processed; nothing was written. Upload the file again.';
       // The head may be stale: the check or commit can have finished since it was read.
@@ -190,6 +201,8 @@ export function importsService(
   async function validate<R>(id: number, records: string[][], reader: RowReader<R>) {
     const progress = { processed: 0 };
     running.set(id, progress);
+    // a new import's id: no other process can hold it
+    const release = await store.holdJob(importJob(id));
     try {
       const rows: R[] = [];
       const problems: ImportProblem[] = [];
@@ -231,6 +244,7 @@ export function importsService(
       });
     } finally {
       running.delete(id);
+      await release?.();
     }
   }
 
@@ -418,7 +432,7 @@ export function importsService(
     });
   }
 
-  async function commit(head: ImportHead, actor: User) {
+  async function commit(head: ImportHead, actor: User, release: () => Promise<void>) {
     const { id, fileName } = head;
     const progress = { processed: 0 };
     running.set(id, progress);
@@ -481,13 +495,14 @@ export function importsService(
       return failure;
     } finally {
       running.delete(id);
+      await release();
     }
   }
 
   return {
     async list(query: ImportListQuery): Promise<Page<ImportListItem>> {
       const { items, total } = await imports.list(query);
-      const settled = await Promise.all(items.map(settleInterrupted));
+      const settled = await Promise.all(items.map((head) => settleInterrupted(head)));
       return {
         items: settled.map((head) => {
           const {
@@ -635,22 +650,35 @@ export function importsService(
      * answer when written (a failure is a 409 naming the row); large ones answer at once.
      */
     async commit(id: number, actor: User): Promise<{ result: Import; done: boolean }> {
-      const head = await store.transaction(async (repos) => {
-        const current = await repos.imports.findHead(id);
+      // Held from before the status check to the end of the commit: another app instance
+      // neither commits it twice nor takes it for interrupted meanwhile.
+      const release = await store.holdJob(importJob(id));
+      if (!release) {
+        const current = await imports.findHead(id);
         if (!current) throw AppError.notFound(`There is no import #${id}.`);
-        const settled = await settleInterrupted(current);
-        if (settled.kind === 'price-list' && !can(actor.role, 'orders.manage')) {
-          throw AppError.forbidden('Your role does not allow changing suppliers’ price lists.');
-        }
-        if (settled.status !== 'ready' || running.has(id)) throw statusConflict(settled, text);
-        await repos.imports.update(id, {
-          status: 'committing',
-          processedRows: 0,
-          updatedAt: nowIso(),
+        throw statusConflict({ ...current, status: 'committing' }, text);
+      }
+      const head = await store
+        .transaction(async (repos) => {
+          const current = await repos.imports.findHead(id);
+          if (!current) throw AppError.notFound(`There is no import #${id}.`);
+          const settled = await settleInterrupted(current, true);
+          if (settled.kind === 'price-list' && !can(actor.role, 'orders.manage')) {
+            throw AppError.forbidden('Your role does not allow changing suppliers’ price lists.');
+          }
+          if (settled.status !== 'ready' || running.has(id)) throw statusConflict(settled, text);
+          await repos.imports.update(id, {
+            status: 'committing',
+            processedRows: 0,
+            updatedAt: nowIso(),
+          });
+          return settled;
+        })
+        .catch(async (error: unknown) => {
+          await release();
+          throw error;
         });
-        return settled;
-      });
-      const job = commit(head, actor);
+      const job = commit(head, actor, release);
       const done = head.totalRows <= importWaitRowLimit;
       if (done) {
         const failure = await job;
