@@ -67,6 +67,8 @@ import { stockRoutes } from './modules/stock/stock.routes';
 import { stockService } from './modules/stock/stock.service';
 import { supplierRoutes } from './modules/suppliers/suppliers.routes';
 import { suppliersService } from './modules/suppliers/suppliers.service';
+import { todayRoutes } from './modules/today/today.routes';
+import { todayService } from './modules/today/today.service';
 import { uploadRoutes } from './modules/uploads/uploads.routes';
 import { uploadsService } from './modules/uploads/uploads.service';
 import { userCacheOf } from './modules/users/user-cache';
@@ -206,6 +208,7 @@ export function createApp({
     ...requestRoutes(requestsService(store, config)),
     ...receivingRoutes(receivingService(store, alerts, config)),
     ...backupRoutes(backupsService(store, config)),
+    ...todayRoutes(todayService(store, config, { alerts })),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;

@@ -20,6 +20,7 @@ import { runsRepository } from '../modules/runs/runs.repository';
 import { segregationRepository } from '../modules/segregation/segregation.repository';
 import { stockRepository } from '../modules/stock/stock.repository';
 import { suppliersRepository } from '../modules/suppliers/suppliers.repository';
+import { todayRepository } from '../modules/today/today.repository';
 import { usersRepository } from '../modules/users/users.repository';
 import { createStore, type Store } from './store';
 import type { DataSource } from 'typeorm';
@@ -52,6 +53,7 @@ export const repositoryFactories = {
   requests: requestsRepository,
   receiving: receivingRepository,
   metrics: metricsRepository,
+  today: todayRepository,
 } satisfies Record<string, (manager: EntityManager) => object>;
 
 export type Repositories = {

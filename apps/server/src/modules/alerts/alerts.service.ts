@@ -13,6 +13,7 @@ import {
   type AlertListQuery,
   type AlertPreferences,
   type AlertPreferencesBody,
+  type GhsCode,
   type OutboxListQuery,
   type OutboxMessage,
   type OutboxMessageDetail,
@@ -362,6 +363,20 @@ export function alertsService(store: Store, config: Config, options: AlertsServi
         evaluatedAt: now.toISOString(),
         expiryWindowDays: settings.expiryDays,
       };
+    },
+
+    /**
+     * Current conditions in their in-app form with the chemical's pictograms, most severe
+     * first (the start page groups them into its sections).
+     */
+    async currentWithHazards(
+      now = new Date(),
+    ): Promise<{ alert: Alert; ghsPictograms: GhsCode[] }[]> {
+      const conditions = await collect(store.repos, now);
+      return conditions.map((condition) => ({
+        alert: presentCondition(condition, config.text),
+        ghsPictograms: condition.chemical.ghsPictograms,
+      }));
     },
 
     async preferences(user: User): Promise<AlertPreferences> {
