@@ -258,6 +258,12 @@ function listCases(): [string, () => Promise<unknown>][] {
       'outbox: a kind',
       () => repos.alerts.listMessages(outboxListQuerySchema.parse({ kind: 'expiry' })),
     ],
+    ['start page: plans of the week', () => repos.today.plansBetween(today, '2026-04-23', 5)],
+    ['start page: my open runs', () => repos.today.openRunsOf(lab.userIds[3]!, 5)],
+    [
+      'start page: my shares waiting',
+      () => repos.today.sharesOf(lab.userIds[3]!, ['open', 'received']),
+    ],
     ...sorts(['createdAt', 'action']).map((sort): [string, () => Promise<unknown>] => [
       `audit: by ${sort}`,
       () => repos.audit.list(auditListQuerySchema.parse({ sort })),
