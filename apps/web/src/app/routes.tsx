@@ -118,7 +118,10 @@ export const routes: RouteObject[] = [
           Component: (await import('./routes/signed-in-layout')).SignedInLayout,
         }),
         children: [
-          { index: true, element: <Navigate to={paths.chemicals} replace /> },
+          lazyPage(
+            { index: true },
+            async () => (await import('../features/today/pages/today-page')).TodayPage,
+          ),
           lazyPage(
             paths.chemicals,
             async () =>

@@ -11,6 +11,7 @@ import {
   PackagePlus,
   ReceiptText,
   ShoppingCart,
+  Sun,
   Truck,
   Users,
   type LucideIcon,
@@ -20,7 +21,10 @@ import { paths } from '../../config/paths';
 export interface NavItem {
   label: string;
   to: string;
-  permission: Permission;
+  /** None: every signed-in person. */
+  permission?: Permission;
+  /** Active only on its own address, not on the pages below it. */
+  end?: boolean;
   icon: LucideIcon;
   /** Not built yet: the page says so and tells what it will do. */
   coming?: boolean;
@@ -29,6 +33,7 @@ export interface NavItem {
 }
 
 export const navItems: readonly NavItem[] = [
+  { label: 'Today', to: paths.home, icon: Sun, end: true },
   { label: 'Chemicals', to: paths.chemicals, permission: 'chemicals.read', icon: FlaskConical },
   { label: 'Stock', to: paths.stock, permission: 'stock.read', icon: Package },
   {
@@ -92,5 +97,5 @@ export const navItems: readonly NavItem[] = [
 
 /** The navigation a role sees: only what it may use. */
 export function navItemsFor(role: Role): NavItem[] {
-  return navItems.filter((item) => can(role, item.permission));
+  return navItems.filter((item) => !item.permission || can(role, item.permission));
 }

@@ -17,12 +17,13 @@ function navLabels(role: Role): string[] {
 }
 
 describe('SideNav', () => {
-  it('when a viewer signs in, then only read-only places show', () => {
-    expect(navLabels('viewer')).toEqual(['Chemicals', 'Stock', 'Preparations']);
+  it('when a viewer signs in, then the start page and only read-only places show', () => {
+    expect(navLabels('viewer')).toEqual(['Today', 'Chemicals', 'Stock', 'Preparations']);
   });
 
   it('when a member signs in, then runs, alerts and purchasing (orders, restock, suppliers, their purchases) show but not administration', () => {
     expect(navLabels('member')).toEqual([
+      'Today',
       'Chemicals',
       'Stock',
       'Preparations',
@@ -38,6 +39,7 @@ describe('SideNav', () => {
 
   it('when an admin signs in, then People, Outbox and Backups under Admin show too', () => {
     expect(navLabels('admin')).toEqual([
+      'Today',
       'Chemicals',
       'Stock',
       'Preparations',

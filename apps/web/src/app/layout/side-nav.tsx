@@ -9,6 +9,7 @@ function Item({ item }: { item: NavItem }) {
     <li>
       <NavLink
         to={item.to}
+        end={item.end}
         className={({ isActive }) =>
           cn(
             'flex items-center gap-2.5 rounded-md px-2.5 py-1.5 text-sm transition-colors',
