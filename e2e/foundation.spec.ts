@@ -100,6 +100,7 @@ test.describe('chemicals catalogue', () => {
     page,
   }) => {
     await signIn(page, demo.member);
+    await page.goto('/chemicals');
     await page.getByRole('main').getByLabel('Search').fill('aspirin');
     const row = page.getByRole('row', { name: /acetylsalicylic acid/i });
     await expect(row).toBeVisible();
@@ -119,6 +120,7 @@ test.describe('chemicals catalogue', () => {
     page,
   }) => {
     await signIn(page, demo.viewer);
+    await page.goto('/chemicals');
     const header = page.getByRole('button', { name: /molar mass/i });
     await header.click();
     await expect(page).toHaveURL(/sort=molarMass\./);
@@ -132,6 +134,7 @@ test.describe('chemicals catalogue', () => {
     page,
   }) => {
     await signIn(page, demo.manager);
+    await page.goto('/chemicals');
     await page.getByRole('link', { name: /add a chemical/i }).click();
     await page.getByLabel('Name').fill('Potassium ferrocyanide trihydrate');
     const formula = page.getByLabel('Formula');
@@ -159,6 +162,7 @@ test.describe('chemicals catalogue', () => {
     page,
   }) => {
     await signIn(page, demo.admin);
+    await page.goto('/chemicals');
     await expect(page.getByRole('row').nth(1)).toBeVisible();
     const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa']).analyze();
     const serious = results.violations.filter(

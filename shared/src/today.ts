@@ -11,15 +11,16 @@ import type { Permission } from './roles';
 /** How many items each section lists; the rest is "and N more" with a link. */
 export const todayItemsPerSection = 5;
 
+/** The sections in the order the page shows them: the day's work first, then the stock. */
 export const todaySectionKeys = [
+  'plans',
+  'myOpenRuns',
+  'ordersWaiting',
   'belowReorderPoint',
   'expiry',
   'peroxideDue',
-  'plans',
-  'myOpenRuns',
   'storageConflicts',
   'failedEmails',
-  'ordersWaiting',
 ] as const;
 export type TodaySectionKey = (typeof todaySectionKeys)[number];
 

@@ -41,10 +41,16 @@ function TodayItemRow({ item }: { item: TodayItem }) {
         </ul>
       )}
       {item.chemicals.length > 0 && (
-        <ul aria-label="Hazards" className="flex flex-col gap-1">
+        <ul
+          aria-label={`Hazards: ${item.chemicals.map((c) => c.name).join(', ')}`}
+          className="flex flex-col gap-1"
+        >
           {item.chemicals.map((chemical) => (
             <li key={chemical.id} className="flex flex-wrap items-center gap-x-2 gap-y-1">
-              <span className="text-xs font-medium text-ink-700">{chemical.name}</span>
+              {/* The name is said once: not again when it is the item's title. */}
+              {chemical.name !== item.title && (
+                <span className="text-xs font-medium text-ink-700">{chemical.name}</span>
+              )}
               <PictogramList codes={chemical.ghsPictograms} />
             </li>
           ))}
@@ -78,7 +84,7 @@ export function TodaySectionCard({
   return (
     <section
       aria-labelledby={headingId}
-      className="flex flex-col overflow-hidden rounded-lg border border-ink-200 bg-white"
+      className="mb-4 flex break-inside-avoid flex-col overflow-hidden rounded-lg border border-ink-200 bg-white"
     >
       <header className="flex items-center gap-2 border-b border-ink-100 px-4 py-3">
         <span className="text-accent-700 [&_svg]:size-5">{icon}</span>

@@ -64,7 +64,7 @@ describe('Start page', () => {
     });
     renderApp('/');
     expect(await screen.findByRole('heading', { name: 'Today', level: 1 })).toBeInTheDocument();
-    expect(screen.getByText(/What needs doing, Lab, as it stands right now/)).toBeInTheDocument();
+    expect(await screen.findByText(/What needs doing, as it stands right now/)).toBeInTheDocument();
 
     const expiry = await screen.findByRole('region', { name: 'Expired and expiring' });
     expect(within(expiry).getByRole('link', { name: expired.title })).toHaveAttribute(

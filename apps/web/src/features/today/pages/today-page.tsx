@@ -13,7 +13,6 @@ import { todaySectionKeys, type Today, type TodaySectionKey } from '@lotwise/sha
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { ErrorState } from '../../../components/ui/error-state';
 import { PageSpinner } from '../../../components/ui/spinner';
-import { useCurrentUser } from '../../../lib/auth';
 import { formatDate } from '../../../lib/format';
 import { useToday } from '../api';
 import { TodaySectionCard } from '../components/today-section-card';
@@ -89,16 +88,13 @@ function longDate(isoDate: string): string {
 /** The start page: what needs doing today, for the signed-in person's role. */
 export function TodayPage() {
   const today = useToday();
-  const user = useCurrentUser().data;
-  const firstName = user?.displayName.split(' ')[0];
 
   return (
     <div className="flex flex-col gap-4">
       <div>
         <h1 className="text-xl font-semibold text-ink-900">Today</h1>
         <p className="text-sm text-ink-600">
-          {today.data ? `${longDate(today.data.date)}. ` : ''}
-          {firstName ? `What needs doing, ${firstName}, ` : 'What needs doing, '}as it stands right
+          {today.data ? `${longDate(today.data.date)}. ` : ''}What needs doing, as it stands right
           now.
         </p>
       </div>
@@ -113,7 +109,8 @@ export function TodayPage() {
         />
       ) : (
         <>
-          <div className="grid grid-cols-1 items-start gap-4 lg:grid-cols-2 2xl:grid-cols-3">
+          {/* Columns rather than a grid: cards of different lengths pack without gaps. */}
+          <div className="columns-1 gap-4 lg:columns-2 2xl:columns-3">
             {todaySectionKeys.map((key) => {
               const section = today.data.sections[key];
               if (!section) return null;
