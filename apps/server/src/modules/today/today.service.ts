@@ -127,10 +127,10 @@ export function todayService(store: Store, config: Config, deps: { alerts: Alert
           .sort()
           .at(-1)!;
         notes.push(
-          `Holds stock in ${count(new Set(held.map((r) => r.containerId)).size, 'container', 'containers')} until ${date(until)}.`,
+          `Reserved: ${count(new Set(held.map((r) => r.containerId)).size, 'container', 'containers')} until ${date(until)}.`,
         );
       } else {
-        notes.push('Holds no stock yet.');
+        notes.push('Nothing reserved yet.');
       }
       const when = row.plannedOn === today ? 'Today' : date(row.plannedOn);
       return {
@@ -197,7 +197,7 @@ export function todayService(store: Store, config: Config, deps: { alerts: Alert
       return {
         key: `storage:location:${conflict.location.id}`,
         severity: conflict.pairs.length > 0 ? 'warning' : 'info',
-        status: conflict.pairs.length > 0 ? 'Kept together' : 'Wrong place',
+        status: conflict.pairs.length > 0 ? 'Store apart' : 'Wrong place',
         title: conflict.location.path,
         detail:
           conflict.pairs.length > 0

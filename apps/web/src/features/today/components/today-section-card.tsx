@@ -19,7 +19,7 @@ function TodayItemRow({ item }: { item: TodayItem }) {
       <div className="flex flex-wrap items-start justify-between gap-x-3 gap-y-1">
         <Link
           to={item.link}
-          className="min-w-0 font-medium break-words text-ink-900 underline-offset-2 hover:underline focus-visible:underline"
+          className="min-w-0 font-medium break-words text-ink-900 underline decoration-ink-300 underline-offset-4 hover:decoration-ink-900"
         >
           {item.title}
         </Link>

@@ -26,7 +26,7 @@ const plan: TodayItem = {
   status: 'Short of 1 reagent',
   title: 'Aspirin from salicylic acid',
   detail: 'Today · 4 benches at ×0.5 · planned by Lab Technician',
-  notes: ['Salicylic acid: short by 1.20 g', 'Holds stock in 2 containers until 3 Dec 2026.'],
+  notes: ['Salicylic acid: short by 1.20 g', 'Reserved: 2 containers until 3 Dec 2026.'],
   link: '/preparations/plans/4',
   chemicals: [{ id: 1, name: 'Salicylic acid', ghsPictograms: ['GHS05', 'GHS07'] }],
   dueOn: '2026-12-03',
