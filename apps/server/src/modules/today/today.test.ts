@@ -273,29 +273,17 @@ describe('GET /api/today', () => {
 
   it('when there are more plans than the page lists, then it lists the first few, soonest first, and counts them all', async () => {
     const aspirin = await make.aspirin();
-    for (let day = 1; day <= todayItemsPerSection + 2; day++) {
-      await request(app())
+    const planOn = (plannedOn: string) =>
+      request(app())
         .post('/api/plans')
         .set('Cookie', people.manager.cookie)
-        .send({
-          procedureId: aspirin.procedure.id,
-          scaleFactor: 1,
-          benches: 2,
-          plannedOn: addDays(today, Math.min(day, 6)),
-        })
+        .send({ procedureId: aspirin.procedure.id, scaleFactor: 1, benches: 2, plannedOn })
         .expect(201);
+    for (let day = 1; day <= todayItemsPerSection + 2; day++) {
+      await planOn(addDays(today, Math.min(day, 6)));
     }
     // A plan next week is not this week's.
-    await request(app())
-      .post('/api/plans')
-      .set('Cookie', people.manager.cookie)
-      .send({
-        procedureId: aspirin.procedure.id,
-        scaleFactor: 1,
-        benches: 1,
-        plannedOn: addDays(today, 7),
-      })
-      .expect(201);
+    await planOn(addDays(today, 7));
     const page = await startPage(people.manager.cookie);
     const plans = page.sections.plans!;
     expect(plans.total).toBe(todayItemsPerSection + 3);
