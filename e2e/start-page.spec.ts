@@ -28,6 +28,8 @@ test.describe('the start page', () => {
     await expect(page.getByRole('heading', { name: 'Today', level: 1 })).toBeVisible();
     const planId = await planForToday(page);
     await page.reload();
+    // the app's code loads again after the reload: on a busy machine that takes a while
+    await expect(page.getByRole('region').first()).toBeVisible({ timeout: 20_000 });
 
     // the demo lab has chemicals below their reorder point and expired containers
     const low = page.getByRole('region', { name: 'Below reorder point' });
