@@ -6,6 +6,7 @@ import {
   DatabaseBackup,
   FlaskConical,
   FlaskRound,
+  LifeBuoy,
   Mail,
   Package,
   PackagePlus,
@@ -20,12 +21,13 @@ import { paths } from '../../config/paths';
 export interface NavItem {
   label: string;
   to: string;
-  permission: Permission;
+  /** None: everyone signed in sees it. */
+  permission?: Permission;
   icon: LucideIcon;
   /** Not built yet: the page says so and tells what it will do. */
   coming?: boolean;
   /** The group the entry is listed under; none: the main list. */
-  section?: 'purchasing' | 'admin';
+  section?: 'purchasing' | 'admin' | 'end';
 }
 
 export const navItems: readonly NavItem[] = [
@@ -88,9 +90,10 @@ export const navItems: readonly NavItem[] = [
     icon: DatabaseBackup,
     section: 'admin',
   },
+  { label: 'Help', to: paths.help, icon: LifeBuoy, section: 'end' },
 ];
 
 /** The navigation a role sees: only what it may use. */
 export function navItemsFor(role: Role): NavItem[] {
-  return navItems.filter((item) => can(role, item.permission));
+  return navItems.filter((item) => !item.permission || can(role, item.permission));
 }

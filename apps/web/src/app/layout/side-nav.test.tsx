@@ -18,7 +18,7 @@ function navLabels(role: Role): string[] {
 
 describe('SideNav', () => {
   it('when a viewer signs in, then only read-only places show', () => {
-    expect(navLabels('viewer')).toEqual(['Chemicals', 'Stock', 'Preparations']);
+    expect(navLabels('viewer')).toEqual(['Chemicals', 'Stock', 'Preparations', 'Help']);
   });
 
   it('when a member signs in, then runs, alerts and purchasing (orders, restock, suppliers, their purchases) show but not administration', () => {
@@ -32,6 +32,7 @@ describe('SideNav', () => {
       'Restock',
       'My purchases',
       'Suppliers',
+      'Help',
     ]);
     expect(screen.getByText('Purchasing')).toBeInTheDocument();
   });
@@ -50,6 +51,7 @@ describe('SideNav', () => {
       'People',
       'Outbox',
       'Backups',
+      'Help',
     ]);
     expect(screen.getByText('Admin')).toBeInTheDocument();
   });
