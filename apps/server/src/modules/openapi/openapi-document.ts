@@ -25,27 +25,28 @@ function pathParamNames(expressPath: string): string[] {
 
 /** The tag of an operation: the first part of its path after `/api` (`chemicals`, `orders`). */
 export function tagOf(expressPath: string): string {
-  return expressPath.split('/')[2] ?? 'other';
+  return (expressPath.split('/')[2] ?? 'other').replace(/\.\w+$/, '');
 }
 
-const verbs: Record<ApiRoute['method'], [collection: string, one: string]> = {
-  get: ['List', 'Read'],
-  post: ['Create', 'Create'],
-  patch: ['Change', 'Change'],
-  put: ['Replace', 'Replace'],
-  delete: ['Delete', 'Delete'],
+const collectionVerbs: Record<ApiRoute['method'], string> = {
+  get: 'List',
+  post: 'Add to',
+  patch: 'Change',
+  put: 'Replace',
+  delete: 'Delete',
 };
 
-/** A plain one-liner for a route that gives none: `PATCH /api/lots/:id` → "Change lots (one by id)". */
+/**
+ * A plain one-liner for a route that gives none: `GET /api/lots` → "List lots",
+ * `POST /api/alerts/evaluate` → "alerts › evaluate", `GET /api/lots/:id` → "lots › one".
+ */
 export function derivedSummary(route: Pick<ApiRoute, 'method' | 'path'>): string {
   const parts = route.path.split('/').slice(2);
   const words = parts
     .filter((part) => !part.startsWith(':'))
-    .map((part) => part.replace(/-/g, ' '));
-  const endsWithParam = parts.at(-1)?.startsWith(':') ?? false;
-  const [collection, one] = verbs[route.method];
-  const verb = endsWithParam ? one : collection;
-  return `${verb} ${words.join(' › ')}${endsWithParam ? ' (one by id)' : ''}`;
+    .map((part) => part.replace(/-/g, ' ').replace(/\.\w+$/, ''));
+  if (parts.length === 1) return `${collectionVerbs[route.method]} ${words[0]}`;
+  return `${words.join(' › ')}${parts.at(-1)!.startsWith(':') ? ' › one' : ''}`;
 }
 
 function rolesHolding(permission: Permission): string[] {

@@ -5,7 +5,12 @@ import { describe, expect, it } from 'vitest';
 import { routeTable } from '../../app';
 import { signedIn, stockFactory } from '../../test/factories';
 import { testContext } from '../../test/harness';
-import { buildOpenApiDocument, openApiPath, type OpenApiDocument } from './openapi-document';
+import {
+  buildOpenApiDocument,
+  derivedSummary,
+  openApiPath,
+  type OpenApiDocument,
+} from './openapi-document';
 import { documentedOperations, mountedOperations, undocumentedRoutes } from './route-coverage';
 
 async function fetchDocument(): Promise<OpenApiDocument> {
@@ -119,6 +124,7 @@ describe('the API document (GET /api/openapi.json)', () => {
     const app = testContext().app;
     const table = routeTable(app);
     const calls: [method: 'get' | 'post', template: string, path: string, body?: object][] = [
+      ['get', '/api/auth/me', '/api/auth/me'],
       ['get', '/api/chemicals', '/api/chemicals'],
       ['get', '/api/chemicals/:id', `/api/chemicals/${chemical.id}`],
       ['get', '/api/containers', '/api/containers'],
@@ -148,5 +154,16 @@ describe('the API document (GET /api/openapi.json)', () => {
     expect(openApiPath('/api/orders/:id/shares/:shareId')).toBe(
       '/api/orders/{id}/shares/{shareId}',
     );
+  });
+});
+
+describe('derived summaries', () => {
+  it('when a route gives no summary, then one is made from its method and path', () => {
+    expect(derivedSummary({ method: 'get', path: '/api/lots' })).toBe('List lots');
+    expect(derivedSummary({ method: 'post', path: '/api/alerts/evaluate' })).toBe(
+      'alerts › evaluate',
+    );
+    expect(derivedSummary({ method: 'patch', path: '/api/lots/:id' })).toBe('lots › one');
+    expect(derivedSummary({ method: 'get', path: '/api/orders/money.csv' })).toBe('orders › money');
   });
 });
