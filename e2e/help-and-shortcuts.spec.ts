@@ -8,9 +8,9 @@ async function leaveFields(page: Page) {
 
 test.describe('help and keyboard shortcuts', () => {
   // Each test signs in and walks several pages, each loading its code the first time.
-  test.describe.configure({ timeout: 90_000 });
+  test.describe.configure({ timeout: 120_000 });
   // A page opened for the first time loads its code before the address changes.
-  const opened = { timeout: 15_000 };
+  const opened = { timeout: 30_000 };
 
   test('when ? is pressed, then the overlay lists the shortcuts; Escape closes it and the focus goes back', async ({
     page,
@@ -46,7 +46,7 @@ test.describe('help and keyboard shortcuts', () => {
   test('when g then s, and r are pressed, then stock and a new run open', async ({ page }) => {
     await signIn(page, demo.member);
     await page.goto('/help');
-    await expect(page.getByRole('heading', { name: 'Help', level: 1 })).toBeVisible();
+    await expect(page.getByRole('heading', { name: 'Help', level: 1 })).toBeVisible(opened);
 
     await page.keyboard.press('g');
     await page.keyboard.press('s');
@@ -54,7 +54,7 @@ test.describe('help and keyboard shortcuts', () => {
 
     await page.keyboard.press('r');
     await expect(page).toHaveURL(/\/preparations\/runs\/new$/, opened);
-    await expect(page.getByRole('heading', { name: 'Record a run', level: 1 })).toBeVisible();
+    await expect(page.getByRole('heading', { name: 'Record a run', level: 1 })).toBeVisible(opened);
   });
 
   test('when / or d is pressed away from a container, then the search at the top takes the cursor', async ({
@@ -62,7 +62,7 @@ test.describe('help and keyboard shortcuts', () => {
   }) => {
     await signIn(page, demo.member);
     await page.goto('/help');
-    await expect(page.getByRole('heading', { name: 'Help', level: 1 })).toBeVisible();
+    await expect(page.getByRole('heading', { name: 'Help', level: 1 })).toBeVisible(opened);
     const search = page.getByRole('combobox', { name: 'Search chemicals and containers' });
 
     await page.keyboard.press('/');
@@ -110,13 +110,13 @@ test.describe('help and keyboard shortcuts', () => {
       .getByRole('navigation', { name: 'Main' })
       .getByRole('link', { name: 'Help' })
       .click();
-    await expect(page.getByRole('heading', { name: 'Help', level: 1 })).toBeVisible();
+    await expect(page.getByRole('heading', { name: 'Help', level: 1 })).toBeVisible(opened);
     await expect(
       page.getByText('The SDS, local regulations and licensed practice take precedence', {
         exact: false,
       }),
     ).toBeVisible();
-    await expect(page.getByText(`${count} operations`)).toBeVisible();
+    await expect(page.getByText(`${count} operations`)).toBeVisible(opened);
     const containers = page.getByRole('region', { name: 'Operations: containers' });
     const draw = containers.getByRole('listitem').filter({ hasText: '/api/containers/{id}/draws' });
     await expect(draw).toContainText('Record a draw from a container');
