@@ -43,6 +43,7 @@ import { lotsService } from './modules/lots/lots.service';
 import { maintenanceRoutes } from './modules/maintenance/maintenance.routes';
 import { createMetrics, type Metrics } from './modules/metrics/metrics';
 import { metricsRoutes } from './modules/metrics/metrics.routes';
+import { openApiRoutes } from './modules/openapi/openapi.routes';
 import { paymentRoutes, paymentWebhookPath } from './modules/payments/payments.routes';
 import { paymentsService } from './modules/payments/payments.service';
 import { claimingStatuses } from './modules/orders/order-lifecycle';
@@ -177,7 +178,7 @@ export function createApp({
   app.locals[ledgerNotesKey] = ledgerNotes;
   // Card payments; the orders module calls payments.refundPaidShares when an order is cancelled.
   const payments = paymentsService(store, config, { alerts, logger });
-  const routes = [
+  const routes: ApiRoute[] = [
     ...healthRoutes(store, logger, readiness, databaseFileCheck(dataSource)),
     ...metricsRoutes(metrics, session.resolve, config.trustProxy),
     ...authRoutes(authService(store, config), session, config),
@@ -209,6 +210,7 @@ export function createApp({
     ...receivingRoutes(receivingService(store, alerts, config)),
     ...backupRoutes(backupsService(store, config)),
     ...todayRoutes(todayService(store, config, { alerts })),
+    ...openApiRoutes(() => routes),
   ];
   mountRoutes(app, routes, session.resolve);
   app.locals[routeTableKey] = routes;

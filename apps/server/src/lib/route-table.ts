@@ -33,14 +33,42 @@ interface RouteDefinition<B, Q, P> {
   params?: P;
   /** Extra middleware run before validation (e.g. a rate limiter). */
   before?: RequestHandler[];
+  /** One line for the API document (`GET /api/openapi.json`); derived from the path if absent. */
+  summary?: string;
+  /** The success answer, for the API document (the handler still writes it). */
+  response?: RouteResponse;
   handle(ctx: RouteContext<Parsed<B>, Parsed<Q>, Parsed<P>>): unknown;
 }
 
-/** One row of the route table: the routers are built from it and the permission walk reads it. */
+/** A route's success answer as the API document describes it. */
+export interface RouteResponse {
+  /** 200 unless given. */
+  status?: 200 | 201 | 202 | 204;
+  /** The JSON body (from the shared contract); none for 204 or a file. */
+  schema?: z.ZodType;
+  /** What the body is when it is not JSON, e.g. `text/csv`. */
+  contentType?: string;
+  description?: string;
+}
+
+/** What the API document says of a route, besides its method, path and access. */
+export interface RouteDocs {
+  summary?: string;
+  body?: z.ZodType;
+  query?: z.ZodType;
+  params?: z.ZodType;
+  response?: RouteResponse;
+}
+
+/**
+ * One row of the route table: the routers are built from it, the permission walk and the API
+ * document read it.
+ */
 export interface ApiRoute {
   method: HttpMethod;
   path: string;
   access: RouteAccess;
+  docs: RouteDocs;
   handlers(resolveSession: SessionResolver): RequestHandler[];
 }
 
@@ -54,6 +82,13 @@ export function defineRoute<
     method: definition.method,
     path: definition.path,
     access: definition.access,
+    docs: {
+      summary: definition.summary,
+      body: definition.body,
+      query: definition.query,
+      params: definition.params,
+      response: definition.response,
+    },
     handlers(resolveSession) {
       const guard: RequestHandler[] =
         definition.access === 'public'

@@ -197,6 +197,10 @@ export const routes: RouteObject[] = [
             async () => (await import('../features/auth/pages/account-page')).AccountPage,
           ),
           lazyPage(
+            paths.help,
+            async () => (await import('../features/help/pages/help-page')).HelpPage,
+          ),
+          lazyPage(
             paths.suppliers,
             async () =>
               (await import('../features/suppliers/pages/suppliers-list-page')).SuppliersListPage,

@@ -66,4 +66,6 @@ export const paths = {
   adminBackups: '/admin/backups',
   /** The signed-in person's own account: change password. */
   account: '/account',
+  /** What Lotwise is, the everyday jobs, keyboard shortcuts and the API. */
+  help: '/help',
 } as const;

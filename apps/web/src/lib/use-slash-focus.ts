@@ -1,19 +1,11 @@
 import { useEffect, type RefObject } from 'react';
+import { registerSlashTarget } from './shortcuts';
 
-/** Pressing `/` anywhere outside a text field focuses the given input (list search boxes). */
+/**
+ * Makes `/` (pressed outside a text field) focus the given input, a list's search box, while
+ * the component is mounted; without one, `/` focuses the search at the top. The key itself is
+ * handled with the other shortcuts (app/layout/keyboard-shortcuts.tsx).
+ */
 export function useSlashFocus(ref: RefObject<HTMLInputElement | null>): void {
-  useEffect(() => {
-    function handleKeyDown(event: KeyboardEvent) {
-      if (event.key !== '/' || event.ctrlKey || event.metaKey || event.altKey) return;
-      const target = event.target;
-      const typing =
-        target instanceof Element &&
-        target.closest('input, textarea, select, [contenteditable="true"], dialog[open]') !== null;
-      if (typing) return;
-      event.preventDefault();
-      ref.current?.focus();
-    }
-    document.addEventListener('keydown', handleKeyDown);
-    return () => document.removeEventListener('keydown', handleKeyDown);
-  }, [ref]);
+  useEffect(() => registerSlashTarget(ref), [ref]);
 }

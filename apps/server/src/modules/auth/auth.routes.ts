@@ -1,4 +1,9 @@
-import { acceptInviteBodySchema, changePasswordBodySchema, loginBodySchema } from '@lotwise/shared';
+import {
+  acceptInviteBodySchema,
+  changePasswordBodySchema,
+  loginBodySchema,
+  meResponseSchema,
+} from '@lotwise/shared';
 import type { Request, RequestHandler } from 'express';
 import type { Config } from '../../config';
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
@@ -63,6 +68,7 @@ export function authRoutes(auth: AuthService, session: Sessions, limits: LoginLi
       method: 'post',
       path: '/api/auth/login',
       access: 'public',
+      summary: 'Sign in (sets the session cookie)',
       before: loginLimiters(limits),
       body: loginBodySchema,
       handle: async ({ body, res }) => {
@@ -75,6 +81,7 @@ export function authRoutes(auth: AuthService, session: Sessions, limits: LoginLi
       method: 'post',
       path: '/api/auth/logout',
       access: 'public',
+      summary: 'Sign out (ends every session of the person)',
       // Signing out ends every session of the user, not only this browser's cookie.
       handle: async ({ req, res }) => {
         const user = await session.resolve(req, res);
@@ -87,6 +94,7 @@ export function authRoutes(auth: AuthService, session: Sessions, limits: LoginLi
       method: 'post',
       path: '/api/auth/password',
       access: 'signed-in',
+      summary: 'Change one’s own password',
       body: changePasswordBodySchema,
       handle: async ({ body, res, actor }) => {
         const user = await auth.changePassword(actor().id, body);
@@ -99,6 +107,8 @@ export function authRoutes(auth: AuthService, session: Sessions, limits: LoginLi
       method: 'get',
       path: '/api/auth/me',
       access: 'signed-in',
+      summary: 'Who is signed in',
+      response: { schema: meResponseSchema },
       handle: ({ res, actor }) => {
         res.json({ user: actor() });
       },
@@ -107,6 +117,7 @@ export function authRoutes(auth: AuthService, session: Sessions, limits: LoginLi
       method: 'get',
       path: '/api/auth/invite/:token',
       access: 'public',
+      summary: 'Read an invitation',
       params: z.object({ token: z.string().min(1).max(200) }),
       handle: async ({ params, res }) => {
         res.json(await auth.invitation(params.token));
@@ -116,6 +127,7 @@ export function authRoutes(auth: AuthService, session: Sessions, limits: LoginLi
       method: 'post',
       path: '/api/auth/accept-invite',
       access: 'public',
+      summary: 'Accept an invitation and set a password',
       body: acceptInviteBodySchema,
       handle: async ({ body, res }) => {
         const user = await auth.acceptInvite(body);

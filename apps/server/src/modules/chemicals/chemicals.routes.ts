@@ -2,6 +2,8 @@ import {
   chemicalCreateBodySchema,
   chemicalListQuerySchema,
   chemicalPatchBodySchema,
+  chemicalSchema,
+  pageSchema,
 } from '@lotwise/shared';
 import { idParamsSchema } from '../../lib/validate';
 import { defineRoute } from '../../lib/route-table';
@@ -13,6 +15,8 @@ export function chemicalRoutes(chemicals: ChemicalsService) {
       method: 'get',
       path: '/api/chemicals',
       access: 'chemicals.read',
+      summary: 'List chemicals (search, filter by hazard and storage group)',
+      response: { schema: pageSchema(chemicalSchema) },
       query: chemicalListQuerySchema,
       handle: async ({ query, res }) => {
         res.json(await chemicals.list(query));
@@ -22,6 +26,8 @@ export function chemicalRoutes(chemicals: ChemicalsService) {
       method: 'post',
       path: '/api/chemicals',
       access: 'chemicals.write',
+      summary: 'Add a chemical',
+      response: { status: 201, schema: chemicalSchema },
       body: chemicalCreateBodySchema,
       handle: async ({ body, res }) => {
         res.status(201).json(await chemicals.create(body));
@@ -31,6 +37,8 @@ export function chemicalRoutes(chemicals: ChemicalsService) {
       method: 'get',
       path: '/api/chemicals/:id',
       access: 'chemicals.read',
+      summary: 'Read a chemical with its hazards',
+      response: { schema: chemicalSchema },
       params: idParamsSchema,
       handle: async ({ params, res }) => {
         res.json(await chemicals.get(params.id));
@@ -40,6 +48,8 @@ export function chemicalRoutes(chemicals: ChemicalsService) {
       method: 'patch',
       path: '/api/chemicals/:id',
       access: 'chemicals.write',
+      summary: 'Change a chemical',
+      response: { schema: chemicalSchema },
       params: idParamsSchema,
       body: chemicalPatchBodySchema,
       handle: async ({ params, body, res }) => {
@@ -50,6 +60,8 @@ export function chemicalRoutes(chemicals: ChemicalsService) {
       method: 'delete',
       path: '/api/chemicals/:id',
       access: 'chemicals.write',
+      summary: 'Delete a chemical that has no stock',
+      response: { status: 204 },
       params: idParamsSchema,
       handle: async ({ params, res }) => {
         await chemicals.remove(params.id);

@@ -1,12 +1,17 @@
 import {
   adjustmentSchema,
+  containerChangeSchema,
   containerCreateSchema,
+  containerDetailSchema,
   containerListQuerySchema,
   containerPatchSchema,
+  containerSchema,
   disposalSchema,
   drawSchema,
   labelCodeParamsSchema,
+  ledgerEntrySchema,
   ledgerListQuerySchema,
+  pageSchema,
   splitSchema,
   transferSchema,
 } from '@lotwise/shared';
@@ -20,6 +25,8 @@ export function containerRoutes(containers: ContainersService) {
       method: 'get',
       path: '/api/containers',
       access: 'stock.read',
+      summary: 'List containers',
+      response: { schema: pageSchema(containerSchema) },
       query: containerListQuerySchema,
       handle: async ({ query, res }) => {
         res.json(await containers.list(query));
@@ -29,6 +36,8 @@ export function containerRoutes(containers: ContainersService) {
       method: 'post',
       path: '/api/containers',
       access: 'stock.write',
+      summary: 'Add a container of a lot',
+      response: { status: 201, schema: containerChangeSchema },
       body: containerCreateSchema,
       handle: async ({ body, res, actor }) => {
         res.status(201).json(await containers.create(body, actor()));
@@ -38,6 +47,8 @@ export function containerRoutes(containers: ContainersService) {
       method: 'get',
       path: '/api/containers/by-label/:labelCode',
       access: 'stock.read',
+      summary: 'Find a container by its label code',
+      response: { schema: containerDetailSchema },
       params: labelCodeParamsSchema,
       handle: async ({ params, res }) => {
         res.json(await containers.getByLabel(params.labelCode));
@@ -47,6 +58,8 @@ export function containerRoutes(containers: ContainersService) {
       method: 'get',
       path: '/api/containers/:id',
       access: 'stock.read',
+      summary: 'Read a container',
+      response: { schema: containerDetailSchema },
       params: idParamsSchema,
       handle: async ({ params, res }) => {
         res.json(await containers.get(params.id));
@@ -56,6 +69,8 @@ export function containerRoutes(containers: ContainersService) {
       method: 'patch',
       path: '/api/containers/:id',
       access: 'stock.write',
+      summary: 'Change a container (location, tare, status)',
+      response: { schema: containerDetailSchema },
       params: idParamsSchema,
       body: containerPatchSchema,
       handle: async ({ params, body, res }) => {
@@ -66,6 +81,8 @@ export function containerRoutes(containers: ContainersService) {
       method: 'get',
       path: '/api/containers/:id/ledger',
       access: 'stock.read',
+      summary: 'List the ledger entries of a container',
+      response: { schema: pageSchema(ledgerEntrySchema) },
       params: idParamsSchema,
       query: ledgerListQuerySchema,
       handle: async ({ params, query, res }) => {
@@ -76,6 +93,8 @@ export function containerRoutes(containers: ContainersService) {
       method: 'post',
       path: '/api/containers/:id/draws',
       access: 'stock.draw',
+      summary: 'Record a draw from a container',
+      response: { status: 201, schema: containerChangeSchema },
       params: idParamsSchema,
       body: drawSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -86,6 +105,8 @@ export function containerRoutes(containers: ContainersService) {
       method: 'post',
       path: '/api/containers/:id/adjustments',
       access: 'stock.write',
+      summary: 'Adjust the balance of a container',
+      response: { status: 201, schema: containerChangeSchema },
       params: idParamsSchema,
       body: adjustmentSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -96,6 +117,8 @@ export function containerRoutes(containers: ContainersService) {
       method: 'post',
       path: '/api/containers/:id/splits',
       access: 'stock.write',
+      summary: 'Split a container into a new one',
+      response: { status: 201, schema: containerChangeSchema },
       params: idParamsSchema,
       body: splitSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -106,6 +129,8 @@ export function containerRoutes(containers: ContainersService) {
       method: 'post',
       path: '/api/containers/:id/transfers',
       access: 'stock.write',
+      summary: 'Move a container to another location',
+      response: { status: 201, schema: containerChangeSchema },
       params: idParamsSchema,
       body: transferSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -116,6 +141,8 @@ export function containerRoutes(containers: ContainersService) {
       method: 'post',
       path: '/api/containers/:id/disposal',
       access: 'stock.write',
+      summary: 'Dispose of a container',
+      response: { status: 201, schema: containerChangeSchema },
       params: idParamsSchema,
       body: disposalSchema,
       handle: async ({ params, body, res, actor }) => {

@@ -1,12 +1,15 @@
 import {
   orderCancelSchema,
   orderCreateSchema,
+  orderDetailSchema,
   orderInvoiceSchema,
   orderLineCreateSchema,
   orderLinePatchSchema,
   orderListQuerySchema,
   orderMarkOrderedSchema,
   orderPatchSchema,
+  orderSummarySchema,
+  pageSchema,
   shareClaimSchema,
   sharePatchSchema,
 } from '@lotwise/shared';
@@ -30,6 +33,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'get',
       path: '/api/orders',
       access: 'orders.read',
+      summary: 'List shared orders',
+      response: { schema: pageSchema(orderSummarySchema) },
       query: orderListQuerySchema,
       handle: async ({ query, res, actor }) => {
         res.json(await orders.list(query, actor()));
@@ -39,6 +44,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'post',
       path: '/api/orders',
       access: 'orders.manage',
+      summary: 'Draft a shared order',
+      response: { status: 201, schema: orderDetailSchema },
       body: orderCreateSchema,
       handle: async ({ body, res, actor }) => {
         res.status(201).json(await orders.create(body, actor()));
@@ -48,6 +55,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'get',
       path: '/api/orders/:id',
       access: 'orders.read',
+      summary: 'Read a shared order with its lines and claims',
+      response: { schema: orderDetailSchema },
       params: idParamsSchema,
       handle: async ({ params, res, actor }) => {
         res.json(await orders.get(params.id, actor()));
@@ -57,6 +66,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'patch',
       path: '/api/orders/:id',
       access: 'orders.manage',
+      summary: 'Change a shared order',
+      response: { schema: orderDetailSchema },
       params: idParamsSchema,
       body: orderPatchSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -67,6 +78,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'post',
       path: '/api/orders/:id/lines',
       access: 'orders.manage',
+      summary: 'Add a line to an order',
+      response: { status: 201, schema: orderDetailSchema },
       params: idParamsSchema,
       body: orderLineCreateSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -77,6 +90,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'patch',
       path: '/api/orders/:id/lines/:lineId',
       access: 'orders.manage',
+      summary: 'Change the packs of an order line',
+      response: { schema: orderDetailSchema },
       params: lineParamsSchema,
       body: orderLinePatchSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -87,6 +102,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'delete',
       path: '/api/orders/:id/lines/:lineId',
       access: 'orders.manage',
+      summary: 'Remove an order line',
+      response: { schema: orderDetailSchema },
       params: lineParamsSchema,
       handle: async ({ params, res, actor }) => {
         res.json(await orders.removeLine(params.id, params.lineId, actor()));
@@ -96,6 +113,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'post',
       path: '/api/orders/:id/open',
       access: 'orders.manage',
+      summary: 'Open an order for claims',
+      response: { schema: orderDetailSchema },
       params: idParamsSchema,
       handle: async ({ params, res, actor }) => {
         res.json(await orders.open(params.id, actor()));
@@ -105,6 +124,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'post',
       path: '/api/orders/:id/lab-remainder',
       access: 'orders.manage',
+      summary: 'Take what nobody claimed for the lab',
+      response: { schema: orderDetailSchema },
       params: idParamsSchema,
       handle: async ({ params, res, actor }) => {
         res.json(await orders.takeLabRemainder(params.id, actor()));
@@ -114,6 +135,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'post',
       path: '/api/orders/:id/close-claims',
       access: 'orders.manage',
+      summary: 'Close an order for claims',
+      response: { schema: orderDetailSchema },
       params: idParamsSchema,
       handle: async ({ params, res, actor }) => {
         res.json(await orders.closeClaims(params.id, actor()));
@@ -123,6 +146,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'post',
       path: '/api/orders/:id/mark-ordered',
       access: 'orders.manage',
+      summary: 'Mark an order as placed with the supplier',
+      response: { schema: orderDetailSchema },
       params: idParamsSchema,
       body: orderMarkOrderedSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -133,6 +158,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'put',
       path: '/api/orders/:id/supplier-invoice',
       access: 'orders.manage',
+      summary: 'Record the supplier invoice total',
+      response: { schema: orderDetailSchema },
       params: idParamsSchema,
       body: orderInvoiceSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -143,6 +170,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'post',
       path: '/api/orders/:id/cancel',
       access: 'orders.manage',
+      summary: 'Cancel an order',
+      response: { schema: orderDetailSchema },
       params: idParamsSchema,
       body: orderCancelSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -153,6 +182,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'post',
       path: '/api/orders/:id/shares',
       access: 'orders.join',
+      summary: 'Claim a share of an order line',
+      response: { status: 201, schema: orderDetailSchema },
       params: idParamsSchema,
       body: shareClaimSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -163,6 +194,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'patch',
       path: '/api/orders/:id/shares/:shareId',
       access: 'orders.join',
+      summary: 'Change a claimed quantity',
+      response: { schema: orderDetailSchema },
       params: shareParamsSchema,
       body: sharePatchSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -173,6 +206,8 @@ export function orderRoutes(orders: OrdersService) {
       method: 'delete',
       path: '/api/orders/:id/shares/:shareId',
       access: 'orders.join',
+      summary: 'Withdraw a claim',
+      response: { schema: orderDetailSchema },
       params: shareParamsSchema,
       handle: async ({ params, res, actor }) => {
         res.json(await orders.withdrawShare(params.id, params.shareId, actor()));

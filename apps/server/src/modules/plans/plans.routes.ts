@@ -1,7 +1,11 @@
 import {
+  dispensingSheetSchema,
+  pageSchema,
   planCreateSchema,
+  planDetailSchema,
   planListQuerySchema,
   planPatchSchema,
+  planSchema,
   reservationCreateSchema,
 } from '@lotwise/shared';
 import { idParamsSchema } from '../../lib/validate';
@@ -18,6 +22,8 @@ export function planRoutes(plans: PlansService) {
       method: 'get',
       path: '/api/plans',
       access: 'procedures.read',
+      summary: 'List prep plans',
+      response: { schema: pageSchema(planSchema) },
       query: planListQuerySchema,
       handle: async ({ query, res, actor }) => {
         res.json(await plans.list(query, actor()));
@@ -27,6 +33,8 @@ export function planRoutes(plans: PlansService) {
       method: 'post',
       path: '/api/plans',
       access: 'runs.record',
+      summary: 'Plan a preparation (answers its stock check)',
+      response: { status: 201, schema: planDetailSchema },
       body: planCreateSchema,
       handle: async ({ body, res, actor }) => {
         res.status(201).json(await plans.create(body, actor()));
@@ -36,6 +44,8 @@ export function planRoutes(plans: PlansService) {
       method: 'get',
       path: '/api/plans/:id',
       access: 'procedures.read',
+      summary: 'Read a prep plan with its stock check',
+      response: { schema: planDetailSchema },
       params: idParamsSchema,
       handle: async ({ params, res }) => {
         res.json(await plans.get(params.id));
@@ -45,6 +55,8 @@ export function planRoutes(plans: PlansService) {
       method: 'patch',
       path: '/api/plans/:id',
       access: 'runs.record',
+      summary: 'Change a prep plan',
+      response: { schema: planDetailSchema },
       params: idParamsSchema,
       body: planPatchSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -55,6 +67,8 @@ export function planRoutes(plans: PlansService) {
       method: 'post',
       path: '/api/plans/:id/reservations',
       access: 'runs.record',
+      summary: 'Reserve containers for a plan',
+      response: { status: 201, schema: planDetailSchema },
       params: idParamsSchema,
       body: reservationCreateSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -65,6 +79,8 @@ export function planRoutes(plans: PlansService) {
       method: 'post',
       path: '/api/plans/:id/cancel',
       access: 'runs.record',
+      summary: 'Cancel a prep plan',
+      response: { schema: planDetailSchema },
       params: idParamsSchema,
       handle: async ({ params, res, actor }) => {
         res.json(await plans.cancel(params.id, actor()));
@@ -74,6 +90,8 @@ export function planRoutes(plans: PlansService) {
       method: 'get',
       path: '/api/plans/:id/dispensing',
       access: 'procedures.read',
+      summary: 'The dispensing sheet of a plan',
+      response: { schema: dispensingSheetSchema },
       params: idParamsSchema,
       handle: async ({ params, res }) => {
         res.json(await plans.dispensing(params.id));

@@ -1,4 +1,13 @@
-import { runCreateSchema, runListQuerySchema, runRecordSchema } from '@lotwise/shared';
+import {
+  chemicalUsageSchema,
+  lotProvenanceSchema,
+  pageSchema,
+  runCreateSchema,
+  runListQuerySchema,
+  runRecordSchema,
+  runSchema,
+  runSummarySchema,
+} from '@lotwise/shared';
 import { idParamsSchema } from '../../lib/validate';
 import { defineRoute } from '../../lib/route-table';
 import type { RunsService } from './runs.service';
@@ -10,6 +19,8 @@ export function runRoutes(runs: RunsService) {
       method: 'get',
       path: '/api/runs',
       access: 'procedures.read',
+      summary: 'List runs',
+      response: { schema: pageSchema(runSummarySchema) },
       query: runListQuerySchema,
       handle: async ({ query, res }) => {
         res.json(await runs.list(query));
@@ -19,6 +30,8 @@ export function runRoutes(runs: RunsService) {
       method: 'post',
       path: '/api/runs',
       access: 'runs.record',
+      summary: 'Start a run of a procedure or plan',
+      response: { status: 201, schema: runSchema },
       body: runCreateSchema,
       handle: async ({ body, res, actor }) => {
         res.status(201).json(await runs.create(body, actor()));
@@ -28,6 +41,8 @@ export function runRoutes(runs: RunsService) {
       method: 'get',
       path: '/api/runs/:id',
       access: 'procedures.read',
+      summary: 'Read a run',
+      response: { schema: runSchema },
       params: idParamsSchema,
       handle: async ({ params, res }) => {
         res.json(await runs.get(params.id));
@@ -37,6 +52,8 @@ export function runRoutes(runs: RunsService) {
       method: 'post',
       path: '/api/runs/:id/record',
       access: 'runs.record',
+      summary: 'Record a run: draws, products, yield',
+      response: { schema: runSchema },
       params: idParamsSchema,
       body: runRecordSchema,
       handle: async ({ params, body, res, actor }) => {
@@ -47,6 +64,8 @@ export function runRoutes(runs: RunsService) {
       method: 'get',
       path: '/api/chemicals/:id/usage',
       access: 'procedures.read',
+      summary: 'Where a chemical was used in runs and procedures',
+      response: { schema: chemicalUsageSchema },
       params: idParamsSchema,
       handle: async ({ params, res }) => {
         res.json(await runs.chemicalUsage(params.id));
@@ -56,6 +75,8 @@ export function runRoutes(runs: RunsService) {
       method: 'get',
       path: '/api/lots/:id/provenance',
       access: 'stock.read',
+      summary: 'Where a lot came from and went',
+      response: { schema: lotProvenanceSchema },
       params: idParamsSchema,
       handle: async ({ params, res }) => {
         res.json(await runs.lotProvenance(params.id));

@@ -9,6 +9,7 @@ import { PageSpinner } from '../../components/ui/spinner';
 import { paths } from '../../config/paths';
 import { useSignOut } from '../../features/auth/api';
 import { GlobalSearch } from '../../features/search/components/global-search';
+import { KeyboardShortcuts } from './keyboard-shortcuts';
 import { SideNav } from './side-nav';
 
 export function AppShell({ user }: { user: User }) {
@@ -89,6 +90,7 @@ export function AppShell({ user }: { user: User }) {
           </div>
         </main>
       </div>
+      <KeyboardShortcuts role={user.role} />
     </div>
   );
 }

@@ -6,6 +6,7 @@ import {
   DatabaseBackup,
   FlaskConical,
   FlaskRound,
+  LifeBuoy,
   Mail,
   Package,
   PackagePlus,
@@ -29,7 +30,7 @@ export interface NavItem {
   /** Not built yet: the page says so and tells what it will do. */
   coming?: boolean;
   /** The group the entry is listed under; none: the main list. */
-  section?: 'purchasing' | 'admin';
+  section?: 'purchasing' | 'admin' | 'end';
 }
 
 export const navItems: readonly NavItem[] = [
@@ -93,6 +94,7 @@ export const navItems: readonly NavItem[] = [
     icon: DatabaseBackup,
     section: 'admin',
   },
+  { label: 'Help', to: paths.help, icon: LifeBuoy, section: 'end' },
 ];
 
 /** The navigation a role sees: only what it may use. */

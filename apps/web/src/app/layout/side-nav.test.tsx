@@ -18,7 +18,7 @@ function navLabels(role: Role): string[] {
 
 describe('SideNav', () => {
   it('when a viewer signs in, then the start page and only read-only places show', () => {
-    expect(navLabels('viewer')).toEqual(['Today', 'Chemicals', 'Stock', 'Preparations']);
+    expect(navLabels('viewer')).toEqual(['Today', 'Chemicals', 'Stock', 'Preparations', 'Help']);
   });
 
   it('when a member signs in, then runs, alerts and purchasing (orders, restock, suppliers, their purchases) show but not administration', () => {
@@ -33,6 +33,7 @@ describe('SideNav', () => {
       'Restock',
       'My purchases',
       'Suppliers',
+      'Help',
     ]);
     expect(screen.getByText('Purchasing')).toBeInTheDocument();
   });
@@ -52,6 +53,7 @@ describe('SideNav', () => {
       'People',
       'Outbox',
       'Backups',
+      'Help',
     ]);
     expect(screen.getByText('Admin')).toBeInTheDocument();
   });

@@ -59,6 +59,13 @@ export function SideNav({ role }: { role: Role }) {
       </ul>
       <Group title="Purchasing" items={items.filter((item) => item.section === 'purchasing')} />
       <Group title="Admin" items={items.filter((item) => item.section === 'admin')} />
+      <ul className="flex flex-col gap-0.5 border-t border-ink-100 pt-3">
+        {items
+          .filter((item) => item.section === 'end')
+          .map((item) => (
+            <Item key={item.to} item={item} />
+          ))}
+      </ul>
     </nav>
   );
 }

@@ -4,6 +4,7 @@ import { Boxes, FlaskConical, Search } from 'lucide-react';
 import { Formula } from '../../../components/chem/formula';
 import { cn } from '../../../lib/cn';
 import { labelCodeFromScan } from '../../../lib/label-scan';
+import { globalSearchId, useSearchHint } from '../../../lib/shortcuts';
 import { useDebouncedValue } from '../../../lib/use-debounced-value';
 import { paths } from '../../../config/paths';
 import { useGlobalSearch } from '../api';
@@ -30,6 +31,9 @@ export function GlobalSearch() {
   const debounced = useDebouncedValue(text, 200);
   const search = useGlobalSearch(debounced);
   const listId = useId();
+  const hintId = useId();
+  // Why the cursor was put here (e.g. by the `d` shortcut), until the field is left.
+  const [hint, clearHint] = useSearchHint();
 
   const options: Option[] = debounced.trim()
     ? [
@@ -94,7 +98,7 @@ export function GlobalSearch() {
 
   return (
     <div className="relative w-full max-w-md">
-      <label htmlFor="global-search" className="sr-only">
+      <label htmlFor={globalSearchId} className="sr-only">
         Search chemicals and containers
       </label>
       <Search
@@ -102,7 +106,7 @@ export function GlobalSearch() {
         className="pointer-events-none absolute top-2.5 left-2.5 size-4 text-ink-500"
       />
       <input
-        id="global-search"
+        id={globalSearchId}
         type="search"
         role="combobox"
         autoComplete="off"
@@ -110,6 +114,7 @@ export function GlobalSearch() {
         aria-expanded={showList}
         aria-controls={listId}
         aria-autocomplete="list"
+        aria-describedby={hint ? hintId : undefined}
         aria-activedescendant={showList && active >= 0 ? `${listId}-${active}` : undefined}
         placeholder="Find a chemical or scan a label (LW-00042)"
         value={text}
@@ -119,10 +124,21 @@ export function GlobalSearch() {
           setActive(-1);
         }}
         onFocus={() => setOpen(true)}
-        onBlur={() => setOpen(false)}
+        onBlur={() => {
+          setOpen(false);
+          clearHint();
+        }}
         onKeyDown={handleKeyDown}
         className="h-9 w-full rounded-md border border-ink-300 bg-ink-50 pr-2.5 pl-8 text-sm text-ink-900 placeholder:text-ink-500 hover:border-ink-400 focus:bg-white"
       />
+      {hint && !showList && (
+        <p
+          id={hintId}
+          className="absolute top-full right-0 left-0 z-30 mt-1 rounded-md border border-accent-200 bg-accent-50 px-3 py-2 text-sm text-ink-900 shadow-lg"
+        >
+          {hint}
+        </p>
+      )}
       {showList && (
         <ul
           id={listId}

@@ -12,6 +12,7 @@ import { isApiError, sendWithConfirmation } from '../../../lib/api-client';
 import { cn } from '../../../lib/cn';
 import { formatAmount } from '../../../lib/format';
 import { parseDecimal } from '../../../lib/numbers';
+import { drawTargetProps } from '../../../lib/shortcuts';
 import { useRecordDraw } from '../api';
 import { drawUnits, previewWeighing } from '../weighing';
 
@@ -137,7 +138,13 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
   });
 
   return (
-    <form onSubmit={submit} noValidate aria-label="Record a draw" className="flex flex-col gap-4">
+    <form
+      onSubmit={submit}
+      noValidate
+      aria-label="Record a draw"
+      className="flex flex-col gap-4"
+      {...drawTargetProps}
+    >
       <fieldset>
         <legend className="mb-1.5 text-sm font-medium text-ink-800">
           How do you know the amount?
