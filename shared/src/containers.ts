@@ -42,6 +42,23 @@ export function normalizeLabelCode(text: string): string | null {
   return n === null ? null : formatLabelCode(n);
 }
 
+/**
+ * A label code that is not an `LW-` code: one an import kept as written (the supplier's code or
+ * the lab's own earlier one), up to 20 letters, digits and `- . _ /`.
+ */
+export const otherLabelCodePattern = /^[A-Za-z0-9][A-Za-z0-9._/-]{0,19}$/;
+
+/**
+ * The code to look a container up by: an `LW-` code in its canonical form ("lw-42" ->
+ * "LW-00042"), another label code as written (trimmed), null for anything else.
+ */
+export function labelCodeToLookUp(text: string): string | null {
+  const lotwise = normalizeLabelCode(text);
+  if (lotwise) return lotwise;
+  const other = text.trim();
+  return otherLabelCodePattern.test(other) ? other : null;
+}
+
 const positive = (what: string) => amountSchema(what, 'positive');
 const nonNegative = (what: string) => amountSchema(what, 'nonNegative');
 
@@ -293,7 +310,7 @@ export type ContainerListQuery = z.infer<typeof containerListQuerySchema>;
 
 /** Path params of `GET /api/containers/by-label/:labelCode`. */
 export const labelCodeParamsSchema = z.object({
-  labelCode: z.string().refine((text) => parseLabelCode(text) !== null, {
-    message: 'must be a label code such as LW-00042',
+  labelCode: z.string().refine((text) => labelCodeToLookUp(text) !== null, {
+    message: 'must be a label code such as LW-00042 (or a code of up to 20 letters and digits)',
   }),
 });

@@ -36,3 +36,4 @@ export * from './requests';
 export * from './receiving';
 export * from './purchases';
 export * from './backups';
+export * from './settings';

@@ -13,6 +13,7 @@ import {
   maxStockAmount,
   maxStockAmountText,
   formatQuantity,
+  labelCodeToLookUp,
   normalizeLabelCode,
   todayIso,
   type Container,
@@ -479,7 +480,7 @@ export function containersService(store: Store) {
     get: (id: number) => detail(store.repos, id),
 
     async getByLabel(labelCode: string): Promise<ContainerDetail> {
-      const code = normalizeLabelCode(labelCode);
+      const code = labelCodeToLookUp(labelCode);
       const view = code ? await store.repos.containers.findViewByLabel(code) : null;
       if (!view) throw AppError.notFound(`No container has the label code ${labelCode}.`);
       return detail(store.repos, view.id);
