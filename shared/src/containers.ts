@@ -9,6 +9,7 @@ import { ledgerEntrySchema } from './ledger';
 import { listQuerySchema, queryFlagSchema } from './list';
 import { lotSourceSchema } from './lots';
 import { segregationWarningSchema } from './segregation';
+import { storedFileSchema } from './uploads';
 
 export const containerStatuses = ['sealed', 'open', 'empty', 'disposed'] as const;
 export const containerStatusSchema = z.enum(containerStatuses, {
@@ -261,6 +262,11 @@ export type Container = z.infer<typeof containerSchema>;
 /** `GET /api/containers/:id`: the container with segregation warnings for its place. */
 export const containerDetailSchema = containerSchema.extend({
   warnings: z.array(segregationWarningSchema),
+  /**
+   * The chemical's current SDS (PDF, downloaded from `GET /api/chemicals/:id/sds`), shown beside
+   * the hazards; null when none was uploaded. Always sent by the server.
+   */
+  sds: storedFileSchema.nullable().optional(),
 });
 export type ContainerDetail = z.infer<typeof containerDetailSchema>;
 

@@ -44,6 +44,7 @@ import { noteLedgerChange, type Repositories, type Store } from '../../db/store'
 import { fromMicro, roundToStored, toMicro } from '../../db/quantities';
 import { nowIso } from '../../db/sql';
 import type { ChemicalRow } from '../chemicals/chemical.entity';
+import { sdsOf } from '../chemicals/chemicals.repository';
 import { requireLocation } from '../locations/locations.service';
 import type { LocationRow } from '../locations/location.entity';
 import { requireLot } from '../lots/lots.service';
@@ -414,7 +415,9 @@ export function containersService(store: Store) {
             },
             location,
           );
-    return { ...container, warnings };
+    const chemical = await repos.chemicals.findRow(view.chemicalId);
+    const sds = chemical ? sdsOf(chemical) : null;
+    return { ...container, warnings, sds };
   }
 
   async function change(
