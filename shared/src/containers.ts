@@ -9,6 +9,7 @@ import { ledgerEntrySchema } from './ledger';
 import { listQuerySchema, queryFlagSchema } from './list';
 import { lotSourceSchema } from './lots';
 import { segregationWarningSchema } from './segregation';
+import { storedFileSchema } from './uploads';
 
 export const containerStatuses = ['sealed', 'open', 'empty', 'disposed'] as const;
 export const containerStatusSchema = z.enum(containerStatuses, {
@@ -40,6 +41,23 @@ export function parseLabelCode(text: string): number | null {
 export function normalizeLabelCode(text: string): string | null {
   const n = parseLabelCode(text);
   return n === null ? null : formatLabelCode(n);
+}
+
+/**
+ * A label code that is not an `LW-` code: one an import kept as written (the supplier's code or
+ * the lab's own earlier one), up to 20 letters, digits and `- . _ /`.
+ */
+export const otherLabelCodePattern = /^[A-Za-z0-9][A-Za-z0-9._/-]{0,19}$/;
+
+/**
+ * The code to look a container up by: an `LW-` code in its canonical form ("lw-42" ->
+ * "LW-00042"), another label code as written (trimmed), null for anything else.
+ */
+export function labelCodeToLookUp(text: string): string | null {
+  const lotwise = normalizeLabelCode(text);
+  if (lotwise) return lotwise;
+  const other = text.trim();
+  return otherLabelCodePattern.test(other) ? other : null;
 }
 
 const positive = (what: string) => amountSchema(what, 'positive');
@@ -244,6 +262,11 @@ export type Container = z.infer<typeof containerSchema>;
 /** `GET /api/containers/:id`: the container with segregation warnings for its place. */
 export const containerDetailSchema = containerSchema.extend({
   warnings: z.array(segregationWarningSchema),
+  /**
+   * The chemical's current SDS (PDF, downloaded from `GET /api/chemicals/:id/sds`), shown beside
+   * the hazards; null when none was uploaded. Always sent by the server.
+   */
+  sds: storedFileSchema.nullable().optional(),
 });
 export type ContainerDetail = z.infer<typeof containerDetailSchema>;
 
@@ -293,7 +316,7 @@ export type ContainerListQuery = z.infer<typeof containerListQuerySchema>;
 
 /** Path params of `GET /api/containers/by-label/:labelCode`. */
 export const labelCodeParamsSchema = z.object({
-  labelCode: z.string().refine((text) => parseLabelCode(text) !== null, {
-    message: 'must be a label code such as LW-00042',
+  labelCode: z.string().refine((text) => labelCodeToLookUp(text) !== null, {
+    message: 'must be a label code such as LW-00042 (or a code of up to 20 letters and digits)',
   }),
 });

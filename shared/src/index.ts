@@ -37,3 +37,4 @@ export * from './receiving';
 export * from './purchases';
 export * from './backups';
 export * from './today';
+export * from './settings';

@@ -1,7 +1,13 @@
 import { SEGREGATION_GROUPS } from '@lotwise/chem';
 import { describe, expect, it } from 'vitest';
 import { chemicalCreateBodySchema, chemicalPatchBodySchema } from './chemicals';
-import { drawSchema, formatLabelCode, normalizeLabelCode, parseLabelCode } from './containers';
+import {
+  drawSchema,
+  formatLabelCode,
+  labelCodeToLookUp,
+  normalizeLabelCode,
+  parseLabelCode,
+} from './containers';
 import { isIsoDate } from './dates';
 import { storageGroupCodes } from './hazards';
 import { permissionMatrix } from './roles';
@@ -18,6 +24,14 @@ describe('stock contract', () => {
     expect(normalizeLabelCode('LW 00042')).toBe('LW-00042');
     expect(parseLabelCode('LW-00000')).toBeNull();
     expect(parseLabelCode('aspirin')).toBeNull();
+  });
+
+  it('when a code is looked up, then LW- codes are made canonical and other label codes kept as written', () => {
+    expect(labelCodeToLookUp('lw-42')).toBe('LW-00042');
+    expect(labelCodeToLookUp(' FW/B-117 ')).toBe('FW/B-117');
+    expect(labelCodeToLookUp('not a code')).toBeNull();
+    expect(labelCodeToLookUp('A'.repeat(21))).toBeNull();
+    expect(labelCodeToLookUp('https://lab.example.test/stock/c/LW-00042')).toBeNull();
   });
 
   it('when a draw gives both or neither of amount and grossMass, then the message says which to give', () => {

@@ -64,6 +64,7 @@ import { receivingService } from './modules/receiving/receiving.service';
 import { runRoutes } from './modules/runs/runs.routes';
 import { runsService } from './modules/runs/runs.service';
 import { segregationRoutes } from './modules/segregation/segregation.routes';
+import { settingsRoutes } from './modules/settings/settings.routes';
 import { stockRoutes } from './modules/stock/stock.routes';
 import { stockService } from './modules/stock/stock.service';
 import { supplierRoutes } from './modules/suppliers/suppliers.routes';
@@ -180,6 +181,7 @@ export function createApp({
   const payments = paymentsService(store, config, { alerts, logger });
   const routes: ApiRoute[] = [
     ...healthRoutes(store, logger, readiness, databaseFileCheck(dataSource)),
+    ...settingsRoutes(config),
     ...metricsRoutes(metrics, session.resolve, config.trustProxy),
     ...authRoutes(authService(store, config), session, config),
     ...userRoutes(usersService(store, config), session),

@@ -94,6 +94,7 @@ export function makeContainer(overrides: Partial<ContainerDetail> = {}): Contain
     createdAt: '2026-08-20T09:00:00.000Z',
     updatedAt: '2026-09-01T09:00:00.000Z',
     warnings: [],
+    sds: null,
     ...overrides,
   };
 }

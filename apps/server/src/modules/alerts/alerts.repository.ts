@@ -32,6 +32,7 @@ export interface LowStockFacts {
   reorderPoint: number;
   reorderQuantity: number | null;
   ghsPictograms: GhsCode[];
+  hazardStatements: string[];
   total: number;
 }
 
@@ -42,6 +43,7 @@ export interface AlertContainerFacts {
   chemicalId: number;
   chemicalName: string;
   ghsPictograms: GhsCode[];
+  hazardStatements: string[];
   status: ContainerStatus;
   quantity: number;
   unit: StockUnit;
@@ -65,7 +67,7 @@ const sortColumns: Record<string, string> = {
   nextAttemptAt: 'o.next_attempt_at',
 };
 
-function parseJsonList<T>(text: unknown): T[] {
+export function parseJsonList<T>(text: unknown): T[] {
   return typeof text === 'string' && text ? (JSON.parse(text) as T[]) : [];
 }
 
@@ -82,6 +84,7 @@ export function alertsRepository(manager: EntityManager) {
       .addSelect('c.chemical_id', 'chemicalId')
       .addSelect('ch.name', 'chemicalName')
       .addSelect('ch.ghs_pictograms', 'ghsPictograms')
+      .addSelect('ch.hazard_statements', 'hazardStatements')
       .addSelect('c.status', 'status')
       .addSelect('c.quantity_micro', 'quantity')
       .addSelect('c.unit', 'unit')
@@ -100,6 +103,7 @@ export function alertsRepository(manager: EntityManager) {
       chemicalId: Number(raw.chemicalId),
       quantity: fromMicro(raw.quantity),
       ghsPictograms: parseJsonList<GhsCode>(raw.ghsPictograms),
+      hazardStatements: parseJsonList<string>(raw.hazardStatements),
     }) as AlertContainerFacts;
 
   return {
@@ -347,6 +351,7 @@ export function alertsRepository(manager: EntityManager) {
         .addSelect('ch.reorder_point', 'reorderPoint')
         .addSelect('ch.reorder_quantity', 'reorderQuantity')
         .addSelect('ch.ghs_pictograms', 'ghsPictograms')
+        .addSelect('ch.hazard_statements', 'hazardStatements')
         .addSelect(totalSql, 'total')
         .from('chemicals', 'ch')
         .where(atOrBelowReorderPointCondition('ch', totalSql))
@@ -365,6 +370,7 @@ export function alertsRepository(manager: EntityManager) {
             reorderQuantity: row.reorderQuantity === null ? null : Number(row.reorderQuantity),
             total: fromMicro(row.total),
             ghsPictograms: parseJsonList<GhsCode>(row.ghsPictograms),
+            hazardStatements: parseJsonList<string>(row.hazardStatements),
           }) as LowStockFacts,
       );
     },

@@ -4,6 +4,7 @@ import {
   formatDateTime,
   formatQuantity,
   ghsPictograms,
+  hazardStatementTexts,
   safetyDeferral,
   type AlertKind,
 } from '@lotwise/shared';
@@ -33,6 +34,8 @@ export function escapeHtml(text: string): string {
 const styles = {
   body: 'font-family:Arial,Helvetica,sans-serif;font-size:15px;line-height:1.45;color:#1f2933;',
   heading: 'font-size:18px;margin:0 0 12px 0;color:#102a43;',
+  subheading: 'font-size:15px;margin:16px 0 8px 0;color:#102a43;',
+  list: 'margin:0 0 12px 0;padding-left:20px;',
   paragraph: 'margin:0 0 12px 0;',
   table: 'border-collapse:collapse;margin:0 0 12px 0;',
   cell: 'border:1px solid #d9e2ec;padding:4px 8px;text-align:left;vertical-align:top;',
@@ -51,12 +54,27 @@ function containerLine(container: AlertContainerFacts, extra = ''): string {
   return `${container.labelCode} · ${amount(container.quantity, container.unit)} · ${container.locationPath}${extra}`;
 }
 
-function hazardLines(chemical: ConditionChemical): string[] {
+/** "H225 Highly flammable liquid and vapour." — or a pointer to the SDS for a code not held. */
+function hazardStatementLine(code: string): string {
+  const text = hazardStatementTexts[code];
+  return text ? `${code} ${text}.` : `${code} (text not held in Lotwise: see the SDS)`;
+}
+
+function pictogramsLine(chemical: ConditionChemical): string | null {
   const pictograms = chemical.ghsPictograms.map(
     (code) => `${code} (${ghsPictograms[code]?.meaning ?? code})`,
   );
+  return pictograms.length ? `GHS pictograms: ${pictograms.join('; ')}.` : null;
+}
+
+function hazardLines(chemical: ConditionChemical): string[] {
+  const pictograms = pictogramsLine(chemical);
   return [
-    ...(pictograms.length ? [`Hazards on record: ${pictograms.join('; ')}.`] : []),
+    `Hazards of ${chemical.name}:`,
+    ...(pictograms ? [pictograms] : []),
+    ...(chemical.hazardStatements.length
+      ? chemical.hazardStatements.map((code) => `- ${hazardStatementLine(code)}`)
+      : ['No hazard statements recorded: check the SDS.']),
     safetyDeferral,
   ];
 }
@@ -81,9 +99,18 @@ function paragraphs(lines: string[]): string {
 }
 
 function hazardHtml(chemical: ConditionChemical): string {
-  return hazardLines(chemical)
-    .map((line) => `<p style="${styles.small}">${escapeHtml(line)}</p>`)
-    .join('');
+  const pictograms = pictogramsLine(chemical);
+  const statements = chemical.hazardStatements.length
+    ? `<ul style="${styles.list}">${chemical.hazardStatements
+        .map((code) => `<li>${escapeHtml(hazardStatementLine(code))}</li>`)
+        .join('')}</ul>`
+    : paragraphs(['No hazard statements recorded: check the SDS.']);
+  return [
+    `<h2 style="${styles.subheading}">${escapeHtml(`Hazards of ${chemical.name}`)}</h2>`,
+    pictograms ? paragraphs([pictograms]) : '',
+    statements,
+    `<p style="${styles.small}">${escapeHtml(safetyDeferral)}</p>`,
+  ].join('');
 }
 
 function lowStockMessage(topic: MailTopic, publicUrl: string): MessageContent {

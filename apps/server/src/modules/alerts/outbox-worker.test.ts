@@ -154,6 +154,7 @@ describe('outbox worker', () => {
       formula: 'C3H6O',
       reorderPoint: 500,
       ghsPictograms: ['GHS02', 'GHS07'],
+      hazardStatements: ['H225', 'H319', 'H336'],
     });
     const shelf = await make.location({ name: 'Flammables cabinet' });
     const lot = await make.lot(chemical.id);
@@ -180,7 +181,14 @@ describe('outbox worker', () => {
     expect(mail.text).toContain(`${container.labelCode} · 400.00 mL · ${shelf.path}`);
     expect(mail.text).toContain(`http://lotwise.example.test/stock/chemicals/${chemical.id}`);
     expect(mail.text).toContain(safetyDeferral);
+    // The chemical's H-statements travel with it: codes with their text, in both parts.
+    expect(mail.text).toContain('Hazards of Acetone (demo):');
+    expect(mail.text).toContain('- H225 Highly flammable liquid and vapour.');
+    expect(mail.text).toContain('- H319 Causes serious eye irritation.');
+    expect(mail.text).toContain('- H336 May cause drowsiness or dizziness.');
     const html = String(mail.html);
+    expect(html).toContain('<li>H225 Highly flammable liquid and vapour.</li>');
+    expect(html).toContain(safetyDeferral);
     expect(html).toContain(container.labelCode);
     expect(html).toContain(`href="http://lotwise.example.test/stock/chemicals/${chemical.id}"`);
     expect(html).not.toMatch(/<img|<script|<link|url\(/i);

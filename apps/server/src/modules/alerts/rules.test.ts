@@ -22,6 +22,7 @@ const ethanol: LowStockFacts = {
   reorderPoint: 1000,
   reorderQuantity: 2500,
   ghsPictograms: ['GHS02', 'GHS07'],
+  hazardStatements: ['H225', 'H319'],
   total: 750,
 };
 
@@ -32,6 +33,7 @@ function container(overrides: Partial<AlertContainerFacts> = {}): AlertContainer
     chemicalId: 3,
     chemicalName: 'Ethanol <absolute>',
     ghsPictograms: ['GHS02'],
+    hazardStatements: ['H225', 'H319'],
     status: 'open',
     quantity: 750,
     unit: 'mL',
@@ -125,6 +127,8 @@ describe('reservation rule', () => {
         locationPath: 'Prep room',
         chemicalId: 3,
         chemicalName: 'Ethanol',
+        ghsPictograms: ['GHS02', 'GHS07'],
+        hazardStatements: ['H225', 'H319'],
         quantity: 120,
         unit: 'mL',
         lapsesAt: '2026-03-02T17:00:00.000Z',
@@ -132,6 +136,10 @@ describe('reservation rule', () => {
     ]);
     expect(condition).toMatchObject({ kind: 'reservation-lapsing', userIds: [21] });
     const [topic] = mailTopics([condition!]);
+    const reminder = topicMessage(topic!, 'http://lab.example.test', textStyle);
+    expect(reminder.text).toContain('GHS02 (Flammable)');
+    expect(reminder.text).toContain('- H225 Highly flammable liquid and vapour.');
+    expect(reminder.text).toContain(safetyDeferral);
     expect(topicMessage(topic!, 'http://lab.example.test', textStyle).link).toBe(
       'http://lab.example.test/preparations/plans/4',
     );
@@ -178,6 +186,8 @@ describe('messages', () => {
     expect(message.text).toContain('http://lab.example.test/stock/chemicals/3');
     expect(message.text).toContain(safetyDeferral);
     expect(message.text).toContain('GHS02 (Flammable)');
+    expect(message.text).toContain('- H225 Highly flammable liquid and vapour.');
+    expect(message.html).toContain('<li>H319 Causes serious eye irritation.</li>');
     expect(message.html).toContain('Ethanol &lt;absolute&gt;');
     expect(message.html).not.toContain('<absolute>');
     expect(message.html).not.toMatch(/<img|<style|<script|url\(/i);
@@ -190,6 +200,23 @@ describe('messages', () => {
     expect(topicMessage(topic!, 'http://lab.example.test', textStyle).link).toBe(
       'http://lab.example.test/stock/containers/11',
     );
+  });
+
+  it('when a chemical has an H-statement Lotwise holds no text for, or none at all, then the e-mail points to the SDS', () => {
+    const odd = { ...ethanol, hazardStatements: ['H999'] };
+    const message = topicMessage(
+      mailTopics(lowStockConditions([odd], [container()]))[0]!,
+      'http://lab.example.test',
+      textStyle,
+    );
+    expect(message.text).toContain('- H999 (text not held in Lotwise: see the SDS)');
+    const none = { ...ethanol, hazardStatements: [] };
+    const bare = topicMessage(
+      mailTopics(lowStockConditions([none], [container()]))[0]!,
+      'http://lab.example.test',
+      textStyle,
+    );
+    expect(bare.text).toContain('No hazard statements recorded: check the SDS.');
   });
 
   it('escapes every HTML special character', () => {

@@ -8,6 +8,8 @@ export interface ConditionChemical {
   id: number;
   name: string;
   ghsPictograms: GhsCode[];
+  /** H-statement codes as recorded ("H225"); their texts are added when a message is written. */
+  hazardStatements: string[];
 }
 
 /** One current condition found by a rule. Pure data: the rules read nothing themselves. */
@@ -48,6 +50,8 @@ export interface LapsingReservation {
   locationPath: string;
   chemicalId: number;
   chemicalName: string;
+  ghsPictograms: GhsCode[];
+  hazardStatements: string[];
   quantity: number;
   unit: StockUnit;
   /** ISO-8601 time the reservation stops holding the stock. */
@@ -73,7 +77,12 @@ export function lowStockConditions(
       kind: 'low-stock',
       severity,
       key: `low-stock:chemical:${chemical.id}`,
-      chemical: { id: chemical.id, name: chemical.name, ghsPictograms: chemical.ghsPictograms },
+      chemical: {
+        id: chemical.id,
+        name: chemical.name,
+        ghsPictograms: chemical.ghsPictograms,
+        hazardStatements: chemical.hazardStatements,
+      },
       container: null,
       dueOn: null,
       stock: {
@@ -105,6 +114,7 @@ export function datedConditions(
       id: container.chemicalId,
       name: container.chemicalName,
       ghsPictograms: container.ghsPictograms,
+      hazardStatements: container.hazardStatements,
     };
     if (container.expiresOn !== null && container.expiresOn <= until) {
       const expired = container.expiresOn < today;
@@ -137,7 +147,12 @@ export function reservationConditions(reservations: LapsingReservation[]): Condi
     kind: 'reservation-lapsing' as const,
     severity: 'info' as const,
     key: `reservation-lapsing:reservation:${reservation.id}`,
-    chemical: { id: reservation.chemicalId, name: reservation.chemicalName, ghsPictograms: [] },
+    chemical: {
+      id: reservation.chemicalId,
+      name: reservation.chemicalName,
+      ghsPictograms: reservation.ghsPictograms,
+      hazardStatements: reservation.hazardStatements,
+    },
     container: null,
     dueOn: reservation.lapsesAt.slice(0, 10),
     reservation,

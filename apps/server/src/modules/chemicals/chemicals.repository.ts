@@ -1,4 +1,4 @@
-import { parseSort, type Chemical, type ChemicalListQuery } from '@lotwise/shared';
+import { parseSort, type Chemical, type ChemicalListQuery, type StoredFile } from '@lotwise/shared';
 import { type EntityManager, In } from 'typeorm';
 import { AppError } from '../../lib/app-error';
 import { containsPattern, isUniqueViolation } from '../../db/sql';
@@ -28,16 +28,22 @@ function toChemical({
   return {
     ...chemical,
     extraHazardGroups: extraHazardGroups ?? [],
-    sds:
-      sdsFileName && sdsUploadedAt
-        ? {
-            fileName: sdsFileName,
-            size: Number(sdsSize ?? 0),
-            contentType: sdsContentType ?? 'application/pdf',
-            uploadedAt: sdsUploadedAt,
-          }
-        : null,
+    sds: sdsOf({ sdsFileName, sdsSize, sdsContentType, sdsUploadedAt }),
   };
+}
+
+/** The chemical's uploaded SDS as the API shows it; null when none was uploaded. */
+export function sdsOf(
+  row: Pick<ChemicalRow, 'sdsFileName' | 'sdsSize' | 'sdsContentType' | 'sdsUploadedAt'>,
+): StoredFile | null {
+  return row.sdsFileName && row.sdsUploadedAt
+    ? {
+        fileName: row.sdsFileName,
+        size: Number(row.sdsSize ?? 0),
+        contentType: row.sdsContentType ?? 'application/pdf',
+        uploadedAt: row.sdsUploadedAt,
+      }
+    : null;
 }
 
 function duplicateCas(): AppError {

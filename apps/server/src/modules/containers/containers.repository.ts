@@ -251,11 +251,17 @@ export function containersRepository(manager: EntityManager) {
       const raw = await view().where('c.id = :id', { id }).getRawOne<Record<string, unknown>>();
       return raw ? toView(raw) : null;
     },
+    /**
+     * The container of a label code: written exactly, else in upper or lower case (a code an
+     * import kept as written may be typed or read in another case). Each form is an index read.
+     */
     async findViewByLabel(labelCode: string): Promise<ContainerView | null> {
-      const raw = await view()
-        .where('c.label_code = :labelCode', { labelCode })
-        .getRawOne<Record<string, unknown>>();
-      return raw ? toView(raw) : null;
+      const forms = [...new Set([labelCode, labelCode.toUpperCase(), labelCode.toLowerCase()])];
+      const rows = await view()
+        .where('c.label_code IN (:...forms)', { forms })
+        .getRawMany<Record<string, unknown>>();
+      const views = rows.map(toView);
+      return views.find((v) => v.labelCode === labelCode) ?? views[0] ?? null;
     },
     async viewsAt(locationIdPath: string, statuses: ContainerStatus[]): Promise<ContainerView[]> {
       const rows = await view()

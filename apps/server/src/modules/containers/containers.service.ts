@@ -13,6 +13,7 @@ import {
   maxStockAmount,
   maxStockAmountText,
   formatQuantity,
+  labelCodeToLookUp,
   normalizeLabelCode,
   todayIso,
   type Container,
@@ -43,6 +44,7 @@ import { noteLedgerChange, type Repositories, type Store } from '../../db/store'
 import { fromMicro, roundToStored, toMicro } from '../../db/quantities';
 import { nowIso } from '../../db/sql';
 import type { ChemicalRow } from '../chemicals/chemical.entity';
+import { sdsOf } from '../chemicals/chemicals.repository';
 import { requireLocation } from '../locations/locations.service';
 import type { LocationRow } from '../locations/location.entity';
 import { requireLot } from '../lots/lots.service';
@@ -413,7 +415,9 @@ export function containersService(store: Store) {
             },
             location,
           );
-    return { ...container, warnings };
+    const chemical = await repos.chemicals.findRow(view.chemicalId);
+    const sds = chemical ? sdsOf(chemical) : null;
+    return { ...container, warnings, sds };
   }
 
   async function change(
@@ -479,7 +483,7 @@ export function containersService(store: Store) {
     get: (id: number) => detail(store.repos, id),
 
     async getByLabel(labelCode: string): Promise<ContainerDetail> {
-      const code = normalizeLabelCode(labelCode);
+      const code = labelCodeToLookUp(labelCode);
       const view = code ? await store.repos.containers.findViewByLabel(code) : null;
       if (!view) throw AppError.notFound(`No container has the label code ${labelCode}.`);
       return detail(store.repos, view.id);

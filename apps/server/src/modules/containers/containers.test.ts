@@ -9,6 +9,7 @@ import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { signedIn, stockFactory } from '../../test/factories';
 import { testContext } from '../../test/harness';
+import { tinyPdf } from '../../test/sample-files';
 
 const app = () => testContext().app;
 let manager = '';
@@ -106,8 +107,45 @@ describe('receiving containers', () => {
     expect((await get(`/api/containers/by-label/${typed}`).expect(200)).body.id).toBe(container.id);
     const unknown = await get('/api/containers/by-label/LW-99998').expect(404);
     expect(unknown.body.error.message).toMatch(/LW-99998/);
-    await get('/api/containers/by-label/not-a-code').expect(400);
+    await get('/api/containers/by-label/not%20a%20code!').expect(400);
     await get('/api/containers/987654').expect(404);
+  });
+
+  it('when the chemical has an uploaded SDS, then the container answers it for a direct link', async () => {
+    const { chemical, container } = await solidContainer();
+    const before = containerDetailSchema.parse(
+      (await get(`/api/containers/${container.id}`).expect(200)).body,
+    );
+    expect(before.sds).toBeNull();
+    await request(app())
+      .post(`/api/chemicals/${chemical.id}/sds`)
+      .set('Cookie', manager)
+      .attach('file', tinyPdf(), 'Demo salt SDS.pdf')
+      .expect(201);
+    const after = containerDetailSchema.parse(
+      (await get(`/api/containers/${container.id}`).expect(200)).body,
+    );
+    expect(after.sds).toMatchObject({
+      fileName: 'Demo salt SDS.pdf',
+      contentType: 'application/pdf',
+    });
+  });
+
+  it('when a container keeps a code that is not an LW- code, then that code finds it in any case; an unknown one is 404', async () => {
+    const { container } = await solidContainer();
+    // What an import writes for a supplier's or an earlier label code kept as written.
+    await testContext().dataSource.query(
+      'UPDATE containers SET label_code = ?, label_number = NULL WHERE id = ?',
+      [`FW/B-${container.id}`, container.id],
+    );
+    const code = encodeURIComponent(`FW/B-${container.id}`);
+    expect((await get(`/api/containers/by-label/${code}`).expect(200)).body.labelCode).toBe(
+      `FW/B-${container.id}`,
+    );
+    const lower = encodeURIComponent(`fw/b-${container.id}`);
+    expect((await get(`/api/containers/by-label/${lower}`).expect(200)).body.id).toBe(container.id);
+    const unknown = await get('/api/containers/by-label/FW-NOT-HERE').expect(404);
+    expect(unknown.body.error.message).toMatch(/FW-NOT-HERE/);
   });
 });
 

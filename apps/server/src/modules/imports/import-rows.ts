@@ -10,6 +10,7 @@ import {
   isIsoDate,
   nameCharacterProblem,
   normalizeHeader,
+  otherLabelCodePattern,
   parseLabelCode,
   physicalStates,
   storageGroupCodes,
@@ -170,7 +171,6 @@ export function isBlankRecord(record: string[]): boolean {
 }
 
 const pictogramPattern = /^ghs0?([1-9])$/i;
-const labelPattern = /^[A-Za-z0-9][A-Za-z0-9._/-]{0,19}$/;
 const statusSet = new Set<string>(containerStatuses);
 const stateSet = new Set<string>(physicalStates);
 const groupByName = new Map<string, StorageGroup>(
@@ -387,7 +387,7 @@ export function readRow(
     if (n !== null && n <= 999_999_999) {
       labelNumber = n;
       labelCode = formatLabelCode(n);
-    } else if (/^lw[-\s]?\d/i.test(labelText) || !labelPattern.test(labelText)) {
+    } else if (/^lw[-\s]?\d/i.test(labelText) || !otherLabelCodePattern.test(labelText)) {
       fail(
         'labelCode',
         'must be LW- and a number (LW-00042), or another code of up to 20 letters, digits and - . _ /; leave it empty to get the next LW- code',

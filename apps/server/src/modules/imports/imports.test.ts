@@ -1,4 +1,5 @@
 import {
+  containerDetailSchema,
   containerSchema,
   importSchema,
   ledgerCheckResultSchema,
@@ -403,6 +404,18 @@ describe('problems in the file', () => {
       new RegExp(`${existing.labelCode} is already the label of a container in Lotwise`),
     );
     expect(checked.errors[2]!.message).toMatch(/LW-07777 is also on row 5/);
+  });
+
+  it('when a file keeps a supplier’s code as the label, then scanning that code opens the container', async () => {
+    const code = `FW-${Date.now().toString(36)}/7`;
+    const checked = await preview(csv([row({ 'Label code': code })]));
+    expect(checked.errors).toEqual([]);
+    await commit(checked.id).expect(200);
+    const found = containerDetailSchema.parse(
+      (await get(`/api/containers/by-label/${encodeURIComponent(code)}`).expect(200)).body,
+    );
+    expect(found.labelCode).toBe(code);
+    expect(found.quantity).toBe(500);
   });
 
   it('when one chemical gets two storage groups, then the later row is named', async () => {

@@ -2,12 +2,14 @@ import {
   allocateHolds,
   parseSort,
   type ContainerStatus,
+  type GhsCode,
   type PlanListQuery,
   type StockUnit,
 } from '@lotwise/shared';
 import type { EntityManager } from 'typeorm';
 import { lockForWrite } from '../../db/postgres';
 import { fromMicro } from '../../db/quantities';
+import { parseJsonList } from '../alerts/alerts.repository';
 import type { LapsingReservation } from '../alerts/rules';
 import { PlanEntity, type PlanRow } from './plan.entity';
 import { ReservationEntity, type ReleaseReason, type ReservationRow } from './reservation.entity';
@@ -261,6 +263,8 @@ export function plansRepository(manager: EntityManager) {
       const query = reservationView()
         .addSelect('pr.title', 'planTitle')
         .addSelect('p.created_by_id', 'userId')
+        .addSelect('ch.ghs_pictograms', 'ghsPictograms')
+        .addSelect('ch.hazard_statements', 'hazardStatements')
         .innerJoin('prep_plans', 'p', 'p.id = r.plan_id')
         .innerJoin('procedures', 'pr', 'pr.id = p.procedure_id')
         .where("r.status = 'active' AND r.until >= :today AND r.until <= :cutoffDay", {
@@ -303,6 +307,8 @@ export function plansRepository(manager: EntityManager) {
           locationPath: view.locationPath,
           chemicalId: view.chemicalId,
           chemicalName: view.chemicalName,
+          ghsPictograms: parseJsonList<GhsCode>(raw.ghsPictograms),
+          hazardStatements: parseJsonList<string>(raw.hazardStatements),
           quantity: heldNow.get(view.id) ?? view.quantity,
           unit: view.unit as LapsingReservation['unit'],
           lapsesAt: `${view.until}T23:59:59.999Z`,

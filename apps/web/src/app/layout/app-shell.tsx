@@ -8,6 +8,7 @@ import { Button } from '../../components/ui/button';
 import { PageSpinner } from '../../components/ui/spinner';
 import { paths } from '../../config/paths';
 import { useSignOut } from '../../features/auth/api';
+import { ScanLabelButton } from '../../features/label-scan/components/scan-label-button';
 import { GlobalSearch } from '../../features/search/components/global-search';
 import { KeyboardShortcuts } from './keyboard-shortcuts';
 import { SideNav } from './side-nav';
@@ -38,8 +39,9 @@ export function AppShell({ user }: { user: User }) {
           <Wordmark />
         </Link>
         {can(user.role, 'stock.read') && (
-          <div role="search" className="flex flex-1 justify-center">
+          <div role="search" className="flex flex-1 justify-center gap-2">
             <GlobalSearch />
+            <ScanLabelButton />
           </div>
         )}
         <div className="flex shrink-0 items-center gap-3 text-sm">

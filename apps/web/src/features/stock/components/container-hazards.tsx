@@ -1,12 +1,59 @@
-import { peroxideClasses, type Container } from '@lotwise/shared';
-import { TriangleAlert } from 'lucide-react';
+import { peroxideClasses, type Container, type StoredFile } from '@lotwise/shared';
+import { Link } from 'react-router';
+import { FileText, TriangleAlert } from 'lucide-react';
 import { HazardStatementList } from '../../../components/hazards/hazard-statement-list';
 import { PictogramList } from '../../../components/hazards/pictogram-badge';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { StorageGroupLabel } from '../../../components/hazards/storage-group-label';
+import { buttonClasses } from '../../../components/ui/button';
+import { formatDate } from '../../../lib/format';
+import { paths } from '../../../config/paths';
+import { storedFileUrls } from '../api';
 
-/** The hazards of what a container holds, shown before anything else about it. */
-export function ContainerHazards({ chemical }: { chemical: Container['chemical'] }) {
+/** The chemical's SDS, one press away from its hazards; where none is uploaded, says so. */
+function SdsLink({ chemicalId, sds }: { chemicalId: number; sds: StoredFile | null }) {
+  if (!sds) {
+    return (
+      <p className="flex items-start gap-2 text-sm text-ink-700" data-testid="sds-missing">
+        <FileText aria-hidden="true" className="mt-0.5 size-4 shrink-0 text-ink-500" />
+        <span>
+          No SDS is uploaded for this chemical: read the supplier’s SDS before use, and add it on{' '}
+          <Link
+            to={paths.chemical(chemicalId)}
+            className="text-accent-700 underline underline-offset-2"
+          >
+            the chemical’s page
+          </Link>
+          .
+        </span>
+      </p>
+    );
+  }
+  return (
+    <p className="flex flex-wrap items-center gap-x-3 gap-y-1 text-sm text-ink-700">
+      <a
+        href={storedFileUrls.sds(chemicalId)}
+        className={buttonClasses('secondary', 'sm')}
+        data-testid="sds-link"
+      >
+        <FileText aria-hidden="true" className="size-4" />
+        Open the SDS (PDF)
+      </a>
+      <span className="text-xs text-ink-600">
+        {sds.fileName}, uploaded {formatDate(sds.uploadedAt.slice(0, 10))}
+      </span>
+    </p>
+  );
+}
+
+/** The hazards of what a container holds, shown before anything else about it, with its SDS. */
+export function ContainerHazards({
+  chemical,
+  sds,
+}: {
+  chemical: Container['chemical'];
+  sds: StoredFile | null;
+}) {
   return (
     <section
       aria-labelledby="container-hazards-heading"
@@ -42,6 +89,7 @@ export function ContainerHazards({ chemical }: { chemical: Container['chemical']
             )}
           </div>
         </div>
+        <SdsLink chemicalId={chemical.id} sds={sds} />
         <SafetyCaution />
       </div>
     </section>

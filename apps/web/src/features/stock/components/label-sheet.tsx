@@ -4,6 +4,7 @@ import { Formula } from '../../../components/chem/formula';
 import { PictogramSymbol } from '../../../components/hazards/pictogram-symbols';
 import { storageGroupIcons } from '../../../components/hazards/storage-group-label';
 import { QrCode } from '../../../components/ui/qr-code';
+import { hazardStatementText } from '../../../components/hazards/hazard-statement-list';
 import { formatDate } from '../../../lib/format';
 import { labelQrContent } from '../../../lib/label-scan';
 
@@ -26,9 +27,34 @@ export const papers: Record<
 export const labelGrid = { columns: 3, rows: 7, width: 64, height: 36, gap: 2 } as const;
 export const labelsPerSheet = labelGrid.columns * labelGrid.rows;
 
+/** Longest H-statement line a label prints with the statements' text (about three lines of 5 pt). */
+const labelStatementChars = 110;
+
+/**
+ * The H-statements as a label prints them: codes with their text where it fits
+ * ("H225 Highly flammable liquid and vapour; H319 …"), else the codes alone ("H225 H319 H336").
+ */
+export function labelHazardStatements(codes: readonly string[]): string {
+  if (codes.length === 0) return '';
+  const withText = codes.map((code) => {
+    const text = hazardStatementText(code);
+    return text ? `${code} ${text}` : code;
+  });
+  const full = withText.join('; ');
+  return full.length <= labelStatementChars ? full : codes.join(' ');
+}
+
 /** One container's label: what it is, its hazards, its dates, and its code as text and QR. */
-export function ContainerLabel({ container: c }: { container: ContainerDetail }) {
+export function ContainerLabel({
+  container: c,
+  publicUrl,
+}: {
+  container: ContainerDetail;
+  /** The lab's public address (`PUBLIC_URL`): the QR code opens the container there. */
+  publicUrl: string;
+}) {
   const GroupIcon = storageGroupIcons[c.chemical.storageGroup];
+  const statements = labelHazardStatements(c.chemical.hazardStatements);
   return (
     <article
       aria-label={`Label ${c.labelCode}`}
@@ -37,7 +63,7 @@ export function ContainerLabel({ container: c }: { container: ContainerDetail })
     >
       <div className="flex w-[20mm] shrink-0 flex-col items-center">
         <QrCode
-          value={labelQrContent(c.labelCode)}
+          value={labelQrContent(c.labelCode, publicUrl)}
           title={`QR code for ${c.labelCode}`}
           className="size-[20mm]"
         />
@@ -66,6 +92,13 @@ export function ContainerLabel({ container: c }: { container: ContainerDetail })
         ) : (
           <p className="text-[5.5pt] leading-tight text-ink-700">No GHS pictograms recorded</p>
         )}
+        <p
+          aria-label="Hazard statements"
+          className="line-clamp-3 text-[5pt] leading-[1.2] text-ink-900"
+          data-testid="label-hazard-statements"
+        >
+          {statements || 'No H-statements recorded: see the SDS'}
+        </p>
         <div className="mt-auto flex flex-col gap-[0.3mm] text-[5.8pt] leading-tight tabular-nums">
           <p>
             Received <span className="font-semibold">{formatDate(c.lot.receivedOn)}</span>
@@ -90,10 +123,12 @@ export function ContainerLabel({ container: c }: { container: ContainerDetail })
 export function LabelSheets({
   containers,
   paper,
+  publicUrl,
   skip = 0,
 }: {
   containers: readonly ContainerDetail[];
   paper: PaperSize;
+  publicUrl: string;
   skip?: number;
 }) {
   const { width, height } = papers[paper];
@@ -129,7 +164,11 @@ export function LabelSheets({
           >
             {sheet.map((container, cell) =>
               container ? (
-                <ContainerLabel key={`${container.id}-${cell}`} container={container} />
+                <ContainerLabel
+                  key={`${container.id}-${cell}`}
+                  container={container}
+                  publicUrl={publicUrl}
+                />
               ) : (
                 <div key={`empty-${cell}`} aria-hidden="true" />
               ),

@@ -73,6 +73,37 @@ async function openContainer() {
 }
 
 describe('Container page', () => {
+  it('when the chemical has an SDS, then the hazards link it directly; when not, they say so', async () => {
+    mockFetch({
+      'GET /api/auth/me': { body: { user: member } },
+      'GET /api/containers/42': {
+        body: {
+          ...acetone,
+          sds: {
+            fileName: 'Acetone SDS.pdf',
+            size: 1200,
+            contentType: 'application/pdf',
+            uploadedAt: '2026-09-01T09:00:00.000Z',
+          },
+        },
+      },
+      'GET /api/containers/42/ledger': { body: page([received]) },
+      'GET /api/containers/7': { body: makeContainer({ id: 7 }) },
+      'GET /api/containers/7/ledger': { body: page([]) },
+    });
+    const { router } = renderApp('/stock/containers/42');
+    const hazards = await screen.findByRole('region', { name: 'Hazards' }, { timeout: 5000 });
+    expect(within(hazards).getByRole('link', { name: 'Open the SDS (PDF)' })).toHaveAttribute(
+      'href',
+      '/api/chemicals/3/sds',
+    );
+    expect(within(hazards).getByText(/Acetone SDS\.pdf/)).toBeInTheDocument();
+
+    await router.navigate('/stock/containers/7');
+    const other = await screen.findByTestId('sds-missing', {}, { timeout: 5000 });
+    expect(other).toHaveTextContent(/No SDS is uploaded for this chemical/);
+  });
+
   it('shows the hazards first: pictograms, H-statement texts and the SDS caution', async () => {
     stockRoutes();
     await openContainer();

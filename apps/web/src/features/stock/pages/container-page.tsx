@@ -1,5 +1,5 @@
-import type { ReactNode } from 'react';
-import { Link, Navigate, useParams } from 'react-router';
+import { useEffect, useRef, type ReactNode } from 'react';
+import { Link, Navigate, useLocation, useParams } from 'react-router';
 import { ChevronLeft, Lock, Printer } from 'lucide-react';
 import type { ContainerDetail } from '@lotwise/shared';
 import { Formula } from '../../../components/chem/formula';
@@ -45,6 +45,14 @@ function ContainerView({ container: c }: { container: ContainerDetail }) {
   const mayDraw = useCan('stock.draw');
   const mayWrite = useCan('stock.write');
   const usable = c.status === 'sealed' || c.status === 'open';
+  const drawRef = useRef<HTMLElement>(null);
+  const { hash } = useLocation();
+  // A scanned label opens the container at `#draw`: the draw form in view, the amount focused.
+  useEffect(() => {
+    if (hash !== '#draw') return;
+    // Focusing brings the field into view (the section's scroll margin keeps the bar off it).
+    drawRef.current?.querySelector<HTMLInputElement>('input[inputmode="decimal"]')?.focus();
+  }, [hash, c.id]);
 
   return (
     <div className="flex flex-col gap-5">
@@ -80,7 +88,7 @@ function ContainerView({ container: c }: { container: ContainerDetail }) {
         </div>
       </header>
 
-      <ContainerHazards chemical={c.chemical} />
+      <ContainerHazards chemical={c.chemical} sds={c.sds ?? null} />
       <SegregationWarnings warnings={c.warnings} title={`Storage warnings at ${c.location.path}`} />
 
       <div className="grid gap-5 lg:grid-cols-[minmax(0,5fr)_minmax(0,4fr)]">
@@ -162,8 +170,10 @@ function ContainerView({ container: c }: { container: ContainerDetail }) {
         </section>
 
         <section
+          ref={drawRef}
+          id="draw"
           aria-labelledby="draw-heading"
-          className="rounded-lg border border-ink-200 bg-white px-4 py-3"
+          className="scroll-mt-16 rounded-lg border border-ink-200 bg-white px-4 py-3"
         >
           <h2 id="draw-heading" className="mb-3 text-base font-semibold">
             Record a draw
@@ -244,13 +254,16 @@ export function ContainerPage() {
   );
 }
 
-/** `/stock/c/LW-00042`: what a scanned or typed label code opens; it lands on the container. */
+/**
+ * `/stock/c/LW-00042`: what a label's QR code (read by any camera app) or a typed label code
+ * opens; it lands on the container with the draw form ready.
+ */
 export function ContainerByLabelPage() {
   const { labelCode = '' } = useParams();
   const container = useContainerByLabel(labelCode);
   return (
     <LoadState query={container} what={`labelled ${labelCode}`}>
-      {(c) => <Navigate to={paths.stockContainer(c.id)} replace />}
+      {(c) => <Navigate to={`${paths.stockContainer(c.id)}#draw`} replace />}
     </LoadState>
   );
 }

@@ -1,6 +1,6 @@
 import { Link, useSearchParams } from 'react-router';
 import { ChevronLeft, Printer, Tags } from 'lucide-react';
-import { normalizeLabelCode, type ContainerDetail } from '@lotwise/shared';
+import { labelCodeToLookUp, type ContainerDetail } from '@lotwise/shared';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
@@ -8,6 +8,7 @@ import { Select } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { errorMessage } from '../../../lib/api-client';
+import { usePublicSettings } from '../../../lib/public-settings';
 import { formatCount } from '../../../lib/format';
 import { paths } from '../../../config/paths';
 import { useContainerSet } from '../api';
@@ -41,7 +42,7 @@ function readParams(searchParams: URLSearchParams) {
   const labelCodes = [
     ...new Set(
       listParam(searchParams.get('labelCodes'))
-        .map((code) => normalizeLabelCode(code))
+        .map((code) => labelCodeToLookUp(code))
         .filter((code): code is string => code !== null),
     ),
   ];
@@ -55,13 +56,16 @@ export function LabelsPage() {
   const [searchParams, setSearchParams] = useSearchParams();
   const { ids, labelCodes, paper, skip } = readParams(searchParams);
   const queries = useContainerSet(ids, labelCodes);
+  // The QR codes carry the lab's public address, not this browser's.
+  const settings = usePublicSettings();
+  const publicUrl = settings.data?.publicUrl;
   const asked = [...ids.map((id) => `#${id}`), ...labelCodes];
 
   const loaded = queries.map((q) => q.data).filter((c): c is ContainerDetail => c !== undefined);
   const failed = queries
     .map((q, index) => ({ q, what: asked[index] ?? '' }))
     .filter(({ q }) => q.isError);
-  const pending = queries.some((q) => q.isPending);
+  const pending = queries.some((q) => q.isPending) || settings.isPending;
 
   const set = (key: string, value: string | undefined) =>
     setSearchParams(
@@ -92,8 +96,9 @@ export function LabelsPage() {
           <p className="max-w-3xl text-sm text-ink-600">
             {labelGrid.columns} × {labelGrid.rows} labels of {labelGrid.width} × {labelGrid.height}{' '}
             mm per sheet, on sticker sheets or plain paper to cut. The QR code opens the container
-            in Lotwise; scanning it into the search box works too. Print at 100 % (no “fit to page”)
-            so the sizes stay true.
+            in Lotwise at the lab’s address{publicUrl ? ` (${publicUrl})` : ''}, from any phone’s
+            camera app, from “Scan a label”, or scanned into the search box. Print at 100 % (no “fit
+            to page”) so the sizes stay true.
           </p>
         </header>
 
@@ -132,7 +137,7 @@ export function LabelsPage() {
           </FilterField>
           <Button
             variant="primary"
-            disabled={loaded.length === 0 || pending}
+            disabled={loaded.length === 0 || pending || !publicUrl}
             onClick={() => window.print()}
             icon={<Printer aria-hidden="true" className="size-4" />}
           >
@@ -146,6 +151,15 @@ export function LabelsPage() {
           )}
         </div>
 
+        {settings.isError && (
+          <Notice tone="danger" title="The lab’s address could not be read">
+            The QR codes need it so that any phone opens the container:{' '}
+            {errorMessage(settings.error)}{' '}
+            <Button size="sm" variant="secondary" onClick={() => void settings.refetch()}>
+              Try again
+            </Button>
+          </Notice>
+        )}
         {failed.length > 0 && (
           <Notice tone="warn" title={`${failed.length} of the labels asked for cannot be made`}>
             <ul>
@@ -165,10 +179,12 @@ export function LabelsPage() {
           Open a container and press “Print label”, or choose containers in the list and press
           “Print labels”.
         </EmptyState>
-      ) : pending && loaded.length === 0 ? (
-        <PageSpinner label="Preparing the labels…" />
+      ) : (pending && loaded.length === 0) || !publicUrl ? (
+        settings.isError ? null : (
+          <PageSpinner label="Preparing the labels…" />
+        )
       ) : (
-        <LabelSheets containers={loaded} paper={paper} skip={skip} />
+        <LabelSheets containers={loaded} paper={paper} skip={skip} publicUrl={publicUrl} />
       )}
     </div>
   );
