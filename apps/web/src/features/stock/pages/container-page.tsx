@@ -47,7 +47,8 @@ const back = (
  */
 function goToDrawForm() {
   const section = document.getElementById('draw-section');
-  section?.scrollIntoView({ block: 'start' });
+  // (not every browser engine scrolls elements; test DOMs do not)
+  section?.scrollIntoView?.({ block: 'start' });
   section
     ?.querySelector<HTMLInputElement>('input:not([type="radio"])')
     ?.focus({ preventScroll: true });
