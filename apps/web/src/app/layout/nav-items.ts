@@ -43,7 +43,9 @@ export const navItems: readonly NavItem[] = [
     permission: 'procedures.read',
     icon: ClipboardList,
   },
-  { label: 'Runs', to: paths.runs, permission: 'runs.record', icon: FlaskRound },
+  // Every role that may read runs (the runs list and a run) finds them here, not only those
+  // who record them.
+  { label: 'Runs', to: paths.runs, permission: 'procedures.read', icon: FlaskRound },
   {
     label: 'Orders',
     to: paths.orders,
@@ -100,4 +102,23 @@ export const navItems: readonly NavItem[] = [
 /** The navigation a role sees: only what it may use. */
 export function navItemsFor(role: Role): NavItem[] {
   return navItems.filter((item) => !item.permission || can(role, item.permission));
+}
+
+function isUnder(pathname: string, to: string): boolean {
+  return pathname === to || pathname.startsWith(`${to}/`);
+}
+
+/**
+ * The one entry a page belongs to: the entry whose place holds the page most closely, so Runs
+ * (under Preparations) and Restock (under Orders) are current on their own pages, not their
+ * parents as well.
+ */
+export function currentNavItem(items: readonly NavItem[], pathname: string): NavItem | undefined {
+  let current: NavItem | undefined;
+  for (const item of items) {
+    if (isUnder(pathname, item.to) && (!current || item.to.length > current.to.length)) {
+      current = item;
+    }
+  }
+  return current;
 }

@@ -1,23 +1,22 @@
-import { NavLink } from 'react-router';
+import { Link, useLocation } from 'react-router';
 import type { Role } from '@lotwise/shared';
 import { cn } from '../../lib/cn';
-import { navItemsFor, type NavItem } from './nav-items';
+import { currentNavItem, navItemsFor, type NavItem } from './nav-items';
 
-function Item({ item }: { item: NavItem }) {
+function Item({ item, current }: { item: NavItem; current: NavItem | undefined }) {
   const Icon = item.icon;
+  const isCurrent = item === current;
   return (
     <li>
-      <NavLink
+      <Link
         to={item.to}
-        end={item.end}
-        className={({ isActive }) =>
-          cn(
-            'flex items-center gap-2.5 rounded-md px-2.5 py-1.5 text-sm transition-colors',
-            isActive
-              ? 'bg-accent-50 font-semibold text-accent-800'
-              : 'text-ink-700 hover:bg-ink-100 hover:text-ink-900',
-          )
-        }
+        aria-current={isCurrent ? 'page' : undefined}
+        className={cn(
+          'flex items-center gap-2.5 rounded-md px-2.5 py-1.5 text-sm transition-colors pointer-coarse:min-h-11',
+          isCurrent
+            ? 'bg-accent-50 font-semibold text-accent-800'
+            : 'text-ink-700 hover:bg-ink-100 hover:text-ink-900',
+        )}
       >
         <Icon aria-hidden="true" className="size-4 shrink-0" />
         <span className="flex-1">{item.label}</span>
@@ -26,12 +25,20 @@ function Item({ item }: { item: NavItem }) {
             coming
           </span>
         )}
-      </NavLink>
+      </Link>
     </li>
   );
 }
 
-function Group({ title, items }: { title: string; items: NavItem[] }) {
+function Group({
+  title,
+  items,
+  current,
+}: {
+  title: string;
+  items: NavItem[];
+  current: NavItem | undefined;
+}) {
   if (items.length === 0) return null;
   return (
     <div>
@@ -40,30 +47,40 @@ function Group({ title, items }: { title: string; items: NavItem[] }) {
       </p>
       <ul className="flex flex-col gap-0.5">
         {items.map((item) => (
-          <Item key={item.to} item={item} />
+          <Item key={item.to} item={item} current={current} />
         ))}
       </ul>
     </div>
   );
 }
 
+/** The app's places a role may use; exactly one entry is current on any page below them. */
 export function SideNav({ role }: { role: Role }) {
   const items = navItemsFor(role);
+  const current = currentNavItem(items, useLocation().pathname);
   const main = items.filter((item) => item.section === undefined);
   return (
     <nav aria-label="Main" className="flex flex-col gap-5 px-3 py-4">
       <ul className="flex flex-col gap-0.5">
         {main.map((item) => (
-          <Item key={item.to} item={item} />
+          <Item key={item.to} item={item} current={current} />
         ))}
       </ul>
-      <Group title="Purchasing" items={items.filter((item) => item.section === 'purchasing')} />
-      <Group title="Admin" items={items.filter((item) => item.section === 'admin')} />
+      <Group
+        title="Purchasing"
+        items={items.filter((item) => item.section === 'purchasing')}
+        current={current}
+      />
+      <Group
+        title="Admin"
+        items={items.filter((item) => item.section === 'admin')}
+        current={current}
+      />
       <ul className="flex flex-col gap-0.5 border-t border-ink-100 pt-3">
         {items
           .filter((item) => item.section === 'end')
           .map((item) => (
-            <Item key={item.to} item={item} />
+            <Item key={item.to} item={item} current={current} />
           ))}
       </ul>
     </nav>

@@ -1,7 +1,8 @@
 import { hazardStatementTexts, type GhsCode } from '@lotwise/shared';
+import { TapHint } from '../ui/tap-hint';
 import { PictogramList } from './pictogram-badge';
 
-/** Pictograms and H-statement codes in little room (tables, headers); texts on hover. */
+/** Pictograms and H-statement codes in little room (tables, headers); texts on a tap or hover. */
 export function HazardCodes({
   pictograms,
   statements,
@@ -17,9 +18,13 @@ export function HazardCodes({
           {statements.map((code, index) => (
             <span key={code}>
               {index > 0 && ' '}
-              <abbr title={hazardStatementTexts[code] ?? 'See SDS'} className="no-underline">
+              <TapHint
+                hint={`${code} ${hazardStatementTexts[code] ?? 'text not held in Lotwise — see SDS'}`}
+                srText={hazardStatementTexts[code] ?? 'see SDS'}
+                className="underline decoration-dotted underline-offset-2"
+              >
                 {code}
-              </abbr>
+              </TapHint>
             </span>
           ))}
         </p>

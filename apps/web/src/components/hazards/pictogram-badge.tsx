@@ -1,5 +1,5 @@
 import { ghsPictograms, type GhsCode } from '@lotwise/shared';
-import { cn } from '../../lib/cn';
+import { TapHint } from '../ui/tap-hint';
 import { PictogramSymbol } from './pictogram-symbols';
 
 /** `GHS02 Flame: Flammable` — the words every pictogram travels with. */
@@ -10,7 +10,7 @@ export function pictogramText(code: GhsCode): string {
 
 /**
  * A GHS pictogram with its code always visible. Compact badges keep the symbol name and
- * meaning as screen-reader text and a tooltip; large ones show everything.
+ * meaning as screen-reader text, and show it on a tap (or hover); large ones show everything.
  */
 export function PictogramBadge({ code, size = 'sm' }: { code: GhsCode; size?: 'sm' | 'lg' }) {
   const { symbol, meaning } = ghsPictograms[code];
@@ -29,18 +29,15 @@ export function PictogramBadge({ code, size = 'sm' }: { code: GhsCode; size?: 's
     );
   }
   return (
-    <span
-      title={pictogramText(code)}
-      className={cn(
-        'inline-flex items-center gap-0.5 rounded border border-ink-200 bg-white py-px pr-1 pl-px',
-      )}
-    >
-      <PictogramSymbol code={code} size={22} />
-      <span className="text-xs font-medium text-ink-700 tabular-nums">{code}</span>
-      <span className="sr-only">
-        {' '}
-        {symbol}: {meaning}
-      </span>
+    <span className="inline-flex">
+      <TapHint
+        hint={pictogramText(code)}
+        srText={`${symbol}: ${meaning}`}
+        className="inline-flex items-center gap-0.5 border border-ink-200 bg-white py-px pr-1 pl-px"
+      >
+        <PictogramSymbol code={code} size={22} />
+        <span className="text-xs font-medium text-ink-700 tabular-nums">{code}</span>
+      </TapHint>
     </span>
   );
 }

@@ -1,5 +1,6 @@
 import type { GhsCode } from '@lotwise/shared';
 import type { ReactElement } from 'react';
+import { cn } from '../../lib/cn';
 
 /*
  * Lotwise's own simplified drawings of the nine GHS symbols, on a 100 x 100 canvas inside
@@ -118,7 +119,8 @@ export function PictogramSymbol({
       height={size}
       aria-hidden="true"
       focusable="false"
-      className={className}
+      // Never squeezed by words wrapping beside it, on screen or on paper.
+      className={cn('shrink-0', className)}
       data-pictogram={code}
     >
       <polygon

@@ -1,4 +1,4 @@
-import type { ButtonHTMLAttributes, ReactNode } from 'react';
+import type { ButtonHTMLAttributes, ReactNode, Ref } from 'react';
 import { cn } from '../../lib/cn';
 import { Spinner } from './spinner';
 
@@ -16,9 +16,10 @@ const variants: Record<ButtonVariant, string> = {
     'bg-danger-600 text-white border border-danger-700 hover:bg-danger-700 disabled:opacity-60',
 };
 
+// With a finger (a phone or tablet, gloves on) every button is at least 44 px each way.
 const sizes: Record<ButtonSize, string> = {
-  sm: 'h-8 px-2.5 text-sm gap-1.5',
-  md: 'h-9 px-3.5 text-sm gap-2',
+  sm: 'h-8 px-2.5 text-sm gap-1.5 pointer-coarse:h-11 pointer-coarse:min-w-11',
+  md: 'h-9 px-3.5 text-sm gap-2 pointer-coarse:h-11 pointer-coarse:min-w-11',
 };
 
 /** Classes of a button, for links that should look like one. */
@@ -34,6 +35,7 @@ export function buttonClasses(
 }
 
 interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
+  ref?: Ref<HTMLButtonElement>;
   variant?: ButtonVariant;
   size?: ButtonSize;
   icon?: ReactNode;

@@ -4,13 +4,15 @@ import { cn } from '../../lib/cn';
 const control =
   'w-full rounded-md border bg-white px-2.5 text-sm text-ink-900 placeholder:text-ink-500 transition-colors disabled:bg-ink-100 disabled:text-ink-500 aria-[invalid=true]:border-danger-600';
 const border = 'border-ink-300 hover:border-ink-400';
+/** With a finger: 44 px high, and 16 px text so a phone does not zoom into the field. */
+const coarse = 'pointer-coarse:h-11 pointer-coarse:text-base';
 
 export function Input({
   className,
   ref,
   ...rest
 }: InputHTMLAttributes<HTMLInputElement> & { ref?: Ref<HTMLInputElement> }) {
-  return <input ref={ref} className={cn(control, border, 'h-9', className)} {...rest} />;
+  return <input ref={ref} className={cn(control, border, 'h-9', coarse, className)} {...rest} />;
 }
 
 export function Textarea({
@@ -19,7 +21,11 @@ export function Textarea({
   ...rest
 }: TextareaHTMLAttributes<HTMLTextAreaElement> & { ref?: Ref<HTMLTextAreaElement> }) {
   return (
-    <textarea ref={ref} className={cn(control, border, 'py-2 leading-6', className)} {...rest} />
+    <textarea
+      ref={ref}
+      className={cn(control, border, 'py-2 leading-6 pointer-coarse:text-base', className)}
+      {...rest}
+    />
   );
 }
 
@@ -30,7 +36,7 @@ export function Select({
   ...rest
 }: SelectHTMLAttributes<HTMLSelectElement> & { ref?: Ref<HTMLSelectElement> }) {
   return (
-    <select ref={ref} className={cn(control, border, 'h-9 pr-1', className)} {...rest}>
+    <select ref={ref} className={cn(control, border, 'h-9 pr-1', coarse, className)} {...rest}>
       {children}
     </select>
   );
@@ -45,7 +51,10 @@ export function Checkbox({
     <input
       ref={ref}
       type="checkbox"
-      className={cn('size-4 rounded border-ink-400 accent-accent-600', className)}
+      className={cn(
+        'size-4 rounded border-ink-400 accent-accent-600 pointer-coarse:size-5',
+        className,
+      )}
       {...rest}
     />
   );

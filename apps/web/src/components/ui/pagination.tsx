@@ -40,7 +40,7 @@ export function Pagination({
           ? `No ${noun}`
           : `${formatCount(first)}–${formatCount(last)} of ${formatCount(total)} ${noun}`}
       </p>
-      <div className="flex items-center gap-4">
+      <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
         <div className="flex items-center gap-2">
           <label htmlFor={sizeId} className="whitespace-nowrap">
             Rows per page

@@ -177,37 +177,39 @@ export function PreparationSafety({
             <PictogramList codes={pictograms} size="lg" />
           </div>
         </div>
-        <table className="w-full text-sm">
-          <caption className="sr-only">Hazards of each chemical</caption>
-          <thead className="text-left text-xs text-ink-600 uppercase">
-            <tr className="border-b border-ink-200">
-              <th scope="col" className="py-1.5 pr-3 font-medium">
-                Chemical
-              </th>
-              <th scope="col" className="py-1.5 pr-3 font-medium">
-                Pictograms
-              </th>
-              <th scope="col" className="py-1.5 font-medium">
-                Hazard statements
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {hazards.map((hazard) => (
-              <tr key={hazard.chemicalId} className="border-b border-ink-100 align-top">
-                <th scope="row" className="py-1.5 pr-3 text-left font-medium text-ink-900">
-                  {hazard.name}
+        <div className="stack-table">
+          <table className="w-full text-sm">
+            <caption className="sr-only">Hazards of each chemical</caption>
+            <thead className="text-left text-xs text-ink-600 uppercase">
+              <tr className="border-b border-ink-200">
+                <th scope="col" className="py-1.5 pr-3 font-medium">
+                  Chemical
                 </th>
-                <td className="py-1.5 pr-3">
-                  <PictogramList codes={hazard.ghsPictograms} />
-                </td>
-                <td className="py-1.5 text-ink-800">
-                  <StatementLines statements={hazard.hazardStatements} />
-                </td>
+                <th scope="col" className="py-1.5 pr-3 font-medium">
+                  Pictograms
+                </th>
+                <th scope="col" className="py-1.5 font-medium">
+                  Hazard statements
+                </th>
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody>
+              {hazards.map((hazard) => (
+                <tr key={hazard.chemicalId} className="border-b border-ink-100 align-top">
+                  <th scope="row" className="py-1.5 pr-3 text-left font-medium text-ink-900">
+                    {hazard.name}
+                  </th>
+                  <td data-label="Pictograms" data-wide className="py-1.5 pr-3">
+                    <PictogramList codes={hazard.ghsPictograms} />
+                  </td>
+                  <td data-label="Hazard statements" data-wide className="py-1.5 text-ink-800">
+                    <StatementLines statements={hazard.hazardStatements} />
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
       </div>
     </section>
   );

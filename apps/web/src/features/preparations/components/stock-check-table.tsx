@@ -67,7 +67,7 @@ function Suggestion({ suggestion, line }: { suggestion: StockSuggestion; line: S
 export function StockCheckTable({ check }: { check: StockCheck }) {
   return (
     <div className="flex flex-col gap-2">
-      <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+      <div className="stack-table overflow-x-auto rounded-lg border border-ink-200 bg-white">
         <table aria-label="Stock check" className="w-full text-sm">
           <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs text-ink-600 uppercase">
             <tr>
@@ -109,7 +109,7 @@ export function StockCheckTable({ check }: { check: StockCheck }) {
                       ` · as supplied at ${line.chemical.defaultPurityPercent} %`}
                   </span>
                 </th>
-                <td className="px-3 py-2 text-right">
+                <td data-label="Per bench" className="px-3 py-2 text-right">
                   {line.perBenchDisplay && line.perBench !== null ? (
                     <Rounded
                       text={line.perBenchDisplay.text}
@@ -121,7 +121,7 @@ export function StockCheckTable({ check }: { check: StockCheck }) {
                     '—'
                   )}
                 </td>
-                <td className="px-3 py-2 text-right">
+                <td data-label="Required" className="px-3 py-2 text-right">
                   {line.requiredDisplay && line.required !== null ? (
                     <span className="font-semibold">
                       <Rounded
@@ -145,7 +145,7 @@ export function StockCheckTable({ check }: { check: StockCheck }) {
                     </span>
                   )}
                 </td>
-                <td className="px-3 py-2 text-right">
+                <td data-label="Usable stock" className="px-3 py-2 text-right">
                   <StockAmount value={line.available} unit={line.unit} />
                   {line.availablePure !== line.available && (
                     <span className="block text-xs text-ink-600">
@@ -153,7 +153,7 @@ export function StockCheckTable({ check }: { check: StockCheck }) {
                     </span>
                   )}
                 </td>
-                <td className="px-3 py-2">
+                <td data-label="Shortfall" className="px-3 py-2">
                   <StatusBadge look={stockLineLooks[line.status]} />
                   {line.status === 'short' && (
                     <span className="mt-1 block font-semibold text-danger-700">
@@ -169,7 +169,7 @@ export function StockCheckTable({ check }: { check: StockCheck }) {
                     <span className="mt-1 block text-xs text-warn-700">{line.problem}</span>
                   )}
                 </td>
-                <td className="px-3 py-2">
+                <td data-label="Take from" data-wide className="px-3 py-2">
                   {line.take.length === 0 ? (
                     <span className="text-ink-600">No usable container</span>
                   ) : (

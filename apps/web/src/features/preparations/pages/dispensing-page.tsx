@@ -36,24 +36,26 @@ function SheetSafety({ sheet }: { sheet: DispensingSheet }) {
     <div className="flex flex-col gap-2 rounded-md border border-ink-300 px-3 py-2 break-inside-avoid">
       <SafetyCaution compact />
       <CautionList {...sheet.cautions} />
-      <table className="w-full text-xs">
-        <caption className="sr-only">Hazards of each chemical</caption>
-        <tbody>
-          {sheet.hazards.map((hazard) => (
-            <tr key={hazard.chemicalId} className="border-t border-ink-200 align-top">
-              <th scope="row" className="w-40 py-1 pr-2 text-left font-semibold">
-                {hazard.name}
-              </th>
-              <td className="w-64 py-1 pr-2">
-                <PictogramWords codes={hazard.ghsPictograms} />
-              </td>
-              <td className="py-1">
-                <StatementLines statements={hazard.hazardStatements} />
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <div className="stack-table">
+        <table className="w-full text-xs">
+          <caption className="sr-only">Hazards of each chemical</caption>
+          <tbody>
+            {sheet.hazards.map((hazard) => (
+              <tr key={hazard.chemicalId} className="border-t border-ink-200 align-top">
+                <th scope="row" className="w-40 py-1 pr-2 text-left font-semibold">
+                  {hazard.name}
+                </th>
+                <td data-wide className="w-64 py-1 pr-2">
+                  <PictogramWords codes={hazard.ghsPictograms} />
+                </td>
+                <td data-wide className="py-1">
+                  <StatementLines statements={hazard.hazardStatements} />
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
     </div>
   );
 }
@@ -102,76 +104,78 @@ function Sheet({ sheet }: { sheet: DispensingSheet }) {
         </p>
         <SessionStockSummary sheet={sheet} />
         <SheetSafety sheet={sheet} />
-        <table className="w-full text-sm">
-          <caption className="sr-only">What to dispense for the whole session</caption>
-          <thead className="text-left text-xs text-ink-600 uppercase">
-            <tr className="border-b border-ink-300">
-              <th className="py-1 pr-2 font-medium">Chemical</th>
-              <th className="py-1 pr-2 text-right font-medium">Per bench</th>
-              <th className="py-1 pr-2 text-right font-medium">Session total</th>
-              <th className="py-1 pr-2 font-medium">Dispense from</th>
-              <th className="w-72 py-1 font-medium">Stock</th>
-            </tr>
-          </thead>
-          <tbody>
-            {sheet.lines.map((line) => (
-              <tr
-                key={`${line.lineIndex}-${line.purpose}`}
-                className="border-b border-ink-200 align-top"
-              >
-                <th scope="row" className="py-1.5 pr-2 text-left font-semibold">
-                  {line.name}
-                  <span className="block text-xs font-normal text-ink-600">
-                    {line.purpose === 'dissolving' ? 'to dissolve in' : roleLabels[line.role]}
-                    {line.optional && ' · optional'}
-                  </span>
-                </th>
-                <td className="py-1.5 pr-2 text-right">
-                  {line.perBenchDisplay && line.perBench ? (
-                    <Rounded
-                      text={line.perBenchDisplay.text}
-                      value={line.perBench.value}
-                      unit={line.perBench.unit}
-                      rule={line.perBenchDisplay.rule}
-                    />
-                  ) : (
-                    '—'
-                  )}
-                </td>
-                <td className="py-1.5 pr-2 text-right font-semibold">
-                  {line.totalDisplay && line.total !== null ? (
-                    <Rounded
-                      text={line.totalDisplay.text}
-                      value={line.total}
-                      unit={line.totalDisplay.unit}
-                      rule={line.totalDisplay.rule}
-                    />
-                  ) : (
-                    '—'
-                  )}
-                </td>
-                <td className="py-1.5 pr-2 text-xs">
-                  {line.containers.length === 0 ? (
-                    <span className="font-semibold">No container on hand</span>
-                  ) : (
-                    <ul>
-                      {line.containers.map((c) => (
-                        <li key={c.containerId}>
-                          <span className="font-mono font-semibold">{c.labelCode}</span>{' '}
-                          <TakeAmount take={c.take} holds={c.quantity} unit={c.unit} /> ·{' '}
-                          {c.locationPath}
-                        </li>
-                      ))}
-                    </ul>
-                  )}
-                </td>
-                <td className="py-1.5">
-                  <SheetStockNote line={line} benches={sheet.benches} />
-                </td>
+        <div className="stack-table">
+          <table className="w-full text-sm">
+            <caption className="sr-only">What to dispense for the whole session</caption>
+            <thead className="text-left text-xs text-ink-600 uppercase">
+              <tr className="border-b border-ink-300">
+                <th className="py-1 pr-2 font-medium">Chemical</th>
+                <th className="py-1 pr-2 text-right font-medium">Per bench</th>
+                <th className="py-1 pr-2 text-right font-medium">Session total</th>
+                <th className="py-1 pr-2 font-medium">Dispense from</th>
+                <th className="w-72 py-1 font-medium">Stock</th>
               </tr>
-            ))}
-          </tbody>
-        </table>
+            </thead>
+            <tbody>
+              {sheet.lines.map((line) => (
+                <tr
+                  key={`${line.lineIndex}-${line.purpose}`}
+                  className="border-b border-ink-200 align-top"
+                >
+                  <th scope="row" className="py-1.5 pr-2 text-left font-semibold">
+                    {line.name}
+                    <span className="block text-xs font-normal text-ink-600">
+                      {line.purpose === 'dissolving' ? 'to dissolve in' : roleLabels[line.role]}
+                      {line.optional && ' · optional'}
+                    </span>
+                  </th>
+                  <td data-label="Per bench" className="py-1.5 pr-2 text-right">
+                    {line.perBenchDisplay && line.perBench ? (
+                      <Rounded
+                        text={line.perBenchDisplay.text}
+                        value={line.perBench.value}
+                        unit={line.perBench.unit}
+                        rule={line.perBenchDisplay.rule}
+                      />
+                    ) : (
+                      '—'
+                    )}
+                  </td>
+                  <td data-label="Session total" className="py-1.5 pr-2 text-right font-semibold">
+                    {line.totalDisplay && line.total !== null ? (
+                      <Rounded
+                        text={line.totalDisplay.text}
+                        value={line.total}
+                        unit={line.totalDisplay.unit}
+                        rule={line.totalDisplay.rule}
+                      />
+                    ) : (
+                      '—'
+                    )}
+                  </td>
+                  <td data-label="Dispense from" data-wide className="py-1.5 pr-2 text-xs">
+                    {line.containers.length === 0 ? (
+                      <span className="font-semibold">No container on hand</span>
+                    ) : (
+                      <ul>
+                        {line.containers.map((c) => (
+                          <li key={c.containerId}>
+                            <span className="font-mono font-semibold">{c.labelCode}</span>{' '}
+                            <TakeAmount take={c.take} holds={c.quantity} unit={c.unit} /> ·{' '}
+                            {c.locationPath}
+                          </li>
+                        ))}
+                      </ul>
+                    )}
+                  </td>
+                  <td data-label="Stock" data-wide className="py-1.5">
+                    <SheetStockNote line={line} benches={sheet.benches} />
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
         <ul className="list-disc pl-4 text-xs leading-5 text-ink-600">
           {sheet.rules.map((rule) => (
             <li key={rule}>{rule}</li>
@@ -188,58 +192,63 @@ function Sheet({ sheet }: { sheet: DispensingSheet }) {
           <SheetHeading sheet={sheet} subtitle={`Bench ${bench} of ${sheet.benches}`} />
           <BenchStockStatus sheet={sheet} bench={bench} />
           <SheetSafety sheet={sheet} />
-          <table className="w-full text-sm">
-            <caption className="sr-only">What bench {bench} gets</caption>
-            <thead className="text-left text-xs text-ink-600 uppercase">
-              <tr className="border-b border-ink-300">
-                <th className="w-8 py-1 font-medium">
-                  <span className="sr-only">Given out</span>
-                </th>
-                <th className="py-1 pr-2 font-medium">Chemical</th>
-                <th className="py-1 pr-2 font-medium">Pictograms</th>
-                <th className="py-1 pr-2 text-right font-medium">Amount</th>
-                <th className="py-1 font-medium">Notes</th>
-              </tr>
-            </thead>
-            <tbody>
-              {sheet.lines
-                .filter((line) => line.role !== 'product')
-                .map((line) => (
-                  <tr
-                    key={`${line.lineIndex}-${line.purpose}`}
-                    className="border-b border-ink-200 align-top"
-                  >
-                    <td className="py-1.5">
-                      <span
-                        aria-hidden="true"
-                        className="inline-block size-4 border border-ink-700"
-                      />
-                    </td>
-                    <th scope="row" className="py-1.5 pr-2 text-left font-semibold">
-                      {line.name}
-                      <span className="block text-xs font-normal text-ink-600">
-                        {line.purpose === 'dissolving' ? 'to dissolve in' : roleLabels[line.role]}
-                        {line.optional && ' · optional'}
-                      </span>
-                    </th>
-                    <td className="py-1.5 pr-2">
-                      <PictogramWords codes={line.ghsPictograms} />
-                    </td>
-                    <td className="py-1.5 pr-2 text-right text-base font-semibold whitespace-nowrap tabular-nums">
-                      {line.perBenchDisplay?.text ?? '—'}
-                    </td>
-                    <td className="py-1.5 text-xs text-ink-700">
-                      {line.notes}
-                      {line.stock.status !== 'ok' && (
-                        <span className={line.notes ? 'mt-1 block' : 'block'}>
-                          <SheetStockNote line={line} benches={sheet.benches} />
+          <div className="stack-table">
+            <table className="w-full text-sm">
+              <caption className="sr-only">What bench {bench} gets</caption>
+              <thead className="text-left text-xs text-ink-600 uppercase">
+                <tr className="border-b border-ink-300">
+                  <th className="w-8 py-1 font-medium">
+                    <span className="sr-only">Given out</span>
+                  </th>
+                  <th className="py-1 pr-2 font-medium">Chemical</th>
+                  <th className="py-1 pr-2 font-medium">Pictograms</th>
+                  <th className="py-1 pr-2 text-right font-medium">Amount</th>
+                  <th className="py-1 font-medium">Notes</th>
+                </tr>
+              </thead>
+              <tbody>
+                {sheet.lines
+                  .filter((line) => line.role !== 'product')
+                  .map((line) => (
+                    <tr
+                      key={`${line.lineIndex}-${line.purpose}`}
+                      className="border-b border-ink-200 align-top"
+                    >
+                      <td data-stack-hidden className="py-1.5">
+                        <span
+                          aria-hidden="true"
+                          className="inline-block size-4 border border-ink-700"
+                        />
+                      </td>
+                      <th scope="row" className="py-1.5 pr-2 text-left font-semibold">
+                        {line.name}
+                        <span className="block text-xs font-normal text-ink-600">
+                          {line.purpose === 'dissolving' ? 'to dissolve in' : roleLabels[line.role]}
+                          {line.optional && ' · optional'}
                         </span>
-                      )}
-                    </td>
-                  </tr>
-                ))}
-            </tbody>
-          </table>
+                      </th>
+                      <td data-label="Pictograms" className="py-1.5 pr-2">
+                        <PictogramWords codes={line.ghsPictograms} />
+                      </td>
+                      <td
+                        data-label="Amount"
+                        className="py-1.5 pr-2 text-right text-base font-semibold whitespace-nowrap tabular-nums"
+                      >
+                        {line.perBenchDisplay?.text ?? '—'}
+                      </td>
+                      <td data-label="Notes" data-wide className="py-1.5 text-xs text-ink-700">
+                        {line.notes}
+                        {line.stock.status !== 'ok' && (
+                          <span className={line.notes ? 'mt-1 block' : 'block'}>
+                            <SheetStockNote line={line} benches={sheet.benches} />
+                          </span>
+                        )}
+                      </td>
+                    </tr>
+                  ))}
+              </tbody>
+            </table>
+          </div>
         </section>
       ))}
     </div>

@@ -216,7 +216,9 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
           </Field>
           <Field label="Unit" error={errors.unit?.message}>
             {(c) => (
-              <Select {...c} {...register('unit')}>
+              // A new list of units per mode: the unit chosen on switching is set once the
+              // list holds it, not left on the list's first entry.
+              <Select key={mode} {...c} {...register('unit')}>
                 {(mode === 'gross' ? massUnits : units).map((u) => (
                   <option key={u} value={u}>
                     {u}

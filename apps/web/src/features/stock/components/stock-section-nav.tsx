@@ -1,24 +1,11 @@
-import { NavLink, Outlet } from 'react-router';
-import {
-  Boxes,
-  FileUp,
-  LayoutList,
-  MapPin,
-  PackagePlus,
-  ShieldAlert,
-  Tags,
-  type LucideIcon,
-} from 'lucide-react';
+import { Outlet } from 'react-router';
+import { Boxes, FileUp, LayoutList, MapPin, PackagePlus, ShieldAlert, Tags } from 'lucide-react';
 import { can, type Permission } from '@lotwise/shared';
 import { useCurrentUser } from '../../../lib/auth';
+import { SectionTabs, type SectionTab } from '../../../components/ui/section-tabs';
 import { paths } from '../../../config/paths';
-import { cn } from '../../../lib/cn';
 
-interface Section {
-  to: string;
-  label: string;
-  icon: LucideIcon;
-  end?: boolean;
+interface Section extends SectionTab {
   /** Shown only to roles holding it. */
   permission?: Permission;
 }
@@ -40,31 +27,7 @@ export function StockSectionNav() {
     (section) =>
       section.permission === undefined || (user ? can(user.role, section.permission) : false),
   );
-  return (
-    <nav aria-label="Stock" className="-mt-2 mb-5 border-b border-ink-200 print:hidden">
-      <ul className="flex flex-wrap gap-1">
-        {visible.map(({ to, label, icon: Icon, end }) => (
-          <li key={to}>
-            <NavLink
-              to={to}
-              end={end}
-              className={({ isActive }) =>
-                cn(
-                  '-mb-px flex items-center gap-1.5 border-b-2 px-3 py-2 text-sm',
-                  isActive
-                    ? 'border-accent-600 font-semibold text-accent-800'
-                    : 'border-transparent text-ink-700 hover:border-ink-300 hover:text-ink-900',
-                )
-              }
-            >
-              <Icon aria-hidden="true" className="size-4" />
-              {label}
-            </NavLink>
-          </li>
-        ))}
-      </ul>
-    </nav>
-  );
+  return <SectionTabs label="Stock" tabs={visible} />;
 }
 
 /** Every stock page sits under the section's own navigation. */

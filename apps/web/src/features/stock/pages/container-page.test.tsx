@@ -205,4 +205,41 @@ describe('Container page', () => {
     await openContainer();
     expect(screen.getByText('Belongs to').nextElementSibling).toHaveTextContent('The lab');
   });
+
+  it('when a liquid weighed by default is switched to the amount taken, then the unit is the container’s own, not the first of the list', async () => {
+    const ethanol = makeContainer({
+      ...acetone,
+      id: 43,
+      labelCode: 'LW-00043',
+      unit: 'mL',
+      quantity: 300,
+      tareMass: 120,
+      chemical: { ...acetone.chemical, name: 'Ethanol', stockUnit: 'mL' },
+    });
+    mockFetch({
+      'GET /api/auth/me': { body: { user: member } },
+      'GET /api/containers/43': { body: ethanol },
+      'GET /api/containers/43/ledger': { body: page([]) },
+      'GET /api/locations': { body: page([]) },
+    });
+    const user = userEvent.setup();
+    renderApp('/stock/containers/43');
+    await screen.findByRole('heading', { level: 1, name: 'Ethanol' }, { timeout: 5000 });
+    const form = screen.getByRole('form', { name: 'Record a draw' });
+    expect(within(form).getByRole('combobox', { name: 'Unit' })).toHaveValue('g');
+
+    await user.click(within(form).getByRole('radio', { name: /Amount taken/ }));
+
+    expect(within(form).getByRole('combobox', { name: 'Unit' })).toHaveValue('mL');
+  });
+
+  it('when “Record a draw” at the top is pressed, then the cursor is in the draw form’s first field', async () => {
+    stockRoutes();
+    const { user } = await openContainer();
+
+    await user.click(screen.getByRole('button', { name: 'Record a draw' }));
+
+    const form = screen.getByRole('form', { name: 'Record a draw' });
+    expect(within(form).getByRole('textbox', { name: 'Gross mass now' })).toHaveFocus();
+  });
 });

@@ -1,10 +1,10 @@
 import { useEffect, useRef, type ReactNode } from 'react';
 import { Link, Navigate, useLocation, useParams } from 'react-router';
-import { ChevronLeft, Lock, Printer } from 'lucide-react';
+import { ChevronLeft, Lock, Printer, Scale } from 'lucide-react';
 import type { ContainerDetail } from '@lotwise/shared';
 import { Formula } from '../../../components/chem/formula';
 import { freeOf, HoldList } from '../../../components/holds/container-holds';
-import { buttonClasses } from '../../../components/ui/button';
+import { Button, buttonClasses } from '../../../components/ui/button';
 import { ErrorState } from '../../../components/ui/error-state';
 import { Notice } from '../../../components/ui/notice';
 import { PageSpinner } from '../../../components/ui/spinner';
@@ -41,6 +41,19 @@ const back = (
   </Link>
 );
 
+/**
+ * At the shelf the draw form sits below the hazards and the container's facts: this brings it
+ * up and puts the cursor in its first field.
+ */
+function goToDrawForm() {
+  const section = document.getElementById('draw');
+  // (not every browser engine scrolls elements; test DOMs do not)
+  section?.scrollIntoView?.({ block: 'start' });
+  section
+    ?.querySelector<HTMLInputElement>('input:not([type="radio"])')
+    ?.focus({ preventScroll: true });
+}
+
 function ContainerView({ container: c }: { container: ContainerDetail }) {
   const mayDraw = useCan('stock.draw');
   const mayWrite = useCan('stock.write');
@@ -73,18 +86,28 @@ function ContainerView({ container: c }: { container: ContainerDetail }) {
             {c.chemical.casNumber && <> · CAS RN {c.chemical.casNumber}</>}
           </p>
         </div>
-        <div className="flex flex-col items-end gap-1 text-right">
+        <div className="flex flex-col items-end gap-1 text-right max-sm:w-full max-sm:flex-row max-sm:flex-wrap max-sm:items-center max-sm:text-left">
           <p className="text-2xl font-semibold text-ink-900 tabular-nums" data-testid="balance">
             {formatAmount(c.quantity, c.unit)}
           </p>
           <ContainerStatusBadge status={c.status} />
           <Link
             to={withQuery(paths.stockLabels, { ids: c.id })}
-            className={`${buttonClasses('secondary', 'sm')} mt-1`}
+            className={`${buttonClasses('secondary', 'sm')} sm:mt-1`}
           >
             <Printer aria-hidden="true" className="size-4" />
             Print label
           </Link>
+          {mayDraw && usable && (
+            <Button
+              variant="primary"
+              size="sm"
+              icon={<Scale aria-hidden="true" className="size-4" />}
+              onClick={goToDrawForm}
+            >
+              Record a draw
+            </Button>
+          )}
         </div>
       </header>
 
