@@ -62,7 +62,7 @@ test.describe('stock', () => {
     expect(container).toBeTruthy();
     await page.goto(`/stock/containers/${container!.id}`);
     const form = page.getByRole('form', { name: 'Record a draw' });
-    await form.locator('label', { hasText: 'Amount taken' }).click();
+    await form.locator('label', { hasText: 'Enter the amount' }).click();
     await expect(form.getByRole('radio', { name: /amount taken/i })).toBeChecked();
     await form.locator('input[name="value"]').fill(String(Math.ceil(container!.quantity + 100)));
     await form.getByRole('button', { name: 'Record draw' }).click();

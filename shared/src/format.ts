@@ -241,3 +241,16 @@ export function formatBytes(bytes: number): string {
     ? `${formatNumber(bytes, 0)} bytes`
     : `${formatNumber(value, 1)} ${byteUnits[unit]}`;
 }
+
+const englishPlurals = new Intl.PluralRules('en');
+
+/**
+ * A count with its noun in the right number, for every "N things" Lotwise writes:
+ * `countOf(1, 'container')` = `1 container`, `countOf(21, 'condition')` = `21 conditions`,
+ * `countOf(2, 'e-mail')` = `2 e-mails`; an irregular plural is given (`countOf(3, 'lot
+ * history', 'lot histories')`). The count is grouped like every other number.
+ */
+export function countOf(count: number, singular: string, plural = `${singular}s`): string {
+  const noun = englishPlurals.select(count) === 'one' ? singular : plural;
+  return `${formatNumber(count, 0)} ${noun}`;
+}

@@ -13,6 +13,7 @@ import {
   chemicalCreateSchema,
   chemicalPatchSchema,
   hazardStatementTexts,
+  numberIssueMessage,
   peroxideClasses,
   physicalStates,
   stockUnits,
@@ -90,11 +91,8 @@ const labels: Record<keyof ChemicalFormValues, string> = {
 };
 const fieldNames = Object.keys(labels) as Array<keyof ChemicalFormValues>;
 
-// Schema messages stay as written; only "not a number" gets words of our own.
-const schemaOptions = {
-  error: (issue: { code?: string; expected?: string }) =>
-    issue.code === 'invalid_type' && issue.expected === 'number' ? 'must be a number' : undefined,
-};
+// Schema messages stay as written; numbers get the one wording of `@lotwise/shared`.
+const schemaOptions = { error: numberIssueMessage };
 
 const emptyToNull = (value: unknown) =>
   typeof value === 'string' && value.trim() === '' ? null : value;

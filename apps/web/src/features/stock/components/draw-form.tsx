@@ -10,6 +10,7 @@ import { Input, Select } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { isApiError, sendWithConfirmation } from '../../../lib/api-client';
 import { cn } from '../../../lib/cn';
+import { useClearErrorsOnChange } from '../../../lib/use-clear-errors-on-change';
 import { formatAmount } from '../../../lib/format';
 import { parseDecimal } from '../../../lib/numbers';
 import { useRecordDraw } from '../api';
@@ -24,7 +25,7 @@ interface DrawFormValues {
 }
 
 const modeLabels: Record<Mode, string> = {
-  amount: 'Amount taken',
+  amount: 'Enter the amount',
   gross: 'Weigh the container',
 };
 
@@ -41,6 +42,9 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
   const units = drawUnits(container.chemical);
   const massUnits = units.filter((u) => u === 'g' || u === 'mg' || u === 'kg');
 
+  const form = useForm<DrawFormValues>({
+    defaultValues: { value: '', unit: mode === 'gross' ? 'g' : container.unit, note: '' },
+  });
   const {
     register,
     control,
@@ -49,9 +53,8 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
     setValue,
     reset,
     formState: { errors, isSubmitting },
-  } = useForm<DrawFormValues>({
-    defaultValues: { value: '', unit: mode === 'gross' ? 'g' : container.unit, note: '' },
-  });
+  } = form;
+  useClearErrorsOnChange(form);
   const [valueText, unit] = useWatch({ control, name: ['value', 'unit'] });
 
   function switchMode(next: Mode) {
@@ -192,7 +195,7 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
       {mode === 'gross' && container.tareMass === null ? (
         <Notice tone="warn" title="No tare recorded for this container">
           Without the mass of the empty container and cap, a gross mass cannot be turned into its
-          contents. Switch to “Amount taken”.
+          contents. Switch to “Enter the amount”.
         </Notice>
       ) : (
         <div className="grid gap-3 sm:grid-cols-[1fr_8rem]">

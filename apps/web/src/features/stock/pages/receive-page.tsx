@@ -4,6 +4,7 @@ import { useFieldArray, useForm, useWatch, type FieldPath } from 'react-hook-for
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { ChevronLeft, Copy, PackagePlus, Plus, Printer, Trash2 } from 'lucide-react';
 import {
+  countOf,
   chemicalSchema,
   containerCreateSchema,
   lotCreateSchema,
@@ -665,7 +666,10 @@ export function ReceivePage() {
         </section>
 
         {partial && (
-          <Notice tone="danger" title={`${partial.done.length} container(s) saved, the rest not`}>
+          <Notice
+            tone="danger"
+            title={`${countOf(partial.done.length, 'container')} saved, the rest not`}
+          >
             {partial.message} The lot is kept and chosen below; correct the remaining lines and
             press Receive again.
           </Notice>
