@@ -14,7 +14,8 @@ export function useClearErrorsOnChange<T extends FieldValues>(
     const subscription = watch((_values, { name, type }) => {
       // Only what the person changed: a reset or setValue after a save keeps its message.
       if (type !== 'change') return;
-      clearErrors(name ? ['root.server', name] : 'root.server');
+      clearErrors('root.server');
+      if (name) clearErrors(name);
     });
     return () => subscription.unsubscribe();
   }, [watch, clearErrors]);
