@@ -490,4 +490,33 @@ describe('recording a run', () => {
     const list = (await get(`/api/runs?procedureId=${s.procedure.id}`).expect(200)).body;
     expect(list.total).toBe(1);
   });
+
+  it('when an opened run is discarded, then it is gone without a ledger entry and the audit names it; a recorded run or someone else’s cannot be discarded', async () => {
+    const s = await setUp();
+    const before = await counts();
+    const run = await openRun({ procedureId: s.procedure.id });
+    const discard = (id: number, cookie = member) =>
+      request(app()).delete(`/api/runs/${id}`).set('Cookie', cookie);
+
+    await discard(run.id, otherMember).expect(403);
+    await discard(run.id).expect(204);
+    await get(`/api/runs/${run.id}`).expect(404);
+    expect(await counts()).toEqual(before);
+    const [audit] = await testContext().dataSource.query(
+      "SELECT action, target_type AS targetType, target_id AS targetId FROM audit_events WHERE action = 'run.discarded'",
+    );
+    expect(audit).toEqual({ action: 'run.discarded', targetType: 'run', targetId: run.id });
+    await discard(run.id).expect(404);
+
+    const recorded = await openRun({ procedureId: s.procedure.id });
+    await post(`/api/runs/${recorded.id}/record`, {
+      lines: [
+        { lineIndex: 0, draws: [{ containerId: s.saContainer.id, amount: 2.0, unit: 'g' }] },
+        { lineIndex: 1, draws: [{ containerId: s.ac2oContainer.id, amount: 5.0, unit: 'mL' }] },
+      ],
+    }).expect(200);
+    const refused = await discard(recorded.id).expect(409);
+    expect(refused.body.error.message).toMatch(/already recorded/);
+    await get(`/api/runs/${recorded.id}`).expect(200);
+  });
 });

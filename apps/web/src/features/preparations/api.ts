@@ -215,6 +215,18 @@ export function useCreateRun() {
   });
 }
 
+/** Discards an opened run (nothing of it is in the ledger); lists of runs change. */
+export function useDiscardRun(id: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => api.delete(`/api/runs/${id}`),
+    onSuccess: () => {
+      queryClient.removeQueries({ queryKey: preparationKeys.run(id) });
+      return queryClient.invalidateQueries({ queryKey: preparationKeys.all });
+    },
+  });
+}
+
 export function useRecordRun(id: number) {
   const queryClient = useQueryClient();
   return useMutation({

@@ -9,6 +9,7 @@ import { formatAmount, formatDate, formatPercent } from '../../../lib/format';
 import { paths } from '../../../config/paths';
 import { useProcedure, useRun } from '../api';
 import { RunStatusBadge } from '../labels';
+import { DiscardRunButton } from '../components/discard-run';
 import { BackLink, PageHeader, Property, QueryState, Section } from '../components/page-parts';
 import { PreparationSafety, procedureHazards } from '../components/preparation-safety';
 import { fullPrecision, Mass } from '../components/rounded';
@@ -179,9 +180,12 @@ function RunView({ run }: { run: Run }) {
         actions={
           mayRecord &&
           run.status === 'open' && (
-            <Link to={paths.runRecord(run.id)} className={buttonClasses('primary')}>
-              Record what was used and obtained
-            </Link>
+            <>
+              <Link to={paths.runRecord(run.id)} className={buttonClasses('primary')}>
+                Record what was used and obtained
+              </Link>
+              <DiscardRunButton run={run} />
+            </>
           )
         }
       >
