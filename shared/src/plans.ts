@@ -276,6 +276,19 @@ export const planDetailSchema = planSchema.extend({
 });
 export type PlanDetail = z.infer<typeof planDetailSchema>;
 
+/**
+ * `POST /api/plans/preview` (body as `POST /api/plans`): the stock check, hazards and cautions
+ * a plan would have. Nothing is saved.
+ */
+export const planPreviewSchema = planDetailSchema.pick({
+  totalFactor: true,
+  stockCheck: true,
+  hazards: true,
+  cautions: true,
+  safetyDeferral: true,
+});
+export type PlanPreview = z.infer<typeof planPreviewSchema>;
+
 export const planSortFields = ['plannedOn', 'updatedAt'] as const;
 export const planListQuerySchema = listQuerySchema(planSortFields, 'plannedOn.desc').extend({
   status: planStatusSchema.optional(),

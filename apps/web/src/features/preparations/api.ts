@@ -8,6 +8,7 @@ import {
   lotProvenanceSchema,
   pageSchema,
   planDetailSchema,
+  planPreviewSchema,
   planSchema,
   procedureRunsSchema,
   procedureSchema,
@@ -159,6 +160,13 @@ export function useDispensingSheet(id: number) {
   return useQuery({
     queryKey: preparationKeys.dispensing(id),
     queryFn: ({ signal }) => api.get(`/api/plans/${id}/dispensing`, dispensingSheetSchema, signal),
+  });
+}
+
+/** The stock check a plan would have; nothing is saved. */
+export function usePreviewPlan() {
+  return useMutation({
+    mutationFn: (body: PlanCreate) => api.post('/api/plans/preview', body, planPreviewSchema),
   });
 }
 
