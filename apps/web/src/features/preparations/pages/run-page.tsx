@@ -1,9 +1,10 @@
 import { Link, useParams, useSearchParams } from 'react-router';
-import { GitBranch, Printer, TriangleAlert } from 'lucide-react';
+import { CircleCheck, GitBranch, Printer, TriangleAlert } from 'lucide-react';
 import type { Run } from '@lotwise/shared';
 import { buttonClasses } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { withQuery } from '../../../lib/api-client';
+import { cn } from '../../../lib/cn';
 import { useCan } from '../../../lib/auth';
 import { formatAmount, formatDate, formatPercent } from '../../../lib/format';
 import { paths } from '../../../config/paths';
@@ -311,8 +312,19 @@ function RunView({ run }: { run: Run }) {
               </span>
             )}
             {run.observations.meltingComparison && (
-              <span className="block text-xs text-warn-700">
-                {run.observations.meltingComparison}
+              <span
+                data-testid="melting-comparison"
+                className={cn(
+                  'flex items-start gap-1 text-xs',
+                  run.observations.meltingComparison.agrees ? 'text-ok-700' : 'text-warn-700',
+                )}
+              >
+                {run.observations.meltingComparison.agrees ? (
+                  <CircleCheck aria-hidden="true" className="mt-px size-3.5 shrink-0" />
+                ) : (
+                  <TriangleAlert aria-hidden="true" className="mt-px size-3.5 shrink-0" />
+                )}
+                {run.observations.meltingComparison.text}
               </span>
             )}
           </Property>
