@@ -11,6 +11,7 @@ import {
 import { PictogramList } from '../../../components/hazards/pictogram-badge';
 import { Button } from '../../../components/ui/button';
 import { Field } from '../../../components/ui/field';
+import { AmountInput } from '../../../components/ui/amount-input';
 import { Input, Select, Textarea } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { PageSpinner } from '../../../components/ui/spinner';
@@ -203,9 +204,8 @@ export function PlanNewPage() {
             </Field>
             <Field label="Overage (%)" hint="Default 10 %" error={errors.overagePercent}>
               {(props) => (
-                <Input
+                <AmountInput
                   {...props}
-                  inputMode="decimal"
                   value={overage}
                   onChange={(event) => edit(setOverage)(event.target.value)}
                 />

@@ -6,6 +6,7 @@ import { ContainerHolds, freeOf } from '../../../components/holds/container-hold
 import { Button } from '../../../components/ui/button';
 import { useConfirmation } from '../../../components/ui/confirmation-dialog';
 import { Field, fieldMessage } from '../../../components/ui/field';
+import { AmountInput } from '../../../components/ui/amount-input';
 import { Input, Select } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { isApiError, sendWithConfirmation } from '../../../lib/api-client';
@@ -200,15 +201,7 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
       ) : (
         <div className="grid gap-3 sm:grid-cols-[1fr_8rem]">
           <Field label={valueLabel} error={errors.value?.message}>
-            {(c) => (
-              <Input
-                {...c}
-                inputMode="decimal"
-                autoComplete="off"
-                className="tabular-nums"
-                {...register('value')}
-              />
-            )}
+            {(c) => <AmountInput {...c} {...register('value')} />}
           </Field>
           <Field label="Unit" error={errors.unit?.message}>
             {(c) => (
