@@ -91,6 +91,7 @@ test.describe('sign-in and roles', () => {
     await page.reload();
     const role = page.getByLabel('Role of Evening Club Guest');
     await role.selectOption('viewer');
+    await page.getByRole('button', { name: 'Make them a viewer' }).click();
     await expect(role).toHaveValue('viewer');
   });
 });

@@ -103,7 +103,7 @@ test('when a draw takes a chemical below its reorder point, then an e-mail lands
   await signIn(page, demo.member);
   await page.goto(`/stock/containers/${containerId}`);
   const form = page.getByRole('form', { name: 'Record a draw' });
-  await form.locator('label', { hasText: 'Amount taken' }).click();
+  await form.locator('label', { hasText: 'Enter the amount' }).click();
   await form.locator('input[name="value"]').fill('3');
   await form.getByRole('button', { name: 'Record draw' }).click();
   await expect(page.getByText('Draw recorded')).toBeVisible();

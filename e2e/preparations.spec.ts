@@ -16,6 +16,9 @@ test('when a technician plans 8 benches at 1/4 scale, then the shortfall, make-v
   await form.getByLabel('Scale per bench').fill('1/4');
   await form.getByLabel('Benches or groups').fill('8');
   await form.getByRole('button', { name: 'Check stock for this session' }).click();
+  // the check is shown first, unsaved; saving is a step of its own
+  await expect(page.getByRole('heading', { name: 'Stock check (not saved yet)' })).toBeVisible();
+  await page.getByRole('button', { name: 'Save this plan' }).click();
 
   // 8 benches × 1/4 × 1.10 overage = factor 2.2 of the base scale (hand calculation)
   await expect(page.getByText(/factor 2\.2 of the base scale/)).toBeVisible();

@@ -62,8 +62,8 @@ test.describe('stock', () => {
     expect(container).toBeTruthy();
     await page.goto(`/stock/containers/${container!.id}`);
     const form = page.getByRole('form', { name: 'Record a draw' });
-    await form.locator('label', { hasText: 'Amount taken' }).click();
-    await expect(form.getByRole('radio', { name: /amount taken/i })).toBeChecked();
+    await form.locator('label', { hasText: 'Enter the amount' }).click();
+    await expect(form.getByRole('radio', { name: 'Enter the amount' })).toBeChecked();
     await form.locator('input[name="value"]').fill(String(Math.ceil(container!.quantity + 100)));
     await form.getByRole('button', { name: 'Record draw' }).click();
     await expect(page.getByText('Not recorded')).toBeVisible();

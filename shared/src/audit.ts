@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { listQuerySchema } from './list';
 
-/** What the audit trail records (admin actions on users and backups). */
+/** What the audit trail records (admin actions on users and backups, discarded runs). */
 export const auditActions = [
   'user.created',
   'user.role_changed',
@@ -12,6 +12,7 @@ export const auditActions = [
   'user.invite_issued',
   'backup.created',
   'backup.downloaded',
+  'run.discarded',
 ] as const;
 export type AuditAction = (typeof auditActions)[number];
 

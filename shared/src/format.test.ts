@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
+  countOf,
   formatBytes,
   formatDate,
   formatDateTime,
@@ -138,5 +139,16 @@ describe('formatBytes', () => {
     expect(formatBytes(520192)).toBe('508.0 KiB');
     expect(formatBytes(5 * 1024 * 1024 + 104858)).toBe('5.1 MiB');
     expect(formatBytes(3 * 1024 ** 3)).toBe('3.0 GiB');
+  });
+});
+
+describe('countOf', () => {
+  it('when there is one, then the noun is singular; otherwise plural', () => {
+    // English plural rules (CLDR "one" for 1 only) // common practice, no source
+    expect(countOf(1, 'condition')).toBe('1 condition');
+    expect(countOf(21, 'condition')).toBe('21 conditions');
+    expect(countOf(0, 'e-mail')).toBe('0 e-mails');
+    expect(countOf(2, 'plan or run', 'plans or runs')).toBe('2 plans or runs');
+    expect(countOf(1200, 'container')).toBe('1,200 containers');
   });
 });

@@ -5,8 +5,9 @@
  *
  * - An amount stays in the unit it is recorded in (a container counted in mL always reads in
  *   mL); it is never rescaled to µL or L.
- * - Numbers are written with a decimal point and a comma between thousands, the same on every
- *   screen and in every message, whatever the reader's language.
+ * - Numbers follow a locale's decimal mark and grouping: the reader's on screen (the web app
+ *   passes the browser's), `en` where none is given (text the server writes, messages).
+ *   Data files use {@link plainNumber}.
  * - Decimals follow the unit, like a balance: at least the unit's usual decimals and at least 3
  *   significant figures, never finer than the unit's finest step.
  * - Dates are locale-aware: the reader's language on screen, the lab's configured one in text
@@ -74,15 +75,23 @@ function roundDown(value: number, decimals: number): number {
 
 const numberFormats = new Map<string, Intl.NumberFormat>();
 
+/** The locale numbers are written in when none is given: a decimal point, comma grouping. */
+export const defaultNumberLocale = 'en';
+
 /**
- * A number with exactly `decimals` decimals, a decimal point and comma-grouped thousands:
- * `formatNumber(2698.471, 2)` = `2,698.47`. No "-0".
+ * A number with exactly `decimals` decimals, grouped thousands, in `locale`:
+ * `formatNumber(2698.471, 2)` = `2,698.47`; in `de-DE` `2.698,47`. No "-0".
  */
-export function formatNumber(value: number, decimals: number, sign: 'auto' | 'always' = 'auto') {
-  const key = `${decimals}|${sign}`;
+export function formatNumber(
+  value: number,
+  decimals: number,
+  sign: 'auto' | 'always' = 'auto',
+  locale: string = defaultNumberLocale,
+) {
+  const key = `${locale}|${decimals}|${sign}`;
   let format = numberFormats.get(key);
   if (!format) {
-    format = new Intl.NumberFormat('en', {
+    format = new Intl.NumberFormat(locale, {
       minimumFractionDigits: decimals,
       maximumFractionDigits: decimals,
       signDisplay: sign === 'always' ? 'exceptZero' : 'negative',
@@ -92,9 +101,19 @@ export function formatNumber(value: number, decimals: number, sign: 'auto' | 'al
   return format.format(value);
 }
 
+/** The decimal mark of a locale: `.` in en, `,` in de-DE and fr-FR (for reading typed numbers). */
+export function decimalMarkOf(locale: string): string {
+  const parts = new Intl.NumberFormat(locale).formatToParts(1.5);
+  return parts.find((p) => p.type === 'decimal')?.value ?? '.';
+}
+
 /** A number with up to `maxDecimals` decimals, trailing zeros dropped: `114.1`, `1,250`. */
-export function formatDecimal(value: number, maxDecimals: number): string {
-  return new Intl.NumberFormat('en', {
+export function formatDecimal(
+  value: number,
+  maxDecimals: number,
+  locale: string = defaultNumberLocale,
+): string {
+  return new Intl.NumberFormat(locale, {
     maximumFractionDigits: maxDecimals,
     signDisplay: 'negative',
   }).format(value);
@@ -110,6 +129,8 @@ export interface QuantityFormatOptions {
   rounding?: 'nearest' | 'down';
   /** `always`: a plus sign on positive changes (ledger entries). */
   sign?: 'auto' | 'always';
+  /** BCP 47 locale of the decimal mark and grouping; `en` when not given. */
+  locale?: string;
 }
 
 /**
@@ -125,12 +146,15 @@ export function formatQuantity(
   if (!isNumber(value)) return '—';
   const decimals = options.decimals ?? quantityDecimals(value, unit);
   const shown = options.rounding === 'down' ? roundDown(value, decimals) : value;
-  return `${formatNumber(shown, decimals, options.sign)} ${unit.trim()}`;
+  return `${formatNumber(shown, decimals, options.sign, options.locale)} ${unit.trim()}`;
 }
 
 /** A rounded value from @lotwise/chem (`DisplayValue`) written by the same rule. */
-export function formatRounded(display: { value: number; unit: string; decimals: number }): string {
-  return formatQuantity(display.value, display.unit, { decimals: display.decimals });
+export function formatRounded(
+  display: { value: number; unit: string; decimals: number },
+  locale?: string,
+): string {
+  return formatQuantity(display.value, display.unit, { decimals: display.decimals, locale });
 }
 
 /** `display` with its `text` written by {@link formatRounded}: for API answers. */
@@ -145,12 +169,12 @@ export function withRoundedText<T extends { value: number; unit: string; decimal
  * Taking it all reads `all (34.95 mL)`, the content as the container's page shows it; a part
  * is rounded down (34.947 -> `34.94 mL`).
  */
-export function formatTake(take: number, holds: number, unit: string): string {
+export function formatTake(take: number, holds: number, unit: string, locale?: string): string {
   if (!isNumber(take)) return '—';
   const all = isNumber(holds) && take >= holds - 1e-9 * Math.max(1, Math.abs(holds));
   return all
-    ? `all (${formatQuantity(holds, unit)})`
-    : formatQuantity(take, unit, { rounding: 'down' });
+    ? `all (${formatQuantity(holds, unit, { locale })})`
+    : formatQuantity(take, unit, { rounding: 'down', locale });
 }
 
 /**
@@ -240,4 +264,17 @@ export function formatBytes(bytes: number): string {
   return unit === 0
     ? `${formatNumber(bytes, 0)} bytes`
     : `${formatNumber(value, 1)} ${byteUnits[unit]}`;
+}
+
+const englishPlurals = new Intl.PluralRules('en');
+
+/**
+ * A count with its noun in the right number, for every "N things" Lotwise writes:
+ * `countOf(1, 'container')` = `1 container`, `countOf(21, 'condition')` = `21 conditions`,
+ * `countOf(2, 'e-mail')` = `2 e-mails`; an irregular plural is given (`countOf(3, 'lot
+ * history', 'lot histories')`). The count is grouped like every other number.
+ */
+export function countOf(count: number, singular: string, plural = `${singular}s`): string {
+  const noun = englishPlurals.select(count) === 'one' ? singular : plural;
+  return `${formatNumber(count, 0)} ${noun}`;
 }

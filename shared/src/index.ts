@@ -3,6 +3,7 @@ export * from './confirmations';
 export * from './roles';
 export * from './list';
 export * from './amounts';
+export * from './messages';
 export * from './names';
 export * from './hazards';
 export * from './email-address';

@@ -5,6 +5,7 @@ import { containerStatusSchema } from './containers';
 import { isoDateSchema } from './dates';
 import { ghsCodeSchema } from './hazards';
 import { listQuerySchema } from './list';
+import { numberSchema } from './messages';
 import {
   cautionFlagsSchema,
   displayValueSchema,
@@ -28,9 +29,9 @@ const planFields = {
   /** Per bench; a number or a fraction such as "1/4". */
   scaleFactor: scaleFactorInputSchema,
   /** Benches or groups doing the prep at that scale. */
-  benches: z.number({ message: 'must be a number' }).int('must be a whole number').min(1).max(500),
+  benches: numberSchema().int('must be a whole number').min(1).max(500),
   /** Extra on every required amount for spills and transfer losses, %. */
-  overagePercent: z.number({ message: 'must be a number' }).min(0).max(200),
+  overagePercent: numberSchema().min(0).max(200),
   plannedOn: isoDateSchema,
   notes: z.string().max(2000, 'is at most 2000 characters'),
 };
@@ -274,6 +275,19 @@ export const planDetailSchema = planSchema.extend({
   reservations: z.array(reservationSchema),
 });
 export type PlanDetail = z.infer<typeof planDetailSchema>;
+
+/**
+ * `POST /api/plans/preview` (body as `POST /api/plans`): the stock check, hazards and cautions
+ * a plan would have. Nothing is saved.
+ */
+export const planPreviewSchema = planDetailSchema.pick({
+  totalFactor: true,
+  stockCheck: true,
+  hazards: true,
+  cautions: true,
+  safetyDeferral: true,
+});
+export type PlanPreview = z.infer<typeof planPreviewSchema>;
 
 export const planSortFields = ['plannedOn', 'updatedAt'] as const;
 export const planListQuerySchema = listQuerySchema(planSortFields, 'plannedOn.desc').extend({

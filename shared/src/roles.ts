@@ -12,6 +12,14 @@ export const roleLabels: Record<Role, string> = {
   viewer: 'Viewer',
 };
 
+/** A role in a sentence: "Robin is now a member", "… an admin". */
+export const roleInSentence: Record<Role, string> = {
+  admin: 'an admin',
+  manager: 'a manager',
+  member: 'a member',
+  viewer: 'a viewer',
+};
+
 export const roleDescriptions: Record<Role, string> = {
   admin: 'Everything, including users, roles, settings and backups',
   manager: 'Stock, procedures, suppliers and orders; approves restricted items',

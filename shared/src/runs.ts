@@ -230,8 +230,11 @@ export const runSchema = runSummarySchema.extend({
   observations: z.object({
     meltingRangeC: z.object({ low: z.number(), high: z.number() }).nullable(),
     literatureMeltingC: z.object({ low: z.number(), high: z.number() }).nullable(),
-    /** e.g. "2.0 °C below the literature range (135–136 °C): probably impure". */
-    meltingComparison: z.string().nullable(),
+    /**
+     * Whether the measured range agrees with the literature's, and in words, e.g. "starts
+     * 2.0 °C below the literature range (135–136 °C): probably impure or still wet".
+     */
+    meltingComparison: z.object({ agrees: z.boolean(), text: z.string() }).nullable(),
     appearance: z.string(),
     notes: z.string(),
   }),

@@ -1,7 +1,8 @@
 /**
  * Formatting of numbers and dates for screens: the web app's entry to the one rule in
- * `@lotwise/shared` (format.ts), which the server's messages use too. Amounts always carry
- * their unit; callers put them in a `tabular-nums` element so columns line up.
+ * `@lotwise/shared` (format.ts), in the reader's locale (the browser's first language), so a
+ * German browser reads `1,50 g` and `3. Dez. 2026`. Amounts always carry their unit; callers
+ * put them in a `tabular-nums` element so columns line up.
  */
 import {
   formatDate as formatSharedDate,
@@ -9,48 +10,88 @@ import {
   formatDecimal,
   formatNumber,
   formatQuantity,
+  formatRounded,
   formatTake,
 } from '@lotwise/shared';
 
+/** The reader's locale: the browser's first language, `en` when it names none. */
+export function readerLocale(): string {
+  const preferred =
+    typeof navigator === 'undefined' ? undefined : (navigator.languages?.[0] ?? navigator.language);
+  try {
+    return preferred ? Intl.getCanonicalLocales(preferred)[0]! : 'en';
+  } catch {
+    return 'en';
+  }
+}
+
 /**
  * An amount in the unit it is recorded in, at balance-like precision: `250` g ->
- * `250.00 g`, `0.852` mL -> `0.852 mL`, `2698.471` mL -> `2,698.47 mL`.
+ * `250.00 g` (`250,00 g` in de-DE), `0.852` mL -> `0.852 mL`, `2698.471` mL -> `2,698.47 mL`.
  */
-export function formatAmount(value: number | null | undefined, unit: string): string {
-  return formatQuantity(value, unit);
+export function formatAmount(
+  value: number | null | undefined,
+  unit: string,
+  locale = readerLocale(),
+): string {
+  return formatQuantity(value, unit, { locale });
+}
+
+/** A rounded amount from @lotwise/chem (`DisplayValue`) in the reader's locale. */
+export function formatRoundedAmount(
+  display: { value: number; unit: string; decimals: number },
+  locale = readerLocale(),
+): string {
+  return formatRounded(display, locale);
 }
 
 /** What to take from a container: never more than it holds (`all (34.95 mL)` when emptied). */
-export function formatTakeAmount(take: number, holds: number, unit: string): string {
-  return formatTake(take, holds, unit);
+export function formatTakeAmount(
+  take: number,
+  holds: number,
+  unit: string,
+  locale = readerLocale(),
+): string {
+  return formatTake(take, holds, unit, locale);
+}
+
+/** A number with exactly `decimals` decimals in the reader's locale (`1,234.50`, `1.234,50`). */
+export function formatFixed(value: number, decimals: number, locale = readerLocale()): string {
+  return formatNumber(value, decimals, 'auto', locale);
 }
 
 /** Molar mass in g/mol with two decimals, e.g. `180.16 g/mol`. */
 export function formatMolarMass(value: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  return `${formatNumber(value, 2)} g/mol`;
+  return `${formatNumber(value, 2, 'auto', readerLocale())} g/mol`;
 }
 
 export function formatDensity(value: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  return `${formatNumber(value, 3)} g/mL`;
+  return `${formatNumber(value, 3, 'auto', readerLocale())} g/mL`;
 }
 
 export function formatPercent(value: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  return `${formatDecimal(value, 2)} %`;
+  return `${formatDecimal(value, 2, readerLocale())} %`;
 }
 
 export function formatCount(value: number): string {
-  return formatNumber(value, 0);
+  return formatNumber(value, 0, 'auto', readerLocale());
 }
 
 /** A calendar date in the reader's locale, e.g. `3 Dec 2025`; `YYYY-MM-DD` never shifts a day. */
-export function formatDate(value: string | Date | null | undefined, locale?: string): string {
+export function formatDate(
+  value: string | Date | null | undefined,
+  locale = readerLocale(),
+): string {
   return formatSharedDate(value, { locale });
 }
 
 /** Date and time in the reader's locale and time zone, e.g. `3 Dec 2025, 14:05`. */
-export function formatDateTime(value: string | Date | null | undefined, locale?: string): string {
+export function formatDateTime(
+  value: string | Date | null | undefined,
+  locale = readerLocale(),
+): string {
   return formatSharedDateTime(value, { locale });
 }

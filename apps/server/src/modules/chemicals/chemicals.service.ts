@@ -1,3 +1,4 @@
+import { countOf } from '@lotwise/shared';
 import { canonicalFormula, tryMolarMass } from '@lotwise/chem';
 import type {
   Chemical,
@@ -116,7 +117,7 @@ export function chemicalsService(store: Store, files?: StoredFiles) {
         const held = await store.repos.containers.countForChemical(id);
         if (held > 0) {
           throw AppError.conflict(
-            `${current.name} has ${held} container(s) counted in ${current.stockUnit}; its stock unit cannot change.`,
+            `${current.name} has ${countOf(held, 'container')} counted in ${current.stockUnit}; its stock unit cannot change.`,
             { stockUnit: `stays ${current.stockUnit} while containers hold it` },
           );
         }
@@ -137,13 +138,13 @@ export function chemicalsService(store: Store, files?: StoredFiles) {
       const lots = await store.repos.lots.countForChemical(id);
       if (lots > 0) {
         throw AppError.conflict(
-          `This chemical has ${lots} lot(s) in stock history and cannot be deleted.`,
+          `This chemical has ${countOf(lots, 'lot')} in stock history and cannot be deleted.`,
         );
       }
       const procedures = await store.repos.procedures.using(id);
       if (procedures.length > 0) {
         throw AppError.conflict(
-          `This chemical is on ${new Set(procedures.map((p) => p.procedureId)).size} procedure(s) and cannot be deleted.`,
+          `This chemical is on ${countOf(new Set(procedures.map((p) => p.procedureId)).size, 'procedure')} and cannot be deleted.`,
         );
       }
       const row = await chemicals.findRow(id);

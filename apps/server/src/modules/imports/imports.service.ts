@@ -1,4 +1,5 @@
 import {
+  countOf,
   can,
   defaultTextLocale,
   formatDateTime,
@@ -83,7 +84,7 @@ function statusConflict(head: ImportHead, text: TextConfig): AppError {
   const messages: Record<ImportStatus, string> = {
     validating: `Import #${head.id} is still being checked; commit it once it is ready.`,
     ready: '',
-    invalid: `Import #${head.id} has ${head.errorCount} problem(s) and cannot be committed: correct the file and upload it again.`,
+    invalid: `Import #${head.id} has ${countOf(head.errorCount, 'problem')} and cannot be committed: correct the file and upload it again.`,
     committing: `Import #${head.id} is being committed already.`,
     committed: `Import #${head.id} was committed on ${formatDateTime(head.committedAt ?? head.updatedAt, { ...text, showZone: true })}; its stock is in Lotwise already.`,
     failed: `Import #${head.id} failed (${head.failure ?? 'see its details'}); upload the file again.`,
@@ -415,7 +416,7 @@ export function importsService(
     if (plan.problems.length > 0) {
       const first = plan.problems[0]!;
       throw new CommitFailure(
-        `The catalogue or the chemicals changed since the preview: ${plan.problems.length} row problem(s), the first on row ${first.row} (${first.column}): ${first.message}. Nothing was imported; upload the file again.`,
+        `The catalogue or the chemicals changed since the preview: ${countOf(plan.problems.length, 'row problem')}, the first on row ${first.row} (${first.column}): ${first.message}. Nothing was imported; upload the file again.`,
         plan.problems,
       );
     }
@@ -459,7 +460,7 @@ export function importsService(
         if (plan.problems.length > 0) {
           const first = plan.problems[0]!;
           throw new CommitFailure(
-            `The stock changed since the preview: ${plan.problems.length} row problem(s), the first on row ${first.row} (${first.column}): ${first.message}. Nothing was imported; upload the file again.`,
+            `The stock changed since the preview: ${countOf(plan.problems.length, 'row problem')}, the first on row ${first.row} (${first.column}): ${first.message}. Nothing was imported; upload the file again.`,
             plan.problems,
           );
         }

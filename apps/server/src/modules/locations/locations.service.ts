@@ -1,4 +1,5 @@
 import {
+  countOf,
   locationPathSeparator,
   type Location,
   type LocationCreateParsed,
@@ -134,18 +135,18 @@ export function locationsService(store: Store) {
         if (!current) throw notFound(id);
         if (current.childCount > 0) {
           throw AppError.conflict(
-            `${current.path} holds ${current.childCount} other place(s): move or delete them first.`,
+            `${current.path} holds ${countOf(current.childCount, 'other place')}: move or delete them first.`,
           );
         }
         if (current.containerCount > 0) {
           throw AppError.conflict(
-            `${current.path} holds ${current.containerCount} container(s): move them elsewhere first.`,
+            `${current.path} holds ${countOf(current.containerCount, 'container')}: move them elsewhere first.`,
           );
         }
         const kept = await repos.locations.containerCount(id, false);
         if (kept > 0) {
           throw AppError.conflict(
-            `${current.path} is named in the history of ${kept} disposed container(s) and cannot be deleted; rename it instead.`,
+            `${current.path} is named in the history of ${countOf(kept, 'disposed container')} and cannot be deleted; rename it instead.`,
           );
         }
         await repos.locations.delete(id);

@@ -1,3 +1,4 @@
+import { countOf } from '@lotwise/shared';
 import type { Lot, LotCreateParsed, LotListQuery, LotPatch, Page } from '@lotwise/shared';
 import { AppError } from '../../lib/app-error';
 import type { Repositories, Store } from '../../db/store';
@@ -94,7 +95,7 @@ export function lotsService(store: Store, files?: StoredFiles) {
         const held = await repos.containers.countForLot(id);
         if (held > 0) {
           throw AppError.conflict(
-            `Lot #${id} has ${held} container(s) with ledger history and cannot be deleted.`,
+            `Lot #${id} has ${countOf(held, 'container')} with ledger history and cannot be deleted.`,
           );
         }
         await repos.lots.delete(id);

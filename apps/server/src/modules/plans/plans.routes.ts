@@ -41,6 +41,15 @@ export function planRoutes(plans: PlansService) {
       },
     }),
     defineRoute({
+      method: 'post',
+      path: '/api/plans/preview',
+      access: 'procedures.read',
+      body: planCreateSchema,
+      handle: async ({ body, res }) => {
+        res.json(await plans.preview(body));
+      },
+    }),
+    defineRoute({
       method: 'get',
       path: '/api/plans/:id',
       access: 'procedures.read',

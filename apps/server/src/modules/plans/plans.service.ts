@@ -17,6 +17,7 @@ import {
   type PlanCreateParsed,
   type PlanDetail,
   type PlanListQuery,
+  type PlanPreview,
   type PlanPatch,
   type Reservation,
   type User,
@@ -239,6 +240,36 @@ export function plansService(
     async get(id: number): Promise<PlanDetail> {
       await sweep();
       return detail(store.repos, id);
+    },
+
+    /**
+     * The stock check, hazards and cautions a plan would have, without saving it: what the
+     * form shows before "Save this plan".
+     */
+    async preview(input: PlanCreateParsed, today = todayIso()): Promise<PlanPreview> {
+      const repos = store.repos;
+      const procedure = await repos.procedures.findRow(input.procedureId);
+      if (!procedure) {
+        throw AppError.validation(`There is no procedure #${input.procedureId}.`, {
+          procedureId: `no procedure #${input.procedureId}`,
+        });
+      }
+      const loaded = await loadProcedure(repos, input.procedureId);
+      requireMeasurableFactor(loaded, input.scaleFactor, 'scaleFactor');
+      // Id 0 is no plan: every active reservation counts as another plan's.
+      const { check } = await stockCheckOf(repos, { ...input, id: 0 }, today, loaded);
+      const chemicals = await planChemicals(repos, loaded);
+      return {
+        totalFactor: input.scaleFactor * input.benches * (1 + input.overagePercent / 100),
+        stockCheck: check,
+        hazards: hazardsOf(chemicals.values()),
+        cautions: {
+          text: loaded.row.cautions,
+          flags: loaded.row.cautionFlags,
+          items: cautionItems(loaded.row.cautionFlags),
+        },
+        safetyDeferral,
+      };
     },
 
     async create(input: PlanCreateParsed, actor: User): Promise<PlanDetail> {

@@ -2,6 +2,7 @@ import { addDays } from '@lotwise/chem';
 import {
   dispensingSheetSchema,
   planDetailSchema,
+  planPreviewSchema,
   safetyDeferral,
   todayIso,
   type PlanDetail,
@@ -111,6 +112,34 @@ describe('prep plans: the stock check', () => {
     expect(detail.cautions.items).toContain('Work in a fume hood.');
     expect(detail.cautions.items).toContain('Keep the mixture below 90 °C.');
     expect(detail.safetyDeferral).toBe(safetyDeferral);
+  });
+
+  it('when the stock check is previewed, then it is the check the saved plan gets and nothing is saved', async () => {
+    const s = await stockedAspirin();
+    const body = {
+      procedureId: s.procedure.id,
+      scaleFactor: '1/2',
+      benches: 4,
+      plannedOn: nextWeek,
+    };
+    const plansBefore = (await get('/api/plans?pageSize=200').expect(200)).body.total;
+
+    const preview = planPreviewSchema.parse(
+      (await post('/api/plans/preview', body).expect(200)).body,
+    );
+    expect((await get('/api/plans?pageSize=200').expect(200)).body.total).toBe(plansBefore);
+    // calc: 0.5 x 4 x 1.10 = 2.2
+    expect(preview.totalFactor).toBeCloseTo(2.2, 12);
+    expect(preview.stockCheck).toMatchObject({ ok: false, shortCount: 1 });
+    expect(preview.hazards.map((h) => h.name)).toContain(s.ac2o.name);
+    expect(preview.safetyDeferral).toBe(safetyDeferral);
+
+    const saved = await plan(body);
+    expect(preview.stockCheck).toEqual(saved.stockCheck);
+    // A viewer may look; a preview of no procedure names the field.
+    await post('/api/plans/preview', body, viewer).expect(200);
+    const missing = await post('/api/plans/preview', { ...body, procedureId: 999999 }).expect(400);
+    expect(missing.body.error.fields).toEqual({ procedureId: 'no procedure #999999' });
   });
 
   it('when a chemical another procedure makes is short, then the plan suggests preparing it first at a factor that covers the shortfall', async () => {

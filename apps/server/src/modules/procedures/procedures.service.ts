@@ -10,6 +10,7 @@ import {
   type StoichiometryResult,
 } from '@lotwise/chem';
 import {
+  countOf,
   procedureLinesFor,
   roundingRules,
   withRoundedText,
@@ -367,7 +368,7 @@ export function proceduresService(store: Store) {
         const used = await repos.procedures.planOrRunCount(id);
         if (used > 0) {
           throw AppError.conflict(
-            `Procedure #${id} has ${used} plan(s) or run(s) and cannot be deleted; its history depends on it.`,
+            `Procedure #${id} has ${countOf(used, 'plan or run', 'plans or runs')} and cannot be deleted; its history depends on it.`,
           );
         }
         await repos.procedures.delete(id);

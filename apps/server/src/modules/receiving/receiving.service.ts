@@ -1,4 +1,5 @@
 import {
+  countOf,
   can,
   formatQuantity,
   safetyDeferral,
@@ -142,7 +143,7 @@ function linesReceived(record: OrderRecord, input: ReceiveOrderParsed) {
     else if (byLine.has(line.lineId)) fields[`lines.${index}.lineId`] = 'is named twice';
     else if (line.packsReceived !== ordered.packs) {
       fields[`lines.${index}.packsReceived`] =
-        `must be the ${ordered.packs} pack(s) ordered: receive the delivery when all of it has come`;
+        `must be the ${countOf(ordered.packs, 'pack')} ordered: receive the delivery when all of it has come`;
     }
     byLine.set(line.lineId, { index, line });
   });
@@ -282,7 +283,7 @@ export function receivingService(store: Store, alerts: AlertsService, config: Co
             plans = planPacks(line.packs, line.packSize, lineShares);
           } catch {
             throw AppError.conflict(
-              `The shares of ${line.sku} take more than its ${line.packs} pack(s) hold.`,
+              `The shares of ${line.sku} take more than its ${countOf(line.packs, 'pack')} hold.`,
             );
           }
           for (const plan of plans) {

@@ -108,6 +108,30 @@ export async function openRun(
 }
 
 /**
+ * Discards an opened run (inside the caller's transaction): nothing of it reached the ledger
+ * (draws and products are written only when a run is recorded), so the run goes and an audit
+ * entry keeps who discarded what. A recorded run stands: its entries are history.
+ */
+export async function discardRun(repos: Repositories, runId: number, actor: User) {
+  const run = await requireRun(repos, runId);
+  requireOwnRun(run, actor);
+  if (run.status !== 'open') {
+    throw AppError.conflict(
+      `Run #${run.id} is already recorded: its draws and products are in the ledger, so it cannot be discarded.`,
+    );
+  }
+  await repos.runs.delete(run.id);
+  await repos.audit.insert({
+    actorId: actor.id,
+    action: 'run.discarded',
+    targetType: 'run',
+    targetId: run.id,
+    detail: { procedureId: run.procedureId, planId: run.planId, scaleFactor: run.scaleFactor },
+    createdAt: nowIso(),
+  });
+}
+
+/**
  * Records a run (inside the caller's transaction): every draw as a `drawn` ledger entry of
  * the run, every portion of product as a new prepared lot and container (`received` entry
  * of the run), the crude and purified yields from the amounts really drawn, each with its

@@ -1,26 +1,47 @@
-import { formatDecimal, type Run, type RunSummary } from '@lotwise/shared';
+import { formatDecimal, formatNumber, type Run, type RunSummary } from '@lotwise/shared';
 import { AppError } from '../../lib/app-error';
 import type { Repositories } from '../../db/store';
 import type { RunRow } from './run.entity';
 
-/** Compares a measured melting range with the literature's. // common practice, no source */
+/**
+ * How far a thermometer reading may sit outside the literature range and still agree with
+ * it, °C. // common practice, no source
+ */
+const meltingToleranceC = 1;
+/** A pure compound melts within about 2 °C; a wider range points to impurities. // common practice, no source */
+const sharpRangeC = 2;
+
+/**
+ * Compares a measured melting range with the literature's: it agrees when it lies within the
+ * literature range (give or take {@link meltingToleranceC}) and is sharp (at most
+ * {@link sharpRangeC} wide). Starting lower means impure or wet (impurities lower and widen
+ * the range); ending higher means a thermometer or identity to check.
+ */
 export function meltingComparison(
   measured: { low: number; high: number } | null,
   literature: { low: number; high: number } | null,
-): string | null {
+): { agrees: boolean; text: string } | null {
   if (!measured || !literature) return null;
   const range = `${formatDecimal(literature.low, 2)}–${formatDecimal(literature.high, 2)} °C`;
-  let text: string;
-  if (measured.high < literature.low) {
-    text = `${formatDecimal(literature.low - measured.high, 1)} °C below the literature range (${range}): probably impure or still wet`;
-  } else if (measured.low > literature.high) {
-    text = `${formatDecimal(measured.low - literature.high, 1)} °C above the literature range (${range}): check the thermometer and the identity of the product`;
-  } else {
-    text = `within or overlapping the literature range (${range})`;
+  const problems: string[] = [];
+  if (measured.low < literature.low - meltingToleranceC) {
+    problems.push(
+      `starts ${formatNumber(literature.low - measured.low, 1)} °C below the literature range (${range}): probably impure or still wet`,
+    );
+  } else if (measured.high > literature.high + meltingToleranceC) {
+    problems.push(
+      `ends ${formatNumber(measured.high - literature.high, 1)} °C above the literature range (${range}): check the thermometer and the identity of the product`,
+    );
   }
-  // A melting range wider than about 2 °C points to impurities. // common practice, no source
-  if (measured.high - measured.low > 2) text += '; a range wider than 2 °C suggests impurity';
-  return text;
+  const width = measured.high - measured.low;
+  if (width > sharpRangeC) {
+    problems.push(
+      `a range ${formatNumber(width, 1)} °C wide (more than ${sharpRangeC} °C) suggests impurity`,
+    );
+  }
+  return problems.length === 0
+    ? { agrees: true, text: `agrees with the literature range (${range})` }
+    : { agrees: false, text: problems.join('; ') };
 }
 
 export async function requireRun(repos: Repositories, id: number): Promise<RunRow> {

@@ -39,6 +39,10 @@ export function runsRepository(manager: EntityManager) {
     async update(id: number, changes: Partial<RunValues>): Promise<void> {
       await repo.update({ id }, changes);
     },
+    /** Only an opened run is deleted: nothing refers to it yet. */
+    async delete(id: number): Promise<void> {
+      await repo.delete({ id });
+    },
     async list(query: RunListQuery): Promise<{ rows: RunRow[]; total: number }> {
       const qb = repo.createQueryBuilder('r');
       if (query.procedureId) {

@@ -49,6 +49,16 @@ export function runRoutes(runs: RunsService) {
       },
     }),
     defineRoute({
+      method: 'delete',
+      path: '/api/runs/:id',
+      access: 'runs.record',
+      params: idParamsSchema,
+      handle: async ({ params, res, actor }) => {
+        await runs.discard(params.id, actor());
+        res.status(204).end();
+      },
+    }),
+    defineRoute({
       method: 'post',
       path: '/api/runs/:id/record',
       access: 'runs.record',

@@ -12,7 +12,7 @@ import type {
 } from '@lotwise/shared';
 import type { Store } from '../../db/store';
 import { chemicalUsageOf, lotProvenanceOf, procedureRunsOf } from './run-history';
-import { openRun, recordRunWith } from './run-recording';
+import { discardRun, openRun, recordRunWith } from './run-recording';
 import { presentRun, runSummaries } from './run-views';
 
 // The demo seed records its runs through the same code as the API.
@@ -46,6 +46,11 @@ export function runsService(store: Store) {
     async record(id: number, input: RunRecordParsed, actor: User): Promise<Run> {
       await store.transaction((repos) => recordRunWith(repos, id, input, actor));
       return presentRun(store.repos, id);
+    },
+
+    /** Discards an opened run; a recorded one stands (409). */
+    async discard(id: number, actor: User): Promise<void> {
+      await store.transaction((repos) => discardRun(repos, id, actor));
     },
 
     procedureRuns: (procedureId: number): Promise<ProcedureRuns> =>

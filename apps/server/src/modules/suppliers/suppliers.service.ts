@@ -1,3 +1,4 @@
+import { countOf } from '@lotwise/shared';
 import type {
   CatalogItem,
   CatalogItemCreateParsed,
@@ -145,7 +146,7 @@ export function suppliersService(store: Store, labCurrency: string) {
         const lines = await repos.suppliers.orderLinesOfSupplier(id);
         if (supplier.orderCount > 0 || lines > 0) {
           throw AppError.conflict(
-            `${supplier.name} is named by ${supplier.orderCount} order(s), which keep it in their history, so it cannot be deleted. Archive it instead: it then stays out of new orders.`,
+            `${supplier.name} is named by ${countOf(supplier.orderCount, 'order')}, which keep it in their history, so it cannot be deleted. Archive it instead: it then stays out of new orders.`,
           );
         }
         await repos.suppliers.deleteSupplier(id);
@@ -207,7 +208,7 @@ export function suppliersService(store: Store, labCurrency: string) {
         const item = await loadItem(repos, id);
         if (item.orderLineCount > 0) {
           throw AppError.conflict(
-            `${item.sku} (${item.chemical.name}) is on ${item.orderLineCount} order line(s), which keep it in their history, so it cannot be deleted. Mark it discontinued instead: it then stays out of new orders.`,
+            `${item.sku} (${item.chemical.name}) is on ${countOf(item.orderLineCount, 'order line')}, which keep it in their history, so it cannot be deleted. Mark it discontinued instead: it then stays out of new orders.`,
           );
         }
         await repos.suppliers.deleteItem(id);

@@ -1,5 +1,5 @@
 import { Suspense } from 'react';
-import { Link, Outlet, useNavigate, useNavigation } from 'react-router';
+import { Link, Outlet, ScrollRestoration, useNavigate, useNavigation } from 'react-router';
 import { LogOut, Menu, X } from 'lucide-react';
 import { can, roleLabels, type User } from '@lotwise/shared';
 import { Wordmark } from '../../components/brand/wordmark';
@@ -154,6 +154,9 @@ export function AppShell({ user }: { user: User }) {
             <Suspense fallback={<PageSpinner label="Opening the page…" />}>
               <Outlet />
             </Suspense>
+            {/* A page opened from another starts at its top; back and forward return to where
+                the page was, and a change of filters (same path) keeps the place. */}
+            <ScrollRestoration getKey={(location) => location.pathname} />
           </div>
         </main>
       </div>

@@ -8,6 +8,7 @@ import {
   lotProvenanceSchema,
   pageSchema,
   planDetailSchema,
+  planPreviewSchema,
   planSchema,
   procedureRunsSchema,
   procedureSchema,
@@ -162,6 +163,13 @@ export function useDispensingSheet(id: number) {
   });
 }
 
+/** The stock check a plan would have; nothing is saved. */
+export function usePreviewPlan() {
+  return useMutation({
+    mutationFn: (body: PlanCreate) => api.post('/api/plans/preview', body, planPreviewSchema),
+  });
+}
+
 export function useCreatePlan() {
   const queryClient = useQueryClient();
   return useMutation({
@@ -212,6 +220,18 @@ export function useCreateRun() {
   return useMutation({
     mutationFn: (body: RunCreate) => api.post('/api/runs', body, runSchema),
     onSuccess: (run) => queryClient.setQueryData(preparationKeys.run(run.id), run),
+  });
+}
+
+/** Discards an opened run (nothing of it is in the ledger); lists of runs change. */
+export function useDiscardRun(id: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: () => api.delete(`/api/runs/${id}`),
+    onSuccess: () => {
+      queryClient.removeQueries({ queryKey: preparationKeys.run(id) });
+      return queryClient.invalidateQueries({ queryKey: preparationKeys.all });
+    },
   });
 }
 

@@ -2,6 +2,7 @@ import { useState, type ReactNode } from 'react';
 import { Link } from 'react-router';
 import { BellOff, CircleAlert, Info, RefreshCw, Settings, TriangleAlert } from 'lucide-react';
 import {
+  countOf,
   alertKindLabels,
   alertKinds,
   safetyDeferral,
@@ -84,8 +85,9 @@ export function AlertsPage() {
 
       {evaluate.isSuccess && (
         <Notice tone="ok" title="Checked">
-          {evaluate.data.conditions} condition(s) found, {evaluate.data.queued} e-mail(s) queued,{' '}
-          {evaluate.data.duplicates} already sent within the window.
+          {countOf(evaluate.data.conditions, 'condition')} found,{' '}
+          {countOf(evaluate.data.queued, 'e-mail')} queued, {evaluate.data.duplicates} already sent
+          within the window.
         </Notice>
       )}
       {evaluate.isError && <Notice tone="danger">{errorMessage(evaluate.error)}</Notice>}

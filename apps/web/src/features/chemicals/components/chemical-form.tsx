@@ -13,6 +13,7 @@ import {
   chemicalCreateSchema,
   chemicalPatchSchema,
   hazardStatementTexts,
+  numberIssueMessage,
   peroxideClasses,
   physicalStates,
   stockUnits,
@@ -26,6 +27,7 @@ import { CircleCheck, Save } from 'lucide-react';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { Button } from '../../../components/ui/button';
 import { Field, fieldMessage } from '../../../components/ui/field';
+import { AmountInput } from '../../../components/ui/amount-input';
 import { Checkbox, Input, Select, Textarea } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { isApiError } from '../../../lib/api-client';
@@ -90,11 +92,8 @@ const labels: Record<keyof ChemicalFormValues, string> = {
 };
 const fieldNames = Object.keys(labels) as Array<keyof ChemicalFormValues>;
 
-// Schema messages stay as written; only "not a number" gets words of our own.
-const schemaOptions = {
-  error: (issue: { code?: string; expected?: string }) =>
-    issue.code === 'invalid_type' && issue.expected === 'number' ? 'must be a number' : undefined,
-};
+// Schema messages stay as written; numbers get the one wording of `@lotwise/shared`.
+const schemaOptions = { error: numberIssueMessage };
 
 const emptyToNull = (value: unknown) =>
   typeof value === 'string' && value.trim() === '' ? null : value;
@@ -443,14 +442,7 @@ export function ChemicalForm({
             {...hint('density')}
             hint="Lets Lotwise convert between mass and volume of a liquid or solution. For a solid, the density of the crystal: never used to measure it by volume."
           >
-            {(c) => (
-              <Input
-                {...c}
-                inputMode="decimal"
-                className="tabular-nums"
-                {...register('density', { setValueAs: toNumber })}
-              />
-            )}
+            {(c) => <AmountInput {...c} {...register('density', { setValueAs: toNumber })} />}
           </Field>
           <Field
             label="Bulk density of the poured solid (g/mL)"
@@ -458,14 +450,7 @@ export function ChemicalForm({
             {...hint('bulkDensity')}
             hint="Solids only: the mass of a loosely poured millilitre, air included. Without it a solid is weighed, never measured by volume."
           >
-            {(c) => (
-              <Input
-                {...c}
-                inputMode="decimal"
-                className="tabular-nums"
-                {...register('bulkDensity', { setValueAs: toNumber })}
-              />
-            )}
+            {(c) => <AmountInput {...c} {...register('bulkDensity', { setValueAs: toNumber })} />}
           </Field>
           <Field
             label="Default purity (%)"
@@ -473,12 +458,7 @@ export function ChemicalForm({
             hint="Given to new lots unless their certificate says otherwise."
           >
             {(c) => (
-              <Input
-                {...c}
-                inputMode="decimal"
-                className="tabular-nums"
-                {...register('defaultPurityPercent', { setValueAs: toNumber })}
-              />
+              <AmountInput {...c} {...register('defaultPurityPercent', { setValueAs: toNumber })} />
             )}
           </Field>
           <Field
@@ -502,14 +482,7 @@ export function ChemicalForm({
             {...hint('reorderPoint')}
             hint="Lotwise warns when stock falls to this."
           >
-            {(c) => (
-              <Input
-                {...c}
-                inputMode="decimal"
-                className="tabular-nums"
-                {...register('reorderPoint', { setValueAs: toNumber })}
-              />
-            )}
+            {(c) => <AmountInput {...c} {...register('reorderPoint', { setValueAs: toNumber })} />}
           </Field>
           <Field
             label={`Reorder quantity (${stockUnit})`}
@@ -518,12 +491,7 @@ export function ChemicalForm({
             hint="How much to buy at a time."
           >
             {(c) => (
-              <Input
-                {...c}
-                inputMode="decimal"
-                className="tabular-nums"
-                {...register('reorderQuantity', { setValueAs: toNumber })}
-              />
+              <AmountInput {...c} {...register('reorderQuantity', { setValueAs: toNumber })} />
             )}
           </Field>
         </div>

@@ -4,6 +4,7 @@ import { decimalTextToMinor, type OrderDetail } from '@lotwise/shared';
 import { Button } from '../../../components/ui/button';
 import { ConfirmDialog, Dialog } from '../../../components/ui/dialog';
 import { Field } from '../../../components/ui/field';
+import { AmountInput } from '../../../components/ui/amount-input';
 import { Input, Textarea } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { errorMessage } from '../../../lib/api-client';
@@ -36,12 +37,7 @@ function AmountField({
       className="w-48"
     >
       {(control) => (
-        <Input
-          {...control}
-          inputMode="decimal"
-          value={value}
-          onChange={(e) => onChange(e.target.value)}
-        />
+        <AmountInput {...control} value={value} onChange={(e) => onChange(e.target.value)} />
       )}
     </Field>
   );

@@ -5,7 +5,8 @@ import { Calculator, CircleAlert, Trash2 } from 'lucide-react';
 import { ContainerHolds } from '../../../components/holds/container-holds';
 import { Button } from '../../../components/ui/button';
 import { Field } from '../../../components/ui/field';
-import { Input, Select } from '../../../components/ui/input';
+import { AmountInput } from '../../../components/ui/amount-input';
+import { Select } from '../../../components/ui/input';
 import { formatAmount } from '../../../lib/format';
 import { parseDecimal } from '../../../lib/numbers';
 import { useChemicalContainers } from '../api';
@@ -206,9 +207,8 @@ export function ContainerDraw({
         <div className="flex flex-wrap items-end gap-3">
           <Field label="Amount" hint={plannedHint} className="w-40">
             {(props) => (
-              <Input
+              <AmountInput
                 {...props}
-                inputMode="decimal"
                 value={value.amount}
                 onChange={(event) => set({ amount: event.target.value })}
               />
@@ -232,9 +232,8 @@ export function ContainerDraw({
         <div className="flex flex-wrap items-end gap-3">
           <Field label="Gross mass before (g)" optional className="w-44">
             {(props) => (
-              <Input
+              <AmountInput
                 {...props}
-                inputMode="decimal"
                 value={value.grossBefore}
                 onChange={(event) => set({ grossBefore: event.target.value })}
               />
@@ -242,9 +241,8 @@ export function ContainerDraw({
           </Field>
           <Field label="Gross mass after (g)" className="w-44">
             {(props) => (
-              <Input
+              <AmountInput
                 {...props}
-                inputMode="decimal"
                 value={value.grossAfter}
                 onChange={(event) => set({ grossAfter: event.target.value })}
               />

@@ -111,7 +111,7 @@ export function procedureHazards(procedure: Pick<Procedure, 'lines'>): PlanHazar
   return [...seen.values()].sort((a, b) => a.name.localeCompare(b.name));
 }
 
-function allPictograms(hazards: readonly PlanHazard[]): GhsCode[] {
+export function allPictograms(hazards: readonly PlanHazard[]): GhsCode[] {
   const codes = new Set<GhsCode>();
   for (const hazard of hazards) for (const code of hazard.ghsPictograms) codes.add(code);
   return [...codes].sort();

@@ -24,6 +24,7 @@ import { Calculator, CircleAlert, Plus, Save, Trash2 } from 'lucide-react';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { Button } from '../../../components/ui/button';
 import { Field, FieldError, fieldMessage } from '../../../components/ui/field';
+import { AmountInput } from '../../../components/ui/amount-input';
 import { Checkbox, Input, Select, Textarea } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { isApiError } from '../../../lib/api-client';
@@ -413,7 +414,7 @@ function LineFields({
             <Controller
               control={control}
               name={`lines.${index}.quantity`}
-              render={({ field }) => <Input {...props} inputMode="decimal" {...field} />}
+              render={({ field }) => <AmountInput {...props} {...field} />}
             />
           )}
         </Field>
@@ -439,7 +440,7 @@ function LineFields({
               <Controller
                 control={control}
                 name={`lines.${index}.coefficient`}
-                render={({ field }) => <Input {...props} inputMode="decimal" {...field} />}
+                render={({ field }) => <AmountInput {...props} {...field} />}
               />
             )}
           </Field>
@@ -476,7 +477,7 @@ function LineFields({
                 <Controller
                   control={control}
                   name={`lines.${index}.concentration`}
-                  render={({ field }) => <Input {...props} inputMode="decimal" {...field} />}
+                  render={({ field }) => <AmountInput {...props} {...field} />}
                 />
               )}
             </Field>
@@ -490,7 +491,7 @@ function LineFields({
                 <Controller
                   control={control}
                   name={`lines.${index}.solutionDensity`}
-                  render={({ field }) => <Input {...props} inputMode="decimal" {...field} />}
+                  render={({ field }) => <AmountInput {...props} {...field} />}
                 />
               )}
             </Field>
@@ -526,7 +527,7 @@ function LineFields({
                   <Controller
                     control={control}
                     name={`lines.${index}.dissolvedQuantity`}
-                    render={({ field }) => <Input {...props} inputMode="decimal" {...field} />}
+                    render={({ field }) => <AmountInput {...props} {...field} />}
                   />
                 )}
               </Field>
@@ -655,16 +656,14 @@ export function ProcedureForm({
             optional
             error={message('expectedYieldPercent', 'Expected yield')}
           >
-            {(props) => (
-              <Input {...props} inputMode="decimal" {...register('expectedYieldPercent')} />
-            )}
+            {(props) => <AmountInput {...props} {...register('expectedYieldPercent')} />}
           </Field>
           <div className="grid grid-cols-2 gap-2">
             <Field label="Lit. m.p. from (°C)" optional error={message('meltingLow', 'It')}>
-              {(props) => <Input {...props} inputMode="decimal" {...register('meltingLow')} />}
+              {(props) => <AmountInput {...props} {...register('meltingLow')} />}
             </Field>
             <Field label="to (°C)" optional error={message('meltingHigh', 'It')}>
-              {(props) => <Input {...props} inputMode="decimal" {...register('meltingHigh')} />}
+              {(props) => <AmountInput {...props} {...register('meltingHigh')} />}
             </Field>
           </div>
         </div>
@@ -692,7 +691,7 @@ export function ProcedureForm({
             error={message('keepBelowC', 'It')}
             className="w-36"
           >
-            {(props) => <Input {...props} inputMode="decimal" {...register('keepBelowC')} />}
+            {(props) => <AmountInput {...props} {...register('keepBelowC')} />}
           </Field>
         </div>
         <Field label="Cautions in words" optional>

@@ -1,5 +1,7 @@
 import { roundAmountForDisplay, roundMassForDisplay, roundVolumeForDisplay } from '@lotwise/chem';
-import { formatFullPrecision, formatNumber, formatRounded } from '@lotwise/shared';
+import { formatFullPrecision } from '@lotwise/shared';
+import { formatFixed, formatRoundedAmount } from '../../../lib/format';
+import { parseDecimal } from '../../../lib/numbers';
 
 /** Enough digits to check a hand calculation, without float noise. */
 export function fullPrecision(value: number): string {
@@ -33,7 +35,7 @@ export function Rounded({
   const exact = `${fullPrecision(value)} ${unit}`;
   const title = rule ? `${exact} at full precision. ${rule}` : `${exact} at full precision`;
   // Only when rounding changed the number (not for "44.0 mL" against 44).
-  const rounded = Number.parseFloat(text.replace(/,/g, '')) !== Number(fullPrecision(value));
+  const rounded = parseDecimal(text.split(' ')[0]) !== Number(fullPrecision(value));
   return (
     <span
       className={inline ? 'tabular-nums' : 'inline-flex flex-col leading-tight'}
@@ -68,7 +70,7 @@ export function Mass({
   const d = roundMassForDisplay(g);
   return (
     <Rounded
-      text={formatRounded(d)}
+      text={formatRoundedAmount(d)}
       value={g}
       unit="g"
       rule={d.rule}
@@ -93,7 +95,7 @@ export function Volume({
   const d = roundVolumeForDisplay(mL);
   return (
     <Rounded
-      text={formatRounded(d)}
+      text={formatRoundedAmount(d)}
       value={mL}
       unit="mL"
       rule={d.rule}
@@ -120,7 +122,7 @@ export function Moles({
   const inUnit = d.unit === 'mmol' ? mol * 1000 : mol;
   return (
     <Rounded
-      text={formatRounded(d)}
+      text={formatRoundedAmount(d)}
       value={inUnit}
       unit={d.unit}
       rule={d.rule}
@@ -136,7 +138,7 @@ export function Equivalents({ value }: { value: number | null | undefined }) {
   if (value === null || value === undefined) return <span className="text-ink-500">—</span>;
   return (
     <span className="tabular-nums" title={`${fullPrecision(value)} equivalents`}>
-      {formatNumber(value, 2)}
+      {formatFixed(value, 2)}
     </span>
   );
 }

@@ -2,6 +2,7 @@ import { Plus } from 'lucide-react';
 import type { ProcedureLineView } from '@lotwise/shared';
 import { Button } from '../../../components/ui/button';
 import { Field } from '../../../components/ui/field';
+import { AmountInput } from '../../../components/ui/amount-input';
 import { Input, Select } from '../../../components/ui/input';
 import { useLocations } from '../api';
 import { Section } from './page-parts';
@@ -33,9 +34,8 @@ export function RunProductFields({
       </p>
       <Field label="Crude mass (g), before purifying" optional className="w-60">
         {(props) => (
-          <Input
+          <AmountInput
             {...props}
-            inputMode="decimal"
             value={crude}
             onChange={(event) => setCrude(event.target.value)}
           />
@@ -59,9 +59,8 @@ export function RunProductFields({
             </Field>
             <Field label="Amount">
               {(props) => (
-                <Input
+                <AmountInput
                   {...props}
-                  inputMode="decimal"
                   value={portion.quantity}
                   onChange={(event) => setPortion(portion.key, { quantity: event.target.value })}
                 />
@@ -100,9 +99,8 @@ export function RunProductFields({
             </Field>
             <Field label="Container tare (g)" optional>
               {(props) => (
-                <Input
+                <AmountInput
                   {...props}
-                  inputMode="decimal"
                   value={portion.tareMass}
                   onChange={(event) => setPortion(portion.key, { tareMass: event.target.value })}
                 />

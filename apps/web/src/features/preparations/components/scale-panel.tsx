@@ -3,7 +3,8 @@ import { scaleFactorInputSchema, type Procedure, type ScaledProcedure } from '@l
 import { Ruler, Target } from 'lucide-react';
 import { Badge } from '../../../components/ui/badge';
 import { Field } from '../../../components/ui/field';
-import { Input, Select } from '../../../components/ui/input';
+import { AmountInput } from '../../../components/ui/amount-input';
+import { Select } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { Spinner } from '../../../components/ui/spinner';
 import { errorMessage } from '../../../lib/api-client';
@@ -12,6 +13,7 @@ import { useDebouncedValue } from '../../../lib/use-debounced-value';
 import { useScaledProcedure, type ScaleRequest } from '../api';
 import { roleLabels } from '../labels';
 import { Equivalents, fullPrecision, Mass, Moles, Rounded, Volume } from './rounded';
+import { formatRoundedAmount } from '../../../lib/format';
 
 type Mode = 'factor' | 'limiting' | 'product' | 'product-expected';
 
@@ -89,9 +91,8 @@ export function ScalePanel({ procedure }: { procedure: Procedure }) {
           className="w-40"
         >
           {(control) => (
-            <Input
+            <AmountInput
               {...control}
-              inputMode="decimal"
               value={text}
               onChange={(event) => setText(event.target.value)}
             />
@@ -202,7 +203,8 @@ function ScaledView({ scaled }: { scaled: ScaledProcedure }) {
                   )}
                   {line.dissolvedIn && (
                     <span className="block text-xs font-normal text-ink-600">
-                      dissolved in {line.dissolvedIn.display.text} {line.dissolvedIn.chemicalName}
+                      dissolved in {formatRoundedAmount(line.dissolvedIn.display)}{' '}
+                      {line.dissolvedIn.chemicalName}
                     </span>
                   )}
                 </th>
@@ -210,7 +212,7 @@ function ScaledView({ scaled }: { scaled: ScaledProcedure }) {
                 <td className="px-3 py-2 text-right font-semibold">
                   {line.display && line.quantity ? (
                     <Rounded
-                      text={line.display.text}
+                      text={formatRoundedAmount(line.display)}
                       value={line.quantity.value}
                       unit={line.quantity.unit}
                       rule={line.display.rule}
@@ -241,7 +243,7 @@ function ScaledView({ scaled }: { scaled: ScaledProcedure }) {
           <span className="font-semibold">Theoretical yield at this scale: </span>
           {yieldView.display && yieldView.massG !== null ? (
             <Rounded
-              text={yieldView.display.text}
+              text={formatRoundedAmount(yieldView.display)}
               value={yieldView.massG}
               unit="g"
               rule={yieldView.display.rule}

@@ -4,7 +4,7 @@ import type { StockCheck, StockCheckLine, StockSuggestion } from '@lotwise/share
 import { ReorderShortfall } from '../../../components/purchasing/reorder-shortfall';
 import { buttonClasses } from '../../../components/ui/button';
 import { withQuery } from '../../../lib/api-client';
-import { formatAmount, formatDate, formatPercent } from '../../../lib/format';
+import { formatAmount, formatDate, formatPercent, formatRoundedAmount } from '../../../lib/format';
 import { paths } from '../../../config/paths';
 import { roleLabels, StatusBadge, stockLineLooks } from '../labels';
 import { fullPrecision, Rounded } from './rounded';
@@ -112,7 +112,7 @@ export function StockCheckTable({ check }: { check: StockCheck }) {
                 <td data-label="Per bench" className="px-3 py-2 text-right">
                   {line.perBenchDisplay && line.perBench !== null ? (
                     <Rounded
-                      text={line.perBenchDisplay.text}
+                      text={formatRoundedAmount(line.perBenchDisplay)}
                       value={line.perBench}
                       unit={line.unit}
                       rule={line.perBenchDisplay.rule}
@@ -125,7 +125,7 @@ export function StockCheckTable({ check }: { check: StockCheck }) {
                   {line.requiredDisplay && line.required !== null ? (
                     <span className="font-semibold">
                       <Rounded
-                        text={line.requiredDisplay.text}
+                        text={formatRoundedAmount(line.requiredDisplay)}
                         value={line.required}
                         unit={line.unit}
                         rule={line.requiredDisplay.rule}

@@ -4,7 +4,7 @@ import { ghsPictograms, type DispensingSheet } from '@lotwise/shared';
 import { PictogramSymbol } from '../../../components/hazards/pictogram-symbols';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { Button } from '../../../components/ui/button';
-import { formatDate, formatPercent } from '../../../lib/format';
+import { formatDate, formatPercent, formatRoundedAmount } from '../../../lib/format';
 import { paths } from '../../../config/paths';
 import { useDispensingSheet } from '../api';
 import { roleLabels } from '../labels';
@@ -132,7 +132,7 @@ function Sheet({ sheet }: { sheet: DispensingSheet }) {
                   <td data-label="Per bench" className="py-1.5 pr-2 text-right">
                     {line.perBenchDisplay && line.perBench ? (
                       <Rounded
-                        text={line.perBenchDisplay.text}
+                        text={formatRoundedAmount(line.perBenchDisplay)}
                         value={line.perBench.value}
                         unit={line.perBench.unit}
                         rule={line.perBenchDisplay.rule}
@@ -144,7 +144,7 @@ function Sheet({ sheet }: { sheet: DispensingSheet }) {
                   <td data-label="Session total" className="py-1.5 pr-2 text-right font-semibold">
                     {line.totalDisplay && line.total !== null ? (
                       <Rounded
-                        text={line.totalDisplay.text}
+                        text={formatRoundedAmount(line.totalDisplay)}
                         value={line.total}
                         unit={line.totalDisplay.unit}
                         rule={line.totalDisplay.rule}

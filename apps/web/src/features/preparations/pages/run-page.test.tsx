@@ -65,4 +65,34 @@ describe('Run page', () => {
     expect(screen.getByTestId('percent-yield')).not.toHaveTextContent('above 100 %');
     expect(screen.queryByText('Above 100 %: probably wet or impure')).not.toBeInTheDocument();
   });
+
+  it('when the melting range agrees with the literature, then it is not shown in warning colour', async () => {
+    mockFetch({
+      'GET /api/auth/me': { body: { user: makeUser({ role: 'member' }) } },
+      'GET /api/procedures/1': { body: makeAspirinProcedure() },
+      'GET /api/runs/12': {
+        body: makeRun({
+          id: 12,
+          status: 'recorded',
+          performedOn: '2026-11-12',
+          observations: {
+            meltingRangeC: { low: 135, high: 136 },
+            literatureMeltingC: { low: 135, high: 136 },
+            meltingComparison: {
+              agrees: true,
+              text: 'agrees with the literature range (135–136 °C)',
+            },
+            appearance: '',
+            notes: '',
+          },
+        }),
+      },
+    });
+    renderApp('/preparations/runs/12');
+
+    const comparison = await screen.findByTestId('melting-comparison', {}, { timeout: 5000 });
+    expect(comparison).toHaveTextContent('agrees with the literature range');
+    expect(comparison).toHaveClass('text-ok-700');
+    expect(comparison).not.toHaveClass('text-warn-700');
+  });
 });

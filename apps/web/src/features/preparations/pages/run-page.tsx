@@ -1,14 +1,16 @@
 import { Link, useParams, useSearchParams } from 'react-router';
-import { GitBranch, Printer, TriangleAlert } from 'lucide-react';
+import { CircleCheck, GitBranch, Printer, TriangleAlert } from 'lucide-react';
 import type { Run } from '@lotwise/shared';
 import { buttonClasses } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { withQuery } from '../../../lib/api-client';
+import { cn } from '../../../lib/cn';
 import { useCan } from '../../../lib/auth';
 import { formatAmount, formatDate, formatPercent } from '../../../lib/format';
 import { paths } from '../../../config/paths';
 import { useProcedure, useRun } from '../api';
 import { RunStatusBadge } from '../labels';
+import { DiscardRunButton } from '../components/discard-run';
 import { BackLink, PageHeader, Property, QueryState, Section } from '../components/page-parts';
 import { PreparationSafety, procedureHazards } from '../components/preparation-safety';
 import { fullPrecision, Mass } from '../components/rounded';
@@ -179,9 +181,12 @@ function RunView({ run }: { run: Run }) {
         actions={
           mayRecord &&
           run.status === 'open' && (
-            <Link to={paths.runRecord(run.id)} className={buttonClasses('primary')}>
-              Record what was used and obtained
-            </Link>
+            <>
+              <Link to={paths.runRecord(run.id)} className={buttonClasses('primary')}>
+                Record what was used and obtained
+              </Link>
+              <DiscardRunButton run={run} />
+            </>
           )
         }
       >
@@ -307,8 +312,19 @@ function RunView({ run }: { run: Run }) {
               </span>
             )}
             {run.observations.meltingComparison && (
-              <span className="block text-xs text-warn-700">
-                {run.observations.meltingComparison}
+              <span
+                data-testid="melting-comparison"
+                className={cn(
+                  'flex items-start gap-1 text-xs',
+                  run.observations.meltingComparison.agrees ? 'text-ok-700' : 'text-warn-700',
+                )}
+              >
+                {run.observations.meltingComparison.agrees ? (
+                  <CircleCheck aria-hidden="true" className="mt-px size-3.5 shrink-0" />
+                ) : (
+                  <TriangleAlert aria-hidden="true" className="mt-px size-3.5 shrink-0" />
+                )}
+                {run.observations.meltingComparison.text}
               </span>
             )}
           </Property>

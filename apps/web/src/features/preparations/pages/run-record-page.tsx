@@ -5,6 +5,7 @@ import { runRecordSchema, type PlanDetail, type Procedure, type Run } from '@lot
 import { Button } from '../../../components/ui/button';
 import { useConfirmation } from '../../../components/ui/confirmation-dialog';
 import { Field } from '../../../components/ui/field';
+import { AmountInput } from '../../../components/ui/amount-input';
 import { Input, Textarea } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { PageSpinner } from '../../../components/ui/spinner';
@@ -139,9 +140,8 @@ function RecordForm({
         <div className="grid gap-3 md:grid-cols-[auto_auto_1fr] md:items-end">
           <Field label="Melting range from (°C)" optional className="w-44">
             {(props) => (
-              <Input
+              <AmountInput
                 {...props}
-                inputMode="decimal"
                 value={meltingLow}
                 onChange={(event) => setMeltingLow(event.target.value)}
               />
@@ -149,9 +149,8 @@ function RecordForm({
           </Field>
           <Field label="Melting range to (°C)" optional className="w-44">
             {(props) => (
-              <Input
+              <AmountInput
                 {...props}
-                inputMode="decimal"
                 value={meltingHigh}
                 onChange={(event) => setMeltingHigh(event.target.value)}
               />

@@ -6,6 +6,7 @@ import { HazardCodes } from '../../../components/hazards/hazard-codes';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { Button } from '../../../components/ui/button';
 import { Field } from '../../../components/ui/field';
+import { AmountInput } from '../../../components/ui/amount-input';
 import { Input, Textarea } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { errorMessage, isApiError } from '../../../lib/api-client';
@@ -115,12 +116,10 @@ export function RequestForm() {
           error={fields.quantity || fields.unit}
         >
           {(control) => (
-            <Input
+            <AmountInput
               {...control}
-              inputMode="decimal"
               value={quantity}
               onChange={(event) => setQuantity(event.target.value)}
-              className="tabular-nums"
             />
           )}
         </Field>

@@ -12,6 +12,7 @@ import { Button } from '../../../components/ui/button';
 import { useConfirmation } from '../../../components/ui/confirmation-dialog';
 import { ConfirmDialog, Dialog } from '../../../components/ui/dialog';
 import { Field, fieldMessage } from '../../../components/ui/field';
+import { AmountInput } from '../../../components/ui/amount-input';
 import { Input, Select } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { errorMessage, isApiError, sendWithConfirmation } from '../../../lib/api-client';
@@ -282,14 +283,7 @@ function SplitDialog({ container, onClose }: { container: ContainerDetail; onClo
               error={fieldMessage('Tare', errors.tareMass)}
               hint="Empty with cap; lets people record draws by weighing."
             >
-              {(c) => (
-                <Input
-                  {...c}
-                  inputMode="decimal"
-                  value={tare}
-                  onChange={(e) => setTare(e.target.value)}
-                />
-              )}
+              {(c) => <AmountInput {...c} value={tare} onChange={(e) => setTare(e.target.value)} />}
             </Field>
             <Field label="Note" optional error={fieldMessage('Note', errors.note)}>
               {(c) => <Input {...c} value={note} onChange={(e) => setNote(e.target.value)} />}
@@ -487,12 +481,7 @@ function AmountWithUnit({
     <div className="grid gap-3 sm:grid-cols-[1fr_7rem]">
       <Field label={label} error={error} hint={hint}>
         {(c) => (
-          <Input
-            {...c}
-            inputMode="decimal"
-            value={value}
-            onChange={(e) => onValueChange(e.target.value)}
-          />
+          <AmountInput {...c} value={value} onChange={(e) => onValueChange(e.target.value)} />
         )}
       </Field>
       <Field label="Unit" error={unitError}>

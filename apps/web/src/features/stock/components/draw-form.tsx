@@ -6,10 +6,12 @@ import { ContainerHolds, freeOf } from '../../../components/holds/container-hold
 import { Button } from '../../../components/ui/button';
 import { useConfirmation } from '../../../components/ui/confirmation-dialog';
 import { Field, fieldMessage } from '../../../components/ui/field';
+import { AmountInput } from '../../../components/ui/amount-input';
 import { Input, Select } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { isApiError, sendWithConfirmation } from '../../../lib/api-client';
 import { cn } from '../../../lib/cn';
+import { useClearErrorsOnChange } from '../../../lib/use-clear-errors-on-change';
 import { formatAmount } from '../../../lib/format';
 import { parseDecimal } from '../../../lib/numbers';
 import { drawTargetProps } from '../../../lib/shortcuts';
@@ -25,7 +27,7 @@ interface DrawFormValues {
 }
 
 const modeLabels: Record<Mode, string> = {
-  amount: 'Amount taken',
+  amount: 'Enter the amount',
   gross: 'Weigh the container',
 };
 
@@ -42,6 +44,9 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
   const units = drawUnits(container.chemical);
   const massUnits = units.filter((u) => u === 'g' || u === 'mg' || u === 'kg');
 
+  const form = useForm<DrawFormValues>({
+    defaultValues: { value: '', unit: mode === 'gross' ? 'g' : container.unit, note: '' },
+  });
   const {
     register,
     control,
@@ -50,9 +55,8 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
     setValue,
     reset,
     formState: { errors, isSubmitting },
-  } = useForm<DrawFormValues>({
-    defaultValues: { value: '', unit: mode === 'gross' ? 'g' : container.unit, note: '' },
-  });
+  } = form;
+  useClearErrorsOnChange(form);
   const [valueText, unit] = useWatch({ control, name: ['value', 'unit'] });
 
   function switchMode(next: Mode) {
@@ -199,20 +203,12 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
       {mode === 'gross' && container.tareMass === null ? (
         <Notice tone="warn" title="No tare recorded for this container">
           Without the mass of the empty container and cap, a gross mass cannot be turned into its
-          contents. Switch to “Amount taken”.
+          contents. Switch to “Enter the amount”.
         </Notice>
       ) : (
         <div className="grid gap-3 sm:grid-cols-[1fr_8rem]">
           <Field label={valueLabel} error={errors.value?.message}>
-            {(c) => (
-              <Input
-                {...c}
-                inputMode="decimal"
-                autoComplete="off"
-                className="tabular-nums"
-                {...register('value')}
-              />
-            )}
+            {(c) => <AmountInput {...c} {...register('value')} />}
           </Field>
           <Field label="Unit" error={errors.unit?.message}>
             {(c) => (

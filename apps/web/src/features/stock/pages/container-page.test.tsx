@@ -156,7 +156,7 @@ describe('Container page', () => {
     const { user } = await openContainer();
 
     const form = screen.getByRole('form', { name: 'Record a draw' });
-    await user.click(within(form).getByRole('radio', { name: /Amount taken/ }));
+    await user.click(within(form).getByRole('radio', { name: 'Enter the amount' }));
     const amount = within(form).getByRole('textbox', { name: 'Amount taken' });
     await user.type(amount, '300');
     await user.click(within(form).getByRole('button', { name: 'Record draw' }));
@@ -167,6 +167,23 @@ describe('Container page', () => {
     expect(amount).toHaveAttribute('aria-invalid', 'true');
     expect(amount).toHaveAccessibleDescription(/at most 250 g is available in LW-00042/i);
     expect(amount).toHaveValue('300');
+
+    // A new amount is a new question: the answer about 300 g goes.
+    await user.clear(amount);
+    await user.type(amount, '20');
+    expect(within(form).queryByRole('alert')).not.toBeInTheDocument();
+    expect(amount).not.toHaveAttribute('aria-invalid', 'true');
+    expect(amount).not.toHaveAccessibleDescription(/at most 250 g/i);
+  });
+
+  it('when the mode toggle and the amount field are read out, then their names differ', async () => {
+    stockRoutes();
+    const { user } = await openContainer();
+    const form = screen.getByRole('form', { name: 'Record a draw' });
+    await user.click(within(form).getByRole('radio', { name: 'Enter the amount' }));
+    expect(within(form).getByRole('radio', { name: 'Weigh the container' })).toBeInTheDocument();
+    expect(within(form).queryByRole('radio', { name: 'Amount taken' })).not.toBeInTheDocument();
+    expect(within(form).getByRole('textbox', { name: 'Amount taken' })).toBeInTheDocument();
   });
 
   it('when a viewer opens a container, then there is no draw form and no write actions', async () => {

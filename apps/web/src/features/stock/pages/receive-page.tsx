@@ -4,6 +4,7 @@ import { useFieldArray, useForm, useWatch, type FieldPath } from 'react-hook-for
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { ChevronLeft, Copy, PackagePlus, Plus, Printer, Trash2 } from 'lucide-react';
 import {
+  countOf,
   chemicalSchema,
   containerCreateSchema,
   lotCreateSchema,
@@ -18,6 +19,7 @@ import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { useConfirmation } from '../../../components/ui/confirmation-dialog';
 import { Field, fieldMessage } from '../../../components/ui/field';
+import { AmountInput } from '../../../components/ui/amount-input';
 import { Input, Select } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import {
@@ -526,7 +528,7 @@ export function ReceivePage() {
                 }
                 error={errors.purityPercent?.message}
               >
-                {(c) => <Input {...c} inputMode="decimal" {...register('purityPercent')} />}
+                {(c) => <AmountInput {...c} {...register('purityPercent')} />}
               </Field>
               <Field label="Received on" error={errors.receivedOn?.message}>
                 {(c) => <Input {...c} type="date" {...register('receivedOn')} />}
@@ -585,13 +587,7 @@ export function ReceivePage() {
                   </div>
                   <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-[7rem_5.5rem_7rem_7rem_5.5rem_minmax(14rem,1fr)_9.5rem]">
                     <Field label="Quantity" error={rowErrors?.quantity?.message}>
-                      {(c) => (
-                        <Input
-                          {...c}
-                          inputMode="decimal"
-                          {...register(`containers.${index}.quantity`)}
-                        />
-                      )}
+                      {(c) => <AmountInput {...c} {...register(`containers.${index}.quantity`)} />}
                     </Field>
                     <Field label="Unit" error={rowErrors?.unit?.message}>
                       {(c) => (
@@ -603,22 +599,10 @@ export function ReceivePage() {
                       )}
                     </Field>
                     <Field label="Tare (g)" error={rowErrors?.tareMass?.message}>
-                      {(c) => (
-                        <Input
-                          {...c}
-                          inputMode="decimal"
-                          {...register(`containers.${index}.tareMass`)}
-                        />
-                      )}
+                      {(c) => <AmountInput {...c} {...register(`containers.${index}.tareMass`)} />}
                     </Field>
                     <Field label="Capacity" error={rowErrors?.capacity?.message}>
-                      {(c) => (
-                        <Input
-                          {...c}
-                          inputMode="decimal"
-                          {...register(`containers.${index}.capacity`)}
-                        />
-                      )}
+                      {(c) => <AmountInput {...c} {...register(`containers.${index}.capacity`)} />}
                     </Field>
                     <Field label="Cap. unit" error={rowErrors?.capacityUnit?.message}>
                       {(c) => (
@@ -665,7 +649,10 @@ export function ReceivePage() {
         </section>
 
         {partial && (
-          <Notice tone="danger" title={`${partial.done.length} container(s) saved, the rest not`}>
+          <Notice
+            tone="danger"
+            title={`${countOf(partial.done.length, 'container')} saved, the rest not`}
+          >
             {partial.message} The lot is kept and chosen below; correct the remaining lines and
             press Receive again.
           </Notice>

@@ -10,7 +10,8 @@ import {
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
-import { Checkbox, Input, Textarea } from '../../../components/ui/input';
+import { AmountInput } from '../../../components/ui/amount-input';
+import { Checkbox, Textarea } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { errorMessage } from '../../../lib/api-client';
@@ -95,10 +96,9 @@ function CountRow({
         ))}
         {count.outcome === 'counted' && (
           <span className="flex items-center gap-1.5">
-            <Input
+            <AmountInput
               aria-label={`Counted amount of ${container.labelCode} in ${container.unit}`}
               aria-invalid={badNumber || undefined}
-              inputMode="decimal"
               className="w-28 tabular-nums"
               value={count.counted}
               onChange={(event) => onChange({ ...count, counted: event.target.value })}

@@ -13,6 +13,7 @@ import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { Field, fieldMessage } from '../../../components/ui/field';
+import { AmountInput } from '../../../components/ui/amount-input';
 import { Checkbox, Input, Select } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { errorMessage, isApiError } from '../../../lib/api-client';
@@ -253,10 +254,9 @@ export function CatalogItemDialog({
         <div className="grid gap-4 sm:grid-cols-[10rem_7rem_1fr]">
           <Field label={labels.packSize} error={errors.packSize}>
             {(control) => (
-              <Input
+              <AmountInput
                 {...control}
                 name="packSize"
-                inputMode="decimal"
                 className="text-right tabular-nums"
                 value={values.packSize}
                 onChange={(event) => set('packSize', event.target.value)}
@@ -306,10 +306,9 @@ export function CatalogItemDialog({
           </Field>
           <Field label={labels.purityPercent} optional error={errors.purityPercent}>
             {(control) => (
-              <Input
+              <AmountInput
                 {...control}
                 name="purityPercent"
-                inputMode="decimal"
                 className="text-right tabular-nums"
                 value={values.purityPercent}
                 onChange={(event) => set('purityPercent', event.target.value)}

@@ -1,5 +1,5 @@
 import { Field } from '../../../components/ui/field';
-import { Input } from '../../../components/ui/input';
+import { AmountInput } from '../../../components/ui/amount-input';
 
 /** An amount typed as "12.50" in the lab's currency; the form turns it into minor units. */
 export function MoneyField({
@@ -22,11 +22,9 @@ export function MoneyField({
   return (
     <Field label={`${label} (${currency})`} hint={hint} error={error}>
       {(control) => (
-        <Input
+        <AmountInput
           {...control}
           name={name}
-          inputMode="decimal"
-          autoComplete="off"
           placeholder="0.00"
           className="max-w-40 text-right tabular-nums"
           value={value}

@@ -57,9 +57,42 @@ describe('People (admin)', () => {
       'viewer',
     );
 
+    const confirm = screen.getByRole('dialog', { name: 'Change the role of Demo Instructor?' });
+    await user.click(within(confirm).getByRole('button', { name: 'Make them a viewer' }));
+
     const alert = await screen.findByRole('alert');
     expect(alert).toHaveTextContent('Nothing changed for Demo Instructor');
     expect(alert).toHaveTextContent('Lotwise needs at least one active admin.');
+  });
+
+  it('when a role is chosen, then nothing changes until the change is confirmed in words', async () => {
+    const { requests } = mockFetch({
+      'GET /api/auth/me': { body: { user: admin } },
+      'GET /api/users': { body: page([admin, member]) },
+      [`PATCH /api/users/${member.id}`]: { body: { user: { ...member, role: 'admin' } } },
+    });
+    const user = userEvent.setup();
+    renderApp('/admin/users');
+
+    const role = await screen.findByRole(
+      'combobox',
+      { name: 'Role of Club Member One' },
+      { timeout: 5000 },
+    );
+    await user.selectOptions(role, 'admin');
+    const confirm = screen.getByRole('dialog', { name: 'Change the role of Club Member One?' });
+    expect(confirm).toHaveTextContent('Club Member One is a member and becomes an admin.');
+    expect(confirm).toHaveTextContent('Everything, including users, roles, settings and backups');
+    expect(requests.some((r) => r.method === 'PATCH')).toBe(false);
+
+    await user.click(within(confirm).getByRole('button', { name: 'Cancel' }));
+    expect(requests.some((r) => r.method === 'PATCH')).toBe(false);
+    expect(role).toHaveValue('member');
+
+    await user.selectOptions(role, 'admin');
+    await user.click(screen.getByRole('button', { name: 'Make them an admin' }));
+    expect(await screen.findByText('Club Member One is now an admin.')).toBeInTheDocument();
+    expect(requests.find((r) => r.method === 'PATCH')?.body).toEqual({ role: 'admin' });
   });
 
   it('when a member opens the page, then it is not available to their role', async () => {

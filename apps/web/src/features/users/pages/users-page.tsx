@@ -1,6 +1,13 @@
 import { useCallback, useRef, useState } from 'react';
 import { Search, UserPlus, Users } from 'lucide-react';
-import { roleLabels, userListQuerySchema, type Role, type User } from '@lotwise/shared';
+import {
+  roleDescriptions,
+  roleInSentence,
+  roleLabels,
+  userListQuerySchema,
+  type Role,
+  type User,
+} from '@lotwise/shared';
 import { Button } from '../../../components/ui/button';
 import { ConfirmDialog, Dialog } from '../../../components/ui/dialog';
 import { EmptyState } from '../../../components/ui/empty-state';
@@ -40,6 +47,7 @@ export function UsersPage() {
 
   const [creating, setCreating] = useState(false);
   const [deactivating, setDeactivating] = useState<User | null>(null);
+  const [roleChange, setRoleChange] = useState<{ user: User; role: Role } | null>(null);
   const [invite, setInvite] = useState<{ user: User; url: string } | null>(null);
   const [outcome, setOutcome] = useState<Outcome>(null);
   const [busyUserId, setBusyUserId] = useState<number | null>(null);
@@ -73,8 +81,9 @@ export function UsersPage() {
   const actions: UserActions = {
     currentUserId: me?.id,
     busyUserId,
-    onRoleChange: (user: User, role: Role) =>
-      patch(user, { role }, `${user.displayName} is now ${roleLabels[role].toLowerCase()}.`),
+    onRoleChange: (user: User, role: Role) => {
+      if (role !== user.role) setRoleChange({ user, role });
+    },
     onDeactivate: (user: User) => setDeactivating(user),
     onReactivate: (user: User) =>
       patch(user, { active: true }, `${user.displayName} can sign in again.`),
@@ -189,6 +198,35 @@ export function UsersPage() {
           They can no longer sign in. Their records — runs, ledger entries, order shares — stay as
           they are. You can reactivate them at any time.
         </p>
+      </ConfirmDialog>
+
+      <ConfirmDialog
+        open={roleChange !== null}
+        title={`Change the role of ${roleChange?.user.displayName ?? ''}?`}
+        confirmLabel={roleChange ? `Make them ${roleInSentence[roleChange.role]}` : 'Change'}
+        onCancel={() => setRoleChange(null)}
+        onConfirm={() => {
+          if (roleChange) {
+            const { user, role } = roleChange;
+            patch(user, { role }, `${user.displayName} is now ${roleInSentence[role]}.`);
+          }
+          setRoleChange(null);
+        }}
+      >
+        {roleChange && (
+          <>
+            <p>
+              {roleChange.user.displayName} is {roleInSentence[roleChange.user.role]} and becomes{' '}
+              {roleInSentence[roleChange.role]}. The change takes effect at their next request.
+            </p>
+            <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1">
+              <dt className="font-medium">Now: {roleLabels[roleChange.user.role]}</dt>
+              <dd>{roleDescriptions[roleChange.user.role]}</dd>
+              <dt className="font-medium">Then: {roleLabels[roleChange.role]}</dt>
+              <dd>{roleDescriptions[roleChange.role]}</dd>
+            </dl>
+          </>
+        )}
       </ConfirmDialog>
 
       <Dialog
