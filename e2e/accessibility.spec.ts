@@ -5,6 +5,7 @@ import {
   type APIRequestContext,
   type Browser,
   type BrowserContext,
+  type Locator,
   type Page,
 } from '@playwright/test';
 import { paths } from '../apps/web/src/config/paths';
@@ -232,3 +233,97 @@ for (const [name, entry] of Object.entries(pages) as [string, Visit | Skip][]) {
     });
   }
 }
+
+/**
+ * Presses Tab until `target` has the focus, checking on the way that every stop shows where
+ * the focus is (an outline on the control, or on the label of a visually hidden radio).
+ */
+async function tabTo(page: Page, target: Locator, most = 80) {
+  for (let presses = 1; presses <= most; presses++) {
+    await page.keyboard.press('Tab');
+    const stop = await page.evaluate(() => {
+      const active = document.activeElement as HTMLElement | null;
+      if (!active || active === document.body) return { shown: true, name: 'body' };
+      const marked = (el: Element | null) =>
+        el !== null && getComputedStyle(el).outlineStyle !== 'none';
+      return {
+        shown: marked(active) || marked(active.closest('label')),
+        name: `${active.tagName.toLowerCase()} ${active.getAttribute('aria-label') ?? active.textContent?.trim().slice(0, 40) ?? ''}`,
+      };
+    });
+    expect(stop.shown, `focus is shown on ${stop.name}`).toBe(true);
+    if (await target.evaluate((el) => el === document.activeElement)) return presses;
+  }
+  throw new Error(`${String(target)} was not reached with ${most} presses of Tab`);
+}
+
+test.describe('by keyboard, forms and colour', () => {
+  test('when someone signs in with the keyboard alone, then the app opens', async ({ page }) => {
+    await page.goto(paths.signIn);
+    await expect(page.locator('h1').first()).toBeVisible();
+    await tabTo(page, page.getByLabel('E-mail'));
+    await page.keyboard.type(demo.member);
+    await tabTo(page, page.getByLabel('Password'));
+    await page.keyboard.type(demo.password);
+    await page.keyboard.press('Enter');
+    await expect(page.getByRole('navigation', { name: /main/i })).toBeVisible();
+  });
+
+  test('when a chemical is opened from the list with the keyboard, then its page shows', async ({
+    page,
+  }) => {
+    await signIn(page, demo.viewer);
+    await page.goto(paths.chemicals);
+    await settled(page);
+    const first = page.getByRole('table').getByRole('link').first();
+    const name = (await first.textContent())!.trim();
+    await tabTo(page, first);
+    await page.keyboard.press('Enter');
+    await expect(page.getByRole('heading', { level: 1, name })).toBeVisible();
+  });
+
+  test('when a draw is recorded with the keyboard alone, then it is saved', async ({ page }) => {
+    await signIn(page, demo.member);
+    const water = (await (
+      await page.request.get('/api/containers?q=water&status=open&pageSize=1')
+    ).json()) as { items: { id: number; unit: string }[] };
+    await page.goto(paths.stockContainer(water.items[0]!.id));
+    await settled(page);
+    const form = page.getByRole('form', { name: 'Record a draw' });
+    await tabTo(page, form.getByRole('radio').first());
+    await page.keyboard.press('ArrowRight');
+    await expect(form.getByRole('radio').nth(1)).toBeChecked();
+    await tabTo(page, form.getByRole('textbox').first());
+    await page.keyboard.type('1');
+    await tabTo(page, form.getByRole('button', { name: 'Record draw' }));
+    await page.keyboard.press('Enter');
+    await expect(page.getByText('Draw recorded')).toBeVisible();
+  });
+
+  test('when a form is sent with a required field empty, then the error is tied to that field', async ({
+    page,
+  }) => {
+    await signIn(page, demo.manager);
+    await page.goto(paths.chemicalNew);
+    await settled(page);
+    await page.getByRole('button', { name: 'Add chemical' }).click();
+    const name = page.getByRole('textbox', { name: 'Name', exact: true });
+    await expect(name).toHaveAttribute('aria-invalid', 'true');
+    await expect(name).toHaveAccessibleDescription(/required/i);
+    await expect(name).toBeFocused();
+  });
+
+  test('when statuses are shown in colour, then each also says it in words', async ({ page }) => {
+    await signIn(page, demo.member);
+    for (const url of [paths.stock, paths.stockContainers, paths.plan(ids.plan), paths.orders]) {
+      await page.goto(url);
+      await settled(page);
+      // the shared Badge: a coloured chip that must carry a word, never colour alone
+      const badges = page.locator('main span.inline-flex.rounded.border.text-xs');
+      expect(await badges.count(), `status chips on ${url}`).toBeGreaterThan(0);
+      for (const text of await badges.allInnerTexts()) {
+        expect(text.trim().length, `a chip on ${url} says something`).toBeGreaterThan(1);
+      }
+    }
+  });
+});
