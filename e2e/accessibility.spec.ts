@@ -205,6 +205,7 @@ async function seriousViolations(page: Page) {
 test.describe.configure({ timeout: 120_000 });
 
 test.beforeAll(async ({ browser }) => {
+  test.setTimeout(120_000);
   ids = await demoIds(browser);
 });
 

@@ -233,11 +233,8 @@ test('the dispensing sheet and a held container', async ({ browser }) => {
   await shot(page, 'dispensing');
 
   page = await open(browser, 'manager');
-  const held = await json<{ reservations?: { container: { id: number } }[] }>(
-    page,
-    `/api/plans/${plan}`,
-  );
-  const containerId = held.reservations?.[0]?.container.id;
+  const held = await json<{ reservations: { containerId: number }[] }>(page, `/api/plans/${plan}`);
+  const containerId = held.reservations[0]?.containerId;
   expect(containerId, 'the plan holds a container').toBeDefined();
   await visit(page, `/stock/containers/${containerId}`);
   await shot(page, 'container-hold', { fullPage: true });
@@ -344,8 +341,20 @@ test('admin pages', async ({ browser }) => {
 
 test('the safety data sheet of a chemical', async ({ browser }) => {
   const page = await open(browser, 'manager');
-  const chemicals = await json<Listed<{ id: number }>>(page, '/api/chemicals?q=acetic%20anhydride');
-  await visit(page, `/chemicals/${chemicals.items[0]!.id}`);
-  await page.getByRole('heading', { name: /safety data sheet/i }).scrollIntoViewIfNeeded();
+  const chemicals = await json<Listed<{ id: number }>>(page, '/api/chemicals?q=ethanol');
+  const ethanol = chemicals.items[0]!.id;
+  // an invented one-page PDF stands in for the supplier's sheet
+  const uploaded = await page.request.post(`/api/chemicals/${ethanol}/sds`, {
+    multipart: {
+      file: {
+        name: 'ethanol-sds.pdf',
+        mimeType: 'application/pdf',
+        buffer: Buffer.from('%PDF-1.4\n% Lotwise demo sheet\n%%EOF\n'),
+      },
+    },
+  });
+  expect(uploaded.ok(), 'the SDS upload').toBe(true);
+  await visit(page, `/stock/chemicals/${ethanol}`);
+  await page.getByRole('heading', { name: 'Safety data sheet' }).scrollIntoViewIfNeeded();
   await shot(page, 'sds');
 });
