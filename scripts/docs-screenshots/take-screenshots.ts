@@ -257,6 +257,11 @@ test('procedures and runs, at a desk and on a phone', async ({ browser }) => {
   await page.getByRole('button', { name: 'Start recording' }).click();
   await expect(page.getByRole('form', { name: 'Record the run' })).toBeVisible();
   await settled(page);
+  // past the hazards (read before the session) to the first line to fill in
+  await page
+    .getByRole('heading', { name: 'What was really used' })
+    .evaluate((heading) => heading.scrollIntoView({ block: 'start' }));
+  await page.evaluate(() => window.scrollBy(0, -80));
   await shot(page, 'run-record-phone');
 });
 
@@ -271,13 +276,14 @@ test('alerts and a low-stock e-mail, at a desk and on a phone', async ({ browser
   // the local inbox listens two ports above the app
   const app = new URL(test.info().project.use.baseURL!);
   const inbox = `http://127.0.0.1:${Number(app.port) + 2}`;
-  let mail: { id: string; subject: string } | undefined;
+  let mail: { id: string; subject: string; html?: string } | undefined;
   await expect
     .poll(
       async () => {
         const mails = (await (await page.request.get(`${inbox}/api/email`)).json()) as {
           id: string;
           subject: string;
+          html?: string;
         }[];
         mail = mails.find((m) => m.subject.startsWith('Low stock'));
         return mail !== undefined;
@@ -285,7 +291,11 @@ test('alerts and a low-stock e-mail, at a desk and on a phone', async ({ browser
       { timeout: 30_000, message: 'a low-stock e-mail in the local inbox' },
     )
     .toBe(true);
-  await page.goto(`${inbox}/email/${mail!.id}/html`);
+  // the message alone, as a mail program shows it
+  const html =
+    mail!.html ?? (await (await page.request.get(`${inbox}/api/email/${mail!.id}/html`)).text());
+  await page.setViewportSize({ width: 720, height: 900 });
+  await page.setContent(html);
   await shot(page, 'low-stock-email', { fullPage: true });
 
   page = await open(browser, 'member', phone);
