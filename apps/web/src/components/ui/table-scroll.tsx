@@ -2,7 +2,7 @@ import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { cn } from '../../lib/cn';
 
 /**
- * The frame of a table that may be wider than the screen. While it is (a phone, a long row),
+ * The frame of a table (or a preview of a printed sheet) that may be wider than the screen. While it is (a phone, a long row),
  * the frame scrolls sideways and takes the keyboard focus, so arrow keys scroll it too; when
  * everything fits it is no stop on the way through the page.
  */

@@ -4,6 +4,7 @@ import { Formula } from '../../../components/chem/formula';
 import { PictogramSymbol } from '../../../components/hazards/pictogram-symbols';
 import { storageGroupIcons } from '../../../components/hazards/storage-group-label';
 import { QrCode } from '../../../components/ui/qr-code';
+import { TableScroll } from '../../../components/ui/table-scroll';
 import { formatDate } from '../../../lib/format';
 import { labelQrContent } from '../../../lib/label-scan';
 
@@ -106,7 +107,10 @@ export function LabelSheets({
   }
 
   return (
-    <div className="flex flex-col items-center gap-6 overflow-x-auto print:block print:gap-0 print:overflow-visible">
+    <TableScroll
+      label="Label sheets"
+      className="flex flex-col items-center gap-6 print:block print:gap-0 print:overflow-visible"
+    >
       {sheets.map((sheet, index) => (
         <section
           key={index}
@@ -137,6 +141,6 @@ export function LabelSheets({
           </div>
         </section>
       ))}
-    </div>
+    </TableScroll>
   );
 }
