@@ -33,8 +33,9 @@ function Figure({
       <dt className="text-xs font-semibold tracking-wide text-ink-600 uppercase">{label}</dt>
       <dd className="text-lg font-semibold text-ink-900">
         <Money minor={minor} currency={currency} />
+        {/* inside the value: a definition list's groups hold only terms and values */}
+        {hint && <span className="block text-xs font-normal text-ink-600">{hint}</span>}
       </dd>
-      {hint && <p className="text-xs text-ink-600">{hint}</p>}
     </div>
   );
 }
