@@ -10,6 +10,7 @@ import {
 import { ArrowDown, ArrowUp, ArrowUpDown } from 'lucide-react';
 import { cn } from '../../lib/cn';
 import { SkeletonRows } from './spinner';
+import { TableScroll } from './table-scroll';
 
 /** How a column lays itself out; set per column through `meta`. */
 export interface ColumnLayout {
@@ -73,7 +74,7 @@ export function DataTable<TData extends RowData>({
   }
 
   return (
-    <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+    <TableScroll label={label} className="rounded-lg border border-ink-200 bg-white">
       <table
         aria-label={label}
         aria-busy={loading || refreshing || undefined}
@@ -160,6 +161,6 @@ export function DataTable<TData extends RowData>({
           )}
         </tbody>
       </table>
-    </div>
+    </TableScroll>
   );
 }

@@ -12,6 +12,7 @@ import { PageSpinner } from '../../../components/ui/spinner';
 import { errorMessage } from '../../../lib/api-client';
 import { formatDateTime } from '../../../lib/format';
 import { useOutbox, useOutboxMessage, useResendOutboxMessage } from '../api';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 const statusBadge: Record<OutboxStatus, { tone: BadgeTone; icon: ReactNode }> = {
   queued: { tone: 'neutral', icon: <Clock aria-hidden="true" /> },
@@ -72,7 +73,7 @@ export function OutboxPage() {
         </EmptyState>
       ) : (
         <>
-          <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+          <TableScroll className="rounded-lg border border-ink-200 bg-white">
             <table className="w-full text-left text-sm">
               <thead className="bg-ink-50 text-ink-700">
                 <tr>
@@ -139,7 +140,7 @@ export function OutboxPage() {
                 ))}
               </tbody>
             </table>
-          </div>
+          </TableScroll>
           <Pagination
             page={page}
             pageCount={Math.ceil(outbox.data.total / pageSize)}

@@ -10,6 +10,7 @@ import { PageSpinner } from '../../../components/ui/spinner';
 import { errorMessage } from '../../../lib/api-client';
 import { formatCount, formatDateTime } from '../../../lib/format';
 import { backupDownloadUrl, useBackups, useTakeBackup } from '../api';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 const kindBadge: Record<BackupKind, { label: string; icon: ReactNode }> = {
   scheduled: { label: 'scheduled', icon: <CalendarClock aria-hidden="true" /> },
@@ -102,7 +103,7 @@ export function BackupsPage() {
               </EmptyState>
             </div>
           ) : (
-            <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+            <TableScroll className="rounded-lg border border-ink-200 bg-white">
               <table className="w-full text-left text-sm">
                 <caption className="sr-only">Backups, newest first</caption>
                 <thead className="bg-ink-50 text-ink-700">
@@ -156,7 +157,7 @@ export function BackupsPage() {
                   ))}
                 </tbody>
               </table>
-            </div>
+            </TableScroll>
           )}
         </>
       )}

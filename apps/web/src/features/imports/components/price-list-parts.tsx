@@ -13,6 +13,7 @@ import { Field } from '../../../components/ui/field';
 import { Select } from '../../../components/ui/input';
 import { api } from '../../../lib/api-client';
 import { formatAmount, formatCount } from '../../../lib/format';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 const actionIcons: Record<PriceListAction, ReactNode> = {
   create: <CirclePlus aria-hidden="true" />,
@@ -109,7 +110,7 @@ export function PriceListSummaryView({
         ))}
       </div>
       {summary.changes.length > 0 && (
-        <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+        <TableScroll className="rounded-lg border border-ink-200 bg-white">
           <table className="w-full text-left text-sm">
             <caption className="sr-only">What each row of the file does</caption>
             <thead className="border-b border-ink-200 text-xs tracking-wide text-ink-600 uppercase">
@@ -153,7 +154,7 @@ export function PriceListSummaryView({
               cover every row.
             </p>
           )}
-        </div>
+        </TableScroll>
       )}
     </div>
   );

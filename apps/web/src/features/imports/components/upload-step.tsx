@@ -7,6 +7,7 @@ import { ProgressBar } from '../../../components/ui/progress-bar';
 import { formatCount } from '../../../lib/format';
 import { formatFileSize, uploadErrorMessage, type UploadProgress } from '../../../lib/upload';
 import { exampleCsvHrefs } from '../api';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 /** A column as the guide lists it (stock and price-list columns alike). */
 interface GuideColumn {
@@ -36,7 +37,7 @@ function ColumnGuide({ kind }: { kind: ImportKind }) {
         {kindTexts[kind].rowIs} Headers may be written in any letter case; the first row must hold
         them. Columns Lotwise does not know are ignored (the preview says which).
       </p>
-      <div className="mt-2 overflow-x-auto">
+      <TableScroll className="mt-2">
         <table className="w-full text-left text-sm">
           <thead className="border-b border-ink-200 text-xs tracking-wide text-ink-600 uppercase">
             <tr>
@@ -61,7 +62,7 @@ function ColumnGuide({ kind }: { kind: ImportKind }) {
             ))}
           </tbody>
         </table>
-      </div>
+      </TableScroll>
     </details>
   );
 }

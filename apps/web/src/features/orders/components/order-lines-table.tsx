@@ -4,6 +4,7 @@ import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { formatAmount, formatPercent } from '../../../lib/format';
 import { money } from '../labels';
 import { LinePacksEditor } from './line-packs-editor';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 /** What the order buys: each line's chemical with its hazards, pack, price and what is claimed. */
 export function OrderLinesTable({ order }: { order: OrderDetail }) {
@@ -13,7 +14,7 @@ export function OrderLinesTable({ order }: { order: OrderDetail }) {
         What the order buys
       </h2>
       <SafetyCaution />
-      <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+      <TableScroll className="rounded-lg border border-ink-200 bg-white">
         <table className="w-full text-sm">
           <thead className="bg-ink-50 text-left text-xs text-ink-600">
             <tr>
@@ -102,7 +103,7 @@ export function OrderLinesTable({ order }: { order: OrderDetail }) {
         {order.lines.length === 0 && (
           <p className="px-3 py-4 text-sm text-ink-600">No lines yet.</p>
         )}
-      </div>
+      </TableScroll>
     </section>
   );
 }

@@ -10,6 +10,7 @@ import { errorMessage } from '../../../lib/api-client';
 import { formatAmount } from '../../../lib/format';
 import { useRecordPayment } from '../api';
 import { money, PaymentStatusBadge } from '../labels';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 function RecordPaymentDialog({
   order,
@@ -87,7 +88,7 @@ export function SharesTable({ order }: { order: OrderDetail }) {
           Nobody has claimed anything yet.
         </p>
       ) : (
-        <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+        <TableScroll className="rounded-lg border border-ink-200 bg-white">
           <table className="w-full text-sm">
             <thead className="bg-ink-50 text-left text-xs text-ink-600">
               <tr>
@@ -155,7 +156,7 @@ export function SharesTable({ order }: { order: OrderDetail }) {
               ))}
             </tbody>
           </table>
-        </div>
+        </TableScroll>
       )}
       {recording && (
         <RecordPaymentDialog order={order} share={recording} onClose={() => setRecording(null)} />

@@ -13,6 +13,7 @@ import { errorMessage, isApiError } from '../../../lib/api-client';
 import { formatAmount } from '../../../lib/format';
 import { useCatalogue, useCreateOrder, useSupplierOptions, type CatalogueItem } from '../api';
 import { feeRuleExplanations, feeRuleLabel, money } from '../labels';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 function CatalogueLines({
   items,
@@ -27,7 +28,7 @@ function CatalogueLines({
     return <p className="text-sm text-ink-600">This supplier’s catalogue is empty.</p>;
   }
   return (
-    <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+    <TableScroll className="rounded-lg border border-ink-200 bg-white">
       <table className="w-full text-sm">
         <thead className="bg-ink-50 text-left text-xs text-ink-600">
           <tr>
@@ -72,7 +73,7 @@ function CatalogueLines({
           ))}
         </tbody>
       </table>
-    </div>
+    </TableScroll>
   );
 }
 

@@ -46,7 +46,7 @@ export function Rounded({
         {text}
       </span>
       {secondary && rounded && (
-        <span className="text-xs font-normal whitespace-nowrap text-ink-500 tabular-nums print:hidden">
+        <span className="text-xs font-normal whitespace-nowrap text-ink-600 tabular-nums print:hidden">
           {inline ? ` (${exact})` : exact}
         </span>
       )}

@@ -14,6 +14,7 @@ import { useScaledProcedure, type ScaleRequest } from '../api';
 import { roleLabels } from '../labels';
 import { Equivalents, fullPrecision, Mass, Moles, Rounded, Volume } from './rounded';
 import { formatRoundedAmount } from '../../../lib/format';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 type Mode = 'factor' | 'limiting' | 'product' | 'product-expected';
 
@@ -159,7 +160,7 @@ function ScaledView({ scaled }: { scaled: ScaledProcedure }) {
           <span data-testid="scale-notice">{scaled.notice}</span>
         </Notice>
       )}
-      <div className="overflow-x-auto rounded-lg border border-ink-200">
+      <TableScroll className="rounded-lg border border-ink-200">
         <table aria-label="Scaled lines" className="w-full text-sm">
           <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs text-ink-600 uppercase">
             <tr>
@@ -237,7 +238,7 @@ function ScaledView({ scaled }: { scaled: ScaledProcedure }) {
             ))}
           </tbody>
         </table>
-      </div>
+      </TableScroll>
       {yieldView && (
         <p className="text-sm text-ink-800">
           <span className="font-semibold">Theoretical yield at this scale: </span>

@@ -9,6 +9,7 @@ import { paths } from '../../../config/paths';
 import { roleLabels, StatusBadge, stockLineLooks } from '../labels';
 import { fullPrecision, Rounded } from './rounded';
 import { StockAmount, TakeAmount } from './stock-amount';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 function Suggestion({ suggestion, line }: { suggestion: StockSuggestion; line: StockCheckLine }) {
   if (suggestion.kind === 'reorder') {
@@ -67,7 +68,7 @@ function Suggestion({ suggestion, line }: { suggestion: StockSuggestion; line: S
 export function StockCheckTable({ check }: { check: StockCheck }) {
   return (
     <div className="flex flex-col gap-2">
-      <div className="stack-table overflow-x-auto rounded-lg border border-ink-200 bg-white">
+      <TableScroll className="stack-table rounded-lg border border-ink-200 bg-white">
         <table aria-label="Stock check" className="w-full text-sm">
           <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs text-ink-600 uppercase">
             <tr>
@@ -219,7 +220,7 @@ export function StockCheckTable({ check }: { check: StockCheck }) {
             </tbody>
           ))}
         </table>
-      </div>
+      </TableScroll>
       <p className="text-xs leading-5 text-ink-600">
         {check.rule} Amounts are checked as of {formatDate(check.asOf)}.
       </p>

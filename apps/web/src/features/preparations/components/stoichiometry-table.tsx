@@ -4,6 +4,7 @@ import { Target, TriangleAlert } from 'lucide-react';
 import { Badge } from '../../../components/ui/badge';
 import { roleLabels } from '../labels';
 import { Equivalents, Mass, Moles, Volume } from './rounded';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 export interface StoichiometryRow {
   name: string;
@@ -36,7 +37,7 @@ export function StoichiometryTable({
   const theoretical = theoreticalYieldOf(result);
   return (
     <div className="flex flex-col gap-3">
-      <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+      <TableScroll className="rounded-lg border border-ink-200 bg-white">
         <table aria-label={label} className="w-full text-sm">
           <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs text-ink-600 uppercase">
             <tr>
@@ -112,7 +113,7 @@ export function StoichiometryTable({
             })}
           </tbody>
         </table>
-      </div>
+      </TableScroll>
       <p className="text-sm text-ink-800" data-testid="theoretical-yield">
         <span className="font-semibold">Theoretical yield: </span>
         {theoretical && theoretical.massG !== undefined ? (

@@ -33,7 +33,12 @@ export default function YieldsChart({
   return (
     <div aria-hidden="true" className="h-64 w-full">
       <ResponsiveContainer width="100%" height="100%">
-        <LineChart data={data} margin={{ top: 12, right: 24, bottom: 0, left: 0 }}>
+        {/* hidden from assistive tech, so no keyboard stop either: the table beside it has the data */}
+        <LineChart
+          data={data}
+          margin={{ top: 12, right: 24, bottom: 0, left: 0 }}
+          accessibilityLayer={false}
+        >
           <CartesianGrid stroke="var(--color-ink-200)" vertical={false} />
           <XAxis dataKey="label" tick={{ fontSize: 12, fill: 'var(--color-ink-600)' }} />
           <YAxis

@@ -7,6 +7,7 @@ import { ChemicalHazards } from '../components/chemical-hazards';
 import { BackLink, PageHeader, QueryState, Section } from '../components/page-parts';
 import { StockAmount } from '../components/stock-amount';
 import { roleLabels } from '../labels';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 const useLabels: Record<ChemicalUsage['runs'][number]['use'], string> = {
   input: 'Drawn for a line',
@@ -53,7 +54,7 @@ function UsageView({ usage }: { usage: ChemicalUsage }) {
         {usage.runs.length === 0 ? (
           <p className="text-sm text-ink-600">No recorded run drew or made it.</p>
         ) : (
-          <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+          <TableScroll className="rounded-lg border border-ink-200 bg-white">
             <table aria-label="Runs that used it" className="w-full text-sm">
               <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs text-ink-600 uppercase">
                 <tr>
@@ -88,7 +89,7 @@ function UsageView({ usage }: { usage: ChemicalUsage }) {
                 ))}
               </tbody>
             </table>
-          </div>
+          </TableScroll>
         )}
       </Section>
     </div>

@@ -78,6 +78,8 @@ function Sheet({ sheet }: { sheet: DispensingSheet }) {
   const benches = Array.from({ length: sheet.benches }, (_, i) => i + 1);
   return (
     <div className="flex flex-col gap-6 print:gap-0">
+      {/* each printed page has its own visible heading; the page as a whole needs one too */}
+      <h1 className="sr-only">Dispensing sheet: {sheet.procedure.title}</h1>
       <div className="flex flex-wrap items-center justify-between gap-2 print:hidden">
         <BackLink to={paths.plan(sheet.planId)}>Back to the plan</BackLink>
         <Button

@@ -8,6 +8,7 @@ import { BackLink, PageHeader, Property, QueryState, Section } from '../componen
 import { Mass } from '../components/rounded';
 import { StockAmount } from '../components/stock-amount';
 import { YieldText } from '../components/yield-text';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 function ProvenanceView({ provenance: p }: { provenance: LotProvenance }) {
   return (
@@ -43,7 +44,7 @@ function ProvenanceView({ provenance: p }: { provenance: LotProvenance }) {
       </Section>
       {p.inputs.length > 0 && (
         <Section id="inputs-heading" title="Made from">
-          <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+          <TableScroll className="rounded-lg border border-ink-200 bg-white">
             <table aria-label="Input lots" className="w-full text-sm">
               <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs text-ink-600 uppercase">
                 <tr>
@@ -85,7 +86,7 @@ function ProvenanceView({ provenance: p }: { provenance: LotProvenance }) {
                 ))}
               </tbody>
             </table>
-          </div>
+          </TableScroll>
         </Section>
       )}
       <Section id="containers-heading" title="Its containers and where they went">

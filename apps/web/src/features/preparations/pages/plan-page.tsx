@@ -17,6 +17,7 @@ import { PreparationSafety } from '../components/preparation-safety';
 import { fullPrecision } from '../components/rounded';
 import { StockAmount } from '../components/stock-amount';
 import { StockCheckTable } from '../components/stock-check-table';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 function ReserveControls({ plan }: { plan: PlanDetail }) {
   const reserve = useReservePlan(plan.id);
@@ -194,7 +195,7 @@ function PlanView({ plan }: { plan: PlanDetail }) {
         {active.length === 0 ? (
           <p className="text-sm text-ink-600">Nothing is held for this plan.</p>
         ) : (
-          <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+          <TableScroll className="rounded-lg border border-ink-200 bg-white">
             <table aria-label="Held for this plan" className="w-full text-sm">
               <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs text-ink-600 uppercase">
                 <tr>
@@ -232,7 +233,7 @@ function PlanView({ plan }: { plan: PlanDetail }) {
                 ))}
               </tbody>
             </table>
-          </div>
+          </TableScroll>
         )}
         {plan.status === 'recorded' && (
           <p className="flex items-center gap-1.5 text-sm text-ok-700">

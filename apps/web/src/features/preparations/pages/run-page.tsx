@@ -17,6 +17,7 @@ import { fullPrecision, Mass } from '../components/rounded';
 import { StockAmount } from '../components/stock-amount';
 import { StoichiometryTable } from '../components/stoichiometry-table';
 import { YieldText } from '../components/yield-text';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 function YieldSummary({ run }: { run: Run }) {
   return (
@@ -81,7 +82,7 @@ function Portions({ run }: { run: Run }) {
   const ids = run.portions.map((p) => p.containerId).join(',');
   return (
     <div className="flex flex-col gap-2">
-      <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+      <TableScroll className="rounded-lg border border-ink-200 bg-white">
         <table aria-label="Product put into stock" className="w-full text-sm">
           <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs text-ink-600 uppercase">
             <tr>
@@ -126,7 +127,7 @@ function Portions({ run }: { run: Run }) {
             ))}
           </tbody>
         </table>
-      </div>
+      </TableScroll>
       <Link
         to={withQuery(paths.stockLabels, { ids })}
         className={`${buttonClasses('secondary')} self-start`}
@@ -242,7 +243,7 @@ function RunView({ run }: { run: Run }) {
         {run.draws.length === 0 ? (
           <p className="text-sm text-ink-600">No draws recorded.</p>
         ) : (
-          <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+          <TableScroll className="rounded-lg border border-ink-200 bg-white">
             <table aria-label="Drawn from stock" className="w-full text-sm">
               <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs text-ink-600 uppercase">
                 <tr>
@@ -287,7 +288,7 @@ function RunView({ run }: { run: Run }) {
                 ))}
               </tbody>
             </table>
-          </div>
+          </TableScroll>
         )}
       </Section>
 

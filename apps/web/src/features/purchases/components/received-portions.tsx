@@ -9,6 +9,7 @@ import { formatAmount, formatDateTime } from '../../../lib/format';
 import { useCloseOrder } from '../api';
 import { ChemicalCell } from './line-parts';
 import { OrderStatusBadge } from './order-status-badge';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 const th = 'px-2.5 py-2';
 
@@ -25,7 +26,7 @@ export function ReceivedView({ view }: { view: ReceivingView }) {
         own labelled container; members were e-mailed where theirs is. Put a label with its code on
         each container.
       </Notice>
-      <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+      <TableScroll className="rounded-lg border border-ink-200 bg-white">
         <table className="w-full text-sm" aria-label="Containers made for the portions">
           <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs font-semibold tracking-wide text-ink-600 uppercase">
             <tr>
@@ -74,7 +75,7 @@ export function ReceivedView({ view }: { view: ReceivingView }) {
             )}
           </tbody>
         </table>
-      </div>
+      </TableScroll>
       <div className="flex flex-wrap items-center gap-2">
         <Link
           to={withQuery(paths.stockLabels, { ids: ids.join(',') })}

@@ -7,6 +7,7 @@ import { paths } from '../../../config/paths';
 import { useMyPurchases } from '../api';
 import { Money } from '../components/money';
 import { OrderStatusBadge } from '../components/order-status-badge';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 const th = 'px-2.5 py-2';
 const num = 'px-2.5 py-2 text-right';
@@ -33,7 +34,7 @@ export function MyPurchasesPage() {
           When you claim a share of a shared order it appears here.
         </EmptyState>
       ) : (
-        <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+        <TableScroll className="rounded-lg border border-ink-200 bg-white">
           <table className="w-full text-sm" aria-label="My purchases">
             <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs font-semibold tracking-wide text-ink-600 uppercase">
               <tr>
@@ -122,7 +123,7 @@ export function MyPurchasesPage() {
               </tr>
             </tfoot>
           </table>
-        </div>
+        </TableScroll>
       )}
     </div>
   );

@@ -12,6 +12,7 @@ import { moneyCsvUrl, useOrderMoney } from '../api';
 import { Money, paymentKindLabels } from '../components/money';
 import { BackLink } from '../components/back-link';
 import { OrderStatusBadge } from '../components/order-status-badge';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 const th = 'px-2.5 py-2';
 const num = 'px-2.5 py-2 text-right';
@@ -32,8 +33,9 @@ function Figure({
       <dt className="text-xs font-semibold tracking-wide text-ink-600 uppercase">{label}</dt>
       <dd className="text-lg font-semibold text-ink-900">
         <Money minor={minor} currency={currency} />
+        {/* inside the value: a definition list's groups hold only terms and values */}
+        {hint && <span className="block text-xs font-normal text-ink-600">{hint}</span>}
       </dd>
-      {hint && <p className="text-xs text-ink-600">{hint}</p>}
     </div>
   );
 }
@@ -124,7 +126,7 @@ export function OrderMoneyPage() {
         <h2 id="money-shares-heading" className="text-base font-semibold">
           Shares
         </h2>
-        <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+        <TableScroll className="rounded-lg border border-ink-200 bg-white">
           <table className="w-full text-sm" aria-label="Shares and their money">
             <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs font-semibold tracking-wide text-ink-600 uppercase">
               <tr>
@@ -203,7 +205,7 @@ export function OrderMoneyPage() {
               </tr>
             </tfoot>
           </table>
-        </div>
+        </TableScroll>
       </section>
 
       <section aria-labelledby="money-movements-heading" className="flex flex-col gap-2">
@@ -213,7 +215,7 @@ export function OrderMoneyPage() {
         {money.movements.length === 0 ? (
           <p className="text-sm text-ink-600">No money has moved on this order yet.</p>
         ) : (
-          <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+          <TableScroll className="rounded-lg border border-ink-200 bg-white">
             <table className="w-full text-sm" aria-label="Payments and refunds">
               <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs font-semibold tracking-wide text-ink-600 uppercase">
                 <tr>
@@ -245,7 +247,7 @@ export function OrderMoneyPage() {
                 ))}
               </tbody>
             </table>
-          </div>
+          </TableScroll>
         )}
       </section>
       <SafetyCaution compact />

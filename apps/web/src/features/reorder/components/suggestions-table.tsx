@@ -12,6 +12,7 @@ import { Checkbox } from '../../../components/ui/input';
 import { paths } from '../../../config/paths';
 import { formatAmount, formatDate } from '../../../lib/format';
 import { daysText, wholeDays } from './restock-format';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 /** When to reorder, in words and an icon (never colour alone). */
 function WhenBadge({ suggestion }: { suggestion: ReorderSuggestion }) {
@@ -108,7 +109,7 @@ export function SuggestionsTable({
 }) {
   const selectable = selected !== undefined && onToggle !== undefined;
   return (
-    <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+    <TableScroll className="rounded-lg border border-ink-200 bg-white">
       <table aria-label="Reorder suggestions" className="w-full text-sm">
         <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs text-ink-600 uppercase">
           <tr>
@@ -230,6 +231,6 @@ export function SuggestionsTable({
           })}
         </tbody>
       </table>
-    </div>
+    </TableScroll>
   );
 }

@@ -5,6 +5,7 @@ import { PictogramSymbol } from '../../../components/hazards/pictogram-symbols';
 import { storageGroupIcons } from '../../../components/hazards/storage-group-label';
 import { QrCode } from '../../../components/ui/qr-code';
 import { hazardStatementText } from '../../../components/hazards/hazard-statement-list';
+import { TableScroll } from '../../../components/ui/table-scroll';
 import { formatDate } from '../../../lib/format';
 import { labelQrContent } from '../../../lib/label-scan';
 
@@ -141,7 +142,10 @@ export function LabelSheets({
   }
 
   return (
-    <div className="flex flex-col items-center gap-6 overflow-x-auto print:block print:gap-0 print:overflow-visible">
+    <TableScroll
+      label="Label sheets"
+      className="flex flex-col items-center gap-6 print:block print:gap-0 print:overflow-visible"
+    >
       {sheets.map((sheet, index) => (
         <section
           key={index}
@@ -176,6 +180,6 @@ export function LabelSheets({
           </div>
         </section>
       ))}
-    </div>
+    </TableScroll>
   );
 }

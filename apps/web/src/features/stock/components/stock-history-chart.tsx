@@ -20,7 +20,12 @@ export default function StockHistoryChart({ history }: { history: StockHistory }
   return (
     <div aria-hidden="true" className="h-64 w-full">
       <ResponsiveContainer width="100%" height="100%">
-        <AreaChart data={data} margin={{ top: 8, right: 16, bottom: 0, left: 8 }}>
+        {/* hidden from assistive tech, so no keyboard stop either: the table beside it has the data */}
+        <AreaChart
+          data={data}
+          margin={{ top: 8, right: 16, bottom: 0, left: 8 }}
+          accessibilityLayer={false}
+        >
           <CartesianGrid stroke="var(--color-ink-200)" vertical={false} />
           <XAxis
             dataKey="time"

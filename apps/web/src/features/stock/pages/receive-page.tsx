@@ -37,6 +37,7 @@ import { ChemicalPicker } from '../components/chemical-picker';
 import { LocationSelect } from '../components/location-select';
 import { SegregationWarnings } from '../components/segregation-warnings';
 import { drawUnits } from '../weighing';
+import { TableScroll } from '../../../components/ui/table-scroll';
 
 interface ContainerRow {
   quantity: string;
@@ -145,7 +146,7 @@ function ReceivedView({
         Into lot {received.lot.supplierLotNumber ?? `#${received.lot.id}`}, received{' '}
         {formatDate(received.lot.receivedOn)}. Put a label with its code on each container.
       </Notice>
-      <div className="overflow-x-auto rounded-lg border border-ink-200 bg-white">
+      <TableScroll className="rounded-lg border border-ink-200 bg-white">
         <table className="w-full text-sm" aria-label="New containers">
           <thead className="border-b border-ink-200 bg-ink-50 text-left text-xs font-semibold tracking-wide text-ink-600 uppercase">
             <tr>
@@ -175,7 +176,7 @@ function ReceivedView({
             ))}
           </tbody>
         </table>
-      </div>
+      </TableScroll>
       {warned.map((change) => (
         <SegregationWarnings
           key={change.container.id}

@@ -31,9 +31,18 @@ import { SupplierFormDialog } from '../components/supplier-form-dialog';
 import { useCatalogListParams } from '../list-params';
 import { moneyText } from '../money';
 
-function Fact({ label, children }: { label: string; children: ReactNode }) {
+function Fact({
+  label,
+  className,
+  children,
+}: {
+  label: string;
+  className?: string;
+  children: ReactNode;
+}) {
+  // one <div> per term and its value: the only wrapper a <dl> may hold
   return (
-    <div>
+    <div className={className}>
       <dt className="text-xs font-semibold tracking-wide text-ink-600 uppercase">{label}</dt>
       <dd className="mt-0.5 text-sm text-ink-900">{children}</dd>
     </div>
@@ -64,11 +73,9 @@ function SupplierFacts({ supplier }: { supplier: Supplier }) {
         </Fact>
         <Fact label="Phone">{supplier.phone || '—'}</Fact>
         <Fact label="Website">{supplier.website || '—'}</Fact>
-        <div className="sm:col-span-2">
-          <Fact label="How to order">
-            <span className="whitespace-pre-line">{supplier.orderingNotes || '—'}</span>
-          </Fact>
-        </div>
+        <Fact label="How to order" className="sm:col-span-2">
+          <span className="whitespace-pre-line">{supplier.orderingNotes || '—'}</span>
+        </Fact>
       </dl>
       <dl className="grid content-start gap-3 sm:grid-cols-3">
         <Fact label="Minimum order">
