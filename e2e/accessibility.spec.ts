@@ -95,6 +95,7 @@ const pages = {
   adminUsers: { as: 'admin', url: () => paths.adminUsers },
   adminBackups: { as: 'admin', url: () => paths.adminBackups },
   account: { as: 'member', url: () => paths.account },
+  help: { as: 'viewer', url: () => paths.help },
 } satisfies Record<keyof typeof paths, Visit | Skip>;
 
 const viewports = [

@@ -31,7 +31,7 @@ describe('The menu button (phone)', () => {
 
     expect(button).toHaveAttribute('aria-expanded', 'true');
     expect(menuPanel()).toHaveAttribute('data-open', 'true');
-    expect(within(menuPanel()).getByRole('link', { name: 'Chemicals' })).toHaveFocus();
+    expect(within(menuPanel()).getByRole('link', { name: 'Today' })).toHaveFocus();
 
     await user.click(button);
     expect(button).toHaveAttribute('aria-expanded', 'false');

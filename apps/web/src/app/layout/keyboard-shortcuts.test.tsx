@@ -77,10 +77,14 @@ describe('keyboard shortcuts', () => {
     const user = userEvent.setup();
     const { router } = await openHelp();
     await user.keyboard('gs');
-    await waitFor(() => expect(router.state.location.pathname).toBe(paths.stock));
+    await waitFor(() => expect(router.state.location.pathname).toBe(paths.stock), {
+      timeout: 8000,
+    });
     await router.navigate(paths.help);
     await user.keyboard('gh');
-    await waitFor(() => expect(router.state.location.pathname).not.toBe(paths.help));
+    await waitFor(() => expect(router.state.location.pathname).not.toBe(paths.help), {
+      timeout: 8000,
+    });
     // The start page (the address `/` may send a role on to its first page).
     expect([paths.home, paths.chemicals]).toContain(router.state.location.pathname);
   });
@@ -90,7 +94,9 @@ describe('keyboard shortcuts', () => {
     const user = userEvent.setup();
     const { router } = await openHelp();
     await user.keyboard('r');
-    await waitFor(() => expect(router.state.location.pathname).toBe(paths.runNew));
+    await waitFor(() => expect(router.state.location.pathname).toBe(paths.runNew), {
+      timeout: 8000,
+    });
   });
 
   it('when / or d is pressed away from a container, then the search at the top takes the cursor (d with a hint)', async () => {

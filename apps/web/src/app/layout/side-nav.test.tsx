@@ -22,7 +22,14 @@ function navLabels(role: Role): string[] {
 
 describe('SideNav', () => {
   it('when a viewer signs in, then the start page and only read-only places show, runs among them', () => {
-    expect(navLabels('viewer')).toEqual(['Today', 'Chemicals', 'Stock', 'Preparations', 'Runs', 'Help']);
+    expect(navLabels('viewer')).toEqual([
+      'Today',
+      'Chemicals',
+      'Stock',
+      'Preparations',
+      'Runs',
+      'Help',
+    ]);
   });
 
   it('when a member signs in, then runs, alerts and purchasing (orders, restock, suppliers, their purchases) show but not administration', () => {

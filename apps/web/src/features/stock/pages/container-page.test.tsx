@@ -245,7 +245,7 @@ describe('Container page', () => {
     const form = screen.getByRole('form', { name: 'Record a draw' });
     expect(within(form).getByRole('combobox', { name: 'Unit' })).toHaveValue('g');
 
-    await user.click(within(form).getByRole('radio', { name: /Amount taken/ }));
+    await user.click(within(form).getByRole('radio', { name: /Enter the amount/ }));
 
     expect(within(form).getByRole('combobox', { name: 'Unit' })).toHaveValue('mL');
   });
