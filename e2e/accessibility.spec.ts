@@ -86,7 +86,7 @@ const pages = {
   supplier: { as: 'member', url: (ids) => paths.supplier(ids.supplier) },
   priceListImport: { skip: 'the import page (stockImport) with a supplier chosen' },
   purchases: { as: 'member', url: () => paths.purchases },
-  orderReceipt: { as: 'manager', url: (ids) => paths.orderReceipt(ids.closedOrder) },
+  orderReceipt: { as: 'member', url: (ids) => paths.orderReceipt(ids.closedOrder) },
   orderMoney: { as: 'manager', url: (ids) => paths.orderMoney(ids.closedOrder) },
   orderReceive: { as: 'manager', url: (ids) => paths.orderReceive(ids.order) },
   alerts: { as: 'viewer', url: () => paths.alerts },

@@ -92,7 +92,7 @@ for (const size of sizes) {
         await expect(menuButton).toHaveAttribute('aria-expanded', 'false');
         await menuButton.click();
         await expect(menuButton).toHaveAttribute('aria-expanded', 'true');
-        await expect(nav.getByRole('link', { name: 'Chemicals' })).toBeFocused();
+        await expect(nav.getByRole('link', { name: 'Today' })).toBeFocused();
         await shoot(page, size, 'menu-open');
         await page.keyboard.press('Escape');
         await expect(nav).toBeHidden();
@@ -144,7 +144,7 @@ for (const size of sizes) {
 
       await jump.click();
       const form = page.getByRole('form', { name: 'Record a draw' });
-      await form.locator('label', { hasText: 'Amount taken' }).click();
+      await form.locator('label', { hasText: 'Enter the amount' }).click();
       await expect(form.getByRole('combobox', { name: 'Unit' })).toHaveValue('mL');
       const amount = form.getByRole('textbox', { name: /amount taken/i });
       await expectTouchTarget(amount, 'the amount field');

@@ -339,6 +339,21 @@ test('restock, suppliers and shared orders, at a desk and on a phone', async ({ 
   await shot(page, 'receipt', { fullPage: true });
 });
 
+test('the start page and the help page, at a desk and on a phone', async ({ browser }) => {
+  for (const [device, name] of [
+    [desktop, 'start-page'],
+    [phone, 'start-page-phone'],
+  ] as const) {
+    const page = await open(browser, 'manager', device);
+    await visit(page, '/');
+    await shot(page, name, { fullPage: device === desktop });
+  }
+
+  const page = await open(browser, 'member');
+  await visit(page, '/help');
+  await shot(page, 'help');
+});
+
 test('admin pages', async ({ browser }) => {
   let page = await open(browser, 'admin');
   await visit(page, '/admin/users');
