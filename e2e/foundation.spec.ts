@@ -81,7 +81,7 @@ test.describe('sign-in and roles', () => {
     await expect(guestPage.getByText('Your password is saved')).toBeVisible();
     await guestPage.getByRole('link', { name: 'Continue to Lotwise' }).click();
     await expect(guestPage.getByRole('navigation', { name: 'Main' })).toBeVisible();
-    await expect(guestPage.getByText('Evening Club Guest')).toBeVisible();
+    await expect(guestPage.getByText('Evening Club Guest').first()).toBeVisible();
     await expect(
       guestPage.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /people/i }),
     ).toHaveCount(0);

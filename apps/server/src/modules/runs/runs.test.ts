@@ -507,7 +507,7 @@ describe('recording a run', () => {
     await get(`/api/runs/${run.id}`).expect(404);
     expect(await counts()).toEqual(before);
     const [audit] = await testContext().dataSource.query(
-      "SELECT action, target_type AS targetType, target_id AS targetId FROM audit_events WHERE action = 'run.discarded'",
+      `SELECT action, target_type AS "targetType", target_id AS "targetId" FROM audit_events WHERE action = 'run.discarded'`,
     );
     expect(audit).toEqual({ action: 'run.discarded', targetType: 'run', targetId: run.id });
     await discard(run.id).expect(404);
