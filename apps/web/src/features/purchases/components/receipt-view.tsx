@@ -1,3 +1,4 @@
+import { cn } from '../../../lib/cn';
 import { orderStatusLabels, type MoneyMovement, type Receipt } from '@lotwise/shared';
 import { HazardCodes } from '../../../components/hazards/hazard-codes';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
@@ -53,16 +54,17 @@ function TotalRow({
   minor,
   currency,
   strong,
+  className,
 }: {
   label: string;
   minor: number | null;
   currency: string;
   strong?: boolean;
+  /** The row's own spacing, e.g. a rule above a total (a `<dl>` holds only its rows). */
+  className?: string;
 }) {
   return (
-    <div
-      className={strong ? 'flex justify-between gap-6 font-semibold' : 'flex justify-between gap-6'}
-    >
+    <div className={cn('flex justify-between gap-6', strong && 'font-semibold', className)}>
       <dt>{label}</dt>
       <dd>
         <Money minor={minor} currency={currency} />
@@ -187,14 +189,13 @@ export function ReceiptView({ receipt }: { receipt: Receipt }) {
           <TotalRow label="Your amount" minor={totals.amountMinor} currency={currency} strong />
           <TotalRow label="Paid" minor={totals.collectedMinor} currency={currency} />
           <TotalRow label="Refunded" minor={totals.refundedMinor} currency={currency} />
-          <div className="mt-1 border-t border-ink-300 pt-1">
-            <TotalRow
-              label="Paid in the end"
-              minor={totals.netPaidMinor}
-              currency={currency}
-              strong
-            />
-          </div>
+          <TotalRow
+            label="Paid in the end"
+            minor={totals.netPaidMinor}
+            currency={currency}
+            strong
+            className="mt-1 border-t border-ink-300 pt-1"
+          />
           <TotalRow label="Still to pay" minor={totals.owedMinor} currency={currency} strong />
         </dl>
       </section>
