@@ -26,6 +26,7 @@ export * from './price-lists';
 export * from './procedures';
 export * from './plans';
 export * from './runs';
+export * from './run-timeline';
 export * from './format';
 export * from './money';
 export * from './purchasing';

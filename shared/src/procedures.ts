@@ -157,11 +157,73 @@ export const temperatureRangeSchema = z
   });
 export type TemperatureRange = z.infer<typeof temperatureRangeSchema>;
 
+/** The step cautions: the procedure's caution flags a single step can carry. */
+export const STEP_CAUTIONS = [
+  'exothermicAddition',
+  'flammableSolvent',
+  'toxicGas',
+  'fumeHood',
+] as const;
+export type StepCaution = (typeof STEP_CAUTIONS)[number];
+
+/**
+ * One step of a procedure: what to do, and optionally how long (not scaled with the batch),
+ * the temperature window to keep (with what to do outside it), the line whose amount is
+ * added in this step (scaled with the plan), a caution and a hold point.
+ */
+export const procedureStepInputSchema = z
+  .object({
+    text: z.string().trim().min(1, 'describe the step').max(2000, 'is at most 2000 characters'),
+    durationMinutes: z
+      .number({ message: 'must be a number of minutes' })
+      .gt(0, 'must be more than 0 minutes')
+      .max(10080, 'is at most 10080 minutes (a week)')
+      .nullable()
+      .default(null),
+    temperatureLowC: z.number().min(-200).max(1000).nullable().default(null),
+    temperatureHighC: z.number().min(-200).max(1000).nullable().default(null),
+    /** What to do when a reading falls outside the window, e.g. "slow the addition, add ice". */
+    outsideWindow: z.string().trim().max(500, 'is at most 500 characters').default(''),
+    /** The procedure line added in this step (its amount scales with the plan). */
+    lineIndex: z.number().int().min(0).nullable().default(null),
+    /** How it is added, e.g. "dropwise over about 20 min", "in portions". */
+    addition: z.string().trim().max(200, 'is at most 200 characters').default(''),
+    /** One of the procedure's caution flags this step carries. */
+    caution: z.enum(STEP_CAUTIONS).nullable().default(null),
+    /** "Do not go on until …"; empty: no hold point. */
+    holdPoint: z.string().trim().max(500, 'is at most 500 characters').default(''),
+  })
+  .strict()
+  .superRefine((step, ctx) => {
+    if (
+      step.temperatureLowC !== null &&
+      step.temperatureHighC !== null &&
+      step.temperatureLowC > step.temperatureHighC
+    ) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['temperatureHighC'],
+        message: 'must not be below the low end of the window',
+      });
+    }
+  });
+export type ProcedureStepInput = z.input<typeof procedureStepInputSchema>;
+export type ProcedureStep = z.output<typeof procedureStepInputSchema>;
+
 function lineRules(
-  procedure: { lines?: ProcedureLineParsed[] },
+  procedure: { lines?: ProcedureLineParsed[]; steps?: ProcedureStep[] },
   ctx: { addIssue(issue: { code: 'custom'; path: PropertyKey[]; message: string }): void },
 ) {
   const lines = procedure.lines ?? [];
+  (procedure.steps ?? []).forEach((step, index) => {
+    if (procedure.lines && step.lineIndex !== null && step.lineIndex >= lines.length) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['steps', index, 'lineIndex'],
+        message: `points at line ${step.lineIndex + 1}, but the procedure has ${lines.length}`,
+      });
+    }
+  });
   const limiting = lines.filter((line) => line.role === 'limiting-reagent').length;
   if (limiting > 1) {
     ctx.addIssue({
@@ -191,6 +253,8 @@ const procedureFields = {
     .array(procedureLineInputSchema)
     .min(1, 'add at least one line')
     .max(40, 'at most 40 lines'),
+  /** In order; `PATCH` with `steps` replaces every step. */
+  steps: z.array(procedureStepInputSchema).max(60, 'at most 60 steps'),
 };
 
 /** `POST /api/procedures`. */
@@ -203,6 +267,7 @@ export const procedureCreateSchema = z
     literatureMeltingC: procedureFields.literatureMeltingC.default(null),
     cautions: procedureFields.cautions.default(''),
     cautionFlags: procedureFields.cautionFlags.default(noCautionFlags),
+    steps: procedureFields.steps.default([]),
   })
   .strict()
   .superRefine(lineRules);
@@ -414,6 +479,21 @@ export const calculationErrorSchema = z.object({
   lineIndex: z.number().int().optional(),
 });
 
+/** A step as the API sends it (`index` from 0, in order). */
+export const procedureStepSchema = z.object({
+  index: z.number().int(),
+  text: z.string(),
+  durationMinutes: z.number().nullable(),
+  temperatureLowC: z.number().nullable(),
+  temperatureHighC: z.number().nullable(),
+  outsideWindow: z.string(),
+  lineIndex: z.number().int().nullable(),
+  addition: z.string(),
+  caution: z.enum(STEP_CAUTIONS).nullable(),
+  holdPoint: z.string(),
+});
+export type ProcedureStepView = z.infer<typeof procedureStepSchema>;
+
 export const procedureSchema = z.object({
   id: z.number().int(),
   title: z.string(),
@@ -430,6 +510,7 @@ export const procedureSchema = z.object({
     fumeHood: z.boolean(),
   }),
   lines: z.array(procedureLineSchema),
+  steps: z.array(procedureStepSchema),
   /** computeStoichiometry at base scale; null when the lines cannot be worked out. */
   stoichiometry: stoichiometrySchema.nullable(),
   stoichiometryError: calculationErrorSchema.nullable(),

@@ -20,3 +20,4 @@ export * from './stock';
 export * from './weighing';
 export * from './reorder';
 export * from './packs';
+export * from './timeline';

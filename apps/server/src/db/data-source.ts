@@ -47,6 +47,7 @@ import { ListIndexes1796800000000 } from './migrations/1796800000000-list-indexe
 import { LedgerChangeNotes1796810000000 } from './migrations/1796810000000-ledger-change-notes';
 import { OutboxQueuedAge1796900000000 } from './migrations/1796900000000-outbox-queued-age';
 import { ScheduledRuns1796910000000 } from './migrations/1796910000000-scheduled-runs';
+import { ProcedureSteps1796950000000 } from './migrations/1796950000000-procedure-steps';
 import { ChemicalMeasures1796630000000 } from './migrations/1796630000000-chemical-measures';
 import { RunCrudeYieldFlag1796620000000 } from './migrations/1796620000000-run-crude-yield-flag';
 
@@ -99,6 +100,7 @@ export const migrations = [
   LedgerChangeNotes1796810000000,
   OutboxQueuedAge1796900000000,
   ScheduledRuns1796910000000,
+  ProcedureSteps1796950000000,
 ];
 
 /** How many prepared statements each connection keeps (the API has a few hundred queries). */

@@ -1,4 +1,4 @@
-import type { CautionFlags } from '@lotwise/shared';
+import type { CautionFlags, ProcedureStep } from '@lotwise/shared';
 import { EntitySchema } from 'typeorm';
 import { foreignKey } from '../../db/entity-relations';
 
@@ -13,6 +13,8 @@ export interface ProcedureRow {
   meltingHighC: number | null;
   cautions: string;
   cautionFlags: CautionFlags;
+  /** In order (JSON); see shared `procedureStepInputSchema`. */
+  steps: ProcedureStep[];
   createdById: number | null;
   createdAt: string;
   updatedAt: string;
@@ -37,6 +39,7 @@ export const ProcedureEntity = new EntitySchema<ProcedureRow>({
     meltingHighC: { name: 'melting_high_c', type: 'double precision', nullable: true },
     cautions: { type: 'text' },
     cautionFlags: { name: 'caution_flags', type: 'simple-json' },
+    steps: { type: 'simple-json', default: '[]' },
     createdById: { name: 'created_by_id', type: 'integer', nullable: true },
     createdAt: { name: 'created_at', type: 'varchar', length: 24 },
     updatedAt: { name: 'updated_at', type: 'varchar', length: 24 },

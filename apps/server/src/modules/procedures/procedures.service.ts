@@ -22,6 +22,7 @@ import {
   type ProcedureLineParsed,
   type ProcedureListQuery,
   type ProcedurePatch,
+  type ProcedureStep,
   type ScaledProcedure,
   type ScaledQuery,
   type User,
@@ -216,6 +217,7 @@ export async function presentProcedure(
         : { low: row.meltingLowC, high: row.meltingHighC },
     cautions: row.cautions,
     cautionFlags: row.cautionFlags,
+    steps: row.steps.map((step, index) => ({ index, ...step })),
     lines: lines.map((line, index) => {
       const chemical = chemicals.get(line.chemicalId)!;
       const solvent =
@@ -267,6 +269,18 @@ export async function presentProcedure(
   };
 }
 
+/** Every step's line must be one of the procedure's (400 naming the step otherwise). */
+function checkStepLines(steps: readonly ProcedureStep[], lineCount: number) {
+  steps.forEach((step, index) => {
+    if (step.lineIndex !== null && step.lineIndex >= lineCount) {
+      const message = `points at line ${step.lineIndex + 1}, but the procedure has ${countOf(lineCount, 'line')}`;
+      throw AppError.validation(`Step ${index + 1} ${message}.`, {
+        [`steps.${index}.lineIndex`]: message,
+      });
+    }
+  });
+}
+
 /** Writes a new procedure with its lines (inside the caller's transaction). */
 export async function insertProcedure(
   repos: Repositories,
@@ -284,6 +298,7 @@ export async function insertProcedure(
     meltingHighC: input.literatureMeltingC?.high ?? null,
     cautions: input.cautions,
     cautionFlags: input.cautionFlags,
+    steps: input.steps,
     createdById,
     createdAt: now,
     updatedAt: now,
@@ -342,8 +357,9 @@ export function proceduresService(store: Store) {
 
     async update(id: number, patch: ProcedurePatch): Promise<Procedure> {
       return store.transaction(async (repos) => {
-        await loadProcedure(repos, id);
+        const current = await loadProcedure(repos, id);
         const { lines, literatureMeltingC, ...fields } = patch;
+        checkStepLines(patch.steps ?? current.row.steps, lines?.length ?? current.lines.length);
         if (lines) {
           await checkLines(repos, lines);
           await repos.procedures.replaceLines(id, lineValues(id, lines));

@@ -266,3 +266,90 @@ describe('scale factors', () => {
     expect(expected).toMatchObject({ yieldBasis: 'expected', notice: null });
   });
 });
+
+describe('procedure steps', () => {
+  const patch = (id: number, body: object) =>
+    request(app()).patch(`/api/procedures/${id}`).set('Cookie', manager).send(body);
+
+  it('when steps are saved, then they come back in order with their windows and cautions', async () => {
+    const { procedure } = await make.aspirin({
+      steps: [
+        {
+          text: 'Warm the salicylic acid with the anhydride.',
+          temperatureLowC: 80,
+          temperatureHighC: 90,
+          durationMinutes: 15,
+          lineIndex: 1,
+          addition: 'in one portion',
+          caution: 'fumeHood',
+        },
+        { text: 'Cool in ice.', holdPoint: 'crystals have formed' },
+      ],
+    });
+    const body = procedureSchema.parse(
+      (await get(`/api/procedures/${procedure.id}`).expect(200)).body,
+    );
+    expect(body.steps).toEqual([
+      {
+        index: 0,
+        text: 'Warm the salicylic acid with the anhydride.',
+        durationMinutes: 15,
+        temperatureLowC: 80,
+        temperatureHighC: 90,
+        outsideWindow: '',
+        lineIndex: 1,
+        addition: 'in one portion',
+        caution: 'fumeHood',
+        holdPoint: '',
+      },
+      {
+        index: 1,
+        text: 'Cool in ice.',
+        durationMinutes: null,
+        temperatureLowC: null,
+        temperatureHighC: null,
+        outsideWindow: '',
+        lineIndex: null,
+        addition: '',
+        caution: null,
+        holdPoint: 'crystals have formed',
+      },
+    ]);
+    const replaced = await patch(procedure.id, { steps: [{ text: 'Only step.' }] }).expect(200);
+    expect(replaced.body.steps).toHaveLength(1);
+  });
+
+  it('when a step points past the last line or its window is upside down, then nothing is saved and the field is named', async () => {
+    const { procedure } = await make.aspirin();
+    const past = await patch(procedure.id, { steps: [{ text: 'Add it.', lineIndex: 9 }] }).expect(
+      400,
+    );
+    expect(past.body.error.fields['steps.0.lineIndex']).toMatch(/points at line 10/);
+    const upside = await patch(procedure.id, {
+      steps: [{ text: 'Keep cold.', temperatureLowC: 10, temperatureHighC: 5 }],
+    }).expect(400);
+    expect(Object.keys(upside.body.error.fields)).toContain('steps.0.temperatureHighC');
+    // Fewer lines than a step needs: refused, the old lines kept.
+    await patch(procedure.id, { steps: [{ text: 'Add the anhydride.', lineIndex: 1 }] }).expect(
+      200,
+    );
+    const shrink = await patch(procedure.id, {
+      lines: [(await get(`/api/procedures/${procedure.id}`)).body.lines[0]].map(
+        ({
+          chemicalId,
+          role,
+          quantity,
+          unit,
+        }: {
+          chemicalId: number;
+          role: string;
+          quantity: number;
+          unit: string;
+        }) => ({ chemicalId, role, quantity, unit }),
+      ),
+    });
+    expect(shrink.status).toBe(400);
+    expect(shrink.body.error.fields['steps.0.lineIndex']).toMatch(/has 1 line\b/);
+    expect((await get(`/api/procedures/${procedure.id}`)).body.lines.length).toBeGreaterThan(1);
+  });
+});

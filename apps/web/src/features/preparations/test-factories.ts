@@ -293,6 +293,7 @@ export function makeAspirinProcedure(overrides: Partial<Procedure> = {}): Proced
       line(1, aceticAnhydride, { role: 'reagent', quantity: 5, unit: 'mL', coefficient: 1 }),
       line(2, acetylsalicylicAcid, { role: 'product', coefficient: 1 }),
     ],
+    steps: [],
     stoichiometry: null,
     stoichiometryError: null,
     productChemicalIds: [8],
