@@ -142,12 +142,16 @@ function timerToStop(
   return latest;
 }
 
-/** Appends inside the caller's transaction; answers the entry's id and whether it is new. */
-async function appendWith(
+/**
+ * Appends an entry inside the caller's transaction (the demo seed appends through it too);
+ * answers the entry's id and whether it is new. `receivedAt` defaults to now.
+ */
+export async function appendTimelineEntry(
   repos: Repositories,
   runId: number,
   input: TimelineEntryParsed,
   actor: User,
+  receivedAt = nowIso(),
 ): Promise<{ id: number; created: boolean }> {
   // On PostgreSQL the run stays locked to the end of the transaction: appends take turns.
   const run = await requireRun(repos, runId);
@@ -163,7 +167,15 @@ async function appendWith(
   const procedure = await repos.procedures.findRow(run.procedureId);
   const photoOk =
     input.uploadId === null || (await repos.runTimeline.photoOf(runId, input.uploadId)) !== null;
-  const values = entryValues(run, procedure?.steps ?? [], earlier, input, photoOk, actor, nowIso());
+  const values = entryValues(
+    run,
+    procedure?.steps ?? [],
+    earlier,
+    input,
+    photoOk,
+    actor,
+    receivedAt,
+  );
   return { id: await repos.runTimeline.insertEntry(values), created: true };
 }
 
@@ -189,7 +201,9 @@ export function runTimelineService(store: Store) {
     ): Promise<TimelineAppendResult> {
       let outcome: { id: number; created: boolean };
       try {
-        outcome = await store.transaction((repos) => appendWith(repos, runId, input, actor));
+        outcome = await store.transaction((repos) =>
+          appendTimelineEntry(repos, runId, input, actor),
+        );
       } catch (error) {
         // The same entry sent twice at the same moment: the other request stored it.
         if (!isUniqueViolation(error)) throw error;
