@@ -355,6 +355,19 @@ describe('photos of a run', () => {
     expect(fetched.headers['content-type']).toBe('image/png');
     expect(Buffer.compare(fetched.body as Buffer, tinyPng())).toBe(0);
 
+    // The same photo sent twice at the same moment: kept once, the other copy removed.
+    const twiceId = clientId();
+    const twice = await Promise.all([
+      upload(run.id, tinyPng(), 'again.png', twiceId),
+      upload(run.id, tinyPng(), 'again.png', twiceId),
+    ]);
+    expect(twice.map((r) => r.status).sort()).toEqual([200, 201]);
+    expect(twice[0]!.body.uploadId).toBe(twice[1]!.body.uploadId);
+    const kept = await readdir(testContext().config.uploadDir);
+    expect(kept.filter((name) => !name.startsWith('.')).length).toBe(
+      before.filter((name) => !name.startsWith('.')).length + 2,
+    );
+
     const entry = await appended(run.id, {
       kind: 'photo',
       uploadId: photo.uploadId,
