@@ -2,7 +2,8 @@ import { useNavigate, useParams } from 'react-router';
 import { paths } from '../../../config/paths';
 import { useCreateProcedure, useProcedure, useUpdateProcedure } from '../api';
 import { BackLink, PageHeader, QueryState } from '../components/page-parts';
-import { emptyProcedure, ProcedureForm, procedureToFormValues } from '../components/procedure-form';
+import { ProcedureForm } from '../components/procedure-form';
+import { emptyProcedure, procedureToFormValues } from '../components/procedure-form-values';
 
 export function ProcedureCreatePage() {
   const navigate = useNavigate();
