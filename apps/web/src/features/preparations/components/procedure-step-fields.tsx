@@ -101,11 +101,11 @@ function StepFields({
       <Field label="What to do" error={err('text', 'The step')}>
         {(props) => <Textarea {...props} rows={2} {...register(name('text'))} />}
       </Field>
-      <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
+      <div className="grid grid-cols-2 gap-3 lg:grid-cols-4">
         <Field
           label="Time (min)"
           optional
-          hint="The same at any batch size: not scaled"
+          hint="Not scaled: the same for any batch"
           error={err('durationMinutes', 'The time')}
         >
           {(props) => <AmountInput {...props} {...register(name('durationMinutes'))} />}
