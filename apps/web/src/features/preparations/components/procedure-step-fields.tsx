@@ -103,16 +103,7 @@ function StepFields({
       </Field>
       <div className="grid grid-cols-2 gap-3 lg:grid-cols-4">
         <Field
-          label="Time (min)"
-          optional
-          hint="Not scaled: the same for any batch"
-          error={err('durationMinutes', 'The time')}
-        >
-          {(props) => <AmountInput {...props} {...register(name('durationMinutes'))} />}
-        </Field>
-        <Field
           label="Keep from (°C)"
-          optional
           hint="Empty: no lower limit"
           error={err('temperatureLowC', 'It')}
         >
@@ -120,13 +111,29 @@ function StepFields({
         </Field>
         <Field
           label="Keep up to (°C)"
-          optional
           hint="Empty: no upper limit"
           error={err('temperatureHighC', 'It')}
         >
           {(props) => <AmountInput {...props} {...register(name('temperatureHighC'))} />}
         </Field>
-        <Field label="Caution" optional error={err('caution', 'Caution')}>
+        <Field
+          label="If the temperature leaves the window"
+          hint="e.g. stop the addition and add ice to the bath"
+          error={err('outsideWindow', 'It')}
+          className="col-span-2"
+        >
+          {(props) => <Input {...props} {...register(name('outsideWindow'))} />}
+        </Field>
+      </div>
+      <div className="grid grid-cols-[7rem_minmax(0,1fr)] gap-3 lg:grid-cols-4">
+        <Field
+          label="Time (min)"
+          hint="Not scaled: the same for any batch"
+          error={err('durationMinutes', 'The time')}
+        >
+          {(props) => <AmountInput {...props} {...register(name('durationMinutes'))} />}
+        </Field>
+        <Field label="Caution" error={err('caution', 'Caution')}>
           {(props) => (
             <Select {...props} {...register(name('caution'))}>
               <option value="">None</option>
@@ -138,19 +145,18 @@ function StepFields({
             </Select>
           )}
         </Field>
+        <Field
+          label="Hold point: do not go on until …"
+          hint="Finish the sentence, e.g. “all the solid has dissolved”. Empty: no hold point."
+          error={err('holdPoint', 'The hold point')}
+          className="col-span-2"
+        >
+          {(props) => <Input {...props} {...register(name('holdPoint'))} />}
+        </Field>
       </div>
-      <Field
-        label="If the temperature leaves the window"
-        optional
-        hint="e.g. stop the addition and add ice to the bath"
-        error={err('outsideWindow', 'It')}
-      >
-        {(props) => <Input {...props} {...register(name('outsideWindow'))} />}
-      </Field>
       <div className="grid gap-3 md:grid-cols-2">
         <Field
           label="Line added in this step"
-          optional
           hint={lost ? undefined : 'Its amount follows the plan’s scale on the plan and the sheet'}
           error={err('lineKey', 'The line')}
         >
@@ -180,7 +186,6 @@ function StepFields({
         </Field>
         <Field
           label="How it is added"
-          optional
           hint="e.g. dropwise over about 20 min; in three portions"
           error={err('addition', 'It')}
         >
@@ -197,14 +202,6 @@ function StepFields({
           leave it at “No line”.
         </p>
       )}
-      <Field
-        label="Hold point: do not go on until …"
-        optional
-        hint="Finish the sentence, e.g. “all the solid has dissolved”. Empty: no hold point."
-        error={err('holdPoint', 'The hold point')}
-      >
-        {(props) => <Input {...props} {...register(name('holdPoint'))} />}
-      </Field>
     </li>
   );
 }
@@ -225,7 +222,8 @@ export function StepsEditor({
       <legend className="mb-1 text-base font-semibold">Steps</legend>
       <p className="text-sm text-ink-600">
         What to do at the bench, in order. Each step prints on the plan and on every bench page of
-        the dispensing sheet, with its time, temperature window, caution and hold point.
+        the dispensing sheet, with its time, temperature window, caution and hold point. Only “What
+        to do” is needed: leave the rest empty when it does not apply.
       </p>
       {fields.length > 0 && (
         <ol className="flex flex-col gap-3">

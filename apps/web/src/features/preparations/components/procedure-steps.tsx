@@ -134,7 +134,7 @@ export function ProcedureSteps({
   const byIndex = new Map(lines.map((line) => [line.lineIndex, line]));
   return (
     <section aria-labelledby={id} className="flex flex-col gap-1">
-      <h2 id={id} className="text-base font-semibold text-ink-900">
+      <h2 id={id} className="text-base font-semibold text-ink-900 break-after-avoid">
         {title}
       </h2>
       {note && <p className="text-xs text-ink-600">{note}</p>}
