@@ -10,6 +10,7 @@ import {
   cautionFlagsSchema,
   displayValueSchema,
   lineRoleSchema,
+  procedureStepSchema,
   scaleFactorInputSchema,
 } from './procedures';
 
@@ -273,6 +274,8 @@ export const planDetailSchema = planSchema.extend({
   cautions: planCautionsSchema,
   safetyDeferral: z.string(),
   reservations: z.array(reservationSchema),
+  /** The procedure's steps, in order (an addition's amount is the stock check's line). */
+  steps: z.array(procedureStepSchema),
 });
 export type PlanDetail = z.infer<typeof planDetailSchema>;
 
@@ -362,5 +365,7 @@ export const dispensingSheetSchema = z.object({
   cautions: planCautionsSchema,
   rules: z.array(z.string()),
   safetyDeferral: z.string(),
+  /** The procedure's steps, in order: every bench page shows them with its amounts. */
+  steps: z.array(procedureStepSchema),
 });
 export type DispensingSheet = z.infer<typeof dispensingSheetSchema>;

@@ -32,6 +32,7 @@ import { toStockUnit } from '../containers/containers.service';
 import {
   chemLinesOf,
   loadProcedure,
+  presentSteps,
   requireMeasurableFactor,
   type LoadedProcedure,
 } from '../procedures/procedures.service';
@@ -216,6 +217,7 @@ export function plansService(
       },
       safetyDeferral,
       reservations: await presentReservations(repos, id, today),
+      steps: presentSteps(procedure.row.steps),
     };
   }
 
@@ -539,6 +541,7 @@ export function plansService(
         },
         rules: [roundingRules.balance, roundingRules.glassware, roundingRules.amount],
         safetyDeferral,
+        steps: presentSteps(procedure.row.steps),
       };
     },
   };

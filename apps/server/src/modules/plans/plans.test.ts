@@ -366,6 +366,35 @@ describe('reservations', () => {
     expect(sheet.safetyDeferral).toBe(safetyDeferral);
   });
 
+  it('when the procedure has steps, then the plan and its dispensing sheet carry them in order', async () => {
+    const s = await stockedAspirin();
+    await request(app())
+      .patch(`/api/procedures/${s.procedure.id}`)
+      .set('Cookie', manager)
+      .send({
+        steps: [
+          { text: 'Add the anhydride.', lineIndex: 1, addition: 'dropwise' },
+          { text: 'Warm.', durationMinutes: 15, temperatureLowC: 50, temperatureHighC: 60 },
+        ],
+      })
+      .expect(200);
+    const detail = await plan({
+      procedureId: s.procedure.id,
+      scaleFactor: 0.5,
+      benches: 2,
+      plannedOn: nextWeek,
+    });
+    expect(detail.steps.map((step) => [step.index, step.text, step.lineIndex])).toEqual([
+      [0, 'Add the anhydride.', 1],
+      [1, 'Warm.', null],
+    ]);
+    const sheet = dispensingSheetSchema.parse(
+      (await get(`/api/plans/${detail.id}/dispensing`).expect(200)).body,
+    );
+    expect(sheet.steps[1]).toMatchObject({ durationMinutes: 15, temperatureHighC: 60 });
+    expect(sheet.steps[0]!.addition).toBe('dropwise');
+  });
+
   it('when a plan is short on one line, then the sheet data says what is short, by how much, what to do and which benches can be served', async () => {
     const s = await stockedAspirin();
     const detail = await plan({

@@ -23,6 +23,7 @@ import {
   type ProcedureListQuery,
   type ProcedurePatch,
   type ProcedureStep,
+  type ProcedureStepView,
   type ScaledProcedure,
   type ScaledQuery,
   type User,
@@ -207,6 +208,11 @@ async function checkLines(repos: Repositories, lines: ProcedureLineParsed[]) {
 }
 
 /** The API shape of a loaded procedure, with its stoichiometry at base scale. */
+/** The stored steps as the API sends them, each with its place (from 0). */
+export function presentSteps(steps: readonly ProcedureStep[]): ProcedureStepView[] {
+  return steps.map((step, index) => ({ index, ...step }));
+}
+
 export async function presentProcedure(
   repos: Repositories,
   procedure: LoadedProcedure,
@@ -227,7 +233,7 @@ export async function presentProcedure(
         : { low: row.meltingLowC, high: row.meltingHighC },
     cautions: row.cautions,
     cautionFlags: row.cautionFlags,
-    steps: row.steps.map((step, index) => ({ index, ...step })),
+    steps: presentSteps(row.steps),
     lines: lines.map((line, index) => {
       const chemical = chemicals.get(line.chemicalId)!;
       const solvent =

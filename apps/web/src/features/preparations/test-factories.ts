@@ -114,6 +114,7 @@ export function makePlanDetail(overrides: Partial<PlanDetail> = {}): PlanDetail 
     },
     safetyDeferral,
     reservations: [],
+    steps: [],
     ...overrides,
   };
 }
@@ -172,6 +173,7 @@ export function makeDispensingSheet(
     cautions: plan.cautions,
     rules: ['Balance: 0.01 g.'],
     safetyDeferral: plan.safetyDeferral,
+    steps: plan.steps,
     ...overrides,
   };
 }

@@ -5,6 +5,7 @@ import {
   type GhsCode,
   type PlanHazard,
   type Procedure,
+  type StepCaution,
 } from '@lotwise/shared';
 import {
   Flame,
@@ -25,37 +26,50 @@ interface FlagItem {
 }
 
 /**
+ * The cautions a procedure (or one of its steps) can carry: the icon, the short words the
+ * procedure form and each step use, and the sentence shown when the server words none.
+ */
+export const cautionMeta: Record<
+  StepCaution,
+  { icon: LucideIcon; label: string; sentence: string }
+> = {
+  exothermicAddition: {
+    icon: ThermometerSun,
+    label: 'Exothermic addition',
+    sentence: 'Exothermic addition: add slowly with cooling; the temperature sets the pace.',
+  },
+  flammableSolvent: {
+    icon: Flame,
+    label: 'Flammable solvent',
+    sentence: 'Flammable solvent: no open flames; heat on a water bath or heating mantle.',
+  },
+  toxicGas: {
+    icon: Skull,
+    label: 'Gives off a toxic gas',
+    sentence: 'A toxic gas may be given off: work in a fume hood.',
+  },
+  fumeHood: { icon: Wind, label: 'Needs a fume hood', sentence: 'Work in a fume hood.' },
+};
+
+/**
  * The structured cautions as icon + words, in the order the server words them for plans
  * and dispensing sheets (`items`). A procedure's answer carries no such words, so the
  * same sentences are kept here (the shared contract does not export them yet).
  */
 export function cautionFlagItems(flags: CautionFlags, items?: readonly string[]): FlagItem[] {
   const list: { key: string; icon: LucideIcon; fallback: string }[] = [];
-  if (flags.exothermicAddition)
-    list.push({
-      key: 'exothermic',
-      icon: ThermometerSun,
-      fallback: 'Exothermic addition: add slowly with cooling; the temperature sets the pace.',
-    });
+  const flag = (key: string, caution: StepCaution) =>
+    list.push({ key, icon: cautionMeta[caution].icon, fallback: cautionMeta[caution].sentence });
+  if (flags.exothermicAddition) flag('exothermic', 'exothermicAddition');
   if (flags.keepBelowC !== null)
     list.push({
       key: 'keep-below',
       icon: ThermometerSnowflake,
       fallback: `Keep the mixture below ${flags.keepBelowC} °C.`,
     });
-  if (flags.flammableSolvent)
-    list.push({
-      key: 'flammable',
-      icon: Flame,
-      fallback: 'Flammable solvent: no open flames; heat on a water bath or heating mantle.',
-    });
-  if (flags.toxicGas)
-    list.push({
-      key: 'toxic-gas',
-      icon: Skull,
-      fallback: 'A toxic gas may be given off: work in a fume hood.',
-    });
-  if (flags.fumeHood) list.push({ key: 'fume-hood', icon: Wind, fallback: 'Work in a fume hood.' });
+  if (flags.flammableSolvent) flag('flammable', 'flammableSolvent');
+  if (flags.toxicGas) flag('toxic-gas', 'toxicGas');
+  if (flags.fumeHood) flag('fume-hood', 'fumeHood');
   return list.map((item, index) => ({
     key: item.key,
     icon: item.icon,

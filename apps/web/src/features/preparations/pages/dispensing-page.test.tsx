@@ -105,4 +105,45 @@ describe('Dispensing sheet', () => {
     expect(screen.queryByText(/cannot be served/)).not.toBeInTheDocument();
     expect(screen.queryByText('Short')).not.toBeInTheDocument();
   });
+  it('when the procedure has steps, then every bench page lists them with that bench’s amount of the line added', async () => {
+    const withSteps = makePlanDetail({
+      benches: 3,
+      stockCheck: { ...plan.stockCheck, lines: [makeStockLine(), shortLine] },
+      steps: [
+        {
+          index: 0,
+          text: 'Add the base to the stirred solution.',
+          durationMinutes: 30,
+          temperatureLowC: 20,
+          temperatureHighC: 25,
+          outsideWindow: 'cool in a water bath',
+          lineIndex: 2,
+          addition: 'dropwise over about 5 min',
+          caution: null,
+          holdPoint: 'a yellow solid has formed',
+        },
+      ],
+    });
+    mockFetch({
+      'GET /api/auth/me': { body: { user: makeUser({ role: 'manager' }) } },
+      'GET /api/plans/2/dispensing': { body: makeDispensingSheet(withSteps) },
+    });
+    renderApp('/preparations/plans/2/dispensing');
+
+    await screen.findByRole('region', { name: 'Bench 1' }, { timeout: 5000 });
+    for (const bench of [1, 2, 3]) {
+      const page = screen.getByRole('region', { name: `Bench ${bench}` });
+      const steps = within(page).getByRole('region', { name: `Steps at bench ${bench}` });
+      const step = within(steps).getByRole('listitem', { name: 'Step 1' });
+      // The bench table's own per-bench text, 5.0 mL, repeated in the step.
+      expect(step).toHaveTextContent(
+        'Add: Sodium hydroxide solution 1 M — 5.0 mL, dropwise over about 5 min',
+      );
+      expect(step).toHaveTextContent('Keep the temperature: 20–25 °C');
+      expect(step).toHaveTextContent('Time: 30 min');
+      expect(step).toHaveTextContent('Hold point: do not go on until a yellow solid has formed');
+    }
+    const totals = screen.getByRole('region', { name: 'Session totals' });
+    expect(within(totals).queryByText(/Hold point/)).toBeNull();
+  });
 });

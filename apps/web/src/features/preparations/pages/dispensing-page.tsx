@@ -10,6 +10,7 @@ import { useDispensingSheet } from '../api';
 import { roleLabels } from '../labels';
 import { BackLink, QueryState } from '../components/page-parts';
 import { CautionList, StatementLines } from '../components/preparation-safety';
+import { ProcedureSteps, type StepLine } from '../components/procedure-steps';
 import { fullPrecision, Rounded } from '../components/rounded';
 import { BenchStockStatus, SessionStockSummary, SheetStockNote } from '../components/sheet-stock';
 import { TakeAmount } from '../components/stock-amount';
@@ -76,6 +77,14 @@ function SheetHeading({ sheet, subtitle }: { sheet: DispensingSheet; subtitle: s
 
 function Sheet({ sheet }: { sheet: DispensingSheet }) {
   const benches = Array.from({ length: sheet.benches }, (_, i) => i + 1);
+  // Every bench gets the same amounts: the steps repeat the bench table's own text.
+  const stepLines: StepLine[] = sheet.lines
+    .filter((line) => line.purpose === 'line')
+    .map((line) => ({
+      lineIndex: line.lineIndex,
+      name: line.name,
+      amount: line.perBenchDisplay?.text ?? null,
+    }));
   return (
     <div className="flex flex-col gap-6 print:gap-0">
       {/* each printed page has its own visible heading; the page as a whole needs one too */}
@@ -251,6 +260,12 @@ function Sheet({ sheet }: { sheet: DispensingSheet }) {
               </tbody>
             </table>
           </div>
+          <ProcedureSteps
+            id={`bench-${bench}-steps`}
+            title={`Steps at bench ${bench}`}
+            steps={sheet.steps}
+            lines={stepLines}
+          />
         </section>
       ))}
     </div>

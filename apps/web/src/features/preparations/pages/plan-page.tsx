@@ -8,12 +8,13 @@ import { Input } from '../../../components/ui/input';
 import { Notice } from '../../../components/ui/notice';
 import { errorMessage, isApiError, withQuery } from '../../../lib/api-client';
 import { useCurrentUser } from '../../../lib/auth';
-import { formatDate, formatPercent } from '../../../lib/format';
+import { formatDate, formatPercent, formatRoundedAmount } from '../../../lib/format';
 import { paths } from '../../../config/paths';
 import { useCancelPlan, usePlan, useReservePlan } from '../api';
 import { PlanStatusBadge } from '../labels';
 import { BackLink, PageHeader, QueryState, Section } from '../components/page-parts';
 import { PreparationSafety } from '../components/preparation-safety';
+import { ProcedureSteps } from '../components/procedure-steps';
 import { fullPrecision } from '../components/rounded';
 import { StockAmount } from '../components/stock-amount';
 import { StockCheckTable } from '../components/stock-check-table';
@@ -188,6 +189,19 @@ function PlanView({ plan }: { plan: PlanDetail }) {
         )}
         <StockCheckTable check={plan.stockCheck} />
       </Section>
+
+      <ProcedureSteps
+        id="plan-steps-heading"
+        steps={plan.steps}
+        lines={plan.stockCheck.lines
+          .filter((line) => line.purpose === 'line')
+          .map((line) => ({
+            lineIndex: line.lineIndex,
+            name: line.chemical.name,
+            amount: line.perBenchDisplay ? formatRoundedAmount(line.perBenchDisplay) : null,
+          }))}
+        note="Amounts for one bench, as the stock check counts them."
+      />
 
       {mayChange && <ReserveControls plan={plan} />}
 

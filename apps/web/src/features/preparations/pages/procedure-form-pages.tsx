@@ -2,7 +2,8 @@ import { useNavigate, useParams } from 'react-router';
 import { paths } from '../../../config/paths';
 import { useCreateProcedure, useProcedure, useUpdateProcedure } from '../api';
 import { BackLink, PageHeader, QueryState } from '../components/page-parts';
-import { emptyProcedure, ProcedureForm, procedureToFormValues } from '../components/procedure-form';
+import { ProcedureForm } from '../components/procedure-form';
+import { emptyProcedure, procedureToFormValues } from '../components/procedure-form-values';
 
 export function ProcedureCreatePage() {
   const navigate = useNavigate();
@@ -11,8 +12,8 @@ export function ProcedureCreatePage() {
     <div className="flex flex-col gap-5">
       <BackLink to={paths.procedures}>All procedures</BackLink>
       <PageHeader title="New procedure">
-        Write the lines at base scale (one bench). The calculation under the lines follows what you
-        type.
+        Write the lines at base scale (one bench), then the steps. The calculation under the lines
+        follows what you type.
       </PageHeader>
       <ProcedureForm
         defaultValues={emptyProcedure}
@@ -38,7 +39,7 @@ export function ProcedureEditPage() {
         <div className="flex flex-col gap-5">
           <BackLink to={paths.procedure(id)}>{data.title}</BackLink>
           <PageHeader title={`Edit: ${data.title}`}>
-            Saving replaces every line. Runs already recorded keep what they used.
+            Saving replaces every line and step. Runs already recorded keep what they used.
           </PageHeader>
           <ProcedureForm
             defaultValues={procedureToFormValues(data)}

@@ -10,6 +10,7 @@ import { paths } from '../../../config/paths';
 import { useProcedure } from '../api';
 import { BackLink, PageHeader, Property, QueryState } from '../components/page-parts';
 import { PreparationSafety, procedureHazards } from '../components/preparation-safety';
+import { ProcedureSteps } from '../components/procedure-steps';
 import { ScalePanel } from '../components/scale-panel';
 import { amountText, StoichiometryTable } from '../components/stoichiometry-table';
 import { YieldsHistory } from '../components/yields-history';
@@ -112,6 +113,25 @@ function ProcedureView({ procedure }: { procedure: Procedure }) {
           </Notice>
         )}
       </section>
+
+      <ProcedureSteps
+        id="steps-heading"
+        steps={procedure.steps}
+        lines={procedure.lines.map((line) => ({
+          lineIndex: line.index,
+          name: line.chemical.name,
+          amount: amountText(line),
+        }))}
+        note="Amounts at base scale; a plan and its dispensing sheet show them at their scale."
+        empty={
+          mayWrite && (
+            <p className="text-sm text-ink-600">
+              No steps written yet. Edit the procedure to add its steps, with their times,
+              temperature windows and hold points, so they print on every bench page.
+            </p>
+          )
+        }
+      />
 
       <ScalePanel procedure={procedure} />
       <YieldsHistory procedureId={procedure.id} />
