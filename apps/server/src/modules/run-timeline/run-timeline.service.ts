@@ -142,12 +142,16 @@ function timerToStop(
   return latest;
 }
 
-/** Appends inside the caller's transaction; answers the entry's id and whether it is new. */
-async function appendWith(
+/**
+ * Appends inside the caller's transaction; answers the entry's id and whether it is new. The
+ * demo seed passes `receivedAt` for entries of runs done in the past.
+ */
+export async function appendWith(
   repos: Repositories,
   runId: number,
   input: TimelineEntryParsed,
   actor: User,
+  receivedAt = nowIso(),
 ): Promise<{ id: number; created: boolean }> {
   // On PostgreSQL the run stays locked to the end of the transaction: appends take turns.
   const run = await requireRun(repos, runId);
@@ -163,7 +167,15 @@ async function appendWith(
   const procedure = await repos.procedures.findRow(run.procedureId);
   const photoOk =
     input.uploadId === null || (await repos.runTimeline.photoOf(runId, input.uploadId)) !== null;
-  const values = entryValues(run, procedure?.steps ?? [], earlier, input, photoOk, actor, nowIso());
+  const values = entryValues(
+    run,
+    procedure?.steps ?? [],
+    earlier,
+    input,
+    photoOk,
+    actor,
+    receivedAt,
+  );
   return { id: await repos.runTimeline.insertEntry(values), created: true };
 }
 
