@@ -1,7 +1,7 @@
 import type { TimelineKind } from '@lotwise/chem';
 import { timelineEntryInputSchema, type User } from '@lotwise/shared';
 import type { Repositories } from '../store';
-import { appendWith } from '../../modules/run-timeline/run-timeline.service';
+import { appendTimelineEntry } from '../../modules/run-timeline/run-timeline.service';
 
 /**
  * One entry of a demo run's timeline: `min` minutes after the run's first step started;
@@ -143,6 +143,6 @@ export async function seedRunTimeline(
       text: entry.text ?? '',
     });
     const receivedAt = new Date(at.getTime() + 4_000).toISOString();
-    await appendWith(repos, runId, input, actor, receivedAt);
+    await appendTimelineEntry(repos, runId, input, actor, receivedAt);
   }
 }

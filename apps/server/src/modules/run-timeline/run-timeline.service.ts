@@ -143,10 +143,10 @@ function timerToStop(
 }
 
 /**
- * Appends inside the caller's transaction; answers the entry's id and whether it is new. The
- * demo seed passes `receivedAt` for entries of runs done in the past.
+ * Appends an entry inside the caller's transaction (the demo seed appends through it too);
+ * answers the entry's id and whether it is new. `receivedAt` defaults to now.
  */
-export async function appendWith(
+export async function appendTimelineEntry(
   repos: Repositories,
   runId: number,
   input: TimelineEntryParsed,
@@ -201,7 +201,9 @@ export function runTimelineService(store: Store) {
     ): Promise<TimelineAppendResult> {
       let outcome: { id: number; created: boolean };
       try {
-        outcome = await store.transaction((repos) => appendWith(repos, runId, input, actor));
+        outcome = await store.transaction((repos) =>
+          appendTimelineEntry(repos, runId, input, actor),
+        );
       } catch (error) {
         // The same entry sent twice at the same moment: the other request stored it.
         if (!isUniqueViolation(error)) throw error;

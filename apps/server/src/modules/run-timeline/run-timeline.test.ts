@@ -17,6 +17,7 @@ import { alertRulesSettled, testContext } from '../../test/harness';
 import { preparationFactory } from '../../test/preparations';
 import { jpegBytes, tinyPdf, tinyPng } from '../../test/sample-files';
 import { recordStatements } from '../../test/statements';
+import { maxTimelineEntries } from './run-timeline.service';
 
 const app = () => testContext().app;
 const people = { manager: '', member: '', otherMember: '', viewer: '' };
@@ -207,6 +208,40 @@ describe('appending to a run timeline', () => {
     expect(stop.deviation).toMatchObject({ reason: 'timer-ended-early', stepIndex: 1 });
   });
 
+  it('when the time carries an offset, then it is kept in UTC, and a recorded run still takes late entries', async () => {
+    const run = await openRunOfSteps(people.manager);
+    const entry = await appended(
+      run.id,
+      { kind: 'note', text: 'Sent from the bench', at: '2026-03-02T10:15:00+01:00' },
+      people.manager,
+    );
+    expect(entry.at).toBe('2026-03-02T09:15:00.000Z');
+    expect(entry.recordedBy).not.toBeNull();
+    await testContext().dataSource.query(
+      `UPDATE runs SET status = 'recorded' WHERE id = ${run.id}`,
+    );
+    // Entered offline before the run was recorded, sent after: kept.
+    await appended(run.id, { kind: 'reading', temperatureC: 21, at: at(30) }, people.manager);
+    const timeline = await timelineOf(run.id);
+    expect(timeline.status).toBe('recorded');
+    expect(timeline.entries).toHaveLength(2);
+  });
+
+  it('when a run holds the most entries it keeps, then one more is refused (409) saying so', async () => {
+    const run = await openRunOfSteps();
+    const { dataSource } = testContext();
+    const values = Array.from(
+      { length: maxTimelineEntries - 1 },
+      (_, i) => `(${run.id}, 'bulk-${i}-entry', 'note', '${at(i)}', 'n', '${at(i)}')`,
+    );
+    await dataSource.query(
+      `INSERT INTO run_timeline_entries (run_id, client_id, kind, at, text, received_at) VALUES ${values.join(', ')}`,
+    );
+    await appended(run.id, { text: 'the last one' });
+    const refused = await append(run.id, { text: 'one too many' }).expect(409);
+    expect(refused.body.error.message).toMatch(/already has 2000 timeline entries/);
+  });
+
   it('when the step is not one of the procedure, then it is refused naming the steps', async () => {
     const run = await openRunOfSteps();
     const response = await append(run.id, { kind: 'step-start', stepIndex: 3 }).expect(400);
@@ -309,6 +344,30 @@ describe('photos of a run', () => {
       text: 'Crystals',
     });
     expect(entry.photoUrl).toBe(photo.url);
+  });
+
+  it('when a WebP is uploaded, then it is kept as one; without a client id or a file it is refused', async () => {
+    const run = await openRunOfSteps();
+    // RIFF container, WEBP form, a lossless (VP8L) chunk: what file-type reads. // from memory
+    const webp = Buffer.concat([
+      Buffer.from('RIFF'),
+      Buffer.from([26, 0, 0, 0]),
+      Buffer.from('WEBPVP8L'),
+      Buffer.from([13, 0, 0, 0, 0x2f, 0, 0, 0, 0, 0x07, 0, 0, 0, 0, 0, 0, 0, 0]),
+    ]);
+    const kept = await upload(run.id, webp, 'dish').expect(201);
+    expect(kept.body).toMatchObject({ contentType: 'image/webp', fileName: 'dish.webp' });
+    const noId = await request(app())
+      .post(`/api/runs/${run.id}/photos`)
+      .set('Cookie', people.member)
+      .attach('file', tinyPng(), 'a.png')
+      .expect(400);
+    expect(noId.body.error.fields.clientId).toBe('is required');
+    await request(app())
+      .post(`/api/runs/${run.id}/photos`)
+      .set('Cookie', people.member)
+      .send({ clientId: clientId() })
+      .expect(415);
   });
 
   it('when the file is not an image, then it is refused naming the types allowed', async () => {
