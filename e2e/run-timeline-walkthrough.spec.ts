@@ -1,9 +1,6 @@
 import { expect, test } from '@playwright/test';
 import { demo, signIn } from './support';
 
-// A phone: the run's record is read at the bench as much as at a desk.
-test.use({ viewport: { width: 390, height: 844 } });
-
 interface RunListItem {
   id: number;
   deviationCount: number;
@@ -28,6 +25,8 @@ test.describe("a recorded run's timeline", () => {
     );
     expect(run, 'the demo run with a deviation').toBeDefined();
 
+    // On a phone: the run's record is read at the bench as much as at a desk.
+    await page.setViewportSize({ width: 390, height: 844 });
     await page.goto(`/preparations/runs/${run!.id}`);
 
     const timeline = page.getByRole('region', { name: 'Timeline' });
