@@ -41,8 +41,7 @@ export const aspirinSteps: ProcedureStepInput[] = [
       'Above 10 °C: add more ice to the bath. No crystals after 10 min: scratch the inside of the flask with a glass rod.',
     lineIndex: 3,
     addition: 'all at once, then swirl',
-    holdPoint:
-      'Do not filter until a thick crop of crystals has formed and the mixture is below 10 °C.',
+    holdPoint: 'a thick crop of crystals has formed and the mixture is below 10 °C',
   },
   {
     text: 'Collect the crystals by suction filtration, wash them with two small portions of ice-cold water and let them dry on the filter paper. Weigh the crude product.',
@@ -73,8 +72,8 @@ export const esterSteps: ProcedureStepInput[] = [
     caution: 'exothermicAddition',
   },
   {
-    text: 'Fit the reflux condenser, turn the cooling water on and clip the joints.',
-    holdPoint: 'Do not switch the heating mantle on until water flows through the condenser.',
+    text: 'Fit the reflux condenser, turn the cooling water on and clip the joints; only then switch the heating mantle on.',
+    holdPoint: 'water flows through the condenser and the joints are clipped',
   },
   {
     text: 'Heat under gentle reflux for 1 h with the mantle (never a flame): the ring of condensate stays in the lower third of the condenser.',
@@ -82,17 +81,17 @@ export const esterSteps: ProcedureStepInput[] = [
     caution: 'flammableSolvent',
   },
   {
-    text: 'Switch the mantle off and let the flask cool to room temperature.',
+    text: 'Switch the mantle off and let the flask cool to room temperature before taking the condenser off.',
     durationMinutes: 15,
     temperatureHighC: 30,
     outsideWindow: 'Still above 30 °C: lower the mantle away and wait a few more minutes.',
-    holdPoint: 'Do not take the condenser off until the flask is below 30 °C.',
+    holdPoint: 'the flask is below 30 °C',
   },
   {
     text: 'Pour the mixture into a separating funnel with 20 mL cold water, shake, run off the lower layer. Wash the ester with the bicarbonate solution, venting the funnel after every shake.',
     lineIndex: 3,
     addition: 'in three portions, venting after each',
-    holdPoint: 'Do not go on until the bicarbonate no longer fizzes on shaking.',
+    holdPoint: 'the bicarbonate no longer fizzes on shaking',
   },
   {
     text: 'Dry the ester over anhydrous sodium sulfate for 10 min, decant it into a small distillation flask and distil, collecting what comes over at 138–143 °C.',
@@ -104,12 +103,10 @@ export const esterSteps: ProcedureStepInput[] = [
   },
 ];
 
-/** 1 M sodium hydroxide. Lines: 0 sodium hydroxide, 1 water. */
+/** 1 M sodium hydroxide. Lines: 0 sodium hydroxide, 1 water (measured by the flask's mark). */
 export const hydroxideSteps: ProcedureStepInput[] = [
   {
-    text: 'Put about 150 mL of the water into a 400 mL beaker standing in a bowl of cold water, with a stirrer bar.',
-    lineIndex: 1,
-    addition: 'about three fifths of it; the rest makes up the volume',
+    text: 'Put about 150 mL of the water into a 400 mL beaker standing in a bowl of cold water, with a stirrer bar; the rest makes up the volume at the end.',
   },
   {
     text: 'Weigh the sodium hydroxide pellets quickly into a dry, stoppered weighing bottle: they take up water from the air.',
@@ -124,12 +121,11 @@ export const hydroxideSteps: ProcedureStepInput[] = [
     caution: 'exothermicAddition',
   },
   {
-    text: 'Let the solution cool to room temperature in the bath (about 20 min).',
+    text: 'Let the solution cool to room temperature in the bath (about 20 min) before making it up to the mark.',
     durationMinutes: 20,
     temperatureHighC: 25,
     outsideWindow: 'Still above 25 °C: change the water of the bath and wait.',
-    holdPoint:
-      'Do not make up to the mark until the solution is at room temperature: its volume shrinks as it cools.',
+    holdPoint: 'the solution is at room temperature (its volume shrinks as it cools)',
   },
   {
     text: 'Pour it into a 250 mL volumetric flask with three rinsings of the beaker, make up to the mark, stopper and invert ten times. Label the bottle with the date and your name.',
@@ -149,7 +145,7 @@ export const dibenzalacetoneSteps: ProcedureStepInput[] = [
   {
     text: 'Measure the benzaldehyde into a small dry beaker and add the acetone; swirl to mix. No flames on the bench.',
     lineIndex: 1,
-    addition: 'the acetone into the benzaldehyde',
+    addition: 'into the benzaldehyde',
     caution: 'flammableSolvent',
   },
   {
@@ -173,13 +169,13 @@ export const dibenzalacetoneSteps: ProcedureStepInput[] = [
     durationMinutes: 10,
     temperatureHighC: 10,
     outsideWindow: 'Above 10 °C: add more ice and stir the bath.',
-    holdPoint: 'Do not filter until the mixture is below 10 °C and the solid has settled.',
+    holdPoint: 'the mixture is below 10 °C and the solid has settled',
   },
   {
     text: 'Collect the solid by suction filtration and wash it with the cold water until the washings are neutral.',
     lineIndex: 4,
     addition: 'in three or four portions',
-    holdPoint: 'Do not go on until the washings test neutral on pH paper.',
+    holdPoint: 'the washings test neutral on pH paper',
   },
   {
     text: 'Recrystallise from hot ethanol on a water bath (never a flame), let it cool, then collect and dry the crystals.',
