@@ -87,7 +87,7 @@ export function runTimelineRoutes(
       path: '/api/runs/:id/photos/:photoId',
       access: 'procedures.read',
       summary: 'Download a photo of a run',
-      response: { contentType: 'image/jpeg', description: 'The photo, with its own content type.' },
+      response: { contentType: 'image/*', description: 'The photo as stored: JPEG, PNG or WebP.' },
       params: photoParamsSchema,
       handle: async ({ params, res }) => {
         const file = await photos.photo(params.id, params.photoId);

@@ -68,25 +68,38 @@ function entryValues(
 
   if (input.kind === 'reading' && stepIndex === null) stepIndex = currentStepAt(events, at);
   if (input.kind === 'timer-start') {
-    durationMinutes = input.durationMinutes ?? steps[stepIndex!]?.durationMinutes ?? null;
+    durationMinutes =
+      input.durationMinutes ?? (stepIndex === null ? null : steps[stepIndex]!.durationMinutes);
     if (durationMinutes === null) {
-      const message = `${stepLabel(stepIndex!)} has no set time: give the timer a duration`;
+      const message = `${stepLabel(stepIndex ?? 0)} has no set time: give the timer a duration`;
       throw AppError.validation(`${message.charAt(0).toUpperCase()}${message.slice(1)}.`, {
         durationMinutes: message,
       });
     }
     endsAt = new Date(Date.parse(at) + durationMinutes * 60_000).toISOString();
   }
+  let judged = { events, steps };
   if (input.kind === 'timer-end') {
     const timer = timerToStop(run, earlier, input);
     timerClientId = timer.clientId;
-    stepIndex ??= timer.stepIndex;
+    stepIndex = timer.stepIndex ?? stepIndex;
+    // Judged against the timer it stops, for the time that timer was set to run.
+    judged = {
+      events: earlier
+        .filter((row) => row.kind !== 'timer-start' || row.id === timer.id)
+        .map(eventOf),
+      steps: steps.map((step, index) =>
+        index === timer.stepIndex && timer.durationMinutes !== null
+          ? { ...step, durationMinutes: timer.durationMinutes }
+          : step,
+      ),
+    };
   }
 
   const deviation = deviationOf(
     { kind: input.kind, at, stepIndex, temperatureC: input.temperatureC },
-    events,
-    steps,
+    judged.events,
+    judged.steps,
   );
   return {
     runId: run.id,

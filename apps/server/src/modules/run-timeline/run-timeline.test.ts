@@ -205,7 +205,24 @@ describe('appending to a run timeline', () => {
     const run = await openRunOfSteps();
     await appended(run.id, { kind: 'timer-start', stepIndex: 1, at: at(0) });
     const stop = await appended(run.id, { kind: 'timer-end', stepIndex: 1, at: at(5) });
-    expect(stop.deviation).toMatchObject({ reason: 'timer-ended-early', stepIndex: 1 });
+    expect(stop.deviation).toMatchObject({
+      reason: 'timer-ended-early',
+      stepIndex: 1,
+      message: 'the timer of step 2 was stopped after 5 min of its 15 min',
+    });
+    // A shorter timer of its own inside the step, stopped when it rang: no deviation.
+    const short = await appended(run.id, {
+      kind: 'timer-start',
+      stepIndex: 1,
+      durationMinutes: 3,
+      at: at(6),
+    });
+    const rang = await appended(run.id, {
+      kind: 'timer-end',
+      timerClientId: short.clientId,
+      at: at(9),
+    });
+    expect(rang).toMatchObject({ stepIndex: 1, deviation: null });
   });
 
   it('when the time carries an offset, then it is kept in UTC, and a recorded run still takes late entries', async () => {
@@ -337,6 +354,19 @@ describe('photos of a run', () => {
       .expect(200);
     expect(fetched.headers['content-type']).toBe('image/png');
     expect(Buffer.compare(fetched.body as Buffer, tinyPng())).toBe(0);
+
+    // The same photo sent twice at the same moment: kept once, the other copy removed.
+    const twiceId = clientId();
+    const twice = await Promise.all([
+      upload(run.id, tinyPng(), 'again.png', twiceId),
+      upload(run.id, tinyPng(), 'again.png', twiceId),
+    ]);
+    expect(twice.map((r) => r.status).sort()).toEqual([200, 201]);
+    expect(twice[0]!.body.uploadId).toBe(twice[1]!.body.uploadId);
+    const kept = await readdir(testContext().config.uploadDir);
+    expect(kept.filter((name) => !name.startsWith('.')).length).toBe(
+      before.filter((name) => !name.startsWith('.')).length + 2,
+    );
 
     const entry = await appended(run.id, {
       kind: 'photo',
