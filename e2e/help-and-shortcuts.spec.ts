@@ -6,6 +6,11 @@ async function leaveFields(page: Page) {
   await page.evaluate(() => (document.activeElement as HTMLElement | null)?.blur());
 }
 
+/** The shortcuts load just after the first page shows; the body says when they listen. */
+async function shortcutsListening(page: Page) {
+  await expect(page.locator('body[data-shortcuts="on"]')).toHaveCount(1, { timeout: 30_000 });
+}
+
 test.describe('help and keyboard shortcuts', () => {
   // Each test signs in and walks several pages, each loading its code the first time.
   test.describe.configure({ timeout: 120_000 });
@@ -20,6 +25,7 @@ test.describe('help and keyboard shortcuts', () => {
     const helpLink = page
       .getByRole('navigation', { name: 'Main' })
       .getByRole('link', { name: 'Help' });
+    await shortcutsListening(page);
     await helpLink.focus();
 
     await page.keyboard.press('?');
@@ -47,6 +53,7 @@ test.describe('help and keyboard shortcuts', () => {
     await signIn(page, demo.member);
     await page.goto('/help');
     await expect(page.getByRole('heading', { name: 'Help', level: 1 })).toBeVisible(opened);
+    await shortcutsListening(page);
 
     await page.keyboard.press('g');
     await page.keyboard.press('s');
@@ -64,6 +71,7 @@ test.describe('help and keyboard shortcuts', () => {
     await page.goto('/help');
     await expect(page.getByRole('heading', { name: 'Help', level: 1 })).toBeVisible(opened);
     const search = page.getByRole('combobox', { name: 'Search chemicals and containers' });
+    await shortcutsListening(page);
 
     await page.keyboard.press('/');
     await expect(search).toBeFocused();
@@ -85,6 +93,7 @@ test.describe('help and keyboard shortcuts', () => {
     await page.goto(`/stock/containers/${items[0]!.id}`);
     const form = page.getByRole('form', { name: 'Record a draw' });
     await expect(form).toBeVisible(opened);
+    await shortcutsListening(page);
 
     await leaveFields(page);
     await page.keyboard.press('d');

@@ -4,7 +4,6 @@ import {
   runRecordSchema,
   todayIso,
   type Chemical,
-  type ProcedureCreate,
   type RunRecord,
   type User,
 } from '@lotwise/shared';
@@ -12,170 +11,15 @@ import type { Repositories } from '../store';
 import { insertProcedure } from '../../modules/procedures/procedures.service';
 import { openRun, recordRunWith } from '../../modules/runs/runs.service';
 import { presentUser } from '../../modules/users/users.service';
+import { demoProcedures } from './demo-procedures';
+import {
+  aspirinTimeline,
+  dibenzalacetoneTimeline,
+  seedRunTimeline,
+  type DemoTimelineEntry,
+} from './demo-timelines';
 
-/** Chemicals the demo makes in-house and never buys. */
-export const preparedOnlyChemicals = new Set(['Sodium hydroxide solution 1 M']);
-
-/**
- * The demo lab's procedures (invented quantities, typical of teaching handouts). The 1 M
- * sodium hydroxide solution made by one is the base of the dibenzalacetone prep: a chain.
- */
-function demoProcedures(id: (name: string) => number): ProcedureCreate[] {
-  return [
-    {
-      title: 'Aspirin from salicylic acid and acetic anhydride',
-      reference: 'Lotwise demo handout A1 (invented): acetylation of salicylic acid.',
-      baseScale: 'One bench: 2.0 g salicylic acid.',
-      expectedYieldPercent: 80,
-      // from memory: acetylsalicylic acid melts at about 135–136 °C
-      literatureMeltingC: { low: 135, high: 136 },
-      cautions:
-        'Acetic anhydride is corrosive and its vapour irritates the eyes: dispense it in the fume hood. Adding water to destroy the excess anhydride is exothermic: add it slowly.',
-      cautionFlags: { exothermicAddition: true, fumeHood: true },
-      lines: [
-        {
-          chemicalId: id('Salicylic acid'),
-          role: 'limiting-reagent',
-          quantity: 2.0,
-          unit: 'g',
-          coefficient: 1,
-        },
-        {
-          chemicalId: id('Acetic anhydride'),
-          role: 'reagent',
-          quantity: 5.0,
-          unit: 'mL',
-          coefficient: 1,
-        },
-        {
-          chemicalId: id('Phosphoric acid 85 %'),
-          role: 'catalyst',
-          quantity: 0.25,
-          unit: 'mL',
-          notes: 'About 5 drops; 3 drops of sulfuric acid 98 % also work.',
-        },
-        {
-          chemicalId: id('Water, deionised'),
-          role: 'work-up',
-          quantity: 50,
-          unit: 'mL',
-          notes: 'Ice-cold, to bring the product down.',
-        },
-        { chemicalId: id('Acetylsalicylic acid'), role: 'product', coefficient: 1 },
-      ],
-    },
-    {
-      title: 'Isoamyl acetate by Fischer esterification',
-      reference: 'Lotwise demo handout E2 (invented): acid-catalysed esterification, reflux 1 h.',
-      baseScale: 'One bench: 5.0 mL isoamyl alcohol.',
-      expectedYieldPercent: 60,
-      cautions:
-        'Sulfuric acid 98 % is corrosive: add it dropwise to the cooled mixture. Isoamyl alcohol and the ester are flammable: heat with a mantle, never a flame. The bicarbonate wash gives off carbon dioxide: vent the separating funnel often.',
-      cautionFlags: { flammableSolvent: true, exothermicAddition: true, fumeHood: true },
-      lines: [
-        {
-          chemicalId: id('Isoamyl alcohol'),
-          role: 'limiting-reagent',
-          quantity: 5.0,
-          unit: 'mL',
-          coefficient: 1,
-        },
-        {
-          chemicalId: id('Acetic acid, glacial'),
-          role: 'reagent',
-          quantity: 7.0,
-          unit: 'mL',
-          coefficient: 1,
-        },
-        { chemicalId: id('Sulfuric acid 98 %'), role: 'catalyst', quantity: 1.0, unit: 'mL' },
-        {
-          chemicalId: id('Sodium bicarbonate'),
-          role: 'work-up',
-          quantity: 2.5,
-          unit: 'g',
-          notes: 'A 5 % wash: 2.5 g dissolved in 50 mL water.',
-          dissolvedIn: { chemicalId: id('Water, deionised'), quantity: 50, unit: 'mL' },
-        },
-        { chemicalId: id('Isoamyl acetate'), role: 'product', coefficient: 1 },
-      ],
-    },
-    {
-      title: 'Sodium hydroxide solution 1 M',
-      reference: 'Lotwise demo handout S1 (invented): 10.0 g in water, made up to 250 mL.',
-      baseScale: '250 mL of solution.',
-      expectedYieldPercent: 95,
-      cautions:
-        'Dissolving sodium hydroxide gives out a lot of heat: add the pellets to the water a little at a time, with stirring, in a beaker that stands in cold water. Wear eye protection: the solution is corrosive.',
-      cautionFlags: { exothermicAddition: true, keepBelowC: 40 },
-      lines: [
-        {
-          chemicalId: id('Sodium hydroxide'),
-          role: 'limiting-reagent',
-          quantity: 10.0,
-          unit: 'g',
-          coefficient: 1,
-        },
-        {
-          chemicalId: id('Water, deionised'),
-          role: 'solvent',
-          quantity: 250,
-          unit: 'mL',
-          notes: 'Make up to the mark of a 250 mL volumetric flask.',
-        },
-        {
-          chemicalId: id('Sodium hydroxide solution 1 M'),
-          role: 'product',
-          coefficient: 1,
-          concentration: { molarity: 1 },
-        },
-      ],
-    },
-    {
-      title: 'Dibenzalacetone by aldol condensation',
-      reference: 'Lotwise demo handout C3 (invented): Claisen–Schmidt condensation, 2 : 1.',
-      baseScale: 'One bench: 0.70 mL acetone.',
-      expectedYieldPercent: 75,
-      // from memory: the trans,trans isomer melts at about 110–111 °C
-      literatureMeltingC: { low: 110, high: 111 },
-      cautions:
-        'Benzaldehyde and ethanol are combustible: no flames. The base is corrosive. Keep the mixture near room temperature while the benzaldehyde is added.',
-      cautionFlags: { flammableSolvent: true, keepBelowC: 30 },
-      lines: [
-        {
-          chemicalId: id('Benzaldehyde'),
-          role: 'reagent',
-          quantity: 2.0,
-          unit: 'mL',
-          coefficient: 2,
-        },
-        {
-          chemicalId: id('Acetone'),
-          role: 'limiting-reagent',
-          quantity: 0.7,
-          unit: 'mL',
-          coefficient: 1,
-        },
-        {
-          chemicalId: id('Sodium hydroxide solution 1 M'),
-          role: 'catalyst',
-          quantity: 20,
-          unit: 'mL',
-          concentration: { molarity: 1 },
-          notes: 'Made with the "Sodium hydroxide solution 1 M" procedure.',
-        },
-        { chemicalId: id('Ethanol'), role: 'solvent', quantity: 15, unit: 'mL' },
-        {
-          chemicalId: id('Water, deionised'),
-          role: 'work-up',
-          quantity: 50,
-          unit: 'mL',
-          notes: 'Cold, to wash the crystals.',
-        },
-        { chemicalId: id('Dibenzalacetone'), role: 'product', coefficient: 1 },
-      ],
-    },
-  ];
-}
+export { preparedOnlyChemicals } from './demo-procedures';
 
 type DrawSpec = [chemical: string, amount: number, unit: string, weigh?: boolean];
 
@@ -192,6 +36,8 @@ interface RunSpec {
   appearance?: string;
   notes?: string;
   volumeProduct?: boolean;
+  /** What happened at the bench, step by step (two runs have one). */
+  timeline?: DemoTimelineEntry[];
 }
 
 /** Eleven recorded runs with realistic yields, oldest first (invented). */
@@ -320,6 +166,7 @@ const demoRuns: RunSpec[] = [
     daysAgo: 50,
     factor: 0.5,
     by: 'member',
+    timeline: aspirinTimeline,
     lines: [
       ['Salicylic acid', 1.0, 'g'],
       ['Acetic anhydride', 2.5, 'mL'],
@@ -367,6 +214,9 @@ const demoRuns: RunSpec[] = [
     daysAgo: 15,
     factor: 1,
     by: 'manager',
+    timeline: dibenzalacetoneTimeline,
+    notes:
+      'The addition ran warm once (31.5 °C): stopped, ice added to the bath, then on more slowly.',
     lines: [
       ['Benzaldehyde', 2.0, 'mL'],
       ['Acetone', 0.7, 'mL'],
@@ -450,6 +300,9 @@ export async function seedDemoPreparations(
       actor,
       `${on}T09:00:00.000Z`,
     );
+    if (spec.timeline) {
+      await seedRunTimeline(repos, runId, spec.timeline, `${on}T09:15:00.000Z`, actor);
+    }
     const draw = async ([chemical, amount, unit, weigh]: DrawSpec) => {
       const container = await containerFor(chemical, amount, on);
       const tare = (await repos.containers.findRow(container.id))!.tareMass;

@@ -181,6 +181,67 @@ describe('demo seed', () => {
     expect(naoh.suggestions[1].procedureId).toBe(solution.id);
   });
 
+  it('when seeded, then every procedure has timed steps with a hold point, and two recorded runs have full timelines, one with a reading above its window', async () => {
+    const app = createApp({ dataSource, config });
+    const login = await request(app)
+      .post('/api/auth/login')
+      .send({ email: 'member.one@example.test', password: demoPassword })
+      .expect(200);
+    const cookie = String([login.headers['set-cookie']].flat()[0]).split(';')[0]!;
+    const get = (path: string) => request(app).get(path).set('Cookie', cookie).expect(200);
+    type Step = { durationMinutes: number | null; temperatureHighC: number | null };
+    type StepWith = Step & { holdPoint: string; lineIndex: number | null; addition: string };
+    for (const procedure of (await get('/api/procedures')).body.items) {
+      const steps: StepWith[] = (await get(`/api/procedures/${procedure.id}`)).body.steps;
+      expect(steps.length, procedure.title).toBeGreaterThanOrEqual(5);
+      expect(
+        steps.some((step) => step.holdPoint),
+        procedure.title,
+      ).toBe(true);
+      expect(
+        steps.some((step) => step.durationMinutes !== null),
+        procedure.title,
+      ).toBe(true);
+      expect(
+        steps.some((step) => step.lineIndex !== null && step.addition),
+        procedure.title,
+      ).toBe(true);
+    }
+    const dba = (await get('/api/procedures')).body.items.find((p: { title: string }) =>
+      p.title.startsWith('Dibenzalacetone'),
+    );
+    const addition: Step = (await get(`/api/procedures/${dba.id}`)).body.steps[2];
+    expect(addition).toMatchObject({ durationMinutes: 20, temperatureHighC: 30 });
+
+    const runs = (await get('/api/runs?status=recorded&pageSize=50')).body.items;
+    const timelines = [];
+    for (const run of runs) {
+      const timeline = (await get(`/api/runs/${run.id}/timeline`)).body;
+      if (timeline.entries.length > 0) timelines.push({ run, timeline });
+    }
+    expect(timelines).toHaveLength(2);
+    for (const { run, timeline } of timelines) {
+      const readings = timeline.entries.filter((e: { kind: string }) => e.kind === 'reading');
+      expect(readings.length).toBeGreaterThanOrEqual(6);
+      expect(readings.length).toBeLessThanOrEqual(12);
+      expect(timeline.runningTimers).toEqual([]);
+      expect(timeline.currentStepIndex).toBeNull();
+      // Every step started and ended, on the day the run was performed.
+      for (const step of timeline.steps) {
+        expect(step.startedAt?.slice(0, 10)).toBe(run.performedOn);
+        expect(step.endedAt).not.toBeNull();
+      }
+    }
+    const deviations = timelines.flatMap(({ timeline }) => timeline.deviations);
+    expect(deviations).toHaveLength(1);
+    expect(deviations[0].deviation).toMatchObject({
+      reason: 'reading-outside-window',
+      stepIndex: 2,
+    });
+    expect(deviations[0].deviation.message).toContain('31.5 °C');
+    expect(deviations[0].deviation.instruction).toMatch(/Stop the addition/);
+  });
+
   it('when searching the demo stock, then synonyms such as aspirin and THF find their chemical', async () => {
     const store = openStore(dataSource);
     for (const [q, name] of [

@@ -1,4 +1,4 @@
-import { Suspense } from 'react';
+import { lazy, Suspense } from 'react';
 import { Link, Outlet, ScrollRestoration, useNavigate, useNavigation } from 'react-router';
 import { LogOut, Menu, X } from 'lucide-react';
 import { can, roleLabels, type User } from '@lotwise/shared';
@@ -11,9 +11,14 @@ import { useSignOut } from '../../features/auth/api';
 import { ScanLabelButton } from '../../features/label-scan/components/scan-label-button';
 import { GlobalSearch } from '../../features/search/components/global-search';
 import { cn } from '../../lib/cn';
-import { KeyboardShortcuts } from './keyboard-shortcuts';
 import { SideNav } from './side-nav';
 import { useNavMenu } from './use-nav-menu';
+
+// The shortcuts and their overlay load just after the first page shows: no page needs them to
+// open, and the chemicals list keeps within its size budget (bench/web-size.ts).
+const KeyboardShortcuts = lazy(async () => ({
+  default: (await import('../../components/shortcuts/keyboard-shortcuts')).KeyboardShortcuts,
+}));
 
 function SignOutButton({ className }: { className?: string }) {
   const signOut = useSignOut();
@@ -160,7 +165,9 @@ export function AppShell({ user }: { user: User }) {
           </div>
         </main>
       </div>
-      <KeyboardShortcuts role={user.role} />
+      <Suspense fallback={null}>
+        <KeyboardShortcuts role={user.role} />
+      </Suspense>
     </div>
   );
 }

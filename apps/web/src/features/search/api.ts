@@ -1,5 +1,4 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
-import { searchResultSchema } from '@lotwise/shared';
 import { api, withQuery } from '../../lib/api-client';
 
 export const searchKeys = {
@@ -12,8 +11,16 @@ export function useGlobalSearch(q: string) {
   const trimmed = q.trim();
   return useQuery({
     queryKey: searchKeys.results(trimmed),
-    queryFn: ({ signal }) =>
-      api.get(withQuery('/api/search', { q: trimmed, limit: 8 }), searchResultSchema, signal),
+    // The answer's schema (and the container and lot schemas it holds) loads with the first
+    // search, not with every page's top bar.
+    queryFn: async ({ signal }) => {
+      const { searchResultSchema } = await import('./result-schema');
+      return api.get(
+        withQuery('/api/search', { q: trimmed, limit: 8 }),
+        searchResultSchema,
+        signal,
+      );
+    },
     enabled: trimmed.length > 0,
     placeholderData: keepPreviousData,
     staleTime: 10_000,

@@ -1,12 +1,12 @@
 import { lazy, Suspense, useCallback, useState } from 'react';
 import { ScanLine } from 'lucide-react';
 import { Button } from '../../../components/ui/button';
-import { Dialog } from '../../../components/ui/dialog';
-import { PageSpinner } from '../../../components/ui/spinner';
 import { useCameraLikely } from '../use-camera';
 
-const LabelScanner = lazy(async () => ({
-  default: (await import('./label-scanner')).LabelScanner,
+// The dialog and the camera view load when the button is first pressed: the top bar of every
+// page carries only the button.
+const ScanLabelDialog = lazy(async () => ({
+  default: (await import('./scan-label-dialog')).ScanLabelDialog,
 }));
 
 /**
@@ -16,6 +16,8 @@ const LabelScanner = lazy(async () => ({
 export function ScanLabelButton() {
   const likely = useCameraLikely();
   const [open, setOpen] = useState(false);
+  // Once opened, the dialog stays mounted (closed), so that closing returns the focus here.
+  const [wanted, setWanted] = useState(false);
   const close = useCallback(() => setOpen(false), []);
   if (!likely) return null;
   return (
@@ -24,21 +26,19 @@ export function ScanLabelButton() {
         variant="secondary"
         className="min-h-11 shrink-0 md:min-h-9"
         icon={<ScanLine aria-hidden="true" className="size-4" />}
-        onClick={() => setOpen(true)}
+        onClick={() => {
+          setWanted(true);
+          setOpen(true);
+        }}
         title="Scan a container’s QR label with the camera"
       >
         <span className="sr-only sm:not-sr-only">Scan a label</span>
       </Button>
-      <Dialog
-        open={open}
-        onClose={close}
-        title="Scan a label"
-        description="Point the camera at a container’s QR label: its page opens, ready to record a draw."
-      >
-        <Suspense fallback={<PageSpinner label="Opening the camera view…" />}>
-          <LabelScanner onDone={close} />
+      {wanted && (
+        <Suspense fallback={null}>
+          <ScanLabelDialog open={open} onClose={close} />
         </Suspense>
-      </Dialog>
+      )}
     </>
   );
 }

@@ -1,8 +1,8 @@
 import { useEffect, useRef, useState } from 'react';
 import { Link, matchPath, useLocation, useNavigate } from 'react-router';
 import type { Role } from '@lotwise/shared';
-import { ShortcutList } from '../../components/shortcuts/shortcut-list';
-import { Dialog } from '../../components/ui/dialog';
+import { ShortcutList } from './shortcut-list';
+import { Dialog } from '../ui/dialog';
 import { paths } from '../../config/paths';
 import { withQuery } from '../../lib/api-client';
 import {
@@ -103,9 +103,12 @@ export function KeyboardShortcuts({ role }: { role: Role }) {
     }
 
     document.addEventListener('keydown', handleKeyDown);
+    // This part loads just after the first page shows: the mark says the keys are listened to.
+    document.body.dataset.shortcuts = 'on';
     return () => {
       clearTimeout(timer);
       document.removeEventListener('keydown', handleKeyDown);
+      delete document.body.dataset.shortcuts;
     };
   }, [navigate, role, pathname]);
 

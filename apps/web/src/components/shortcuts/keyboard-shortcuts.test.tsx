@@ -24,9 +24,15 @@ function setup(role: 'member' | 'viewer' = 'member') {
   });
 }
 
+/** The shortcuts load just after the first page shows (a lazy part of the app shell). */
+async function shortcutsListening() {
+  await waitFor(() => expect(document.body.dataset.shortcuts).toBe('on'));
+}
+
 async function openHelp() {
   const view = renderApp(paths.help);
   await screen.findByRole('heading', { name: 'Help', level: 1 });
+  await shortcutsListening();
   return view;
 }
 
@@ -122,6 +128,7 @@ describe('keyboard shortcuts', () => {
     const user = userEvent.setup();
     renderApp(paths.stockContainer(42));
     const form = await screen.findByRole('form', { name: 'Record a draw' });
+    await shortcutsListening();
     await user.keyboard('d');
     const focused = document.activeElement;
     expect(form.contains(focused)).toBe(true);

@@ -1,0 +1,2 @@
+/** The search's answer schema, loaded with the first search (see api.ts). */
+export { searchResultSchema } from '@lotwise/shared';
