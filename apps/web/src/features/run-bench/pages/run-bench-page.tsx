@@ -1,12 +1,18 @@
 import { useMemo, useState } from 'react';
 import { Link, useParams } from 'react-router';
-import type { Procedure, Run, RunTimeline, TimelineEntryInput } from '@lotwise/shared';
+import {
+  mayRecordRun,
+  type Procedure,
+  type Run,
+  type RunTimeline,
+  type TimelineEntryInput,
+} from '@lotwise/shared';
 import { ChevronLeft } from 'lucide-react';
 import { ErrorState } from '../../../components/ui/error-state';
 import { Notice } from '../../../components/ui/notice';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { paths } from '../../../config/paths';
-import { useCan } from '../../../lib/auth';
+import { useCurrentUser } from '../../../lib/auth';
 import { useBenchProcedure, useBenchRun, useRunTimeline } from '../api';
 import { unlockAlarmSound } from '../lib/alarm';
 import { benchState, type BenchEntry } from '../lib/bench-state';
@@ -62,7 +68,12 @@ function BenchView({
 }) {
   const now = useNow();
   const queue = useBenchQueue(run.id);
-  const mayWrite = useCan('runs.record') && timeline.status === 'open';
+  const user = useCurrentUser().data;
+  // The server's own rule: the person running it, or a manager.
+  const mayWrite =
+    !!user &&
+    mayRecordRun(user, { performerId: run.performedBy?.id ?? null }) &&
+    timeline.status === 'open';
   const [browsed, setBrowsed] = useState<number | null>(null);
   const [lastReading, setLastReading] = useState<string | null>(null);
 
@@ -143,7 +154,7 @@ function BenchView({
       )}
       {timeline.status === 'open' && !mayWrite && (
         <Notice title="You are following this run">
-          The timeline refreshes by itself. Only people who record runs can add to it.
+          The timeline refreshes by itself. Only the person running it, or a manager, can add to it.
         </Notice>
       )}
 
