@@ -151,14 +151,15 @@ export function CurrentStep({
           )}
           {underWay &&
             (step.holdPoint ? (
-              <Button
-                variant="primary"
-                className="h-auto min-h-9 py-1.5 text-left whitespace-normal"
-                icon={<CircleCheck aria-hidden="true" className="size-4 shrink-0" />}
+              // A long hold point wraps: a plain button, as the shared one keeps to one line.
+              <button
+                type="button"
+                className="inline-flex min-h-11 items-center gap-2 rounded-md border border-accent-700 bg-accent-600 px-3.5 py-2 text-left text-sm font-medium text-white hover:bg-accent-700"
                 onClick={() => actions.end(index)}
               >
-                Done: {step.holdPoint}
-              </Button>
+                <CircleCheck aria-hidden="true" className="size-4 shrink-0" />
+                <span>Done: {step.holdPoint}</span>
+              </button>
             ) : (
               <Button
                 icon={<Square aria-hidden="true" className="size-4" />}

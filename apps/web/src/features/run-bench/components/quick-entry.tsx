@@ -1,4 +1,4 @@
-import { useRef, useState, type FormEvent } from 'react';
+import { useRef, useState, type FormEvent, type ReactNode } from 'react';
 import { runPhotoContentTypes, runPhotoMaxBytes } from '@lotwise/shared';
 import { Camera, NotebookPen, Thermometer } from 'lucide-react';
 import { Button } from '../../../components/ui/button';
@@ -43,7 +43,7 @@ function ReadingForm({ onAdd }: { onAdd: QuickEntryActions['reading'] }) {
     <form
       onSubmit={handleSubmit}
       noValidate
-      aria-label="Temperature reading"
+      aria-label="New reading"
       className="flex flex-col gap-2"
     >
       <div className="flex flex-wrap items-end gap-2">
@@ -114,7 +114,7 @@ function NoteForm({ onAdd }: { onAdd: QuickEntryActions['note'] }) {
     <form
       onSubmit={handleSubmit}
       noValidate
-      aria-label="Observation"
+      aria-label="New observation"
       className="flex flex-col gap-2"
     >
       <Field label="Observation" error={error}>
@@ -167,7 +167,7 @@ function PhotoForm({ onAdd }: { onAdd: QuickEntryActions['photo'] }) {
     if (input.current) input.current.value = '';
   };
   return (
-    <form onSubmit={handleSubmit} noValidate aria-label="Photo" className="flex flex-col gap-2">
+    <form onSubmit={handleSubmit} noValidate aria-label="New photo" className="flex flex-col gap-2">
       <Field label="Photo" error={error} hint="Opens the camera on a phone or tablet.">
         {(control) => (
           <input
@@ -204,8 +204,17 @@ function PhotoForm({ onAdd }: { onAdd: QuickEntryActions['photo'] }) {
   );
 }
 
-/** Readings, observations and photos, each added to the timeline the moment it is taken. */
-export function QuickEntry({ actions }: { actions: QuickEntryActions }) {
+/**
+ * Readings, observations and photos, each added to the timeline the moment it is taken;
+ * `readingFeedback` says under the reading what became of it (inside its window or not).
+ */
+export function QuickEntry({
+  actions,
+  readingFeedback,
+}: {
+  actions: QuickEntryActions;
+  readingFeedback?: ReactNode;
+}) {
   return (
     <section
       aria-labelledby="quick-entry-heading"
@@ -215,6 +224,7 @@ export function QuickEntry({ actions }: { actions: QuickEntryActions }) {
         Add to the timeline
       </h2>
       <ReadingForm onAdd={actions.reading} />
+      <div aria-live="polite">{readingFeedback}</div>
       <div className="grid gap-4 border-t border-ink-100 pt-3 md:grid-cols-2">
         <NoteForm onAdd={actions.note} />
         <PhotoForm onAdd={actions.photo} />

@@ -76,7 +76,7 @@ export function TimelineList({
             >
               <time
                 dateTime={entry.at}
-                className="w-12 shrink-0 pt-0.5 text-sm text-ink-600 tabular-nums"
+                className="w-16 shrink-0 pt-0.5 text-sm whitespace-nowrap text-ink-600 tabular-nums"
               >
                 {formatClock(entry.at)}
               </time>

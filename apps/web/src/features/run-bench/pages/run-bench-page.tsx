@@ -179,12 +179,14 @@ function BenchView({
           <RunningTimers timers={counting} now={now} mayWrite={mayWrite} onStop={stopTimer} />
           {mayWrite && (
             <>
-              <QuickEntry actions={entryActions} />
-              <div aria-live="polite">
-                <ReadingFeedback
-                  entry={state.entries.find((entry) => entry.clientId === lastReading)}
-                />
-              </div>
+              <QuickEntry
+                actions={entryActions}
+                readingFeedback={
+                  <ReadingFeedback
+                    entry={state.entries.find((entry) => entry.clientId === lastReading)}
+                  />
+                }
+              />
               <section
                 aria-labelledby="bench-timers-heading"
                 className="flex flex-col gap-3 rounded-lg border border-ink-200 bg-white px-4 py-3"
