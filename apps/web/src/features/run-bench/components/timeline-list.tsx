@@ -43,7 +43,7 @@ function PhotoThumb({ entry }: { entry: BenchEntry }) {
     <img
       src={src}
       alt={entry.text ? `Photo: ${entry.text}` : `Photo taken at ${formatClock(entry.at)}`}
-      className="mt-1 max-h-40 rounded-md border border-ink-200"
+      className="mt-1 max-h-40 max-w-full rounded-md border border-ink-200"
     />
   );
 }

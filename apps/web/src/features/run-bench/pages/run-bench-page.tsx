@@ -140,13 +140,15 @@ function BenchView({
       </header>
 
       <TimerAlarms ended={ended} mayWrite={mayWrite} onStop={stopTimer} />
-      <QueueStatus
-        waiting={state.waitingCount}
-        refused={state.refused.length}
-        online={queue.online}
-        sending={queue.sending}
-        problem={queue.lastProblem}
-      />
+      {queue.items !== null && (
+        <QueueStatus
+          waiting={state.waitingCount}
+          refused={state.refused.length}
+          online={queue.online}
+          sending={queue.sending}
+          problem={queue.lastProblem}
+        />
+      )}
       {timeline.status === 'recorded' && (
         <Notice title="This run is recorded">
           Its timeline is closed: it can be read here and in the run&apos;s record.
