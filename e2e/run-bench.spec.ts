@@ -145,6 +145,29 @@ test('at the bench: a timer rings, a reading outside the window is flagged, entr
   };
   expect(await stored()).toEqual([9.5, 6.1, 6.4, 6.8]);
 
+  // A photo from the device's camera (here a file), uploaded and then added to the timeline.
+  await page.getByLabel('Photo', { exact: true }).setInputFiles({
+    name: 'bench.png',
+    mimeType: 'image/png',
+    buffer: Buffer.from(
+      'iVBORw0KGgoAAAANSUhEUgAAAAIAAAACCAIAAAD91JpzAAAAFklEQVR4nGP4z8DAwMDAxMDAwMDAAAANHQEDasKb6QAAAABJRU5ErkJggg==',
+      'base64',
+    ),
+  });
+  await page.getByLabel('Caption').fill('Colour after the addition');
+  await page.getByRole('button', { name: 'Add photo' }).click();
+  await expect(page.getByRole('img', { name: 'Photo: Colour after the addition' })).toBeVisible();
+  await expect(page.getByTestId('queue-status')).toHaveText('All entries sent');
+  const photos = (
+    (await (await page.request.get(`/api/runs/${runId}/timeline`)).json()) as {
+      entries: { kind: string; photoUrl: string | null }[];
+    }
+  ).entries.filter((entry) => entry.kind === 'photo');
+  expect(photos).toHaveLength(1);
+  expect((await page.request.get(photos[0]!.photoUrl!)).headers()['content-type']).toBe(
+    'image/png',
+  );
+
   // Opened again: nothing waits on the device, nothing is sent twice.
   await page.reload();
   await expect(page.getByTestId('queue-status')).toHaveText('All entries sent');
