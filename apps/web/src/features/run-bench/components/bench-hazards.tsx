@@ -1,4 +1,4 @@
-import { hazardStatementTexts, type Procedure } from '@lotwise/shared';
+import { hazardStatementTexts, type GhsCode, type Procedure } from '@lotwise/shared';
 import { TriangleAlert } from 'lucide-react';
 import { PictogramList } from '../../../components/hazards/pictogram-badge';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
@@ -47,5 +47,20 @@ export function BenchHazards({ procedure }: { procedure: Pick<Procedure, 'lines'
         ))}
       </ul>
     </section>
+  );
+}
+
+/** Every pictogram of the procedure's chemicals at a glance, pointing to the hazards in full. */
+export function BenchHazardStrip({ procedure }: { procedure: Pick<Procedure, 'lines'> }) {
+  const codes = new Set<GhsCode>();
+  for (const line of procedure.lines)
+    for (const code of line.chemical.ghsPictograms) codes.add(code);
+  return (
+    <div className="flex flex-wrap items-center gap-x-3 gap-y-1 text-sm">
+      <PictogramList codes={[...codes].sort()} />
+      <a href="#bench-hazards-heading" className="text-accent-700 underline underline-offset-2">
+        Hazards of each chemical
+      </a>
+    </div>
   );
 }

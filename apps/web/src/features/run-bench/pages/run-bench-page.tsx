@@ -20,7 +20,7 @@ import { newClientId } from '../lib/queue';
 import { useBenchQueue } from '../lib/use-bench-queue';
 import { useNow } from '../lib/use-now';
 import { formatTemperature } from '../lib/words';
-import { BenchHazards } from '../components/bench-hazards';
+import { BenchHazardStrip, BenchHazards } from '../components/bench-hazards';
 import { CurrentStep, type StepActions } from '../components/current-step';
 import { QueueStatus } from '../components/queue-status';
 import { QuickEntry, type QuickEntryActions } from '../components/quick-entry';
@@ -138,6 +138,7 @@ function BenchView({
         <p className="text-sm text-ink-600">At the bench · run #{run.id}</p>
         <h1 className="text-xl font-semibold text-ink-900">{run.procedure.title}</h1>
       </header>
+      {procedure && <BenchHazardStrip procedure={procedure} />}
 
       <TimerAlarms ended={ended} mayWrite={mayWrite} onStop={stopTimer} />
       {queue.items !== null && (
