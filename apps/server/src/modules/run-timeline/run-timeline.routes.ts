@@ -6,7 +6,6 @@ import {
   timelineAppendResultSchema,
   timelineEntryInputSchema,
 } from '@lotwise/shared';
-import { z } from 'zod';
 import { AppError } from '../../lib/app-error';
 import { defineRoute } from '../../lib/route-table';
 import type { FileStore } from '../../lib/uploads';
@@ -67,12 +66,16 @@ export function runTimelineRoutes(
       handle: async ({ params, req, res, actor }) => {
         try {
           const file = files.uploaded(req, 'the photo (JPEG, PNG or WebP)');
-          const fields = z.object({ clientId: clientIdSchema }).safeParse(req.body ?? {});
-          if (!fields.success) {
-            const message = fields.error.issues[0]?.message ?? 'is required';
-            throw AppError.validation(`clientId ${message}.`, { clientId: message });
+          const given: unknown = (req.body as { clientId?: unknown } | undefined)?.clientId;
+          const parsed = clientIdSchema.safeParse(given);
+          if (!parsed.success) {
+            const message =
+              given === undefined || given === ''
+                ? 'is required'
+                : (parsed.error.issues[0]?.message ?? 'is not a client id');
+            throw AppError.validation(`The field clientId ${message}.`, { clientId: message });
           }
-          const result = await photos.put(params.id, fields.data.clientId, file, actor());
+          const result = await photos.put(params.id, parsed.data, file, actor());
           res.status(result.created ? 201 : 200).json(result.photo);
         } finally {
           await files.discard(req.file);
@@ -84,7 +87,7 @@ export function runTimelineRoutes(
       path: '/api/runs/:id/photos/:photoId',
       access: 'procedures.read',
       summary: 'Download a photo of a run',
-      response: { contentType: 'image/jpeg', description: 'The photo, with its own content type.' },
+      response: { contentType: 'image/*', description: 'The photo as stored: JPEG, PNG or WebP.' },
       params: photoParamsSchema,
       handle: async ({ params, res }) => {
         const file = await photos.photo(params.id, params.photoId);

@@ -68,25 +68,38 @@ function entryValues(
 
   if (input.kind === 'reading' && stepIndex === null) stepIndex = currentStepAt(events, at);
   if (input.kind === 'timer-start') {
-    durationMinutes = input.durationMinutes ?? steps[stepIndex!]?.durationMinutes ?? null;
+    durationMinutes =
+      input.durationMinutes ?? (stepIndex === null ? null : steps[stepIndex]!.durationMinutes);
     if (durationMinutes === null) {
-      const message = `${stepLabel(stepIndex!)} has no set time: give the timer a duration`;
+      const message = `${stepLabel(stepIndex ?? 0)} has no set time: give the timer a duration`;
       throw AppError.validation(`${message.charAt(0).toUpperCase()}${message.slice(1)}.`, {
         durationMinutes: message,
       });
     }
     endsAt = new Date(Date.parse(at) + durationMinutes * 60_000).toISOString();
   }
+  let judged = { events, steps };
   if (input.kind === 'timer-end') {
     const timer = timerToStop(run, earlier, input);
     timerClientId = timer.clientId;
-    stepIndex ??= timer.stepIndex;
+    stepIndex = timer.stepIndex ?? stepIndex;
+    // Judged against the timer it stops, for the time that timer was set to run.
+    judged = {
+      events: earlier
+        .filter((row) => row.kind !== 'timer-start' || row.id === timer.id)
+        .map(eventOf),
+      steps: steps.map((step, index) =>
+        index === timer.stepIndex && timer.durationMinutes !== null
+          ? { ...step, durationMinutes: timer.durationMinutes }
+          : step,
+      ),
+    };
   }
 
   const deviation = deviationOf(
     { kind: input.kind, at, stepIndex, temperatureC: input.temperatureC },
-    events,
-    steps,
+    judged.events,
+    judged.steps,
   );
   return {
     runId: run.id,
@@ -142,12 +155,16 @@ function timerToStop(
   return latest;
 }
 
-/** Appends inside the caller's transaction; answers the entry's id and whether it is new. */
-async function appendWith(
+/**
+ * Appends an entry inside the caller's transaction (the demo seed appends through it too);
+ * answers the entry's id and whether it is new. `receivedAt` defaults to now.
+ */
+export async function appendTimelineEntry(
   repos: Repositories,
   runId: number,
   input: TimelineEntryParsed,
   actor: User,
+  receivedAt = nowIso(),
 ): Promise<{ id: number; created: boolean }> {
   // On PostgreSQL the run stays locked to the end of the transaction: appends take turns.
   const run = await requireRun(repos, runId);
@@ -163,7 +180,15 @@ async function appendWith(
   const procedure = await repos.procedures.findRow(run.procedureId);
   const photoOk =
     input.uploadId === null || (await repos.runTimeline.photoOf(runId, input.uploadId)) !== null;
-  const values = entryValues(run, procedure?.steps ?? [], earlier, input, photoOk, actor, nowIso());
+  const values = entryValues(
+    run,
+    procedure?.steps ?? [],
+    earlier,
+    input,
+    photoOk,
+    actor,
+    receivedAt,
+  );
   return { id: await repos.runTimeline.insertEntry(values), created: true };
 }
 
@@ -189,7 +214,9 @@ export function runTimelineService(store: Store) {
     ): Promise<TimelineAppendResult> {
       let outcome: { id: number; created: boolean };
       try {
-        outcome = await store.transaction((repos) => appendWith(repos, runId, input, actor));
+        outcome = await store.transaction((repos) =>
+          appendTimelineEntry(repos, runId, input, actor),
+        );
       } catch (error) {
         // The same entry sent twice at the same moment: the other request stored it.
         if (!isUniqueViolation(error)) throw error;

@@ -17,6 +17,7 @@ import { alertRulesSettled, testContext } from '../../test/harness';
 import { preparationFactory } from '../../test/preparations';
 import { jpegBytes, tinyPdf, tinyPng } from '../../test/sample-files';
 import { recordStatements } from '../../test/statements';
+import { maxTimelineEntries } from './run-timeline.service';
 
 const app = () => testContext().app;
 const people = { manager: '', member: '', otherMember: '', viewer: '' };
@@ -204,7 +205,58 @@ describe('appending to a run timeline', () => {
     const run = await openRunOfSteps();
     await appended(run.id, { kind: 'timer-start', stepIndex: 1, at: at(0) });
     const stop = await appended(run.id, { kind: 'timer-end', stepIndex: 1, at: at(5) });
-    expect(stop.deviation).toMatchObject({ reason: 'timer-ended-early', stepIndex: 1 });
+    expect(stop.deviation).toMatchObject({
+      reason: 'timer-ended-early',
+      stepIndex: 1,
+      message: 'the timer of step 2 was stopped after 5 min of its 15 min',
+    });
+    // A shorter timer of its own inside the step, stopped when it rang: no deviation.
+    const short = await appended(run.id, {
+      kind: 'timer-start',
+      stepIndex: 1,
+      durationMinutes: 3,
+      at: at(6),
+    });
+    const rang = await appended(run.id, {
+      kind: 'timer-end',
+      timerClientId: short.clientId,
+      at: at(9),
+    });
+    expect(rang).toMatchObject({ stepIndex: 1, deviation: null });
+  });
+
+  it('when the time carries an offset, then it is kept in UTC, and a recorded run still takes late entries', async () => {
+    const run = await openRunOfSteps(people.manager);
+    const entry = await appended(
+      run.id,
+      { kind: 'note', text: 'Sent from the bench', at: '2026-03-02T10:15:00+01:00' },
+      people.manager,
+    );
+    expect(entry.at).toBe('2026-03-02T09:15:00.000Z');
+    expect(entry.recordedBy).not.toBeNull();
+    await testContext().dataSource.query(
+      `UPDATE runs SET status = 'recorded' WHERE id = ${run.id}`,
+    );
+    // Entered offline before the run was recorded, sent after: kept.
+    await appended(run.id, { kind: 'reading', temperatureC: 21, at: at(30) }, people.manager);
+    const timeline = await timelineOf(run.id);
+    expect(timeline.status).toBe('recorded');
+    expect(timeline.entries).toHaveLength(2);
+  });
+
+  it('when a run holds the most entries it keeps, then one more is refused (409) saying so', async () => {
+    const run = await openRunOfSteps();
+    const { dataSource } = testContext();
+    const values = Array.from(
+      { length: maxTimelineEntries - 1 },
+      (_, i) => `(${run.id}, 'bulk-${i}-entry', 'note', '${at(i)}', 'n', '${at(i)}')`,
+    );
+    await dataSource.query(
+      `INSERT INTO run_timeline_entries (run_id, client_id, kind, at, text, received_at) VALUES ${values.join(', ')}`,
+    );
+    await appended(run.id, { text: 'the last one' });
+    const refused = await append(run.id, { text: 'one too many' }).expect(409);
+    expect(refused.body.error.message).toMatch(/already has 2000 timeline entries/);
   });
 
   it('when the step is not one of the procedure, then it is refused naming the steps', async () => {
@@ -303,12 +355,49 @@ describe('photos of a run', () => {
     expect(fetched.headers['content-type']).toBe('image/png');
     expect(Buffer.compare(fetched.body as Buffer, tinyPng())).toBe(0);
 
+    // The same photo sent twice at the same moment: kept once, the other copy removed.
+    const twiceId = clientId();
+    const twice = await Promise.all([
+      upload(run.id, tinyPng(), 'again.png', twiceId),
+      upload(run.id, tinyPng(), 'again.png', twiceId),
+    ]);
+    expect(twice.map((r) => r.status).sort()).toEqual([200, 201]);
+    expect(twice[0]!.body.uploadId).toBe(twice[1]!.body.uploadId);
+    const kept = await readdir(testContext().config.uploadDir);
+    expect(kept.filter((name) => !name.startsWith('.')).length).toBe(
+      before.filter((name) => !name.startsWith('.')).length + 2,
+    );
+
     const entry = await appended(run.id, {
       kind: 'photo',
       uploadId: photo.uploadId,
       text: 'Crystals',
     });
     expect(entry.photoUrl).toBe(photo.url);
+  });
+
+  it('when a WebP is uploaded, then it is kept as one; without a client id or a file it is refused', async () => {
+    const run = await openRunOfSteps();
+    // RIFF container, WEBP form, a lossless (VP8L) chunk: what file-type reads. // from memory
+    const webp = Buffer.concat([
+      Buffer.from('RIFF'),
+      Buffer.from([26, 0, 0, 0]),
+      Buffer.from('WEBPVP8L'),
+      Buffer.from([13, 0, 0, 0, 0x2f, 0, 0, 0, 0, 0x07, 0, 0, 0, 0, 0, 0, 0, 0]),
+    ]);
+    const kept = await upload(run.id, webp, 'dish').expect(201);
+    expect(kept.body).toMatchObject({ contentType: 'image/webp', fileName: 'dish.webp' });
+    const noId = await request(app())
+      .post(`/api/runs/${run.id}/photos`)
+      .set('Cookie', people.member)
+      .attach('file', tinyPng(), 'a.png')
+      .expect(400);
+    expect(noId.body.error.fields.clientId).toBe('is required');
+    await request(app())
+      .post(`/api/runs/${run.id}/photos`)
+      .set('Cookie', people.member)
+      .send({ clientId: clientId() })
+      .expect(415);
   });
 
   it('when the file is not an image, then it is refused naming the types allowed', async () => {
