@@ -125,6 +125,37 @@ describe('the bench state', () => {
     expect(stopped.runningTimers).toEqual([]);
   });
 
+  it('when a timer is stopped offline, then it is judged against its own length, as the server does', () => {
+    const shortTimer = waiting(1, {
+      clientId: 'short-timer',
+      kind: 'timer-start',
+      at: '2026-12-03T09:01:00Z',
+      stepIndex: 0,
+      durationMinutes: 5,
+    });
+    const stop = (at: string) =>
+      benchState(
+        { steps, entries: [startedStep1] },
+        [
+          shortTimer,
+          waiting(2, {
+            clientId: 'short-timer-end',
+            kind: 'timer-end',
+            at,
+            stepIndex: 0,
+            timerClientId: 'short-timer',
+          }),
+        ],
+        new Date(at),
+      ).entries.find((entry) => entry.clientId === 'short-timer-end')!.deviation;
+    // Stopped as it rang: 5 of its 5 minutes, though the step itself takes 30.
+    expect(stop('2026-12-03T09:06:00Z')).toBeNull();
+    expect(stop('2026-12-03T09:03:00Z')).toMatchObject({
+      reason: 'timer-ended-early',
+      message: 'the timer of step 1 was stopped after 2 min of its 5 min',
+    });
+  });
+
   it('when an entry was sent but is still in the outbox, then it shows once, as waiting', () => {
     const state = benchState(
       { steps, entries: [startedStep1, stored(2, { clientId: 'note-one', text: 'Cloudy' })] },

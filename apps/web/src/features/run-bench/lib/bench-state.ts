@@ -69,6 +69,31 @@ function localDeviation(
   return { ...deviation, instruction };
 }
 
+/**
+ * A timer stopped early, judged as the server judges it: against the timer it stops and the
+ * length that timer was set to run (a short timer inside a long step stopped as it rings is
+ * no deviation).
+ */
+function timerEndDeviation(
+  entry: BenchEntry,
+  before: readonly BenchEntry[],
+  steps: readonly TimelineStepView[],
+): DeviationView | null {
+  const running = runningTimers(before.filter((other) => other.sync !== 'refused'));
+  const timer = entry.timerClientId
+    ? running.find((other) => other.clientId === entry.timerClientId)
+    : running.findLast((other) => other.stepIndex === entry.stepIndex);
+  if (!timer) return null;
+  entry.stepIndex = timer.stepIndex ?? entry.stepIndex;
+  const earlier = before.filter((other) => other.kind !== 'timer-start' || other === timer);
+  const judgedSteps = steps.map((step, index) =>
+    index === timer.stepIndex && timer.durationMinutes !== null
+      ? { ...step, durationMinutes: timer.durationMinutes }
+      : step,
+  );
+  return localDeviation(entry, earlier, judgedSteps);
+}
+
 /** Lays the device's outbox into the server's timeline and works out what is under way at `now`. */
 export function benchState(
   timeline: Pick<RunTimeline, 'entries' | 'steps'>,
@@ -128,7 +153,10 @@ export function benchState(
       message: item.message,
       queued: item,
     };
-    entry.deviation = localDeviation(entry, before, steps);
+    entry.deviation =
+      entry.kind === 'timer-end'
+        ? timerEndDeviation(entry, before, steps)
+        : localDeviation(entry, before, steps);
     entries.push(entry);
     entries.sort(byTime);
   }
