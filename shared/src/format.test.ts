@@ -9,6 +9,7 @@ import {
   formatQuantity,
   formatRounded,
   formatTake,
+  formatTime,
   plainNumber,
   quantityDecimals,
 } from './format';
@@ -129,6 +130,13 @@ describe('formatDate', () => {
     expect(formatDate(null)).toBe('—');
     expect(formatDate('soon')).toBe('—');
     expect(formatDateTime(undefined)).toBe('—');
+    expect(formatTime('soon')).toBe('—');
+  });
+
+  it('when only the time of day is shown, then it is in the locale and time zone asked for', () => {
+    const at = '2026-03-01T23:30:00Z';
+    expect(formatTime(at, { locale: 'en-GB', timeZone: 'UTC' })).toBe('23:30');
+    expect(formatTime(at, { locale: 'en-GB', timeZone: 'Europe/Berlin' })).toBe('00:30');
   });
 });
 

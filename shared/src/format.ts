@@ -248,6 +248,20 @@ export function formatDateTime(
   return `${text} ${zone}`;
 }
 
+/** The time of day in the locale's short style: `09:15` (en-GB), `9:15 AM` (en-US). */
+export function formatTime(
+  value: string | Date | null | undefined,
+  options: DateFormatOptions = {},
+): string {
+  if (!value) return '—';
+  const date = toDate(value);
+  if (!date) return '—';
+  return new Intl.DateTimeFormat(options.locale, {
+    timeStyle: 'short',
+    timeZone: options.timeZone,
+  }).format(date);
+}
+
 const byteUnits = ['bytes', 'KiB', 'MiB', 'GiB', 'TiB'] as const;
 
 /**

@@ -37,6 +37,8 @@ export const paths = {
   runNew: '/preparations/runs/new',
   run: (id: number | string = ':id') => `/preparations/runs/${id}`,
   runRecord: (id: number | string = ':id') => `/preparations/runs/${id}/record`,
+  /** A run in progress at the bench: the current step, timers, readings, notes, photos. */
+  runBench: (id: number | string = ':id') => `/preparations/runs/${id}/bench`,
   /** Where a chemical was used in runs and procedures. */
   chemicalUsage: (chemicalId: number | string = ':chemicalId') =>
     `/preparations/usage/${chemicalId}`,

@@ -12,6 +12,7 @@ import {
   formatQuantity,
   formatRounded,
   formatTake,
+  formatTime as formatSharedTime,
 } from '@lotwise/shared';
 
 /** The reader's locale: the browser's first language, `en` when it names none. */
@@ -94,4 +95,12 @@ export function formatDateTime(
   locale = readerLocale(),
 ): string {
   return formatSharedDateTime(value, { locale });
+}
+
+/** The time of day in the reader's locale and time zone, e.g. `14:05`. */
+export function formatTime(
+  value: string | Date | null | undefined,
+  locale = readerLocale(),
+): string {
+  return formatSharedTime(value, { locale });
 }

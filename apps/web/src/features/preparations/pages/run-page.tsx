@@ -1,5 +1,5 @@
 import { Link, useParams, useSearchParams } from 'react-router';
-import { CircleCheck, GitBranch, Printer, TriangleAlert } from 'lucide-react';
+import { CircleCheck, FlaskConical, GitBranch, Printer, TriangleAlert } from 'lucide-react';
 import type { Run } from '@lotwise/shared';
 import { buttonClasses } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
@@ -202,6 +202,16 @@ function RunView({ run }: { run: Run }) {
           )}
         </p>
       </PageHeader>
+
+      {run.status === 'open' && (
+        <Link
+          to={paths.runBench(run.id)}
+          className={`${buttonClasses('primary')} h-12 self-start px-5 text-base pointer-coarse:h-12`}
+        >
+          <FlaskConical aria-hidden="true" className="size-5" />
+          Follow the steps at the bench
+        </Link>
+      )}
 
       {run.status === 'recorded' && <YieldSummary run={run} />}
 
