@@ -25,6 +25,7 @@ const pages = {
   runNew: () => import('../features/preparations/pages/run-new-page'),
   run: () => import('../features/preparations/pages/run-page'),
   runRecord: () => import('../features/preparations/pages/run-record-page'),
+  runNotebook: () => import('../features/run-notebook/pages/run-notebook-page'),
   usage: () => import('../features/preparations/pages/chemical-usage-page'),
   provenance: () => import('../features/preparations/pages/lot-provenance-page'),
 } satisfies Record<string, () => Promise<unknown>>;
@@ -59,6 +60,7 @@ export const preparationRoutes: RouteObject[] = [
     async () => (await pages.runRecord()).RunRecordPage,
     'runs.record',
   ),
+  preparationPage(paths.runNotebook(), async () => (await pages.runNotebook()).RunNotebookPage),
   preparationPage(paths.chemicalUsage(), async () => (await pages.usage()).ChemicalUsagePage),
   preparationPage(
     paths.lotProvenance(),

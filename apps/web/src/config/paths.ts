@@ -37,6 +37,9 @@ export const paths = {
   runNew: '/preparations/runs/new',
   run: (id: number | string = ':id') => `/preparations/runs/${id}`,
   runRecord: (id: number | string = ':id') => `/preparations/runs/${id}/record`,
+  runBench: (id: number | string = ':id') => `/preparations/runs/${id}/bench`,
+  /** The run as a printable notebook page. */
+  runNotebook: (id: number | string = ':id') => `/preparations/runs/${id}/notebook`,
   /** Where a chemical was used in runs and procedures. */
   chemicalUsage: (chemicalId: number | string = ':chemicalId') =>
     `/preparations/usage/${chemicalId}`,
