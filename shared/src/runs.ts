@@ -215,6 +215,8 @@ export const runSummarySchema = z.object({
   crudeYieldFlag: z.string().nullable(),
   recordedAt: z.string().nullable(),
   createdAt: z.string(),
+  /** Timeline entries flagged as deviations (a reading outside its window, a step cut short …). */
+  deviationCount: z.number().int(),
 });
 export type RunSummary = z.infer<typeof runSummarySchema>;
 

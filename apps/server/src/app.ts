@@ -61,6 +61,9 @@ import { purchaseRoutes } from './modules/receiving/purchases.routes';
 import { purchasesService } from './modules/receiving/purchases.service';
 import { receivingRoutes } from './modules/receiving/receiving.routes';
 import { receivingService } from './modules/receiving/receiving.service';
+import { runPhotosService } from './modules/run-timeline/run-photos.service';
+import { runTimelineRoutes } from './modules/run-timeline/run-timeline.routes';
+import { runTimelineService } from './modules/run-timeline/run-timeline.service';
 import { runRoutes } from './modules/runs/runs.routes';
 import { runsService } from './modules/runs/runs.service';
 import { segregationRoutes } from './modules/segregation/segregation.routes';
@@ -193,9 +196,10 @@ export function createApp({
     ...stockRoutes(stockService(store)),
     ...segregationRoutes(store),
     ...maintenanceRoutes(store),
-    ...procedureRoutes(proceduresService(store), runsService(store)),
+    ...procedureRoutes(proceduresService(store), runsService(store, files)),
     ...planRoutes(plansService(store, config.text)),
-    ...runRoutes(runsService(store)),
+    ...runRoutes(runsService(store, files)),
+    ...runTimelineRoutes(runTimelineService(store), runPhotosService(store, files), files),
     ...importRoutes(importsService(store, logger, config.text, config.currency), files),
     ...exportRoutes(exportsService(store)),
     ...uploadRoutes(uploadsService(store, files), files),

@@ -22,6 +22,8 @@ import { ProcedureEntity } from '../modules/procedures/procedure.entity';
 import { RunInputEntity } from '../modules/runs/run-input.entity';
 import { RunProductEntity } from '../modules/runs/run-product.entity';
 import { RunEntity } from '../modules/runs/run.entity';
+import { RunPhotoEntity } from '../modules/run-timeline/run-photo.entity';
+import { RunTimelineEntryEntity } from '../modules/run-timeline/run-timeline-entry.entity';
 import { ImportEntity } from '../modules/imports/import.entity';
 import { StocktakeEntity } from '../modules/stock/stocktake.entity';
 import { UserEntity } from '../modules/users/user.entity';
@@ -48,6 +50,7 @@ import { LedgerChangeNotes1796810000000 } from './migrations/1796810000000-ledge
 import { OutboxQueuedAge1796900000000 } from './migrations/1796900000000-outbox-queued-age';
 import { ScheduledRuns1796910000000 } from './migrations/1796910000000-scheduled-runs';
 import { ProcedureSteps1796950000000 } from './migrations/1796950000000-procedure-steps';
+import { RunTimeline1796960000000 } from './migrations/1796960000000-run-timeline';
 import { ChemicalMeasures1796630000000 } from './migrations/1796630000000-chemical-measures';
 import { RunCrudeYieldFlag1796620000000 } from './migrations/1796620000000-run-crude-yield-flag';
 
@@ -80,6 +83,8 @@ export const entities = [
   PaymentEventEntity,
   LedgerChangeNoteEntity,
   ScheduledRunEntity,
+  RunPhotoEntity,
+  RunTimelineEntryEntity,
 ];
 
 /** In order; listed by hand so tsx, vitest and the TypeORM CLI all load the same classes. */
@@ -101,6 +106,7 @@ export const migrations = [
   OutboxQueuedAge1796900000000,
   ScheduledRuns1796910000000,
   ProcedureSteps1796950000000,
+  RunTimeline1796960000000,
 ];
 
 /** How many prepared statements each connection keeps (the API has a few hundred queries). */

@@ -16,6 +16,7 @@ import { proceduresRepository } from '../modules/procedures/procedures.repositor
 import { receivingRepository } from '../modules/receiving/receiving.repository';
 import { reorderRepository } from '../modules/reorder/reorder.repository';
 import { requestsRepository } from '../modules/requests/requests.repository';
+import { runTimelineRepository } from '../modules/run-timeline/run-timeline.repository';
 import { runsRepository } from '../modules/runs/runs.repository';
 import { segregationRepository } from '../modules/segregation/segregation.repository';
 import { stockRepository } from '../modules/stock/stock.repository';
@@ -43,6 +44,7 @@ export const repositoryFactories = {
   procedures: proceduresRepository,
   plans: plansRepository,
   runs: runsRepository,
+  runTimeline: runTimelineRepository,
   alerts: alertsRepository,
   ledgerNotes: ledgerNotesRepository,
   scheduledRuns: scheduledRunsRepository,

@@ -6,7 +6,7 @@ import { pipeline } from 'node:stream/promises';
 import type { Request, RequestHandler, Response } from 'express';
 import { fileTypeFromFile } from 'file-type/node';
 import multer from 'multer';
-import { uploadFieldName, type UploadContentType } from '@lotwise/shared';
+import { uploadFieldName } from '@lotwise/shared';
 import { AppError } from './app-error';
 
 /** What a file's content says it is (file-type reads its signature and structure). */
@@ -23,15 +23,16 @@ export async function detectFileType(filePath: string): Promise<DetectedType | n
   return found ? { mime: found.mime, ext: found.ext } : null;
 }
 
-const typeNames: Record<UploadContentType, string> = {
+const typeNames: Record<string, string> = {
   'application/pdf': 'PDF',
   'image/png': 'PNG',
   'image/jpeg': 'JPEG',
+  'image/webp': 'WebP',
 };
 
 /** Describes accepted types for a message: "a PDF", "a PDF, PNG or JPEG". */
-export function describeTypes(types: readonly UploadContentType[]): string {
-  const names = types.map((type) => typeNames[type]);
+export function describeTypes(types: readonly string[]): string {
+  const names = types.map((type) => typeNames[type] ?? type);
   return names.length === 1
     ? `a ${names[0]}`
     : `a ${names.slice(0, -1).join(', ')} or ${names.at(-1)}`;
@@ -71,7 +72,7 @@ export function safeFileName(name: string | undefined, fallback: string): string
   return clean || fallback;
 }
 
-const storedNamePattern = /^[a-f0-9]{32}\.(pdf|png|jpg)$/;
+const storedNamePattern = /^[a-f0-9]{32}\.(pdf|png|jpg|webp)$/;
 
 function isMultipart(req: Request): boolean {
   return Boolean(req.is('multipart/form-data'));
@@ -109,19 +110,21 @@ export interface ReceivedFile {
  */
 export function fileStore(options: { dir: string; maxBytes: number; maxMb: number }) {
   const incoming = path.join(options.dir, '.incoming');
-  const toDisk = multer({
-    storage: multer.diskStorage({
-      destination: (_req, _file, cb) => {
-        mkdir(incoming, { recursive: true, mode: 0o700 }).then(
-          () => cb(null, incoming),
-          (error: Error) => cb(error, incoming),
-        );
-      },
-      filename: (_req, _file, cb) => cb(null, `${randomBytes(16).toString('hex')}.part`),
-    }),
-    limits: { fileSize: options.maxBytes, files: 1, fields: 5, parts: 8 },
-    defParamCharset: 'utf8',
-  });
+  const toDiskUpTo = (maxBytes: number) =>
+    multer({
+      storage: multer.diskStorage({
+        destination: (_req, _file, cb) => {
+          mkdir(incoming, { recursive: true, mode: 0o700 }).then(
+            () => cb(null, incoming),
+            (error: Error) => cb(error, incoming),
+          );
+        },
+        filename: (_req, _file, cb) => cb(null, `${randomBytes(16).toString('hex')}.part`),
+      }),
+      limits: { fileSize: maxBytes, files: 1, fields: 5, parts: 8 },
+      defParamCharset: 'utf8',
+    });
+  const toDisk = toDiskUpTo(options.maxBytes);
   const toMemory = multer({
     storage: multer.memoryStorage(),
     limits: { fileSize: options.maxBytes, files: 1, fields: 5, parts: 8 },
@@ -129,11 +132,9 @@ export function fileStore(options: { dir: string; maxBytes: number; maxMb: numbe
   });
 
   const wrap =
-    (handler: RequestHandler): RequestHandler =>
+    (handler: RequestHandler, maxMb = options.maxMb): RequestHandler =>
     (req, res, next) => {
-      handler(req, res, (error?: unknown) =>
-        next(error ? toAppError(error, options.maxMb) : undefined),
-      );
+      handler(req, res, (error?: unknown) => next(error ? toAppError(error, maxMb) : undefined));
     };
 
   function pathOf(storedName: string): string {
@@ -150,6 +151,14 @@ export function fileStore(options: { dir: string; maxBytes: number; maxMb: numbe
     dir: options.dir,
     /** Middleware: the file in field `file` goes to a temporary file (`req.file.path`). */
     receiveToDisk: wrap(toDisk.single(uploadFieldName)),
+    /**
+     * Middleware: as `receiveToDisk`, refusing (413) a file above `maxBytes` or above the
+     * lab's upload limit, whichever is lower.
+     */
+    receiveToDiskUpTo(maxBytes: number): RequestHandler {
+      const limit = Math.min(maxBytes, options.maxBytes);
+      return wrap(toDiskUpTo(limit).single(uploadFieldName), Math.round(limit / 1024 / 1024));
+    },
     /** Middleware: the file in field `file` is kept in memory (`req.file.buffer`); for CSV. */
     receiveToMemory: wrap(toMemory.single(uploadFieldName)),
 
@@ -178,12 +187,12 @@ export function fileStore(options: { dir: string; maxBytes: number; maxMb: numbe
      * accepted) and moves it into the store. Answers the random stored name and details; the
      * kept name ends in the extension of the detected type.
      */
-    async keep(
+    async keep<T extends string>(
       file: Express.Multer.File,
-      accepted: readonly UploadContentType[],
+      accepted: readonly T[],
       what: string,
       fallbackName: string,
-    ): Promise<ReceivedFile & { storedName: string; contentType: UploadContentType }> {
+    ): Promise<ReceivedFile & { storedName: string; contentType: T }> {
       try {
         const detected = await detectFileType(file.path);
         const contentType = accepted.find((type) => type === detected?.mime);

@@ -100,6 +100,16 @@ export function chemLinesOf(procedure: LoadedProcedure, factor = 1) {
   return procedureLinesFor(procedure.lines.map(draftOf), facts, factor);
 }
 
+/**
+ * Each line's quantity at `factor`, rounded for the bench as the dispensing sheet shows it
+ * (balance, glassware or amount rule); null for a line without a quantity.
+ */
+export function scaledLineDisplays(procedure: LoadedProcedure, factor: number) {
+  return chemLinesOf(procedure, factor).map((chem) =>
+    chem.quantity ? withRoundedText(displayQuantity(chem.quantity)) : null,
+  );
+}
+
 /** A ChemError as a 400 naming the line when it has one. */
 export function chemProblem(error: unknown, prefix = 'lines'): never {
   if (error instanceof ChemError) {
@@ -435,6 +445,7 @@ export function proceduresService(store: Store) {
             : 'targetProductMass',
       );
       const scaledLines = chemLinesOf(procedure, factor);
+      const displays = scaledLineDisplays(procedure, factor);
       let result: StoichiometryResult;
       try {
         result = computeStoichiometry(scaledLines);
@@ -471,7 +482,7 @@ export function proceduresService(store: Store) {
               line.quantity === null || line.unit === null
                 ? null
                 : { value: line.quantity, unit: line.unit },
-            display: chem.quantity ? withRoundedText(displayQuantity(chem.quantity)) : null,
+            display: displays[index] ?? null,
             massG: computed?.massG ?? null,
             volumeMl: computed?.volumeMl ?? null,
             amountMol: computed?.amountMol ?? null,

@@ -109,10 +109,16 @@ export async function openRun(
 
 /**
  * Discards an opened run (inside the caller's transaction): nothing of it reached the ledger
- * (draws and products are written only when a run is recorded), so the run goes and an audit
- * entry keeps who discarded what. A recorded run stands: its entries are history.
+ * (draws and products are written only when a run is recorded), so the run goes with its
+ * timeline and photos, and an audit entry keeps who discarded what. A recorded run stands:
+ * its entries are history. Answers the stored names of the photos, for the caller to remove
+ * once the transaction committed.
  */
-export async function discardRun(repos: Repositories, runId: number, actor: User) {
+export async function discardRun(
+  repos: Repositories,
+  runId: number,
+  actor: User,
+): Promise<string[]> {
   const run = await requireRun(repos, runId);
   requireOwnRun(run, actor);
   if (run.status !== 'open') {
@@ -120,6 +126,8 @@ export async function discardRun(repos: Repositories, runId: number, actor: User
       `Run #${run.id} is already recorded: its draws and products are in the ledger, so it cannot be discarded.`,
     );
   }
+  const photos = await repos.runTimeline.photosOf(run.id);
+  await repos.runTimeline.deleteOfRun(run.id);
   await repos.runs.delete(run.id);
   await repos.audit.insert({
     actorId: actor.id,
@@ -129,6 +137,7 @@ export async function discardRun(repos: Repositories, runId: number, actor: User
     detail: { procedureId: run.procedureId, planId: run.planId, scaleFactor: run.scaleFactor },
     createdAt: nowIso(),
   });
+  return photos.map((photo) => photo.storedName);
 }
 
 /**

@@ -57,6 +57,7 @@ export async function runSummaries(repos: Repositories, rows: RunRow[]): Promise
       p,
     ]),
   );
+  const deviations = await repos.runTimeline.deviationCounts(rows.map((row) => row.id));
   const users = new Map(
     (
       await repos.users.findByIds([
@@ -85,6 +86,7 @@ export async function runSummaries(repos: Repositories, rows: RunRow[]): Promise
       crudeYieldFlag: row.crudeYieldFlag,
       recordedAt: row.recordedAt,
       createdAt: row.createdAt,
+      deviationCount: deviations.get(row.id) ?? 0,
     };
   });
 }

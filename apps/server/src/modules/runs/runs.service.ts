@@ -11,6 +11,7 @@ import type {
   User,
 } from '@lotwise/shared';
 import type { Store } from '../../db/store';
+import type { FileStore } from '../../lib/uploads';
 import { chemicalUsageOf, lotProvenanceOf, procedureRunsOf } from './run-history';
 import { discardRun, openRun, recordRunWith } from './run-recording';
 import { presentRun, runSummaries } from './run-views';
@@ -23,7 +24,7 @@ export { openRun, recordRunWith } from './run-recording';
  * (run-recording.ts, run-draws.ts), and the views that read them (run-views.ts,
  * run-history.ts).
  */
-export function runsService(store: Store) {
+export function runsService(store: Store, files: FileStore) {
   return {
     async list(query: RunListQuery): Promise<Page<RunSummary>> {
       const { rows, total } = await store.repos.runs.list(query);
@@ -48,9 +49,10 @@ export function runsService(store: Store) {
       return presentRun(store.repos, id);
     },
 
-    /** Discards an opened run; a recorded one stands (409). */
+    /** Discards an opened run with its timeline and photos; a recorded one stands (409). */
     async discard(id: number, actor: User): Promise<void> {
-      await store.transaction((repos) => discardRun(repos, id, actor));
+      const photos = await store.transaction((repos) => discardRun(repos, id, actor));
+      for (const storedName of photos) await files.remove(storedName);
     },
 
     procedureRuns: (procedureId: number): Promise<ProcedureRuns> =>

@@ -195,6 +195,7 @@ export function makeRun(overrides: Partial<Run> = {}): Run {
     crudeYieldFlag: null,
     recordedAt: null,
     createdAt: '2026-12-02T09:00:00.000Z',
+    deviationCount: 0,
     notes: '',
     draws: [],
     portions: [],
