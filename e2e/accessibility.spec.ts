@@ -76,6 +76,8 @@ const pages = {
   runNew: { as: 'member', url: (ids) => `${paths.runNew}?procedureId=${ids.procedure}` },
   run: { as: 'viewer', url: (ids) => paths.run(ids.run) },
   runRecord: { as: 'admin', url: (ids) => paths.runRecord(ids.openRun) },
+  runBench: { as: 'admin', url: (ids) => paths.runBench(ids.openRun) },
+  runNotebook: { as: 'viewer', url: (ids) => paths.runNotebook(ids.run) },
   chemicalUsage: { as: 'viewer', url: (ids) => paths.chemicalUsage(ids.chemical) },
   lotProvenance: { as: 'viewer', url: (ids) => paths.lotProvenance(ids.lot) },
   orders: { as: 'member', url: () => paths.orders },
