@@ -9,8 +9,9 @@ describe('chartGeometry', () => {
   it('when steps with windows were under way, then each band spans exactly its step’s start to end', () => {
     const chart = chartGeometry(makeTimeline(), { now, timeLabel: utc })!;
     const { plot } = chart;
-    // the chart runs 09:00 (first entry) to 09:40 (now: step 3 is still under way)
-    const at = (minutes: number) => plot.left + ((plot.right - plot.left) * minutes) / 40;
+    // the chart runs 09:00 (first entry) to 09:30 (last entry): step 3, still under way,
+    // has no window, so nothing stretches the chart to now (09:40)
+    const at = (minutes: number) => plot.left + ((plot.right - plot.left) * minutes) / 30;
 
     expect(chart.bands.map((band) => band.stepIndex)).toEqual([0, 1]);
     const [cooling, addition] = chart.bands;
@@ -39,7 +40,12 @@ describe('chartGeometry', () => {
       [6, false],
       [9, true],
     ]);
-    expect(chart.range).toEqual({ low: 3, high: 9 });
+    expect(chart.range).toEqual({
+      low: 3,
+      high: 9,
+      firstAt: '2026-12-03T09:05:00.000Z',
+      lastAt: '2026-12-03T09:20:00.000Z',
+    });
   });
 
   it('when the server has not flagged a reading, then the window rule of @lotwise/chem still marks it outside', () => {

@@ -19,6 +19,20 @@ export const defaultChartBox: ChartBox = {
   margin: { top: 16, right: 20, bottom: 48, left: 60 },
 };
 
+/**
+ * The chart's box for the width it is shown at, so its text keeps its size: a phone draws
+ * fewer, larger units than a desk (the SVG then scales only a little).
+ */
+export function chartBoxFor(width: number | null): ChartBox {
+  if (width === null) return defaultChartBox;
+  const clamped = Math.min(Math.max(Math.round(width), 300), 900);
+  return {
+    width: clamped,
+    height: clamped < 500 ? 240 : 300,
+    margin: { top: 16, right: clamped < 500 ? 12 : 20, bottom: 48, left: clamped < 500 ? 48 : 60 },
+  };
+}
+
 /** A step's window, shaded over the time the step was under way. */
 export interface WindowBand {
   stepIndex: number;
@@ -62,8 +76,8 @@ export interface ChartGeometry {
   line: string;
   xTicks: Tick[];
   yTicks: Tick[];
-  /** Lowest and highest reading, °C; null without readings. */
-  range: { low: number; high: number } | null;
+  /** Lowest and highest reading, °C, and when the first and last were taken; null without readings. */
+  range: { low: number; high: number; firstAt: string; lastAt: string } | null;
 }
 
 const minute = 60_000;
@@ -97,7 +111,8 @@ export function chartGeometry(
   ];
   let start = Math.min(...times);
   let end = Math.max(...times);
-  const underWay = timeline.steps.some((step) => step.startedAt !== null && step.endedAt === null);
+  // a band still under way runs to now; a step without a window draws nothing to extend
+  const underWay = windowed.some((step) => step.endedAt === null);
   if (timeline.status === 'open' && underWay) end = Math.max(end, Date.parse(now));
   if (end - start < 10 * minute) {
     const middle = (start + end) / 2;
@@ -180,12 +195,18 @@ export function chartGeometry(
     bands,
     points,
     line,
-    xTicks: x.ticks(6).map((date) => ({ position: x(date), label: timeLabel(date) })),
-    yTicks: y.ticks(6).map((value) => ({ position: y(value), label: String(value) })),
+    xTicks: x
+      .ticks(box.width < 500 ? 4 : 6)
+      .map((date) => ({ position: x(date), label: timeLabel(date) })),
+    yTicks: y
+      .ticks(box.width < 500 ? 5 : 6)
+      .map((value) => ({ position: y(value), label: String(value) })),
     range: readings.length
       ? {
           low: Math.min(...points.map((p) => p.temperatureC)),
           high: Math.max(...points.map((p) => p.temperatureC)),
+          firstAt: readings[0]!.at,
+          lastAt: readings[readings.length - 1]!.at,
         }
       : null,
   };

@@ -1,7 +1,7 @@
-import { useId } from 'react';
+import { useEffect, useId, useState } from 'react';
 import { countOf, type RunTimeline } from '@lotwise/shared';
 import { formatDateTime } from '../../../lib/format';
-import { chartGeometry, type ChartGeometry } from '../chart-geometry';
+import { chartBoxFor, chartGeometry, type ChartGeometry } from '../chart-geometry';
 import { clockTime, formatC } from '../labels';
 
 /** The mark of a reading outside its window: a triangle, not only another colour. */
@@ -29,12 +29,29 @@ function InsideMark({ x, y }: { x: number; y: number }) {
   );
 }
 
+/** The width an element is shown at, followed as it changes; null until measured. */
+function useWidth() {
+  const [element, setElement] = useState<HTMLElement | null>(null);
+  const [value, setValue] = useState<number | null>(null);
+  useEffect(() => {
+    if (!element || typeof ResizeObserver === 'undefined') return;
+    const observer = new ResizeObserver(([entry]) => {
+      const measured = entry?.contentRect.width;
+      if (!measured) return;
+      setValue((old) => (old !== null && Math.abs(old - measured) < 8 ? old : measured));
+    });
+    observer.observe(element);
+    return () => observer.disconnect();
+  }, [element]);
+  return [setElement, value] as const;
+}
+
 /** What the chart shows, in words: the text alternative and the figure's caption. */
 export function chartSummary(chart: ChartGeometry): string {
   const outside = chart.points.filter((point) => point.outside).length;
   const parts = [
     chart.range
-      ? `${countOf(chart.points.length, 'reading')} from ${formatDateTime(chart.startAt)} to ${formatDateTime(chart.endAt)}, between ${formatC(chart.range.low)} and ${formatC(chart.range.high)}`
+      ? `${countOf(chart.points.length, 'reading')} between ${formatC(chart.range.low)} and ${formatC(chart.range.high)}, taken from ${formatDateTime(chart.range.firstAt)} to ${clockTime(chart.range.lastAt)}`
       : 'No readings yet',
     `${countOf(chart.bands.length, 'step window')} shaded over the time the step was under way`,
     outside === 0
@@ -57,17 +74,22 @@ export function TemperatureChart({
   now?: string;
 }) {
   const titleId = useId();
-  const chart = chartGeometry(timeline, { now });
+  const [measure, measuredWidth] = useWidth();
+  const chart = chartGeometry(timeline, { now, box: chartBoxFor(measuredWidth) });
   if (!chart) {
     return <p className="text-sm text-ink-600">No temperature was read during this run.</p>;
   }
   const { box, plot } = chart;
   const summary = chartSummary(chart);
   return (
-    <figure className="flex flex-col gap-2 break-inside-avoid" data-testid="temperature-chart">
+    <figure
+      ref={measure}
+      className="flex max-w-3xl flex-col gap-2 break-inside-avoid"
+      data-testid="temperature-chart"
+    >
       <svg
         viewBox={`0 0 ${box.width} ${box.height}`}
-        className="h-auto w-full max-w-3xl overflow-visible font-sans"
+        className="h-auto w-full overflow-visible font-sans"
         role="img"
         aria-labelledby={titleId}
       >
