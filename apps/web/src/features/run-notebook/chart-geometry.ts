@@ -195,8 +195,9 @@ export function chartGeometry(
     bands,
     points,
     line,
+    // about one clock time per 110 px, so labels like "05:30 AM" never touch
     xTicks: x
-      .ticks(box.width < 500 ? 4 : 6)
+      .ticks(Math.max(3, Math.floor((plot.right - plot.left) / 110)))
       .map((date) => ({ position: x(date), label: timeLabel(date) })),
     yTicks: y
       .ticks(box.width < 500 ? 5 : 6)

@@ -201,7 +201,7 @@ export function RunObservations({ run }: { run: Run }) {
   return (
     <section
       aria-labelledby="observations-heading"
-      className="rounded-lg border border-ink-200 bg-white px-4 py-3"
+      className="rounded-lg border border-ink-200 bg-white px-4 py-3 break-inside-avoid"
     >
       <h2 id="observations-heading" className="mb-1 text-base font-semibold">
         Observations

@@ -11,18 +11,21 @@ import { DeviationsList } from './deviations-list';
 import { RunTimelineView, StepsTable } from './run-timeline';
 import { TemperatureChart } from './temperature-chart';
 
-/** The three sections of a run's record: timeline, temperature chart, deviations. */
+/**
+ * The three sections of a run's record: the temperature chart and the deviations first (what
+ * a reader checks), then the whole timeline.
+ */
 export function TimelineSections({ timeline }: { timeline: RunTimeline }) {
   return (
     <>
-      <Section id="timeline-heading" title="Timeline">
-        <RunTimelineView timeline={timeline} />
-      </Section>
       <Section id="temperature-heading" title="Temperature during the run">
         <TemperatureChart timeline={timeline} />
       </Section>
       <Section id="deviations-heading" title="Deviations">
         <DeviationsList timeline={timeline} />
+      </Section>
+      <Section id="timeline-heading" title="Timeline">
+        <RunTimelineView timeline={timeline} />
       </Section>
     </>
   );

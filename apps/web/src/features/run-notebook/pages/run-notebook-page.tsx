@@ -75,6 +75,7 @@ const notebookPrintCss = `
   .notebook-page { -webkit-print-color-adjust: exact; print-color-adjust: exact; font-size: 11pt; }
   .notebook-page h2, .notebook-page h3 { break-after: avoid; }
   .notebook-page figure, .notebook-page tr, .notebook-page li { break-inside: avoid; }
+  .notebook-page .stack-table { break-inside: avoid; }
 }
 `;
 
