@@ -76,6 +76,9 @@ const notebookPrintCss = `
   .notebook-page h2, .notebook-page h3 { break-after: avoid; }
   .notebook-page figure, .notebook-page tr, .notebook-page li { break-inside: avoid; }
   .notebook-page .stack-table { break-inside: avoid; }
+  /* the hazards may run on to the next sheet rather than leave the first one blank */
+  .notebook-page [aria-labelledby='prep-safety-heading'] { break-inside: auto; }
+  .notebook-page [aria-labelledby='prep-safety-heading'] .stack-table { break-inside: auto; }
 }
 `;
 
