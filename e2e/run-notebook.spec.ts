@@ -1,4 +1,5 @@
-import { expect, test, type APIRequestContext } from '@playwright/test';
+import AxeBuilder from '@axe-core/playwright';
+import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
 import { demo, signIn } from './support';
 
 /**
@@ -14,6 +15,16 @@ async function chemicalId(api: APIRequestContext, name: string): Promise<number>
   const found = items.find((item) => item.name === name);
   expect(found, `demo chemical ${name}`).toBeTruthy();
   return found!.id;
+}
+
+/** Serious and critical axe findings (WCAG 2.0/2.1 A and AA), as the page scan judges them. */
+async function seriousFindings(page: Page) {
+  const results = await new AxeBuilder({ page })
+    .withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'])
+    .analyze();
+  return results.violations
+    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+    .map((v) => `${v.id}: ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
 }
 
 async function runWithTimeline(api: APIRequestContext) {
@@ -86,8 +97,8 @@ async function runWithTimeline(api: APIRequestContext) {
 test('a run’s timeline, temperature chart and deviation on its page and its printable notebook page', async ({
   page,
 }, testInfo) => {
-  // a dozen API calls and a PDF: more than the default on a busy machine
-  test.setTimeout(90_000);
+  // a dozen API calls, an axe scan and a PDF: more than the default on a busy machine
+  test.setTimeout(120_000);
   await signIn(page, demo.manager);
   const { runId, title } = await runWithTimeline(page.request);
 
@@ -104,6 +115,9 @@ test('a run’s timeline, temperature chart and deviation on its page and its pr
   await expect(deviations.getByTestId('deviation-count')).toHaveText('1 deviation');
   await expect(deviations).toContainText('Window: 20–30 °C');
   await expect(deviations).toContainText('What to do: Slow the addition and cool in a water bath');
+
+  // the filled timeline, chart and deviations (the page scan sees a demo run's)
+  expect(await seriousFindings(page)).toEqual([]);
 
   await page.getByRole('link', { name: 'Notebook page' }).click();
   await expect(page).toHaveURL(new RegExp(`/preparations/runs/${runId}/notebook$`));
