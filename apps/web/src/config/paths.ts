@@ -37,6 +37,7 @@ export const paths = {
   runNew: '/preparations/runs/new',
   run: (id: number | string = ':id') => `/preparations/runs/${id}`,
   runRecord: (id: number | string = ':id') => `/preparations/runs/${id}/record`,
+  /** A run in progress at the bench: the current step, timers, readings, notes, photos. */
   runBench: (id: number | string = ':id') => `/preparations/runs/${id}/bench`,
   /** The run as a printable notebook page. */
   runNotebook: (id: number | string = ':id') => `/preparations/runs/${id}/notebook`,

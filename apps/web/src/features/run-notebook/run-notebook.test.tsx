@@ -59,7 +59,7 @@ describe('The run page’s timeline', () => {
     expect(item).toHaveTextContent('What to do: Slow the addition');
   });
 
-  it('when nothing was entered during an open run, then the page says so and offers the bench page to a member', async () => {
+  it('when nothing was entered during an open run, then the page says so and links the bench page', async () => {
     const empty = makeTimeline({ entries: [], deviations: [], currentStepIndex: null });
     empty.steps = empty.steps.map((step) => ({ ...step, startedAt: null, endedAt: null }));
     mockFetch(routes('member', empty));
@@ -68,14 +68,14 @@ describe('The run page’s timeline', () => {
     expect(
       await screen.findByText('Nothing recorded during this run yet', {}, { timeout: 5000 }),
     ).toBeInTheDocument();
-    expect(screen.getByRole('link', { name: 'Follow the steps at the bench' })).toHaveAttribute(
+    expect(screen.getByRole('link', { name: 'Open the bench page' })).toHaveAttribute(
       'href',
       '/preparations/runs/10/bench',
     );
     expect(screen.queryByRole('region', { name: 'Deviations' })).not.toBeInTheDocument();
   });
 
-  it('when a viewer opens an open run with nothing entered, then no bench link is offered', async () => {
+  it('when a viewer opens an open run with nothing entered, then the bench page is offered to follow along, and the notebook page', async () => {
     const empty = makeTimeline({ entries: [], deviations: [] });
     mockFetch(routes('viewer', empty));
     renderApp('/preparations/runs/10');
@@ -83,7 +83,7 @@ describe('The run page’s timeline', () => {
     expect(
       await screen.findByText('Nothing recorded during this run yet', {}, { timeout: 5000 }),
     ).toBeInTheDocument();
-    expect(screen.queryByRole('link', { name: 'Follow the steps at the bench' })).toBeNull();
+    expect(screen.getByRole('link', { name: 'Open the bench page' })).toBeInTheDocument();
     expect(screen.getByRole('link', { name: 'Notebook page' })).toHaveAttribute(
       'href',
       '/preparations/runs/10/notebook',

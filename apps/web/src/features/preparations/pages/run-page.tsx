@@ -121,7 +121,8 @@ function RunView({ run }: { run: Run }) {
         </Section>
       )}
 
-      <RunTimelineSections runId={run.id} open={run.status === 'open'} benchLink={mayRecord} />
+      {/* the bench page is open to every reader: those who may not add to it follow along */}
+      <RunTimelineSections runId={run.id} open={run.status === 'open'} benchLink />
 
       <RunDraws run={run} />
 

@@ -1,7 +1,6 @@
 import { Link } from 'react-router';
 import { ClipboardPen } from 'lucide-react';
 import type { RunTimeline } from '@lotwise/shared';
-import { buttonClasses } from '../../../components/ui/button';
 import { ErrorState } from '../../../components/ui/error-state';
 import { Spinner } from '../../../components/ui/spinner';
 import { paths } from '../../../config/paths';
@@ -46,9 +45,12 @@ function EmptyTimeline({ timeline, benchLink }: { timeline: RunTimeline; benchLi
           </p>
         )}
         {open && benchLink && (
-          <Link to={paths.runBench(timeline.runId)} className={buttonClasses('secondary')}>
+          <Link
+            to={paths.runBench(timeline.runId)}
+            className="inline-flex items-center gap-1.5 text-accent-700 underline underline-offset-2"
+          >
             <ClipboardPen aria-hidden="true" className="size-4" />
-            Follow the steps at the bench
+            Open the bench page
           </Link>
         )}
       </div>
@@ -68,7 +70,7 @@ export function RunTimelineSections({
 }: {
   runId: number;
   open: boolean;
-  /** Offer the bench page when nothing is recorded yet (to those who may record). */
+  /** Offer the bench page when nothing is recorded yet. */
   benchLink?: boolean;
 }) {
   const query = useRunTimeline(runId, { follow: open });
