@@ -142,7 +142,6 @@ function EntryBody({ entry, timeline }: { entry: TimelineEntry; timeline: RunTim
               <img
                 src={entry.photoUrl}
                 alt={entry.text || `Photo taken at ${clockTime(entry.at)}`}
-                loading="lazy"
                 className="h-28 w-auto max-w-full rounded-md border border-ink-200 object-cover print:h-40"
               />
               <span className="sr-only"> (opens the full image)</span>
