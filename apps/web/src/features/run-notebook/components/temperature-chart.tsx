@@ -1,7 +1,7 @@
 import { useEffect, useId, useState } from 'react';
 import { countOf, type RunTimeline } from '@lotwise/shared';
 import { formatDateTime } from '../../../lib/format';
-import { chartBoxFor, chartGeometry, type ChartGeometry } from '../chart-geometry';
+import { chartBoxFor, chartGeometry, type ChartGeometry, type WindowBand } from '../chart-geometry';
 import { clockTime, formatC } from '../labels';
 
 /** The mark of a reading outside its window: a triangle, not only another colour. */
@@ -44,6 +44,17 @@ function useWidth() {
     return () => observer.disconnect();
   }, [element]);
   return [setElement, value] as const;
+}
+
+/**
+ * The words inside a band where they fit (about 6 px a character at 11 px): "Step 2: 5–7 °C",
+ * else "Step 2", else none (the key and the readings table name the windows).
+ */
+function bandLabel(band: WindowBand): string | null {
+  const fits = (text: string) => band.width > text.length * 6 + 8;
+  const short = `Step ${band.stepIndex + 1}`;
+  if (fits(band.label)) return band.label;
+  return fits(short) ? short : null;
 }
 
 /** What the chart shows, in words: the text alternative and the figure's caption. */
@@ -128,7 +139,7 @@ export function TemperatureChart({
               strokeDasharray="4 3"
               strokeWidth={1}
             />
-            {band.width > 70 && (
+            {bandLabel(band) && (
               <text
                 x={band.x + 4}
                 y={band.y + 13}
@@ -136,7 +147,7 @@ export function TemperatureChart({
                 fill="var(--color-ok-700)"
                 fontWeight={600}
               >
-                {band.label}
+                {bandLabel(band)}
               </text>
             )}
           </g>
