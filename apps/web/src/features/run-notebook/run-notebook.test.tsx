@@ -30,6 +30,7 @@ describe('The run page’s timeline', () => {
     expect(addition).toHaveTextContent('5–7 °C');
     expect(addition).toHaveTextContent('20 min'); // planned 20 min, took 09:10–09:30
     expect(addition).toHaveTextContent('Add 12.5 mL Sodium nitrite solution dropwise');
+    expect(addition).toHaveTextContent('Exothermic addition: add slowly with cooling');
     expect(within(steps).getAllByRole('row').at(-1)).toHaveTextContent('under way');
 
     const entries = within(timeline).getAllByTestId('timeline-entry');

@@ -9,7 +9,13 @@ import {
   type LucideIcon,
 } from 'lucide-react';
 import { formatMinutes, minutesBetween } from '@lotwise/chem';
-import type { RunTimeline, TimelineEntry, TimelineStepView } from '@lotwise/shared';
+import {
+  noCautionFlags,
+  type RunTimeline,
+  type TimelineEntry,
+  type TimelineStepView,
+} from '@lotwise/shared';
+import { cautionFlagItems } from '../../preparations/components/preparation-safety';
 import { cn } from '../../../lib/cn';
 import { clockTime, entryKindLabels, formatC, spansDays } from '../labels';
 import { DeviationNote } from './deviation-note';
@@ -31,14 +37,27 @@ function tookText(step: TimelineStepView) {
   return formatMinutes(minutesBetween(step.startedAt, step.endedAt));
 }
 
+/** A step's caution in the words the procedure's caution flags use. */
+function stepCaution(caution: TimelineStepView['caution']) {
+  if (!caution) return null;
+  return cautionFlagItems({ ...noCautionFlags, [caution]: true })[0] ?? null;
+}
+
 function StepDetails({ step }: { step: TimelineStepView }) {
   const addition = [step.additionAmount, step.additionChemical, step.addition]
     .filter(Boolean)
     .join(' ');
+  const caution = stepCaution(step.caution);
   return (
     <>
       <span className="block text-ink-900">{step.text}</span>
       {addition && <span className="block text-xs text-ink-700">Add {addition}</span>}
+      {caution && (
+        <span className="flex items-start gap-1 text-xs font-medium text-ink-900">
+          <caution.icon aria-hidden="true" className="mt-px size-3.5 shrink-0 text-warn-700" />
+          {caution.text}
+        </span>
+      )}
       {step.holdPoint && (
         <span className="block text-xs text-ink-700">Do not go on until {step.holdPoint}</span>
       )}
