@@ -77,7 +77,9 @@ const pages = {
   run: { as: 'viewer', url: (ids) => paths.run(ids.run) },
   runRecord: { as: 'admin', url: (ids) => paths.runRecord(ids.openRun) },
   // as the run's own performer sees it (with its forms); a viewer sees the same page read-only
+  // as the run's own performer sees it (with its forms); a viewer sees the same page read-only
   runBench: { as: 'admin', url: (ids) => paths.runBench(ids.openRun) },
+  runNotebook: { as: 'viewer', url: (ids) => paths.runNotebook(ids.run) },
   chemicalUsage: { as: 'viewer', url: (ids) => paths.chemicalUsage(ids.chemical) },
   lotProvenance: { as: 'viewer', url: (ids) => paths.lotProvenance(ids.lot) },
   orders: { as: 'member', url: () => paths.orders },

@@ -26,6 +26,7 @@ const pages = {
   run: () => import('../features/preparations/pages/run-page'),
   runRecord: () => import('../features/preparations/pages/run-record-page'),
   runBench: () => import('../features/run-bench/pages/run-bench-page'),
+  runNotebook: () => import('../features/run-notebook/pages/run-notebook-page'),
   usage: () => import('../features/preparations/pages/chemical-usage-page'),
   provenance: () => import('../features/preparations/pages/lot-provenance-page'),
 } satisfies Record<string, () => Promise<unknown>>;
@@ -61,6 +62,7 @@ export const preparationRoutes: RouteObject[] = [
     'runs.record',
   ),
   preparationPage(paths.runBench(), async () => (await pages.runBench()).RunBenchPage),
+  preparationPage(paths.runNotebook(), async () => (await pages.runNotebook()).RunNotebookPage),
   preparationPage(paths.chemicalUsage(), async () => (await pages.usage()).ChemicalUsagePage),
   preparationPage(
     paths.lotProvenance(),

@@ -39,6 +39,8 @@ export const paths = {
   runRecord: (id: number | string = ':id') => `/preparations/runs/${id}/record`,
   /** A run in progress at the bench: the current step, timers, readings, notes, photos. */
   runBench: (id: number | string = ':id') => `/preparations/runs/${id}/bench`,
+  /** The run as a printable notebook page. */
+  runNotebook: (id: number | string = ':id') => `/preparations/runs/${id}/notebook`,
   /** Where a chemical was used in runs and procedures. */
   chemicalUsage: (chemicalId: number | string = ':chemicalId') =>
     `/preparations/usage/${chemicalId}`,

@@ -12,6 +12,7 @@ import { PageSpinner } from '../../../components/ui/spinner';
 import { errorMessage, isApiError, sendWithConfirmation } from '../../../lib/api-client';
 import { todayIsoDate } from '../../../lib/dates';
 import { paths } from '../../../config/paths';
+import { RecordDeviations } from '../../run-notebook/components/record-deviations';
 import { usePlan, useProcedure, useRecordRun, useRun } from '../api';
 import { BackLink, PageHeader, QueryState, Section } from '../components/page-parts';
 import { PreparationSafety, procedureHazards } from '../components/preparation-safety';
@@ -183,6 +184,8 @@ function RecordForm({
           )}
         </Field>
       </Section>
+
+      <RecordDeviations runId={run.id} />
 
       {problems.length > 0 && (
         <Notice tone="danger" title="Not recorded yet: a few things need a look">
