@@ -60,7 +60,7 @@ describe('The run page’s timeline', () => {
     expect(item).toHaveTextContent('What to do: Slow the addition');
   });
 
-  it('when nothing was entered during an open run, then the page says so and links the bench page (the page's own bench button)', async () => {
+  it('when nothing was entered during an open run, then the page says so and links the bench page (its big bench button)', async () => {
     const empty = makeTimeline({ entries: [], deviations: [], currentStepIndex: null });
     empty.steps = empty.steps.map((step) => ({ ...step, startedAt: null, endedAt: null }));
     mockFetch(routes('member', empty));
