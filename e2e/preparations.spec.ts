@@ -44,14 +44,14 @@ test('when a technician plans 8 benches at 1/4 scale, then the shortfall, make-v
   );
   await expect(totals).toContainText('Prepare it first: Sodium hydroxide solution 1 M');
   for (const bench of [1, 3, 8]) {
-    await expect(page.getByRole('region', { name: `Bench ${bench}` })).toContainText(
+    await expect(page.getByRole('region', { name: `Bench ${bench}`, exact: true })).toContainText(
       /Short by 30\.50? mL for the session/,
     );
   }
-  await expect(page.getByRole('region', { name: 'Bench 2' })).toContainText(
+  await expect(page.getByRole('region', { name: 'Bench 2', exact: true })).toContainText(
     'Bench 2 can be served from what is on hand',
   );
-  await expect(page.getByRole('region', { name: 'Bench 3' })).toContainText(
+  await expect(page.getByRole('region', { name: 'Bench 3', exact: true })).toContainText(
     'Bench 3 cannot be served from what is on hand',
   );
 

@@ -231,11 +231,13 @@ export function fileStore(options: { dir: string; maxBytes: number; maxMb: numbe
     /**
      * Sends a stored file as a download under its original name (Content-Disposition with
      * an ASCII fallback and the UTF-8 name). 404 when the file is gone from the folder.
+     * `inline`: shown in the browser instead (an image whose type was checked by content).
      */
     async send(
       res: Response,
       file: { storedName: string; fileName: string; contentType: string },
       what: string,
+      { inline = false }: { inline?: boolean } = {},
     ): Promise<void> {
       const full = pathOf(file.storedName);
       let size: number;
@@ -249,6 +251,10 @@ export function fileStore(options: { dir: string; maxBytes: number; maxMb: numbe
       res.status(200);
       // Files stored before names followed the detected type still download as what they are.
       res.attachment(withExtension(file.fileName, path.extname(file.storedName).slice(1)));
+      if (inline) {
+        const disposition = String(res.getHeader('Content-Disposition'));
+        res.setHeader('Content-Disposition', disposition.replace(/^attachment/, 'inline'));
+      }
       res.setHeader('Content-Type', file.contentType);
       res.setHeader('Content-Length', String(size));
       res.setHeader('Cache-Control', 'private, no-store');

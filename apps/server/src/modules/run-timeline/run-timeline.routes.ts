@@ -91,7 +91,7 @@ export function runTimelineRoutes(
       params: photoParamsSchema,
       handle: async ({ params, res }) => {
         const file = await photos.photo(params.id, params.photoId);
-        await files.send(res, file, file.what);
+        await files.send(res, file, file.what, { inline: true });
       },
     }),
   ];

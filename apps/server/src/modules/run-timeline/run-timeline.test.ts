@@ -353,6 +353,8 @@ describe('photos of a run', () => {
       })
       .expect(200);
     expect(fetched.headers['content-type']).toBe('image/png');
+    // Shown in the browser when its link is opened, not downloaded.
+    expect(fetched.headers['content-disposition']).toMatch(/^inline; filename="?bench\.png/);
     expect(Buffer.compare(fetched.body as Buffer, tinyPng())).toBe(0);
 
     // The same photo sent twice at the same moment: kept once, the other copy removed.

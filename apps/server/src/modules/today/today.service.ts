@@ -159,9 +159,9 @@ export function todayService(store: Store, config: Config, deps: { alerts: Alert
       severity: 'info',
       status: 'Open',
       title: run.procedureTitle,
-      detail: `Opened ${formatDateTime(run.createdAt, config.text)} at ×${run.scaleFactor}${run.planId === null ? '' : ` from plan #${run.planId}`}; record what was used and made.`,
+      detail: `Opened ${formatDateTime(run.createdAt, config.text)} at ×${run.scaleFactor}${run.planId === null ? '' : ` from plan #${run.planId}`}; follow its steps at the bench, then record what was used and made.`,
       notes: [],
-      link: `/preparations/runs/${run.id}/record`,
+      link: `/preparations/runs/${run.id}`,
       chemicals: [],
       dueOn: null,
     }));

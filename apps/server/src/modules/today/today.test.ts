@@ -252,7 +252,7 @@ describe('GET /api/today', () => {
       expect.objectContaining({
         key: `run:${lab.runId}`,
         status: 'Open',
-        link: `/preparations/runs/${lab.runId}/record`,
+        link: `/preparations/runs/${lab.runId}`,
       }),
     ]);
     const order = page.sections.ordersWaiting!.items.find((i) => i.key === `order:${lab.orderId}`)!;

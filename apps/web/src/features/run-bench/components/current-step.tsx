@@ -75,50 +75,50 @@ export function CurrentStep({
       </h2>
       <dl className="flex flex-col gap-2 text-lg text-ink-900">
         {step.windowText && (
-          <div className="flex items-start gap-2">
-            <Thermometer aria-hidden="true" className="mt-1 size-5 shrink-0 text-accent-700" />
-            <div>
-              <dt className="sr-only">Temperature window</dt>
-              <dd>
+          <div>
+            <dt className="sr-only">Temperature window</dt>
+            <dd className="flex items-start gap-2">
+              <Thermometer aria-hidden="true" className="mt-1 size-5 shrink-0 text-accent-700" />
+              <span>
                 Keep at <strong className="tabular-nums">{step.windowText}</strong>
                 {step.outsideWindow && (
                   <span className="block text-base text-ink-700">
                     If outside: {step.outsideWindow}
                   </span>
                 )}
-              </dd>
-            </div>
+              </span>
+            </dd>
           </div>
         )}
         {step.additionChemical && (
-          <div className="flex items-start gap-2">
-            <Hand aria-hidden="true" className="mt-1 size-5 shrink-0 text-accent-700" />
-            <div>
-              <dt className="sr-only">Addition</dt>
-              <dd>
+          <div>
+            <dt className="sr-only">Addition</dt>
+            <dd className="flex items-start gap-2">
+              <Hand aria-hidden="true" className="mt-1 size-5 shrink-0 text-accent-700" />
+              <span>
                 Add <strong className="tabular-nums">{step.additionAmount ?? 'the amount'}</strong>{' '}
                 of {step.additionChemical}
                 {step.addition && <span className="text-ink-700"> — {step.addition}</span>}
-              </dd>
-            </div>
+              </span>
+            </dd>
           </div>
         )}
         {!step.additionChemical && step.addition && (
-          <div className="flex items-start gap-2">
-            <Hand aria-hidden="true" className="mt-1 size-5 shrink-0 text-accent-700" />
-            <div>
-              <dt className="sr-only">Addition</dt>
-              <dd>{step.addition}</dd>
-            </div>
+          <div>
+            <dt className="sr-only">Addition</dt>
+            <dd className="flex items-start gap-2">
+              <Hand aria-hidden="true" className="mt-1 size-5 shrink-0 text-accent-700" />
+              <span>{step.addition}</span>
+            </dd>
           </div>
         )}
         {step.durationMinutes !== null && (
-          <div className="flex items-start gap-2">
-            <Clock aria-hidden="true" className="mt-1 size-5 shrink-0 text-accent-700" />
-            <div>
-              <dt className="sr-only">Duration</dt>
-              <dd>Takes {formatMinutes(step.durationMinutes)}</dd>
-            </div>
+          <div>
+            <dt className="sr-only">Duration</dt>
+            <dd className="flex items-start gap-2">
+              <Clock aria-hidden="true" className="mt-1 size-5 shrink-0 text-accent-700" />
+              <span>Takes {formatMinutes(step.durationMinutes)}</span>
+            </dd>
           </div>
         )}
       </dl>
