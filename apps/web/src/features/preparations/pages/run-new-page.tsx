@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useNavigate, useSearchParams } from 'react-router';
-import { FlaskRound } from 'lucide-react';
-import { scaleFactorInputSchema } from '@lotwise/shared';
+import { FlaskConical, FlaskRound } from 'lucide-react';
+import { countOf, scaleFactorInputSchema } from '@lotwise/shared';
 import { Button } from '../../../components/ui/button';
 import { Field } from '../../../components/ui/field';
 import { Input, Select } from '../../../components/ui/input';
@@ -17,7 +17,7 @@ import { fullPrecision } from '../components/rounded';
 
 /**
  * Opens a run — from a plan (its procedure and whole-session scale) or without one — and
- * goes on to record what was used and obtained.
+ * goes on to the bench page (a procedure with steps) or to record what was used and obtained.
  */
 export function RunNewPage() {
   const [search] = useSearchParams();
@@ -31,9 +31,14 @@ export function RunNewPage() {
   const [factorError, setFactorError] = useState<string>();
   const procedure = useProcedure(procedureId && !planId ? Number(procedureId) : undefined);
 
-  function start() {
+  const steps = planId ? (plan.data?.steps.length ?? 0) : (procedure.data?.steps.length ?? 0);
+
+  /** Opens the run, then goes to the bench page (`bench`) or straight to recording it. */
+  function start(next: 'bench' | 'record') {
+    const go = (run: { id: number }) =>
+      navigate(next === 'bench' ? paths.runBench(run.id) : paths.runRecord(run.id));
     if (planId) {
-      create.mutate({ planId }, { onSuccess: (run) => navigate(paths.runRecord(run.id)) });
+      create.mutate({ planId }, { onSuccess: go });
       return;
     }
     const parsed = scaleFactorInputSchema.safeParse(factor.trim());
@@ -44,7 +49,7 @@ export function RunNewPage() {
     setFactorError(undefined);
     create.mutate(
       { procedureId: Number(procedureId), scaleFactor: factor.trim() },
-      { onSuccess: (run) => navigate(paths.runRecord(run.id)) },
+      { onSuccess: go },
     );
   }
 
@@ -54,7 +59,8 @@ export function RunNewPage() {
         {planId ? 'Back to the plan' : 'All runs'}
       </BackLink>
       <PageHeader title="Record a run">
-        Open a run, then enter what was really drawn from which container and what was obtained.
+        Open a run, follow the procedure's steps at the bench (timers, readings, notes and photos),
+        then enter what was really drawn from which container and what was obtained.
       </PageHeader>
       {planId && plan.data && (
         <>
@@ -112,16 +118,28 @@ export function RunNewPage() {
           {errorMessage(create.error)}
         </Notice>
       )}
-      <Button
-        variant="primary"
-        className="self-start"
-        busy={create.isPending}
-        disabled={!planId && !procedureId}
-        icon={<FlaskRound aria-hidden="true" className="size-4" />}
-        onClick={start}
-      >
-        Start recording
-      </Button>
+      <div className="flex flex-wrap gap-2">
+        {steps > 0 && (
+          <Button
+            variant="primary"
+            busy={create.isPending}
+            disabled={!planId && !procedureId}
+            icon={<FlaskConical aria-hidden="true" className="size-4" />}
+            onClick={() => start('bench')}
+          >
+            Start and follow the {countOf(steps, 'step')}
+          </Button>
+        )}
+        <Button
+          variant={steps > 0 ? 'secondary' : 'primary'}
+          busy={create.isPending}
+          disabled={!planId && !procedureId}
+          icon={<FlaskRound aria-hidden="true" className="size-4" />}
+          onClick={() => start('record')}
+        >
+          Start recording
+        </Button>
+      </div>
     </div>
   );
 }
