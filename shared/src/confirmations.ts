@@ -51,9 +51,43 @@ export const storageConflictWarningSchema = z.object({
 });
 export type StorageConflictWarning = z.infer<typeof storageConflictWarningSchema>;
 
+/**
+ * Receiving, moving or splitting a container would take a lab area over one of its
+ * flammable-liquid limits (or further over it).
+ */
+export const flammableLimitWarningSchema = z.object({
+  kind: z.literal('flammable_limit'),
+  /** One sentence: "Room 101 would hold 41.2 L of Class I liquids; its limit is 37.9 L (…)". */
+  message: z.string(),
+  labAreaId: z.number().int(),
+  labAreaName: z.string(),
+  /** Which limit, in words: "Class I liquids, cabinets and safety cans included". */
+  limit: z.string(),
+  heldLitres: z.number(),
+  afterLitres: z.number(),
+  limitLitres: z.number(),
+  /** The rule set's name, edition and table, e.g. "NFPA 45 (2024), Table 9.1.1". */
+  source: z.string(),
+});
+export type FlammableLimitWarning = z.infer<typeof flammableLimitWarningSchema>;
+
+/** A flammable or combustible liquid in a container larger than its class and material allow. */
+export const containerSizeWarningSchema = z.object({
+  kind: z.literal('container_size'),
+  message: z.string(),
+  liquidClass: z.string(),
+  material: z.string(),
+  capacityLitres: z.number(),
+  limitLitres: z.number(),
+  source: z.string(),
+});
+export type ContainerSizeWarning = z.infer<typeof containerSizeWarningSchema>;
+
 export const confirmationWarningSchema = z.discriminatedUnion('kind', [
   holdWarningSchema,
   storageConflictWarningSchema,
+  flammableLimitWarningSchema,
+  containerSizeWarningSchema,
 ]);
 export type ConfirmationWarning = z.infer<typeof confirmationWarningSchema>;
 

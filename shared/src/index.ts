@@ -40,3 +40,4 @@ export * from './purchases';
 export * from './backups';
 export * from './today';
 export * from './settings';
+export * from './flammability';

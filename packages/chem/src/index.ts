@@ -21,3 +21,4 @@ export * from './weighing';
 export * from './reorder';
 export * from './packs';
 export * from './timeline';
+export * from './flammability';
