@@ -41,3 +41,4 @@ export * from './backups';
 export * from './today';
 export * from './settings';
 export * from './flammability';
+export * from './rule-sets';
