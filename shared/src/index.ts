@@ -41,4 +41,5 @@ export * from './backups';
 export * from './today';
 export * from './settings';
 export * from './flammability';
+export * from './fire-data';
 export * from './rule-sets';
