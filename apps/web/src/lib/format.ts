@@ -104,3 +104,9 @@ export function formatTime(
 ): string {
   return formatSharedTime(value, { locale });
 }
+
+/** A temperature in °C with up to one decimal, e.g. `−17.8 °C`; `—` when not recorded. */
+export function formatTemperature(value: number | null | undefined): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  return `${formatDecimal(value, 1, readerLocale())} °C`;
+}

@@ -32,6 +32,7 @@ import { physicalStateLabels } from '../labels';
 import { ListTextInput } from './list-text-input';
 import { MolarMassPreview } from './molar-mass-preview';
 import { PictogramPicker } from './pictogram-picker';
+import { FireDataFields } from './fire-data-fields';
 import {
   emptyToNull,
   fieldNames,
@@ -430,6 +431,8 @@ export function ChemicalForm({
           </Field>
         </div>
       </section>
+
+      <FireDataFields register={register} control={control} hint={hint} />
 
       <section
         className="rounded-lg border border-ink-200 bg-white p-4"

@@ -19,6 +19,7 @@ import {
 } from '../../../lib/format';
 import { paths } from '../../../config/paths';
 import { useChemical, useDeleteChemical } from '../api';
+import { FireDataSection } from '../components/fire-data-section';
 import { HazardSection } from '../components/hazard-section';
 import { physicalStateLabels } from '../labels';
 
@@ -135,6 +136,8 @@ export function ChemicalDetailPage() {
       </header>
 
       <HazardSection chemical={c} />
+
+      <FireDataSection chemical={c} />
 
       <section
         aria-labelledby="properties-heading"

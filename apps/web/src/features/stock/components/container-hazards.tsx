@@ -1,6 +1,14 @@
-import { peroxideClasses, type Container, type StoredFile } from '@lotwise/shared';
+import {
+  ghsFlammableHazardStatements,
+  liquidClassLabels,
+  liquidClassMeanings,
+  peroxideClasses,
+  type Container,
+  type StoredFile,
+} from '@lotwise/shared';
 import { Link } from 'react-router';
 import { FileText, TriangleAlert } from 'lucide-react';
+import { LiquidClassBadge } from '../../../components/hazards/liquid-class-badge';
 import { HazardStatementList } from '../../../components/hazards/hazard-statement-list';
 import { PictogramList } from '../../../components/hazards/pictogram-badge';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
@@ -78,6 +86,22 @@ export function ContainerHazards({
               <h3 className="mb-1.5 text-sm font-semibold text-ink-800">Storage group</h3>
               <StorageGroupLabel group={chemical.storageGroup} withHint />
             </div>
+            {chemical.liquidClass && (
+              <div>
+                <h3 className="mb-1.5 text-sm font-semibold text-ink-800">Liquid class</h3>
+                <p className="flex flex-col gap-1 text-sm text-ink-800">
+                  <LiquidClassBadge liquidClass={chemical.liquidClass} />
+                  <span>
+                    {liquidClassLabels[chemical.liquidClass]}:{' '}
+                    {liquidClassMeanings[chemical.liquidClass]}
+                    {chemical.ghsFlammableCategory
+                      ? `; GHS category ${chemical.ghsFlammableCategory} (${ghsFlammableHazardStatements[chemical.ghsFlammableCategory]})`
+                      : ''}
+                    . Worked out from the chemical’s flash and boiling point; the SDS decides.
+                  </span>
+                </p>
+              </div>
+            )}
             {chemical.peroxideClass && (
               <div>
                 <h3 className="mb-1.5 text-sm font-semibold text-ink-800">Peroxide former</h3>
