@@ -476,5 +476,11 @@ export const chemicalExportHeaders = [
   'Reorder point',
   'Reorder quantity',
   'Restricted',
+  'Flash point (°C)',
+  'Flash point source',
+  'Boiling point (°C)',
+  'Boiling point source',
+  'NFPA 30 class',
+  'GHS flammable category',
   'Notes',
 ] as const;

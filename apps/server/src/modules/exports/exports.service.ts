@@ -79,6 +79,12 @@ function chemicalCells(chemical: Chemical): Cell[] {
     chemical.reorderPoint,
     chemical.reorderQuantity,
     chemical.restricted ? 'yes' : 'no',
+    chemical.flashPointC ?? null,
+    chemical.flashPointSource ?? '',
+    chemical.boilingPointC ?? null,
+    chemical.boilingPointSource ?? '',
+    chemical.liquidClass ?? null,
+    chemical.ghsFlammableCategory ?? null,
     chemical.notes,
   ];
 }

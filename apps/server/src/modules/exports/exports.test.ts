@@ -77,6 +77,33 @@ describe('exports escape formulas', () => {
   });
 });
 
+describe('chemicals export carries the fire data', () => {
+  it('when a liquid has figures, then the CSV has them with their sources, the class and the category; a negative flash point stays a number', async () => {
+    await make.chemical({
+      name: 'Fire export acetone',
+      physicalState: 'liquid',
+      stockUnit: 'mL',
+      formula: 'C3H6O',
+      flashPointC: -17.8,
+      flashPointSource: 'NIOSH Pocket Guide',
+      boilingPointC: 56.1,
+      boilingPointSource: 'Merck Index',
+    });
+    const response = await download('/api/exports/chemicals.csv?q=Fire%20export').expect(200);
+    const { records } = parseCsv(response.body as string);
+    const header = records[0]!;
+    const row = records[1]!;
+    const cell = (name: string) => row[header.indexOf(name)];
+    expect(cell('Flash point (°C)')).toBe('-17.8');
+    expect(cell('Flash point source')).toBe('NIOSH Pocket Guide');
+    expect(cell('Boiling point (°C)')).toBe('56.1');
+    expect(cell('Boiling point source')).toBe('Merck Index');
+    // NFPA 30 (2024) §4.3.1: below 22.8 °C, boiling 37.8 °C or above → IB; GHS Rev. 10 Table 2.6.1 → 2
+    expect(cell('NFPA 30 class')).toBe('IB');
+    expect(cell('GHS flammable category')).toBe('2');
+  });
+});
+
 describe('export, then import elsewhere', () => {
   let other: TestContext;
   let otherManager = '';
