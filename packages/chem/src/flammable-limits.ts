@@ -383,10 +383,9 @@ export function flammableTotals(
  * The limits a change would cross: those over after it and either not over before or
  * further over than before.
  */
-export function limitsCrossed(
-  before: readonly LimitAgainstHeld[],
-  after: readonly LimitAgainstHeld[],
-): { before: LimitAgainstHeld; after: LimitAgainstHeld }[] {
+export function limitsCrossed<
+  T extends { key: FlammableLimitKey; heldLitres: number; status: LimitStatus },
+>(before: readonly T[], after: readonly T[]): { before: T; after: T }[] {
   return after.flatMap((a) => {
     const b = before.find((x) => x.key === a.key);
     if (!b || a.status !== 'over') return [];
