@@ -53,6 +53,7 @@ import { OutboxQueuedAge1796900000000 } from './migrations/1796900000000-outbox-
 import { ScheduledRuns1796910000000 } from './migrations/1796910000000-scheduled-runs';
 import { ProcedureSteps1796950000000 } from './migrations/1796950000000-procedure-steps';
 import { RunTimeline1796960000000 } from './migrations/1796960000000-run-timeline';
+import { ChemicalFireData1796970000000 } from './migrations/1796970000000-chemical-fire-data';
 import { LabAreas1796980000000 } from './migrations/1796980000000-lab-areas';
 import { ChemicalMeasures1796630000000 } from './migrations/1796630000000-chemical-measures';
 import { RunCrudeYieldFlag1796620000000 } from './migrations/1796620000000-run-crude-yield-flag';
@@ -112,6 +113,7 @@ export const migrations = [
   ScheduledRuns1796910000000,
   ProcedureSteps1796950000000,
   RunTimeline1796960000000,
+  ChemicalFireData1796970000000,
   LabAreas1796980000000,
 ];
 

@@ -9,6 +9,7 @@ import {
 } from '@lotwise/chem';
 import {
   amountProblem,
+  fireClassOf,
   formatLabelCode,
   maxStockAmount,
   maxStockAmountText,
@@ -195,6 +196,11 @@ export function presentContainer(
       hazardStatements: view.chemicalHazardStatements,
       peroxideClass: view.chemicalPeroxideClass,
       stockUnit: view.chemicalStockUnit,
+      ...fireClassOf({
+        physicalState: view.chemicalPhysicalState,
+        flashPointC: view.chemicalFlashPointC,
+        boilingPointC: view.chemicalBoilingPointC,
+      }),
     },
     lot: {
       id: view.lotId,

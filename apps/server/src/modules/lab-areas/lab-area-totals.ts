@@ -12,6 +12,7 @@ import {
   type LiquidClass,
 } from '@lotwise/chem';
 import {
+  ghsFlammableHazardStatements,
   labAreaNearFraction,
   roomRulesReminder,
   ruleSetCitation,
@@ -30,7 +31,7 @@ import type { RuleSetRow } from '../rule-sets/rule-set.entity';
 import type { AreaContainer, LabAreaPlaced, StoragePlace } from './lab-areas.repository';
 
 /** GHS hazard statements of flammable liquids (H224–H226) and combustible ones (H227). */
-const flammableStatements = ['H224', 'H225', 'H226', 'H227'];
+const flammableStatements = Object.values(ghsFlammableHazardStatements);
 
 /** Volumes counted beside the containers (e.g. ignitable waste), by area id. */
 export type ExtraVolumes = Map<number, (FlammableVolume & { what: string })[]>;

@@ -7,7 +7,6 @@ import type {
 } from '@lotwise/shared';
 import type { EntityManager } from 'typeorm';
 import { fromMicro } from '../../db/quantities';
-import { boilingPointColumn, flashPointColumn } from './chemical-flammability';
 import { LabAreaEntity, type LabAreaRow } from './lab-area.entity';
 
 export type LabAreaValues = Omit<
@@ -158,8 +157,8 @@ export function labAreasRepository(manager: EntityManager) {
           'ch.density AS density',
           'ch.ghs_pictograms AS "ghsPictograms"',
           'ch.hazard_statements AS "hazardStatements"',
-          `${flashPointColumn} AS "flashPointC"`,
-          `${boilingPointColumn} AS "boilingPointC"`,
+          'ch.flash_point_c AS "flashPointC"',
+          'ch.boiling_point_c AS "boilingPointC"',
         ])
         .from('containers', 'c')
         .innerJoin('locations', 'l', 'l.id = c.location_id')
