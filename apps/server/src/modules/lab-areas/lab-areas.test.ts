@@ -9,6 +9,7 @@ import { z } from 'zod';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { signedIn, stockFactory } from '../../test/factories';
 import { testContext } from '../../test/harness';
+import { makeOrder } from '../../test/orders-in-database';
 import { readsOf, recordStatements } from '../../test/statements';
 
 const app = () => testContext().app;
@@ -263,6 +264,41 @@ describe('warnings before saving', () => {
     const after = await detail(area.id);
     expect(after.status).toBe('over');
     expect(held(after, 'class-i-outside-storage').marginLitres).toBeLessThan(0);
+  });
+
+  it('when receiving a delivery would take a room over its limit, then 409 warns and confirming receives it', async () => {
+    const { room, area } = await smallRoom('Delivery room');
+    const solvent = await liquid('Delivered solvent', 13, 78);
+    const member = (await signedIn('member')).user;
+    const record = await makeOrder({
+      lines: [
+        {
+          chemicalId: solvent.chemical.id,
+          packs: 1,
+          packSize: 4,
+          packUnit: 'L',
+          unitPriceMinor: 3000,
+          shares: [{ userId: member.id, quantity: 4 }],
+        },
+      ],
+    });
+    const receive = {
+      receivedOn: '2026-03-10',
+      locationId: room.id,
+      lines: record.lines.map((line) => ({
+        lineId: line.id,
+        packsReceived: line.packs,
+        supplierLotNumber: 'D-1',
+        expiresOn: '2028-03-31',
+      })),
+    };
+    const refused = await post(`/api/orders/${record.order.id}/receive`, receive).expect(409);
+    expect(refused.body.error.warnings).toContainEqual(
+      expect.objectContaining({ kind: 'flammable_limit', labAreaId: area.id, afterLitres: 4 }),
+    );
+    expect((await detail(area.id)).containers).toHaveLength(0);
+    await post(`/api/orders/${record.order.id}/receive`, { ...receive, confirm: true }).expect(200);
+    expect((await detail(area.id)).status).toBe('over');
   });
 
   it('when a container is moved or split into a room near its limit, then it warns too', async () => {
