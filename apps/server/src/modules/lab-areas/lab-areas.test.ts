@@ -263,6 +263,12 @@ describe('warnings before saving', () => {
     await post('/api/containers', { ...body, confirm: true }).expect(201);
     const after = await detail(area.id);
     expect(after.status).toBe('over');
+    const today = (await request(app()).get('/api/today').set('Cookie', viewer).expect(200)).body;
+    const item = today.sections.labAreaLimits.items.find(
+      (i: { key: string }) => i.key === `lab-area:${area.id}`,
+    );
+    expect(item).toMatchObject({ severity: 'critical', status: 'Over a limit' });
+    expect(item.notes).toContain(roomRulesReminder);
     expect(held(after, 'class-i-outside-storage').marginLitres).toBeLessThan(0);
   });
 
@@ -328,6 +334,16 @@ describe('warnings before saving', () => {
       locationId: room.id,
     }).expect(201); // 3.5 of 3.785 L: near, not over
     expect((await detail(area.id)).status).toBe('near');
+    const today = (await request(app()).get('/api/today').set('Cookie', viewer).expect(200)).body;
+    expect(today.sections.labAreaLimits.items).toContainEqual(
+      expect.objectContaining({
+        key: `lab-area:${area.id}`,
+        severity: 'warning',
+        status: 'Near a limit',
+        title: 'Transfer room',
+        link: `/stock/lab-areas/${area.id}`,
+      }),
+    );
   });
 
   it('when a glass bottle is larger than its class allows, then a container-size warning', async () => {
