@@ -43,3 +43,4 @@ export * from './settings';
 export * from './flammability';
 export * from './fire-data';
 export * from './rule-sets';
+export * from './lab-areas';

@@ -62,6 +62,7 @@ const viewColumns: [string, keyof ContainerView][] = [
   ['c.tare_mass', 'tareMass'],
   ['c.capacity', 'capacity'],
   ['c.capacity_unit', 'capacityUnit'],
+  ['c.material', 'material'],
   ['c.opened_on', 'openedOn'],
   ['c.expires_on', 'expiresOn'],
   ['c.peroxide_due_on', 'peroxideDueOn'],
