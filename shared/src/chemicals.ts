@@ -10,6 +10,7 @@ import {
 import { listQuerySchema } from './list';
 import { nameSchema } from './names';
 import { storedFileSchema } from './uploads';
+import { watchListingSchema } from './watch-lists';
 
 export const physicalStates = ['solid', 'liquid', 'gas', 'solution'] as const;
 export const physicalStateSchema = z.enum(physicalStates, {
@@ -140,6 +141,11 @@ export const chemicalSchema = z.object({
   reorderQuantity: z.number().nullable(),
   restricted: z.boolean(),
   notes: z.string(),
+  /**
+   * The rows of the lab's chosen watch lists the chemical meets (its CAS RN at its default
+   * purity or concentration); empty when none. Always sent by the server.
+   */
+  watchListings: z.array(watchListingSchema).optional(),
   /**
    * The current safety data sheet (PDF), downloaded from `GET /api/chemicals/:id/sds`; null
    * when none was uploaded. Always sent by the server.

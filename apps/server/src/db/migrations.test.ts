@@ -45,6 +45,7 @@ describe('migrations', () => {
         'migrations',
         'order_lines',
         'order_shares',
+        'order_watch_approvals',
         'orders',
         'outbox',
         'payment_events',
@@ -63,6 +64,8 @@ describe('migrations', () => {
         'stocktakes',
         'suppliers',
         'users',
+        'watch_list_entries',
+        'watch_lists',
       ]);
       expect(await dataSource.showMigrations()).toBe(false);
 
