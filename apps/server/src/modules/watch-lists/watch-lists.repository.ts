@@ -1,4 +1,4 @@
-import type { EntityManager } from 'typeorm';
+import { In, type EntityManager } from 'typeorm';
 import { fromMicro } from '../../db/quantities';
 import { isUniqueViolation } from '../../db/sql';
 import { AppError } from '../../lib/app-error';
@@ -96,6 +96,11 @@ export function watchListsRepository(manager: EntityManager) {
         if (isUniqueViolation(error)) throw duplicateName();
         throw error;
       }
+    },
+    /** Marks the built-in lists of `presetKeys` chosen (the demo lab's choice). */
+    async choosePresets(presetKeys: string[]): Promise<void> {
+      if (presetKeys.length === 0) return;
+      await lists.update({ presetKey: In(presetKeys) }, { chosen: true });
     },
     async deleteList(id: number): Promise<void> {
       await entries.delete({ listId: id });
