@@ -12,6 +12,7 @@ import { ghsFlammableCategorySchema, liquidClassSchema } from './flammability';
 import { listQuerySchema } from './list';
 import { nameSchema } from './names';
 import { storedFileSchema } from './uploads';
+import { watchListingSchema } from './watch-lists';
 
 export const physicalStates = ['solid', 'liquid', 'gas', 'solution'] as const;
 export const physicalStateSchema = z.enum(physicalStates, {
@@ -180,6 +181,11 @@ export const chemicalSchema = z.object({
    */
   liquidClass: liquidClassSchema.nullable().optional(),
   ghsFlammableCategory: ghsFlammableCategorySchema.nullable().optional(),
+  /**
+   * The rows of the lab's chosen watch lists the chemical meets (its CAS RN at its default
+   * purity or concentration); empty when none. Always sent by the server.
+   */
+  watchListings: z.array(watchListingSchema).optional(),
   /**
    * The current safety data sheet (PDF), downloaded from `GET /api/chemicals/:id/sds`; null
    * when none was uploaded. Always sent by the server.

@@ -49,6 +49,8 @@ export const containerCreateSchema = z
     status: z.enum(['sealed', 'open'], { message: 'must be sealed or open' }).default('sealed'),
     openedOn: isoDateSchema.nullable().default(null),
     notes: z.string().max(2000, 'is at most 2000 characters').default(''),
+    /** Why it was received, on the ledger entry (required for a chemical on a chosen watch list). */
+    note: noteSchema.default(''),
     /** Store it even where it breaks a storage rule (answered 409 `confirmation_required` otherwise). */
     confirm: confirmFieldSchema,
   })
@@ -84,6 +86,7 @@ export const drawSchema = z
     amount: positive('amount').optional(),
     grossMass: nonNegative('gross mass').optional(),
     unit: quantityUnitSchema,
+    /** Why (required for a chemical on a chosen watch list: who and why are recorded). */
     note: noteSchema.default(''),
     /** Draw even when it takes from what is held for a plan (409 `confirmation_required` otherwise). */
     confirm: confirmFieldSchema,

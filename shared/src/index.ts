@@ -44,3 +44,4 @@ export * from './flammability';
 export * from './fire-data';
 export * from './rule-sets';
 export * from './lab-areas';
+export * from './watch-lists';

@@ -4,6 +4,7 @@ import { isoDateSchema } from './dates';
 import { ghsCodeSchema } from './hazards';
 import { listQuerySchema } from './list';
 import { minorAmountSchema } from './money';
+import { orderWatchSchema } from './watch-lists';
 import {
   feeRules,
   orderStatuses,
@@ -37,6 +38,8 @@ export const orderAuditActions = [
   'order.ordered',
   'order.invoice_recorded',
   'order.cancelled',
+  'order.watch_approved',
+  'order.watch_approval_cleared',
 ] as const;
 export type OrderAuditAction = (typeof orderAuditActions)[number];
 
@@ -279,5 +282,7 @@ export const orderDetailSchema = orderSummarySchema.extend({
   shares: z.array(orderShareSchema),
   abilities: orderAbilitiesSchema,
   safetyDeferral: z.string(),
+  /** Watched or restricted chemicals on the lines and the approval they need. Always sent. */
+  watch: orderWatchSchema.optional(),
 });
 export type OrderDetail = z.infer<typeof orderDetailSchema>;

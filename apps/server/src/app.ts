@@ -83,6 +83,8 @@ import { uploadsService } from './modules/uploads/uploads.service';
 import { userCacheOf } from './modules/users/user-cache';
 import { userRoutes } from './modules/users/users.routes';
 import { usersService } from './modules/users/users.service';
+import { watchListRoutes } from './modules/watch-lists/watch-lists.routes';
+import { watchListsService } from './modules/watch-lists/watch-lists.service';
 
 export interface AppOptions {
   dataSource: DataSource;
@@ -194,6 +196,7 @@ export function createApp({
     ...userRoutes(usersService(store, config), session),
     ...auditRoutes(auditService(store)),
     ...chemicalRoutes(chemicalsService(store, files)),
+    ...watchListRoutes(watchListsService(store)),
     ...locationRoutes(locationsService(store)),
     ...ruleSetRoutes(ruleSetsService(store)),
     ...labAreaRoutes(labAreasService(store)),

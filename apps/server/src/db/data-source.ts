@@ -37,6 +37,11 @@ import { OrderLineEntity } from '../modules/orders/order-line.entity';
 import { OrderShareEntity } from '../modules/orders/order-share.entity';
 import { PaymentEntity } from '../modules/payments/payment.entity';
 import { PaymentEventEntity } from '../modules/payments/payment-event.entity';
+import {
+  OrderWatchApprovalEntity,
+  WatchListEntity,
+  WatchListEntryEntity,
+} from '../modules/watch-lists/watch-list.entity';
 import { Initial1796160000000 } from './migrations/1796160000000-initial';
 import { Stock1796250000000 } from './migrations/1796250000000-stock';
 import { Preparations1796500000000 } from './migrations/1796500000000-preparations';
@@ -57,6 +62,7 @@ import { ChemicalFireData1796970000000 } from './migrations/1796970000000-chemic
 import { LabAreas1796980000000 } from './migrations/1796980000000-lab-areas';
 import { ChemicalMeasures1796630000000 } from './migrations/1796630000000-chemical-measures';
 import { RunCrudeYieldFlag1796620000000 } from './migrations/1796620000000-run-crude-yield-flag';
+import { WatchLists1796990000000 } from './migrations/1796990000000-watch-lists';
 
 export const entities = [
   UserEntity,
@@ -91,6 +97,9 @@ export const entities = [
   RunTimelineEntryEntity,
   RuleSetEntity,
   LabAreaEntity,
+  WatchListEntity,
+  WatchListEntryEntity,
+  OrderWatchApprovalEntity,
 ];
 
 /** In order; listed by hand so tsx, vitest and the TypeORM CLI all load the same classes. */
@@ -115,6 +124,7 @@ export const migrations = [
   RunTimeline1796960000000,
   ChemicalFireData1796970000000,
   LabAreas1796980000000,
+  WatchLists1796990000000,
 ];
 
 /** How many prepared statements each connection keeps (the API has a few hundred queries). */

@@ -46,6 +46,7 @@ describe('migrations', () => {
         'migrations',
         'order_lines',
         'order_shares',
+        'order_watch_approvals',
         'orders',
         'outbox',
         'payment_events',
@@ -65,6 +66,8 @@ describe('migrations', () => {
         'stocktakes',
         'suppliers',
         'users',
+        'watch_list_entries',
+        'watch_lists',
       ]);
       expect(await dataSource.showMigrations()).toBe(false);
 

@@ -25,6 +25,7 @@ import { stockRepository } from '../modules/stock/stock.repository';
 import { suppliersRepository } from '../modules/suppliers/suppliers.repository';
 import { todayRepository } from '../modules/today/today.repository';
 import { usersRepository } from '../modules/users/users.repository';
+import { watchListsRepository } from '../modules/watch-lists/watch-lists.repository';
 import { createStore, type Store } from './store';
 import type { DataSource } from 'typeorm';
 
@@ -60,6 +61,7 @@ export const repositoryFactories = {
   today: todayRepository,
   ruleSets: ruleSetsRepository,
   labAreas: labAreasRepository,
+  watchLists: watchListsRepository,
 } satisfies Record<string, (manager: EntityManager) => object>;
 
 export type Repositories = {

@@ -11,6 +11,7 @@ import { openStore } from '../repositories';
 import { testConfig } from '../../test/harness';
 import { demoAccounts, demoPassword, seedDemo } from './demo-seed';
 import { demoChemicals } from './demo-chemicals';
+import { watchedChemicals, watchedHoldingsIn } from '../../modules/watch-lists/watch-matching';
 
 describe('demo seed', () => {
   let dataSource: DataSource;
@@ -313,5 +314,21 @@ describe('demo seed', () => {
         q,
       ).toContain(name);
     }
+  });
+
+  it('when seeded, then the lab follows the EU lists and acetone and sulfuric acid 98 % are watched, with drawn history', async () => {
+    const store = openStore(dataSource);
+    const watched = await watchedChemicals(store.repos);
+    expect(watched.map((c) => c.name)).toEqual(
+      expect.arrayContaining(['Acetone', 'Sulfuric acid 98 %']),
+    );
+    const held = await watchedHoldingsIn(store.repos);
+    expect(held.some((h) => h.chemicalName === 'Acetone')).toBe(true);
+    const moves = await store.repos.watchLists.movements(
+      watched.map((c) => c.id),
+      '2000-01-01T00:00:00.000Z',
+      '2100-01-01T00:00:00.000Z',
+    );
+    expect(moves.some((m) => m.reason === 'drawn' && m.note !== '')).toBe(true);
   });
 });

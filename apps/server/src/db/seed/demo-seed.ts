@@ -26,6 +26,9 @@ export const demoAccounts: { email: string; displayName: string; role: Role }[] 
  * Fills an empty database with the demo lab in one transaction. Does nothing (answers false)
  * when there is any user or chemical already. Demo prices are in the lab's `currency`.
  */
+/** The built-in watch lists the demo lab has chosen. */
+export const demoWatchListPresets = ['eu-2019-1148-annex-i', 'eu-2019-1148-annex-ii'];
+
 export async function seedDemo(
   dataSource: DataSource,
   bcryptCost: number,
@@ -65,6 +68,9 @@ export async function seedDemo(
     );
     await seedDemoPreparations(repos, inserted, people, places);
     await seedDemoSuppliers(repos, inserted, currency);
+    // The demo lab follows the EU explosives-precursor lists: acetone (Annex II) and sulfuric
+    // acid 98 % (Annex I, above 15 %) are watched, with their history of draws.
+    await repos.watchLists.choosePresets(demoWatchListPresets);
     return true;
   });
 }

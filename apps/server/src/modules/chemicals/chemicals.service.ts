@@ -11,6 +11,7 @@ import type {
 import { AppError } from '../../lib/app-error';
 import type { Store } from '../../db/store';
 import { nowIso } from '../../db/sql';
+import { watchListingsFor } from '../watch-lists/watch-matching';
 import type { ChemicalValues } from './chemicals.repository';
 
 /** Molar mass in g/mol from packages/chem; null without a formula. */
@@ -91,23 +92,34 @@ export function chemicalsService(store: Store, files?: StoredFiles) {
     }
   }
 
+  /** The chemicals with the watch-list rows they meet (one query for the whole list). */
+  async function withListings(items: Chemical[]): Promise<Chemical[]> {
+    const listings = await watchListingsFor(store.repos, items);
+    return items.map((item) => ({ ...item, watchListings: listings.get(item.id) ?? [] }));
+  }
+
   return {
     async list(query: ChemicalListQuery): Promise<Page<Chemical>> {
       const { items, total } = await chemicals.list(query);
-      return { items, total, page: query.page, pageSize: query.pageSize };
+      return {
+        items: await withListings(items),
+        total,
+        page: query.page,
+        pageSize: query.pageSize,
+      };
     },
 
     async get(id: number): Promise<Chemical> {
       const chemical = await chemicals.findById(id);
       if (!chemical) throw notFound(id);
-      return chemical;
+      return (await withListings([chemical]))[0]!;
     },
 
     async create(
       input: ChemicalCreateParsed & { extraHazardGroups?: StorageGroup[] },
     ): Promise<Chemical> {
       await assertCasFree(input.casNumber);
-      return chemicals.insert(newChemicalValues(input));
+      return (await withListings([await chemicals.insert(newChemicalValues(input))]))[0]!;
     },
 
     async update(id: number, patch: ChemicalPatchBody): Promise<Chemical> {
@@ -140,7 +152,7 @@ export function chemicalsService(store: Store, files?: StoredFiles) {
       if (['name', 'synonyms', 'casNumber', 'formula'].some((key) => key in patch)) {
         changes.searchText = searchTextOf(next);
       }
-      return chemicals.update(id, changes);
+      return (await withListings([await chemicals.update(id, changes)]))[0]!;
     },
 
     async remove(id: number): Promise<void> {

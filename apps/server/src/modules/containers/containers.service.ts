@@ -43,6 +43,7 @@ import {
 import type { z } from 'zod';
 import { AppError } from '../../lib/app-error';
 import { noteLedgerChange, type Repositories, type Store } from '../../db/store';
+import { requireWatchReason } from '../watch-lists/watch-matching';
 import { fromMicro, roundToStored, toMicro } from '../../db/quantities';
 import { nowIso } from '../../db/sql';
 import type { ChemicalRow } from '../chemicals/chemical.entity';
@@ -512,6 +513,7 @@ export function containersService(store: Store) {
         const lot = await requireLot(repos, input.lotId);
         const location = await requireLocation(repos, input.locationId);
         const chemical = await chemicalOf(repos, lot.chemicalId);
+        await requireWatchReason(repos, chemical, input.note, 'note');
         const quantity = roundQuantity(
           toStockUnit(input.quantity, input.unit, chemical, 'quantity'),
         );
@@ -538,7 +540,9 @@ export function containersService(store: Store) {
           {
             delta: quantity,
             reason: 'received',
-            note: `Received into ${location.path}`,
+            note: input.note
+              ? `Received into ${location.path}: ${input.note}`
+              : `Received into ${location.path}`,
             toLocationId: location.id,
           },
           actor,
@@ -570,6 +574,7 @@ export function containersService(store: Store) {
       return writeThenShow(async (repos) => {
         const { container, chemical } = await loadForWrite(repos, id);
         refuseDisposed(container);
+        await requireWatchReason(repos, chemical, input.note, 'note');
         let drawn: number;
         let note = input.note;
         if (input.grossMass !== undefined) {

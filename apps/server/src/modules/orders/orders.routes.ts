@@ -1,4 +1,5 @@
 import {
+  watchApprovalSchema,
   orderCancelSchema,
   orderCreateSchema,
   orderDetailSchema,
@@ -107,6 +108,18 @@ export function orderRoutes(orders: OrdersService) {
       params: lineParamsSchema,
       handle: async ({ params, res, actor }) => {
         res.json(await orders.removeLine(params.id, params.lineId, actor()));
+      },
+    }),
+    defineRoute({
+      method: 'post',
+      path: '/api/orders/:id/watch-approval',
+      access: 'orders.manage',
+      summary: 'Approve the watched and restricted chemicals of an order, with a reason',
+      response: { schema: orderDetailSchema },
+      params: idParamsSchema,
+      body: watchApprovalSchema,
+      handle: async ({ params, body, res, actor }) => {
+        res.json(await orders.approveWatch(params.id, body.reason, actor()));
       },
     }),
     defineRoute({

@@ -43,6 +43,12 @@ import {
   roundQuantity,
 } from './order-views';
 import type { OrderRecord } from './orders.repository';
+import {
+  approveOrderWatch,
+  clearStaleWatchApproval,
+  orderWatchOf,
+  requireWatchApproval,
+} from '../watch-lists/order-watch';
 
 /**
  * What happens to money when an order is cancelled: every paid share is refunded through the
@@ -71,7 +77,10 @@ export function ordersService(store: Store, config: Config, options: OrdersServi
     if (record.order.status === 'draft' && !can(actor.role, 'orders.manage')) {
       throw AppError.notFound(`Order ${id} does not exist.`);
     }
-    return presentDetail(record, await namesFor(repos, [record]), actor);
+    return {
+      ...presentDetail(record, await namesFor(repos, [record]), actor),
+      watch: await orderWatchOf(repos, record),
+    };
   }
 
   /** Runs a coordinator's change in one transaction and answers the order as it now stands. */
@@ -150,6 +159,26 @@ export function ordersService(store: Store, config: Config, options: OrdersServi
         requireEditable(record);
         const [lineId] = await addOrderLines(repos, record.order, [input]);
         await auditOrder(repos, actor.id, 'order.line_added', id, { lineId, ...input });
+        const uncovered = await clearStaleWatchApproval(repos, await loadOrder(repos, id));
+        if (uncovered.length > 0) {
+          await auditOrder(repos, actor.id, 'order.watch_approval_cleared', id, {
+            chemicals: uncovered.map((chemical) => chemical.name),
+          });
+        }
+      });
+    },
+
+    /** A manager approves the watched and restricted chemicals on the lines, with a reason. */
+    approveWatch(id: number, reason: string, actor: User): Promise<OrderDetail> {
+      return change(id, actor, async (repos, record) => {
+        if (['closed', 'cancelled'].includes(record.order.status)) {
+          throw AppError.conflict(`A ${record.order.status} order needs no approval.`);
+        }
+        const chemicals = await approveOrderWatch(repos, record, reason, actor);
+        await auditOrder(repos, actor.id, 'order.watch_approved', id, {
+          reason,
+          chemicals: chemicals.map((chemical) => chemical.name),
+        });
       });
     },
 
@@ -212,6 +241,7 @@ export function ordersService(store: Store, config: Config, options: OrdersServi
             claimDeadline: 'must be today or later',
           });
         }
+        await requireWatchApproval(repos, record);
         const now = nowIso();
         await repos.orders.updateOrder(id, { status: 'open', openedAt: now, updatedAt: now });
         await auditOrder(repos, actor.id, 'order.opened', id, {
