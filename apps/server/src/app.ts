@@ -78,6 +78,8 @@ import { uploadRoutes } from './modules/uploads/uploads.routes';
 import { uploadsService } from './modules/uploads/uploads.service';
 import { userCacheOf } from './modules/users/user-cache';
 import { userRoutes } from './modules/users/users.routes';
+import { wasteRoutes } from './modules/waste/waste.routes';
+import { wasteService } from './modules/waste/waste.service';
 import { usersService } from './modules/users/users.service';
 
 export interface AppOptions {
@@ -182,6 +184,7 @@ export function createApp({
   app.locals[ledgerNotesKey] = ledgerNotes;
   // Card payments; the orders module calls payments.refundPaidShares when an order is cancelled.
   const payments = paymentsService(store, config, { alerts, logger });
+  const waste = wasteService(store);
   const routes: ApiRoute[] = [
     ...healthRoutes(store, logger, readiness, databaseFileCheck(dataSource)),
     ...settingsRoutes(config),
@@ -192,7 +195,8 @@ export function createApp({
     ...chemicalRoutes(chemicalsService(store, files)),
     ...locationRoutes(locationsService(store)),
     ...lotRoutes(lotsService(store, files)),
-    ...containerRoutes(containersService(store)),
+    ...containerRoutes(containersService(store), waste),
+    ...wasteRoutes(waste),
     ...stockRoutes(stockService(store)),
     ...segregationRoutes(store),
     ...maintenanceRoutes(store),

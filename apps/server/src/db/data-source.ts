@@ -52,6 +52,8 @@ import { ScheduledRuns1796910000000 } from './migrations/1796910000000-scheduled
 import { ProcedureSteps1796950000000 } from './migrations/1796950000000-procedure-steps';
 import { RunTimeline1796960000000 } from './migrations/1796960000000-run-timeline';
 import { ChemicalMeasures1796630000000 } from './migrations/1796630000000-chemical-measures';
+import { Waste1797000000000 } from './migrations/1797000000000-waste';
+import { wasteEntities } from '../modules/waste/waste.entity';
 import { RunCrudeYieldFlag1796620000000 } from './migrations/1796620000000-run-crude-yield-flag';
 
 export const entities = [
@@ -85,6 +87,7 @@ export const entities = [
   ScheduledRunEntity,
   RunPhotoEntity,
   RunTimelineEntryEntity,
+  ...wasteEntities,
 ];
 
 /** In order; listed by hand so tsx, vitest and the TypeORM CLI all load the same classes. */
@@ -107,6 +110,7 @@ export const migrations = [
   ScheduledRuns1796910000000,
   ProcedureSteps1796950000000,
   RunTimeline1796960000000,
+  Waste1797000000000,
 ];
 
 /** How many prepared statements each connection keeps (the API has a few hundred queries). */

@@ -63,6 +63,11 @@ describe('migrations', () => {
         'stocktakes',
         'suppliers',
         'users',
+        'waste_addition_chemicals',
+        'waste_additions',
+        'waste_areas',
+        'waste_containers',
+        'waste_pickups',
       ]);
       expect(await dataSource.showMigrations()).toBe(false);
 
@@ -86,7 +91,7 @@ describe('migrations', () => {
       await dataSource.initialize();
       try {
         await dataSource.runMigrations({ transaction: 'all' });
-        expect(await tables(dataSource)).toHaveLength(31);
+        expect(await tables(dataSource)).toHaveLength(36);
         expect(await tables(dataSource)).toContain('ledger_entries');
         for (let i = 0; i < migrations.length; i++)
           await dataSource.undoLastMigration({ transaction: 'all' });

@@ -23,6 +23,7 @@ import { stockRepository } from '../modules/stock/stock.repository';
 import { suppliersRepository } from '../modules/suppliers/suppliers.repository';
 import { todayRepository } from '../modules/today/today.repository';
 import { usersRepository } from '../modules/users/users.repository';
+import { wasteRepository } from '../modules/waste/waste.repository';
 import { createStore, type Store } from './store';
 import type { DataSource } from 'typeorm';
 
@@ -56,6 +57,7 @@ export const repositoryFactories = {
   receiving: receivingRepository,
   metrics: metricsRepository,
   today: todayRepository,
+  waste: wasteRepository,
 } satisfies Record<string, (manager: EntityManager) => object>;
 
 export type Repositories = {

@@ -40,6 +40,7 @@ import {
 } from '@lotwise/shared';
 import type { z } from 'zod';
 import { AppError } from '../../lib/app-error';
+import { checkWaste, withWasteWarnings, writeWaste } from '../waste/waste-contents';
 import { noteLedgerChange, type Repositories, type Store } from '../../db/store';
 import { fromMicro, roundToStored, toMicro } from '../../db/quantities';
 import { nowIso } from '../../db/sql';
@@ -607,10 +608,34 @@ export function containersService(store: Store) {
           );
         }
         const today = todayIso();
-        await requireHoldsConfirmed(repos, [{ container, drawn }], {
-          today,
-          confirmed: input.confirm,
-        });
+        const toWaste =
+          input.toWasteContainerId === undefined
+            ? null
+            : {
+                wasteContainerId: input.toWasteContainerId,
+                description: `Drawn from ${container.labelCode} (${chemical.name})${note ? `: ${note}` : ''}`,
+                quantity: roundQuantity(drawn),
+                unit: container.unit,
+                chemicalIds: [chemical.id],
+              };
+        const wasteWarnings = toWaste
+          ? await checkWaste(
+              repos,
+              [
+                {
+                  input: toWaste,
+                  field: (name) => (name === 'unit' ? 'unit' : 'toWasteContainerId'),
+                },
+              ],
+              input.confirm,
+            )
+          : [];
+        await withWasteWarnings(wasteWarnings, () =>
+          requireHoldsConfirmed(repos, [{ container, drawn }], {
+            today,
+            confirmed: input.confirm,
+          }),
+        );
         const next = statusAfter(
           container.status,
           container.quantity - drawn,
@@ -631,6 +656,7 @@ export function containersService(store: Store) {
             ),
           },
         );
+        if (toWaste) await writeWaste(repos, toWaste, { ledgerEntryId: entry.id }, actor);
         return { id: id, entries: [entry] };
       });
     },
