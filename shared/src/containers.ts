@@ -88,7 +88,12 @@ export const drawSchema = z
     unit: quantityUnitSchema,
     /** Why (required for a chemical on a chosen watch list: who and why are recorded). */
     note: noteSchema.default(''),
-    /** Draw even when it takes from what is held for a plan (409 `confirmation_required` otherwise). */
+    /** The drawn amount goes into this waste container (recorded with the draw). */
+    toWasteContainerId: z.number().int().positive().optional(),
+    /**
+     * Draw even when it takes from what is held for a plan, or the chemical conflicts with what
+     * the waste container holds (409 `confirmation_required` otherwise).
+     */
     confirm: confirmFieldSchema,
   })
   .strict()
@@ -286,6 +291,8 @@ export const containerListQuerySchema = listQuerySchema(
   belowReorderPoint: queryFlagSchema.optional(),
   peroxideDue: queryFlagSchema.optional(),
   peroxideDueWithinDays: z.coerce.number().int().min(0).max(3650).optional().default(30),
+  /** `waste`: the waste containers (open and full) instead, as `wasteContainerSchema` items. */
+  kind: z.enum(['stock', 'waste'], { message: 'must be stock or waste' }).default('stock'),
 });
 export type ContainerListQuery = z.infer<typeof containerListQuerySchema>;
 

@@ -45,3 +45,4 @@ export * from './fire-data';
 export * from './rule-sets';
 export * from './lab-areas';
 export * from './watch-lists';
+export * from './waste';

@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { amountSchema, quantityUnitSchema } from './amounts';
 import { stockUnitSchema } from './chemicals';
 import { confirmFieldSchema } from './confirmations';
+import { wasteAdditionInputSchema } from './waste';
 import { isoDateSchema } from './dates';
 import { listQuerySchema } from './list';
 import { lotSourceSchema } from './lots';
@@ -149,7 +150,12 @@ export const runRecordSchema = z
       .default([]),
     products: z.array(runProductSchema).max(5).default([]),
     observations: runObservationsSchema.default({ meltingRangeC: null, appearance: '', notes: '' }),
-    /** Record even when a draw takes from what another plan holds (409 `confirmation_required` otherwise). */
+    /** Washings, filtrates and residues sent to waste containers with the run. */
+    waste: z.array(wasteAdditionInputSchema).max(10).default([]),
+    /**
+     * Record even when a draw takes from what another plan holds, or a waste conflicts with
+     * what its container holds (409 `confirmation_required` otherwise).
+     */
     confirm: confirmFieldSchema,
   })
   .strict();

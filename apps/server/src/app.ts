@@ -82,6 +82,8 @@ import { uploadRoutes } from './modules/uploads/uploads.routes';
 import { uploadsService } from './modules/uploads/uploads.service';
 import { userCacheOf } from './modules/users/user-cache';
 import { userRoutes } from './modules/users/users.routes';
+import { wasteRoutes } from './modules/waste/waste.routes';
+import { wasteService } from './modules/waste/waste.service';
 import { usersService } from './modules/users/users.service';
 import { watchListRoutes } from './modules/watch-lists/watch-lists.routes';
 import { watchListsService } from './modules/watch-lists/watch-lists.service';
@@ -188,6 +190,7 @@ export function createApp({
   app.locals[ledgerNotesKey] = ledgerNotes;
   // Card payments; the orders module calls payments.refundPaidShares when an order is cancelled.
   const payments = paymentsService(store, config, { alerts, logger });
+  const waste = wasteService(store);
   const routes: ApiRoute[] = [
     ...healthRoutes(store, logger, readiness, databaseFileCheck(dataSource)),
     ...settingsRoutes(config),
@@ -201,7 +204,8 @@ export function createApp({
     ...ruleSetRoutes(ruleSetsService(store)),
     ...labAreaRoutes(labAreasService(store)),
     ...lotRoutes(lotsService(store, files)),
-    ...containerRoutes(containersService(store)),
+    ...containerRoutes(containersService(store), waste),
+    ...wasteRoutes(waste),
     ...stockRoutes(stockService(store)),
     ...segregationRoutes(store),
     ...maintenanceRoutes(store),

@@ -61,6 +61,8 @@ import { RunTimeline1796960000000 } from './migrations/1796960000000-run-timelin
 import { ChemicalFireData1796970000000 } from './migrations/1796970000000-chemical-fire-data';
 import { LabAreas1796980000000 } from './migrations/1796980000000-lab-areas';
 import { ChemicalMeasures1796630000000 } from './migrations/1796630000000-chemical-measures';
+import { Waste1797000000000 } from './migrations/1797000000000-waste';
+import { wasteEntities } from '../modules/waste/waste.entity';
 import { RunCrudeYieldFlag1796620000000 } from './migrations/1796620000000-run-crude-yield-flag';
 import { WatchLists1796990000000 } from './migrations/1796990000000-watch-lists';
 
@@ -100,6 +102,7 @@ export const entities = [
   WatchListEntity,
   WatchListEntryEntity,
   OrderWatchApprovalEntity,
+  ...wasteEntities,
 ];
 
 /** In order; listed by hand so tsx, vitest and the TypeORM CLI all load the same classes. */
@@ -125,6 +128,7 @@ export const migrations = [
   ChemicalFireData1796970000000,
   LabAreas1796980000000,
   WatchLists1796990000000,
+  Waste1797000000000,
 ];
 
 /** How many prepared statements each connection keeps (the API has a few hundred queries). */

@@ -66,6 +66,11 @@ describe('migrations', () => {
         'stocktakes',
         'suppliers',
         'users',
+        'waste_addition_chemicals',
+        'waste_additions',
+        'waste_areas',
+        'waste_containers',
+        'waste_pickups',
         'watch_list_entries',
         'watch_lists',
       ]);
@@ -91,7 +96,7 @@ describe('migrations', () => {
       await dataSource.initialize();
       try {
         await dataSource.runMigrations({ transaction: 'all' });
-        expect(await tables(dataSource)).toHaveLength(33);
+        expect(await tables(dataSource)).toHaveLength(41);
         expect(await tables(dataSource)).toContain('ledger_entries');
         for (let i = 0; i < migrations.length; i++)
           await dataSource.undoLastMigration({ transaction: 'all' });

@@ -26,6 +26,7 @@ import { suppliersRepository } from '../modules/suppliers/suppliers.repository';
 import { todayRepository } from '../modules/today/today.repository';
 import { usersRepository } from '../modules/users/users.repository';
 import { watchListsRepository } from '../modules/watch-lists/watch-lists.repository';
+import { wasteRepository } from '../modules/waste/waste.repository';
 import { createStore, type Store } from './store';
 import type { DataSource } from 'typeorm';
 
@@ -62,6 +63,7 @@ export const repositoryFactories = {
   ruleSets: ruleSetsRepository,
   labAreas: labAreasRepository,
   watchLists: watchListsRepository,
+  waste: wasteRepository,
 } satisfies Record<string, (manager: EntityManager) => object>;
 
 export type Repositories = {

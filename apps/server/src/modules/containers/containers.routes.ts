@@ -14,21 +14,31 @@ import {
   pageSchema,
   splitSchema,
   transferSchema,
+  wasteContainerSchema,
 } from '@lotwise/shared';
 import { idParamsSchema } from '../../lib/validate';
 import { defineRoute } from '../../lib/route-table';
+import type { WasteService } from '../waste/waste.service';
 import type { ContainersService } from './containers.service';
 
-export function containerRoutes(containers: ContainersService) {
+export function containerRoutes(containers: ContainersService, waste: WasteService) {
   return [
     defineRoute({
       method: 'get',
       path: '/api/containers',
       access: 'stock.read',
-      summary: 'List containers',
-      response: { schema: pageSchema(containerSchema) },
+      summary: 'List containers (`kind=waste`: the open and full waste containers)',
+      response: { schema: pageSchema(containerSchema).or(pageSchema(wasteContainerSchema)) },
       query: containerListQuerySchema,
       handle: async ({ query, res }) => {
+        if (query.kind === 'waste') {
+          const items = await waste.list({
+            statuses: ['open', 'full'],
+            ...(query.locationId ? { locationId: query.locationId } : {}),
+          });
+          res.json({ items, total: items.length, page: 1, pageSize: Math.max(items.length, 1) });
+          return;
+        }
         res.json(await containers.list(query));
       },
     }),

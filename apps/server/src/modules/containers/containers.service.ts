@@ -42,6 +42,7 @@ import {
 } from '@lotwise/shared';
 import type { z } from 'zod';
 import { AppError } from '../../lib/app-error';
+import { checkWaste, withWasteWarnings, writeWaste } from '../waste/waste-contents';
 import { noteLedgerChange, type Repositories, type Store } from '../../db/store';
 import { requireWatchReason } from '../watch-lists/watch-matching';
 import { fromMicro, roundToStored, toMicro } from '../../db/quantities';
@@ -623,10 +624,34 @@ export function containersService(store: Store) {
           );
         }
         const today = todayIso();
-        await requireHoldsConfirmed(repos, [{ container, drawn }], {
-          today,
-          confirmed: input.confirm,
-        });
+        const toWaste =
+          input.toWasteContainerId === undefined
+            ? null
+            : {
+                wasteContainerId: input.toWasteContainerId,
+                description: `Drawn from ${container.labelCode} (${chemical.name})${note ? `: ${note}` : ''}`,
+                quantity: roundQuantity(drawn),
+                unit: container.unit,
+                chemicalIds: [chemical.id],
+              };
+        const wasteWarnings = toWaste
+          ? await checkWaste(
+              repos,
+              [
+                {
+                  input: toWaste,
+                  field: (name) => (name === 'unit' ? 'unit' : 'toWasteContainerId'),
+                },
+              ],
+              input.confirm,
+            )
+          : [];
+        await withWasteWarnings(wasteWarnings, () =>
+          requireHoldsConfirmed(repos, [{ container, drawn }], {
+            today,
+            confirmed: input.confirm,
+          }),
+        );
         const next = statusAfter(
           container.status,
           container.quantity - drawn,
@@ -647,6 +672,7 @@ export function containersService(store: Store) {
             ),
           },
         );
+        if (toWaste) await writeWaste(repos, toWaste, { ledgerEntryId: entry.id }, actor);
         return { id: id, entries: [entry] };
       });
     },

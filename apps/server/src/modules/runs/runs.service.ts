@@ -13,11 +13,13 @@ import type {
 import type { Store } from '../../db/store';
 import type { FileStore } from '../../lib/uploads';
 import { chemicalUsageOf, lotProvenanceOf, procedureRunsOf } from './run-history';
-import { discardRun, openRun, recordRunWith } from './run-recording';
+import { discardRun, openRun } from './run-opening';
+import { recordRunWith } from './run-recording';
 import { presentRun, runSummaries } from './run-views';
 
 // The demo seed records its runs through the same code as the API.
-export { openRun, recordRunWith } from './run-recording';
+export { openRun } from './run-opening';
+export { recordRunWith } from './run-recording';
 
 /**
  * Runs: opening one (from a plan or ad hoc), recording it in one transaction
