@@ -46,3 +46,4 @@ export * from './rule-sets';
 export * from './lab-areas';
 export * from './watch-lists';
 export * from './waste';
+export * from './inspection';

@@ -36,6 +36,8 @@ import { databaseFileCheck } from './modules/health/database-file-check';
 import { healthRoutes, type Readiness } from './modules/health/health.routes';
 import { importRoutes } from './modules/imports/imports.routes';
 import { importsService } from './modules/imports/imports.service';
+import { inspectionRoutes } from './modules/inspection/inspection.routes';
+import { inspectionService } from './modules/inspection/inspection.service';
 import { labAreaRoutes } from './modules/lab-areas/lab-areas.routes';
 import { labAreasService } from './modules/lab-areas/lab-areas.service';
 import { locationRoutes } from './modules/locations/locations.routes';
@@ -203,6 +205,7 @@ export function createApp({
     ...locationRoutes(locationsService(store)),
     ...ruleSetRoutes(ruleSetsService(store)),
     ...labAreaRoutes(labAreasService(store)),
+    ...inspectionRoutes(inspectionService(store)),
     ...lotRoutes(lotsService(store, files)),
     ...containerRoutes(containersService(store), waste),
     ...wasteRoutes(waste),
