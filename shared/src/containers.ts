@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { amountSchema, quantityUnitSchema } from './amounts';
 import { physicalStateSchema, stockUnitSchema } from './chemicals';
 import { isoDateSchema } from './dates';
+import { containerMaterialSchema } from './flammability';
 import { ghsCodeSchema, peroxideClassSchema, storageGroupSchema } from './hazards';
 import { confirmFieldSchema, containerHoldSchema } from './confirmations';
 import { labelCodeToLookUp } from './label-codes';
@@ -42,6 +43,8 @@ export const containerCreateSchema = z
     tareMass: nonNegative('tare mass').nullable().default(null),
     capacity: positive('capacity').nullable().default(null),
     capacityUnit: quantityUnitSchema.nullable().default(null),
+    /** What it is made of (for the container-size limits); null: not said. */
+    material: containerMaterialSchema.nullable().default(null),
     status: z.enum(['sealed', 'open'], { message: 'must be sealed or open' }).default('sealed'),
     openedOn: isoDateSchema.nullable().default(null),
     notes: z.string().max(2000, 'is at most 2000 characters').default(''),
@@ -62,6 +65,7 @@ export const containerPatchSchema = z
     tareMass: nonNegative('tare mass').nullable(),
     capacity: positive('capacity').nullable(),
     capacityUnit: quantityUnitSchema.nullable(),
+    material: containerMaterialSchema.nullable(),
     openedOn: isoDateSchema.nullable(),
     notes: z.string().max(2000, 'is at most 2000 characters'),
   })
@@ -133,6 +137,7 @@ export const splitSchema = z
     tareMass: nonNegative('tare mass').nullable().default(null),
     capacity: positive('capacity').nullable().default(null),
     capacityUnit: quantityUnitSchema.nullable().default(null),
+    material: containerMaterialSchema.nullable().default(null),
     note: noteSchema.default(''),
     /** Place the new container even where it breaks a storage rule. */
     confirm: confirmFieldSchema,
@@ -183,6 +188,7 @@ export const containerSchema = z.object({
   tareMass: z.number().nullable(),
   capacity: z.number().nullable(),
   capacityUnit: z.string().nullable(),
+  material: containerMaterialSchema.nullable(),
   openedOn: z.string().nullable(),
   /** The lot's expiry date. */
   expiresOn: z.string().nullable(),

@@ -42,3 +42,4 @@ export * from './today';
 export * from './settings';
 export * from './flammability';
 export * from './rule-sets';
+export * from './lab-areas';
