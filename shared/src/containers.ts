@@ -6,6 +6,7 @@ import { isoDateSchema } from './dates';
 import { containerMaterialSchema } from './flammability';
 import { ghsCodeSchema, peroxideClassSchema, storageGroupSchema } from './hazards';
 import { confirmFieldSchema, containerHoldSchema } from './confirmations';
+import { ghsFlammableCategorySchema, liquidClassSchema } from './flammability';
 import { labelCodeToLookUp } from './label-codes';
 import { ledgerEntrySchema } from './ledger';
 import { listQuerySchema, queryFlagSchema } from './list';
@@ -176,6 +177,9 @@ export const containerChemicalSchema = z.object({
   hazardStatements: z.array(z.string()),
   peroxideClass: peroxideClassSchema.nullable(),
   stockUnit: stockUnitSchema,
+  /** NFPA 30 class and GHS flammable category of the chemical (see `chemicalSchema`). */
+  liquidClass: liquidClassSchema.nullable().optional(),
+  ghsFlammableCategory: ghsFlammableCategorySchema.nullable().optional(),
 });
 
 export const containerSchema = z.object({

@@ -41,5 +41,6 @@ export * from './backups';
 export * from './today';
 export * from './settings';
 export * from './flammability';
+export * from './fire-data';
 export * from './rule-sets';
 export * from './lab-areas';

@@ -5,6 +5,7 @@ import { newChemicalValues } from '../../modules/chemicals/chemicals.service';
 import { nowIso } from '../sql';
 import { openStore } from '../repositories';
 import { demoChemicals } from './demo-chemicals';
+import { seedDemoLabAreas } from './demo-lab-areas';
 import { seedDemoStock } from './demo-stock';
 import { preparedOnlyChemicals, seedDemoPreparations } from './demo-preparations';
 import { seedDemoSuppliers } from './purchasing-suppliers';
@@ -65,6 +66,7 @@ export async function seedDemo(
     );
     await seedDemoPreparations(repos, inserted, people, places);
     await seedDemoSuppliers(repos, inserted, currency);
+    await seedDemoLabAreas(repos, inserted, places);
     return true;
   });
 }

@@ -9,6 +9,7 @@ import {
 } from '@lotwise/chem';
 import {
   amountProblem,
+  fireClassOf,
   formatLabelCode,
   maxStockAmount,
   maxStockAmountText,
@@ -19,6 +20,7 @@ import {
   type Container,
   type ContainerChange,
   type ContainerHold,
+  type ContainerMaterial,
   type ContainerCreateParsed,
   type ContainerDetail,
   type ContainerListQuery,
@@ -52,6 +54,7 @@ import { holdsOfContainers, requireHoldsConfirmed } from '../plans/holds';
 import { segregationService } from '../segregation/segregation.service';
 import type { ContainerRow } from './container.entity';
 import { peroxideDueOf } from './peroxide-dates';
+import { checkPlacement } from './placement';
 import type { ContainerView, LedgerEntryValues } from './containers.repository';
 
 type AdjustmentParsed = z.output<typeof adjustmentSchema>;
@@ -173,6 +176,7 @@ export function presentContainer(
     tareMass: view.tareMass,
     capacity: view.capacity,
     capacityUnit: view.capacityUnit,
+    material: view.material ?? null,
     openedOn: view.openedOn,
     expiresOn: view.expiresOn,
     expired: view.expiresOn !== null && view.expiresOn < today,
@@ -192,6 +196,11 @@ export function presentContainer(
       hazardStatements: view.chemicalHazardStatements,
       peroxideClass: view.chemicalPeroxideClass,
       stockUnit: view.chemicalStockUnit,
+      ...fireClassOf({
+        physicalState: view.chemicalPhysicalState,
+        flashPointC: view.chemicalFlashPointC,
+        boilingPointC: view.chemicalBoilingPointC,
+      }),
     },
     lot: {
       id: view.lotId,
@@ -341,6 +350,8 @@ export async function createContainer(
     tareMass: number | null;
     capacity: number | null;
     capacityUnit: string | null;
+    /** What it is made of; null or left out: not said. */
+    material?: ContainerMaterial | null;
     notes: string;
     expiresOn: string | null;
     /** The member it belongs to; null or left out: the lab's. */
@@ -361,6 +372,7 @@ export async function createContainer(
     tareMass: values.tareMass,
     capacity: values.capacity,
     capacityUnit: values.capacityUnit,
+    material: values.material ?? null,
     openedOn: values.openedOn,
     expiresOn: values.expiresOn,
     peroxideDueOn: null,
@@ -503,12 +515,9 @@ export function containersService(store: Store) {
         const quantity = roundQuantity(
           toStockUnit(input.quantity, input.unit, chemical, 'quantity'),
         );
-        await segregationService(repos).requireStorageConfirmed(
-          { id: null },
-          chemical,
-          location,
-          input.confirm,
-        );
+        const placement = await checkPlacement(repos, { id: null }, chemical, location, {
+          confirmed: input.confirm,
+        });
         const row = await createContainer(repos, {
           lotId: lot.id,
           chemical,
@@ -519,6 +528,7 @@ export function containersService(store: Store) {
           tareMass: input.tareMass,
           capacity: input.capacity,
           capacityUnit: input.capacityUnit,
+          material: input.material,
           notes: input.notes,
           expiresOn: lot.expiresOn,
         });
@@ -534,6 +544,7 @@ export function containersService(store: Store) {
           actor,
           quantity <= epsilon ? { status: 'empty' } : {},
         );
+        await placement.settle([row.id]);
         return { id: row.id, entries: [entry] };
       });
     },
@@ -674,14 +685,10 @@ export function containersService(store: Store) {
           );
         }
         // A bottle poured off onto the shelf its source stands on adds no new conflict.
-        if (location.id !== container.locationId) {
-          await segregationService(repos).requireStorageConfirmed(
-            { id: null },
-            chemical,
-            location,
-            input.confirm,
-          );
-        }
+        const placement = await checkPlacement(repos, { id: null }, chemical, location, {
+          confirmed: input.confirm,
+          storage: location.id !== container.locationId,
+        });
         const today = todayIso();
         const created = await createContainer(repos, {
           lotId: container.lotId,
@@ -693,6 +700,7 @@ export function containersService(store: Store) {
           tareMass: input.tareMass,
           capacity: input.capacity,
           capacityUnit: input.capacityUnit,
+          material: input.material,
           notes: input.note,
           expiresOn: container.expiresOn,
         });
@@ -736,6 +744,7 @@ export function containersService(store: Store) {
           },
           actor,
         );
+        await placement.settle([created.id]);
         return { id: id, entries: [out.entry, into.entry], newContainerId: created.id };
       });
     },
@@ -750,12 +759,9 @@ export function containersService(store: Store) {
             locationId: 'is where the container already is',
           });
         }
-        await segregationService(repos).requireStorageConfirmed(
-          { id: container.id },
-          chemical,
-          to,
-          input.confirm,
-        );
+        const placement = await checkPlacement(repos, { id: container.id }, chemical, to, {
+          confirmed: input.confirm,
+        });
         const from = (await repos.locations.findRow(container.locationId))!;
         const { entry } = await appendEntry(
           repos,
@@ -770,6 +776,7 @@ export function containersService(store: Store) {
           actor,
           { locationId: to.id },
         );
+        await placement.settle([container.id]);
         return { id: id, entries: [entry] };
       });
     },

@@ -186,6 +186,7 @@ describe('GET /api/today', () => {
           'plans',
           'myOpenRuns',
           'storageConflicts',
+          'labAreaLimits',
           'ordersWaiting',
         ] as TodaySectionKey[]
       ).sort(),
@@ -261,10 +262,14 @@ describe('GET /api/today', () => {
     expect(page.sections.plans!.items.some((i) => i.key === `plan:${lab.planId}`)).toBe(true);
   });
 
-  it('when a viewer opens it, then only plans and storage conflicts are there (read-only lists)', async () => {
+  it('when a viewer opens it, then only plans, storage conflicts and lab areas are there (read-only lists)', async () => {
     const page = await startPage(people.viewer.cookie);
-    expect(visible(page)).toEqual(['plans', 'storageConflicts']);
-    expect(Object.keys(page.sections).sort()).toEqual(['plans', 'storageConflicts']);
+    expect(visible(page)).toEqual(['labAreaLimits', 'plans', 'storageConflicts']);
+    expect(Object.keys(page.sections).sort()).toEqual([
+      'labAreaLimits',
+      'plans',
+      'storageConflicts',
+    ]);
   });
 
   it('when nobody is signed in, then 401', async () => {
