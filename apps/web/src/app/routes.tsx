@@ -55,6 +55,36 @@ const stockRoutes: RouteObject[] = [
     'stock.read',
   ),
   lazyPage(
+    paths.stockLabAreas,
+    async () => (await import('../features/lab-areas/pages/lab-areas-page')).LabAreasPage,
+    'stock.read',
+  ),
+  lazyPage(
+    paths.stockLabArea(),
+    async () => (await import('../features/lab-areas/pages/lab-area-page')).LabAreaPage,
+    'stock.read',
+  ),
+  lazyPage(
+    paths.stockRuleSets,
+    async () => (await import('../features/lab-areas/pages/rule-sets-page')).RuleSetsPage,
+    'stock.read',
+  ),
+  lazyPage(
+    paths.stockRuleSetNew,
+    async () => (await import('../features/lab-areas/pages/rule-set-form-page')).RuleSetNewPage,
+    'stock.write',
+  ),
+  lazyPage(
+    paths.stockRuleSet(),
+    async () => (await import('../features/lab-areas/pages/rule-set-page')).RuleSetPage,
+    'stock.read',
+  ),
+  lazyPage(
+    paths.stockRuleSetEdit(),
+    async () => (await import('../features/lab-areas/pages/rule-set-form-page')).RuleSetEditPage,
+    'stock.write',
+  ),
+  lazyPage(
     paths.stockReceive,
     async () => (await import('../features/stock/pages/receive-page')).ReceivePage,
     'stock.write',

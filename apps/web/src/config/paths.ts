@@ -18,6 +18,17 @@ export const paths = {
   stockLocation: (id: number | string = ':id') => `/stock/locations/${id}`,
   stockStocktake: (id: number | string = ':id') => `/stock/locations/${id}/stocktake`,
   stockSegregation: '/stock/segregation',
+  /** Places marked as lab areas, each with its flammable-liquid limits. */
+  stockLabAreas: '/stock/lab-areas',
+  stockLabArea: (id: number | string = ':id') => `/stock/lab-areas/${id}`,
+  /** A lab area's one-page summary for an inspection (print view). */
+  stockLabAreaInspection: (id: number | string = ':id') => `/stock/lab-areas/${id}/inspection`,
+  /** The published limits Lotwise checks rooms against, and a lab's own sets. */
+  stockRuleSets: '/stock/rule-sets',
+  /** `?from=<id>` copies a set into the form. */
+  stockRuleSetNew: '/stock/rule-sets/new',
+  stockRuleSet: (id: number | string = ':id') => `/stock/rule-sets/${id}`,
+  stockRuleSetEdit: (id: number | string = ':id') => `/stock/rule-sets/${id}/edit`,
   stockReceive: '/stock/receive',
   stockImport: '/stock/import',
   /** `?ids=1,2,3` or `?labelCodes=LW-00001,LW-00002`. */

@@ -56,6 +56,11 @@ export function formatTakeAmount(
   return formatTake(take, holds, unit, locale);
 }
 
+/** Litres of liquid against a room limit, to one decimal: `15.1 L` (`15,1 L` in de-DE). */
+export function formatLitres(value: number, locale = readerLocale()): string {
+  return `${formatFixed(value, 1, locale)} L`;
+}
+
 /** A number with exactly `decimals` decimals in the reader's locale (`1,234.50`, `1.234,50`). */
 export function formatFixed(value: number, decimals: number, locale = readerLocale()): string {
   return formatNumber(value, decimals, 'auto', locale);

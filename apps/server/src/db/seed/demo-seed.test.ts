@@ -12,6 +12,7 @@ import { testConfig } from '../../test/harness';
 import { demoAccounts, demoPassword, seedDemo } from './demo-seed';
 import { demoChemicals } from './demo-chemicals';
 import { watchedChemicals, watchedHoldingsIn } from '../../modules/watch-lists/watch-matching';
+import { allAreaTotals } from '../../modules/lab-areas/lab-areas.service';
 
 describe('demo seed', () => {
   let dataSource: DataSource;
@@ -330,5 +331,26 @@ describe('demo seed', () => {
       '2100-01-01T00:00:00.000Z',
     );
     expect(moves.some((m) => m.reason === 'drawn' && m.note !== '')).toBe(true);
+  });
+
+  it('when seeded, then the teaching lab is a lab area near its Class I limit and over none, its flammables cabinet approved', async () => {
+    const store = openStore(dataSource);
+    const [teaching, ...others] = await allAreaTotals(store.repos);
+    expect(others).toEqual([]);
+    expect(teaching!.area).toMatchObject({
+      path: 'Room 101 Teaching lab',
+      unitClass: 'C',
+      instructional: true,
+      status: 'near',
+    });
+    const classI = teaching!.area.limits.find((l) => l.key === 'class-i')!;
+    expect(classI.limitLitres).toBeCloseTo(32.6, 1); // NFPA 45 (2024) Table 9.1.1 (public summary): 50 % of C's 4 gal/100 ft² × 430.56 ft²
+    expect(classI.fractionUsed).toBeGreaterThanOrEqual(0.9);
+    expect(classI.fractionUsed).toBeLessThanOrEqual(0.98);
+    expect(teaching!.area.limits.filter((l) => l.status === 'over')).toEqual([]);
+    expect(teaching!.detail.storagePlaces.map((p) => p.path)).toEqual([
+      'Room 101 Teaching lab › Flammables cabinet',
+    ]);
+    expect(teaching!.detail.containerSizeBreaches).toEqual([]);
   });
 });

@@ -5,6 +5,7 @@ import { newChemicalValues } from '../../modules/chemicals/chemicals.service';
 import { nowIso } from '../sql';
 import { openStore } from '../repositories';
 import { demoChemicals } from './demo-chemicals';
+import { seedDemoLabAreas } from './demo-lab-areas';
 import { seedDemoStock } from './demo-stock';
 import { preparedOnlyChemicals, seedDemoPreparations } from './demo-preparations';
 import { seedDemoSuppliers } from './purchasing-suppliers';
@@ -71,6 +72,7 @@ export async function seedDemo(
     // The demo lab follows the EU explosives-precursor lists: acetone (Annex II) and sulfuric
     // acid 98 % (Annex I, above 15 %) are watched, with their history of draws.
     await repos.watchLists.choosePresets(demoWatchListPresets);
+    await seedDemoLabAreas(repos, inserted, places);
     return true;
   });
 }

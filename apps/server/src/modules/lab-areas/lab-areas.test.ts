@@ -8,7 +8,7 @@ import request from 'supertest';
 import { z } from 'zod';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { signedIn, stockFactory } from '../../test/factories';
-import { testContext } from '../../test/harness';
+import { alertRulesSettled, testContext } from '../../test/harness';
 import { makeOrder } from '../../test/orders-in-database';
 import { readsOf, recordStatements } from '../../test/statements';
 
@@ -216,6 +216,8 @@ describe('what a lab area holds', () => {
     const area = await markArea(room.id, { unitClass: 'A', floorArea: 2000 });
     const solvent = await liquid('Growing solvent', 13, 78);
     const count = async (path: string) => {
+      // Alert rules run after each write: let them finish so only the page's own reads count.
+      await alertRulesSettled();
       const recording = await recordStatements(testContext().dataSource);
       await request(app()).get(path).set('Cookie', viewer).expect(200);
       return recording.stop().filter((s) => readsOf([s], 'users').length === 0).length;

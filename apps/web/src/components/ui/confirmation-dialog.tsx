@@ -1,8 +1,14 @@
 import { useCallback, useState } from 'react';
-import { Archive, ShieldAlert } from 'lucide-react';
-import { safetyDeferral, type ConfirmationWarning } from '@lotwise/shared';
+import { Archive, Flame, Ruler, ShieldAlert } from 'lucide-react';
+import {
+  containerMaterialLabels,
+  roomRulesReminder,
+  safetyDeferral,
+  type ConfirmationWarning,
+  type ContainerMaterial,
+} from '@lotwise/shared';
 import type { AskConfirmation } from '../../lib/api-client';
-import { formatAmount, formatDate } from '../../lib/format';
+import { formatAmount, formatDate, formatLitres } from '../../lib/format';
 import { Button } from './button';
 import { Dialog } from './dialog';
 
@@ -40,6 +46,66 @@ function StorageItem({
   );
 }
 
+function FlammableLimitItem({
+  warning,
+}: {
+  warning: Extract<ConfirmationWarning, { kind: 'flammable_limit' }>;
+}) {
+  const over = warning.afterLitres - warning.limitLitres;
+  return (
+    <li className="flex gap-2">
+      <Flame aria-hidden="true" className="mt-0.5 size-4 shrink-0 text-danger-700" />
+      <div>
+        <p className="font-semibold">
+          {warning.labAreaName} · {warning.limit}
+        </p>
+        <p className="tabular-nums">
+          Holds {formatLitres(warning.heldLitres)} now, {formatLitres(warning.afterLitres)} after
+          this, against a limit of {formatLitres(warning.limitLitres)}:{' '}
+          <strong>{formatLitres(over)} over</strong>.
+        </p>
+        <p className="text-xs text-ink-600">Limit from {warning.source}</p>
+      </div>
+    </li>
+  );
+}
+
+function ContainerSizeItem({
+  warning,
+}: {
+  warning: Extract<ConfirmationWarning, { kind: 'container_size' }>;
+}) {
+  return (
+    <li className="flex gap-2">
+      <Ruler aria-hidden="true" className="mt-0.5 size-4 shrink-0 text-danger-700" />
+      <div>
+        <p>{warning.message}</p>
+        <p className="tabular-nums">
+          Class {warning.liquidClass} in{' '}
+          {(
+            containerMaterialLabels[warning.material as ContainerMaterial] ?? warning.material
+          ).toLowerCase()}
+          : the container holds {formatLitres(warning.capacityLitres)}; the largest allowed is{' '}
+          <strong>{formatLitres(warning.limitLitres)}</strong>.
+        </p>
+        <p className="text-xs text-ink-600">Limit from {warning.source}</p>
+      </div>
+    </li>
+  );
+}
+
+function dialogTitle(warnings: ConfirmationWarning[]): string {
+  const kinds = new Set(warnings.map((w) => w.kind));
+  if (kinds.size === 1 && kinds.has('hold')) return 'This takes stock held for a plan';
+  if (kinds.size === 1 && kinds.has('storage_conflict')) return 'Check the storage before saving';
+  if (kinds.size === 1 && kinds.has('flammable_limit'))
+    return 'This goes over a flammable-liquid limit';
+  if (kinds.size === 1 && kinds.has('container_size'))
+    return 'This container is larger than allowed';
+  if (!kinds.has('hold')) return 'Check the room rules before saving';
+  return 'Confirm before saving';
+}
+
 /**
  * What a write needs confirmed (the warnings of a 409 `confirmation_required`), with a way
  * back that saves nothing and a way on that sends the write again with `confirm: true`.
@@ -57,12 +123,10 @@ export function ConfirmationDialog({
 }) {
   const holds = warnings.filter((w) => w.kind === 'hold');
   const storage = warnings.filter((w) => w.kind === 'storage_conflict');
-  const title =
-    holds.length > 0 && storage.length === 0
-      ? 'This takes stock held for a plan'
-      : holds.length === 0
-        ? 'Check the storage before saving'
-        : 'Confirm before saving';
+  const limits = warnings.filter((w) => w.kind === 'flammable_limit');
+  const sizes = warnings.filter((w) => w.kind === 'container_size');
+  const onlyHolds = holds.length > 0 && holds.length === warnings.length;
+  const title = dialogTitle(warnings);
   return (
     <Dialog
       open={open}
@@ -73,7 +137,7 @@ export function ConfirmationDialog({
         <>
           <Button onClick={onCancel}>Go back</Button>
           <Button variant="danger" onClick={onConfirm}>
-            {holds.length > 0 && storage.length === 0 ? 'Draw anyway' : 'Save anyway'}
+            {onlyHolds ? 'Draw anyway' : 'Save anyway'}
           </Button>
         </>
       }
@@ -100,6 +164,19 @@ export function ConfirmationDialog({
               ))}
             </ul>
             <p className="text-xs text-ink-600">{safetyDeferral}</p>
+          </section>
+        )}
+        {(limits.length > 0 || sizes.length > 0) && (
+          <section aria-label="Room rules" className="flex flex-col gap-2">
+            <ul className="flex flex-col gap-2">
+              {limits.map((warning, index) => (
+                <FlammableLimitItem key={`limit-${index}`} warning={warning} />
+              ))}
+              {sizes.map((warning, index) => (
+                <ContainerSizeItem key={`size-${index}`} warning={warning} />
+              ))}
+            </ul>
+            <p className="text-xs text-ink-600">{roomRulesReminder}</p>
           </section>
         )}
       </div>

@@ -1,10 +1,13 @@
 import { useMemo, useState } from 'react';
 import {
+  flammableStorageKinds,
+  flammableStorageLabels,
   locationCreateSchema,
   locationKinds,
   locationPatchSchema,
   storageGroupCodes,
   storageGroups,
+  type FlammableStorageKind,
   type Location,
   type LocationKind,
   type StorageGroup,
@@ -73,6 +76,9 @@ export function LocationFormDialog({
   );
   const [groups, setGroups] = useState<StorageGroup[]>(location?.storageGroups ?? []);
   const [notes, setNotes] = useState(location?.notes ?? '');
+  const [flammableStorage, setFlammableStorage] = useState<FlammableStorageKind | null>(
+    location?.flammableStorage ?? null,
+  );
   const [errors, setErrors] = useState<Errors>({});
   const [formError, setFormError] = useState<string | null>(null);
   const excluded = useMemo(
@@ -88,7 +94,14 @@ export function LocationFormDialog({
   }
 
   async function handleSubmit() {
-    const values = { name, kind, parentId: parentId ?? null, storageGroups: groups, notes };
+    const values = {
+      name,
+      kind,
+      parentId: parentId ?? null,
+      storageGroups: groups,
+      notes,
+      flammableStorage,
+    };
     const schema = location ? locationPatchSchema : locationCreateSchema;
     const checked = schema.safeParse(values);
     if (!checked.success) {
@@ -215,6 +228,28 @@ export function LocationFormDialog({
             </p>
           )}
         </fieldset>
+        <Field
+          label="Approved flammable storage"
+          error={fieldMessage('Flammable storage', errors.flammableStorage)}
+          hint="Liquids in an approved cabinet or safety cans count under a lab area's higher figures."
+        >
+          {(c) => (
+            <Select
+              {...c}
+              value={flammableStorage ?? ''}
+              onChange={(e) =>
+                setFlammableStorage((e.target.value || null) as FlammableStorageKind | null)
+              }
+            >
+              <option value="">Neither</option>
+              {flammableStorageKinds.map((k) => (
+                <option key={k} value={k}>
+                  {flammableStorageLabels[k]}
+                </option>
+              ))}
+            </Select>
+          )}
+        </Field>
         <Field label="Notes" optional error={fieldMessage('Notes', errors.notes)}>
           {(c) => (
             <Textarea {...c} rows={2} value={notes} onChange={(e) => setNotes(e.target.value)} />

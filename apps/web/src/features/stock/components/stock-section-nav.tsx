@@ -1,5 +1,15 @@
 import { Outlet } from 'react-router';
-import { Boxes, FileUp, LayoutList, MapPin, PackagePlus, ShieldAlert, Tags } from 'lucide-react';
+import {
+  BookOpenCheck,
+  Boxes,
+  FileUp,
+  Flame,
+  LayoutList,
+  MapPin,
+  PackagePlus,
+  ShieldAlert,
+  Tags,
+} from 'lucide-react';
 import { can, type Permission } from '@lotwise/shared';
 import { useCurrentUser } from '../../../lib/auth';
 import { SectionTabs, type SectionTab } from '../../../components/ui/section-tabs';
@@ -16,6 +26,8 @@ const sections: Section[] = [
   { to: paths.stockContainers, label: 'Containers', icon: Boxes },
   { to: paths.stockLocations, label: 'Locations', icon: MapPin },
   { to: paths.stockSegregation, label: 'Storage conflicts', icon: ShieldAlert },
+  { to: paths.stockLabAreas, label: 'Lab areas', icon: Flame },
+  { to: paths.stockRuleSets, label: 'Rule sets', icon: BookOpenCheck },
   { to: paths.stockReceive, label: 'Receive', icon: PackagePlus, permission: 'stock.write' },
   { to: paths.stockImport, label: 'Import', icon: FileUp, permission: 'stock.write' },
   { to: paths.stockLabels, label: 'Labels', icon: Tags },

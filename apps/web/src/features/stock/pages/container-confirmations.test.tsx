@@ -70,6 +70,29 @@ const storageWarning = {
   labelCodes: ['LW-00007'],
 };
 
+const flammableLimitWarning = {
+  kind: 'flammable_limit',
+  message:
+    'Room 101 would hold 16.0 L of Class I liquids; its limit is 15.1 L (NFPA 45 (2024), Table 9.1.1).',
+  labAreaId: 4,
+  labAreaName: 'Room 101',
+  limit: 'Class I liquids, cabinets and safety cans included',
+  heldLitres: 15.0,
+  afterLitres: 16.0,
+  limitLitres: 15.1,
+  source: 'NFPA 45 (2024), Table 9.1.1',
+};
+
+const containerSizeWarning = {
+  kind: 'container_size',
+  message: 'Acetic anhydride (Class II) in a 5 L glass bottle: the largest allowed is 4 L.',
+  liquidClass: 'II',
+  material: 'glass',
+  capacityLitres: 5,
+  limitLitres: 4,
+  source: 'Campus safety office (2026), container sizes',
+};
+
 function confirmationAnswer(warnings: unknown[]) {
   return {
     status: 409,
@@ -100,6 +123,7 @@ function routes(write: (request: RecordedRequest) => { status?: number; body?: u
     'GET /api/locations': { body: page([{ ...place, id: 5, name: 'Shelf 2' }, place]) },
     'POST /api/containers/42/draws': write,
     'POST /api/containers/42/transfers': write,
+    'POST /api/containers/42/splits': write,
   });
 }
 
@@ -206,5 +230,72 @@ describe('confirming a write the server asks about', () => {
         { locationId: 8, note: '', confirm: true },
       ]),
     );
+  });
+
+  it('when a move would take a lab area over a flammable-liquid limit, then the dialog names the area, the litres held and after against the limit, and the rule set, and "Save anyway" moves it', async () => {
+    const { requests } = routes((request) =>
+      (request.body as { confirm?: boolean }).confirm
+        ? {
+            status: 201,
+            body: {
+              container: {
+                ...anhydride,
+                location: { id: 8, name: 'Bases shelf', path: 'Room 101 › Bases shelf' },
+              },
+              entries: [],
+              warnings: [],
+            },
+          }
+        : confirmationAnswer([flammableLimitWarning]),
+    );
+    const user = await openContainer();
+
+    await user.click(screen.getByRole('button', { name: 'Move' }));
+    const move = await screen.findByRole('dialog', { name: 'Move LW-00042' });
+    await user.selectOptions(within(move).getByRole('combobox', { name: 'Move to' }), '8');
+    await user.click(within(move).getByRole('button', { name: 'Move container' }));
+
+    const confirm = await screen.findByRole('dialog', {
+      name: 'This goes over a flammable-liquid limit',
+    });
+    expect(confirm).toHaveTextContent('Room 101 · Class I liquids, cabinets and safety cans');
+    expect(confirm).toHaveTextContent(
+      /Holds 15\.0 L now, 16\.0 L after this, against a limit of 15\.1 L: 0\.9 L over/,
+    );
+    expect(confirm).toHaveTextContent('Limit from NFPA 45 (2024), Table 9.1.1');
+    expect(confirm).toHaveTextContent(/not an approval/);
+    await user.click(within(confirm).getByRole('button', { name: 'Save anyway' }));
+
+    expect(await within(move).findByText(/is now at Room 101 › Bases shelf/)).toBeInTheDocument();
+    await waitFor(() =>
+      expect(requests.filter((r) => r.method === 'POST').map((r) => r.body)).toEqual([
+        { locationId: 8, note: '' },
+        { locationId: 8, note: '', confirm: true },
+      ]),
+    );
+  });
+
+  it('when a split answers that the container is larger than its class and material allow, then the dialog gives the capacity against the largest allowed with the rule set, and going back saves nothing', async () => {
+    const { requests } = routes(() => confirmationAnswer([containerSizeWarning]));
+    const user = await openContainer();
+
+    await user.click(screen.getByRole('button', { name: 'Split' }));
+    const split = await screen.findByRole('dialog', { name: 'Split LW-00042' });
+    await user.type(within(split).getByRole('textbox', { name: 'Amount to pour off' }), '20');
+    await user.click(within(split).getByRole('button', { name: 'Split into new container' }));
+
+    const confirm = await screen.findByRole('dialog', {
+      name: 'This container is larger than allowed',
+    });
+    expect(confirm).toHaveTextContent(
+      /Class II in glass: the container holds 5\.0 L; the largest allowed is 4\.0 L/,
+    );
+    expect(confirm).toHaveTextContent('Limit from Campus safety office (2026), container sizes');
+    await user.click(within(confirm).getByRole('button', { name: 'Go back' }));
+
+    await waitFor(() =>
+      expect(screen.queryByRole('dialog', { name: /larger than allowed/ })).not.toBeInTheDocument(),
+    );
+    expect(requests.filter((r) => r.method === 'POST')).toHaveLength(1);
   });
 });

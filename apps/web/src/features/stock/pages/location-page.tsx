@@ -3,6 +3,7 @@ import { Link, useNavigate, useParams } from 'react-router';
 import { Boxes, ChevronLeft, ClipboardList, Pencil, Plus, Trash2 } from 'lucide-react';
 import { StorageGroupLabel } from '../../../components/hazards/storage-group-label';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
+import { RoomRulesPanel } from '../../../components/room-rules/room-rules-panel';
 import { Button, buttonClasses } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
@@ -128,6 +129,8 @@ export function LocationPage() {
       </header>
 
       <SegregationWarnings warnings={l.warnings} title="Storage warnings here" />
+
+      <RoomRulesPanel location={l} />
 
       {l.children.length > 0 && (
         <section aria-labelledby="inside-heading" className="flex flex-col gap-2">
