@@ -65,6 +65,12 @@ const stockRoutes: RouteObject[] = [
     'stock.read',
   ),
   lazyPage(
+    paths.stockLabAreaInspection(),
+    async () =>
+      (await import('../features/inspection/pages/inspection-summary-page')).InspectionSummaryPage,
+    'stock.read',
+  ),
+  lazyPage(
     paths.stockRuleSets,
     async () => (await import('../features/lab-areas/pages/rule-sets-page')).RuleSetsPage,
     'stock.read',
