@@ -12,7 +12,8 @@ import { formatAmount, formatDate, formatFixed, formatLitres } from '../../../li
  * the server sent them and names what they were measured against.
  */
 
-const cell = 'border-b border-ink-100 px-2 py-1 text-left align-top';
+const cell = 'border-b border-ink-100 px-2 py-1 text-left align-top print:px-1 print:py-0.5';
+const figure = `${cell} whitespace-nowrap`;
 const head = 'border-b border-ink-300 px-2 py-1 text-left text-xs font-semibold text-ink-700';
 
 function Section({
@@ -55,7 +56,7 @@ export function FlammableSection({ flammable }: { flammable: InspectionSummary['
       <p className="text-sm">
         Overall: <span className="font-semibold">{labAreaStatusLabels[flammable.status]}</span>
       </p>
-      <div className="grid gap-3 md:grid-cols-2 print:grid-cols-2">
+      <div className="grid items-start gap-3 md:grid-cols-2 print:grid-cols-2">
         <table className="w-full text-sm tabular-nums">
           <caption className="text-left text-xs font-semibold text-ink-700">
             Litres held by NFPA 30 class
@@ -81,9 +82,9 @@ export function FlammableSection({ flammable }: { flammable: InspectionSummary['
                   <td className={cell} title={liquidClassLabels[row.liquidClass]}>
                     {row.liquidClass}
                   </td>
-                  <td className={cell}>{formatLitres(row.inStorageLitres)}</td>
-                  <td className={cell}>{formatLitres(row.outsideStorageLitres)}</td>
-                  <td className={cell}>{formatLitres(row.totalLitres)}</td>
+                  <td className={figure}>{formatLitres(row.inStorageLitres)}</td>
+                  <td className={figure}>{formatLitres(row.outsideStorageLitres)}</td>
+                  <td className={figure}>{formatLitres(row.totalLitres)}</td>
                 </tr>
               ))
             )}
@@ -110,9 +111,9 @@ export function FlammableSection({ flammable }: { flammable: InspectionSummary['
                     {labAreaStatusLabels[limit.status]}
                   </span>
                 </td>
-                <td className={cell}>{formatLitres(limit.heldLitres)}</td>
-                <td className={cell}>{formatLitres(limit.limitLitres)}</td>
-                <td className={cell}>
+                <td className={figure}>{formatLitres(limit.heldLitres)}</td>
+                <td className={figure}>{formatLitres(limit.limitLitres)}</td>
+                <td className={figure}>
                   {limit.marginLitres < 0
                     ? `over by ${formatLitres(-limit.marginLitres)}`
                     : formatLitres(limit.marginLitres)}
@@ -173,12 +174,12 @@ export function WatchedSection({ watched }: { watched: InspectionSummary['watche
           <tbody>
             {watched.holdings.map((h) => (
               <tr key={h.containerId}>
-                <td className={cell}>{h.labelCode}</td>
+                <td className={figure}>{h.labelCode}</td>
                 <td className={cell}>{h.chemicalName}</td>
-                <td className={cell}>{h.casNumber ?? '—'}</td>
+                <td className={figure}>{h.casNumber ?? '—'}</td>
                 <td className={cell}>{h.lists}</td>
                 <td className={cell}>{h.locationPath}</td>
-                <td className={cell}>{formatAmount(h.quantity, h.unit)}</td>
+                <td className={figure}>{formatAmount(h.quantity, h.unit)}</td>
               </tr>
             ))}
           </tbody>
@@ -213,7 +214,7 @@ export function WasteSection({ waste }: { waste: InspectionSummary['waste'] }) {
             <tbody>
               {waste.containers.map((c) => (
                 <tr key={c.id}>
-                  <td className={cell}>{c.labelCode}</td>
+                  <td className={figure}>{c.labelCode}</td>
                   <td className={cell}>{c.title}</td>
                   <td className={cell}>{c.locationPath}</td>
                   <td className={cell}>

@@ -23,9 +23,11 @@ import {
 /** Paper: one A4 or Letter sheet where it fits, small type, colours kept, no orphan headings. */
 const printCss = `
 @media print {
-  @page { margin: 12mm 11mm; }
-  .inspection-page { font-size: 9.5pt; -webkit-print-color-adjust: exact; print-color-adjust: exact; }
-  .inspection-page h2 { break-after: avoid; }
+  @page { margin: 10mm; }
+  .inspection-page { font-size: 8.5pt; gap: 0.6rem; -webkit-print-color-adjust: exact; print-color-adjust: exact; }
+  .inspection-page :is(p, ul, li, table, td, th, div, span, caption) { font-size: inherit; line-height: 1.3; }
+  .inspection-page h1 { font-size: 14pt; }
+  .inspection-page h2 { font-size: 10.5pt; break-after: avoid; }
   .inspection-page tr, .inspection-page li { break-inside: avoid; }
 }
 `;
