@@ -34,6 +34,8 @@ interface DemoIds {
   closedOrder: number;
   supplier: number;
   inviteToken: string;
+  labArea: number;
+  ruleSet: number;
 }
 
 interface Visit {
@@ -60,6 +62,15 @@ const pages = {
   stockLocation: { as: 'viewer', url: (ids) => paths.stockLocation(ids.location) },
   stockStocktake: { as: 'manager', url: (ids) => paths.stockStocktake(ids.location) },
   stockSegregation: { as: 'viewer', url: () => paths.stockSegregation },
+  stockLabAreas: { as: 'viewer', url: () => paths.stockLabAreas },
+  stockLabArea: { as: 'viewer', url: (ids) => paths.stockLabArea(ids.labArea) },
+  stockLabAreaInspection: { as: 'viewer', url: (ids) => paths.stockLabAreaInspection(ids.labArea) },
+  stockRuleSets: { as: 'viewer', url: () => paths.stockRuleSets },
+  stockRuleSetNew: { as: 'manager', url: () => paths.stockRuleSetNew },
+  stockRuleSet: { as: 'viewer', url: (ids) => paths.stockRuleSet(ids.ruleSet) },
+  stockRuleSetEdit: {
+    skip: 'built-in rule sets are read-only and the demo lab has no set of its own to edit',
+  },
   stockReceive: { as: 'manager', url: () => paths.stockReceive },
   stockImport: { as: 'manager', url: () => paths.stockImport },
   stockLabels: { as: 'viewer', url: (ids) => `${paths.stockLabels}?ids=${ids.container}` },
@@ -186,6 +197,8 @@ async function demoIds(browser: Browser): Promise<DemoIds> {
     closedOrder: orders.items.find((o) => o.status !== 'open')!.id,
     supplier: await firstId(api, '/api/suppliers'),
     inviteToken: inviteUrl.split('/invite/')[1]!,
+    labArea: await firstId(api, '/api/lab-areas'),
+    ruleSet: await firstId(api, '/api/rule-sets'),
   };
   await context.close();
   return result;
