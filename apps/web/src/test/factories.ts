@@ -61,6 +61,7 @@ export function makeContainer(overrides: Partial<ContainerDetail> = {}): Contain
     tareMass: 150,
     capacity: 500,
     capacityUnit: 'g',
+    material: null,
     openedOn: '2026-09-01',
     expiresOn: '2028-06-30',
     expired: false,

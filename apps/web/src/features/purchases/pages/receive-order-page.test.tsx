@@ -18,6 +18,7 @@ function place(id: number, path: string): Location {
     depth: 0,
     storageGroups: [],
     notes: '',
+    flammableStorage: null,
     containerCount: 0,
     childCount: 0,
     createdAt: '2026-01-01T00:00:00.000Z',

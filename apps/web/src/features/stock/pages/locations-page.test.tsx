@@ -13,6 +13,7 @@ function place(overrides: Partial<Location> & Pick<Location, 'id' | 'name' | 'pa
     depth: 0,
     storageGroups: [],
     notes: '',
+    flammableStorage: null,
     containerCount: 0,
     childCount: 0,
     createdAt: '2026-08-01T08:00:00.000Z',
