@@ -111,6 +111,7 @@ function routes(write: (request: RecordedRequest) => { status?: number; body?: u
     depth: 1,
     storageGroups: [],
     notes: '',
+    flammableStorage: null,
     containerCount: 1,
     childCount: 0,
     createdAt: '2026-01-01T00:00:00.000Z',
