@@ -33,6 +33,8 @@ interface DemoIds {
   order: number;
   closedOrder: number;
   supplier: number;
+  labArea: number;
+  ruleSet: number;
   inviteToken: string;
 }
 
@@ -60,6 +62,15 @@ const pages = {
   stockLocation: { as: 'viewer', url: (ids) => paths.stockLocation(ids.location) },
   stockStocktake: { as: 'manager', url: (ids) => paths.stockStocktake(ids.location) },
   stockSegregation: { as: 'viewer', url: () => paths.stockSegregation },
+  stockLabAreas: { as: 'viewer', url: () => paths.stockLabAreas },
+  stockLabArea: { as: 'viewer', url: (ids) => paths.stockLabArea(ids.labArea) },
+  stockLabAreaInspection: { as: 'viewer', url: (ids) => paths.stockLabAreaInspection(ids.labArea) },
+  stockRuleSets: { as: 'viewer', url: () => paths.stockRuleSets },
+  stockRuleSetNew: { as: 'manager', url: (ids) => `${paths.stockRuleSetNew}?from=${ids.ruleSet}` },
+  stockRuleSet: { as: 'viewer', url: (ids) => paths.stockRuleSet(ids.ruleSet) },
+  stockRuleSetEdit: {
+    skip: 'the demo lab has no rule set of its own; the form is the one "new" shows',
+  },
   stockReceive: { as: 'manager', url: () => paths.stockReceive },
   stockImport: { as: 'manager', url: () => paths.stockImport },
   stockLabels: { as: 'viewer', url: (ids) => `${paths.stockLabels}?ids=${ids.container}` },
@@ -185,6 +196,8 @@ async function demoIds(browser: Browser): Promise<DemoIds> {
     order: orders.items.find((o) => o.status === 'open')!.id,
     closedOrder: orders.items.find((o) => o.status !== 'open')!.id,
     supplier: await firstId(api, '/api/suppliers'),
+    labArea: await firstId(api, '/api/lab-areas'),
+    ruleSet: await firstId(api, '/api/rule-sets?kind=flammable-limits'),
     inviteToken: inviteUrl.split('/invite/')[1]!,
   };
   await context.close();
