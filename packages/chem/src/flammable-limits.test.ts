@@ -144,6 +144,36 @@ describe('NFPA 45 limits of a lab area', () => {
     expect(classI!.working.at(-1)!.litres).toBeCloseTo(classI!.litres, 9);
   });
 
+  it('when an instructional lab is Class C, then its working takes half of its own figures in one step', () => {
+    const [classI] = flammableLimitsFor(nfpa45, {
+      unitClass: 'C',
+      floorArea: 1200,
+      floorAreaUnit: 'ft2',
+      storey: 2,
+      instructional: true,
+    });
+    expect(classI!.working.map((s) => s.text)).toEqual([
+      'Class C, Class I liquids: 4 gal per 100 ft² × 1,200 ft² ÷ 100 ft² = 48 gal (181.7 L)',
+      'Within the lab unit maximum of 300 gal (1,135.62 L): stays 48 gal (181.7 L)',
+      "Instructional lab, at most 50 % of Class C's figures: × 0.5 = 24 gal (90.85 L)",
+    ]); // NFPA 45 (2024) Table 9.1.1 (public summary): instructional labs 50 % of Class C
+  });
+
+  it("when an instructional lab is Class D, then Class C's half is compared and the lower applies", () => {
+    const limits = flammableLimitsFor(nfpa45, {
+      unitClass: 'D',
+      floorArea: 1000,
+      floorAreaUnit: 'ft2',
+      storey: 1,
+      instructional: true,
+    });
+    expect(limits[0]!.litres).toBeCloseTo(20 * 3.785411784, 6); // NFPA 45 (2024) Table 9.1.1 (public summary): D 2 gal/100 ft² = 20 gal, below 50 % of C (20 gal)
+    expect(limits[1]!.litres).toBeCloseTo(20 * 3.785411784, 6); // NFPA 45 (2024) Table 9.1.1 (public summary): D 2 gal/100 ft² = 20 gal, below 50 % of C's 8 (40 gal)
+    expect(limits[1]!.working.at(-1)!.text).toBe(
+      "Instructional lab, at most 50 % of Class C's figure: 40 gal (151.42 L); the lower figure applies: 20 gal (75.71 L)",
+    );
+  });
+
   it('when an instructional lab is Class A, then the set says which classes it may be', () => {
     expect(instructionalProblem(nfpa45, { unitClass: 'A', instructional: true })).toBe(
       'an instructional lab must be Class C or D under this rule set',

@@ -214,20 +214,25 @@ function pairLimit(
   let value = classFigure(set, area, area.unitClass, pair, steps);
   if (area.instructional && set.instructional) {
     const rule = set.instructional;
-    const ref: WorkingStep[] = [];
-    const other = classFigure(set, area, rule.limitedToUnitClass, pair, ref) * rule.factor;
-    steps.push(
-      ...ref.map((s) => ({
-        ...s,
-        text: `Instructional lab, ${s.text.charAt(0).toLowerCase()}${s.text.slice(1)}`,
-      })),
-    );
-    const lower = Math.min(value, other);
-    steps.push({
-      text: `Instructional lab: at most ${figure(rule.factor * 100)} % of Class ${rule.limitedToUnitClass}'s figure, ${amount(other, unit)}; the lower figure applies: ${amount(lower, unit)}`,
-      litres: toLitres(lower, unit),
-    });
-    value = lower;
+    const share = `${figure(rule.factor * 100)} %`;
+    if (rule.limitedToUnitClass === area.unitClass) {
+      value *= rule.factor;
+      steps.push({
+        text: `Instructional lab, at most ${share} of Class ${rule.limitedToUnitClass}'s figures: × ${figure(rule.factor)} = ${amount(value, unit)}`,
+        litres: toLitres(value, unit),
+      });
+    } else {
+      // Worked out as for the class the share is of, then the lower of the two applies.
+      const ref: WorkingStep[] = [];
+      const other = classFigure(set, area, rule.limitedToUnitClass, pair, ref) * rule.factor;
+      steps.push(...ref.map((s) => ({ ...s, text: `Instructional lab, compared with ${s.text}` })));
+      const lower = Math.min(value, other);
+      steps.push({
+        text: `Instructional lab, at most ${share} of Class ${rule.limitedToUnitClass}'s figure: ${amount(other, unit)}; the lower figure applies: ${amount(lower, unit)}`,
+        litres: toLitres(lower, unit),
+      });
+      value = lower;
+    }
   }
   return value;
 }

@@ -209,6 +209,16 @@ describe('what a lab area holds', () => {
         heldLitres: 4,
       }),
     ]);
+
+    // The cabinet loses its approval: everything in it now counts as outside storage.
+    await request(app())
+      .patch(`/api/locations/${cabinet.id}`)
+      .set('Cookie', manager)
+      .send({ flammableStorage: null })
+      .expect(200);
+    const unflagged = await detail(area.id);
+    expect(held(unflagged, 'class-i-outside-storage').heldLitres).toBeCloseTo(6.5, 9);
+    expect(unflagged.storagePlaces).toEqual([]);
   });
 
   it('when the lab grows, then the list and the page send no more statements', async () => {

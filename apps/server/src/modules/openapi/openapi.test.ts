@@ -139,6 +139,8 @@ describe('the API document (GET /api/openapi.json)', () => {
       ['get', '/api/plans', '/api/plans'],
       ['get', '/api/runs', '/api/runs'],
       ['get', '/api/orders', '/api/orders'],
+      ['get', '/api/rule-sets', '/api/rule-sets'],
+      ['get', '/api/lab-areas', '/api/lab-areas'],
     ];
     for (const [method, template, path, body] of calls) {
       const route = table.find((r) => r.method === method && r.path === template)!;
