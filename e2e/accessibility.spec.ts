@@ -33,9 +33,9 @@ interface DemoIds {
   order: number;
   closedOrder: number;
   supplier: number;
-  inviteToken: string;
   labArea: number;
   ruleSet: number;
+  inviteToken: string;
 }
 
 interface Visit {
@@ -66,10 +66,10 @@ const pages = {
   stockLabArea: { as: 'viewer', url: (ids) => paths.stockLabArea(ids.labArea) },
   stockLabAreaInspection: { as: 'viewer', url: (ids) => paths.stockLabAreaInspection(ids.labArea) },
   stockRuleSets: { as: 'viewer', url: () => paths.stockRuleSets },
-  stockRuleSetNew: { as: 'manager', url: () => paths.stockRuleSetNew },
+  stockRuleSetNew: { as: 'manager', url: (ids) => `${paths.stockRuleSetNew}?from=${ids.ruleSet}` },
   stockRuleSet: { as: 'viewer', url: (ids) => paths.stockRuleSet(ids.ruleSet) },
   stockRuleSetEdit: {
-    skip: 'built-in rule sets are read-only and the demo lab has no set of its own to edit',
+    skip: 'the demo lab has no rule set of its own; the form is the one "new" shows',
   },
   stockReceive: { as: 'manager', url: () => paths.stockReceive },
   stockImport: { as: 'manager', url: () => paths.stockImport },
@@ -196,9 +196,9 @@ async function demoIds(browser: Browser): Promise<DemoIds> {
     order: orders.items.find((o) => o.status === 'open')!.id,
     closedOrder: orders.items.find((o) => o.status !== 'open')!.id,
     supplier: await firstId(api, '/api/suppliers'),
-    inviteToken: inviteUrl.split('/invite/')[1]!,
     labArea: await firstId(api, '/api/lab-areas'),
-    ruleSet: await firstId(api, '/api/rule-sets'),
+    ruleSet: await firstId(api, '/api/rule-sets?kind=flammable-limits'),
+    inviteToken: inviteUrl.split('/invite/')[1]!,
   };
   await context.close();
   return result;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatAmount, formatDate, formatMolarMass } from './format';
+import { formatAmount, formatDate, formatLitres, formatMolarMass } from './format';
 
 describe('format', () => {
   it('when an amount is shown, then it carries its unit at balance precision', () => {
@@ -22,5 +22,15 @@ describe('format', () => {
 
   it('when a molar mass is shown, then it has two decimals and g/mol', () => {
     expect(formatMolarMass(180.156)).toBe('180.16 g/mol');
+  });
+});
+
+describe('formatLitres', () => {
+  // common practice, no source: one decimal for room totals, two below a litre.
+  it('when a total is a litre or more, then it has one decimal; below a litre, two', () => {
+    expect(formatLitres(15.14, 'en')).toBe('15.1 L');
+    expect(formatLitres(0.04, 'en')).toBe('0.04 L');
+    expect(formatLitres(0, 'en')).toBe('0.0 L');
+    expect(formatLitres(-4.3, 'de-DE')).toBe('-4,3 L');
   });
 });

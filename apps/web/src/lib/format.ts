@@ -56,9 +56,13 @@ export function formatTakeAmount(
   return formatTake(take, holds, unit, locale);
 }
 
-/** Litres of liquid against a room limit, to one decimal: `15.1 L` (`15,1 L` in de-DE). */
+/**
+ * Litres of liquid against a room limit: one decimal (`15.1 L`, `15,1 L` in de-DE), two below
+ * one litre so a small bottle does not read as nothing (`0.04 L`).
+ */
 export function formatLitres(value: number, locale = readerLocale()): string {
-  return `${formatFixed(value, 1, locale)} L`;
+  const small = value !== 0 && Math.abs(value) < 1;
+  return `${formatFixed(value, small ? 2 : 1, locale)} L`;
 }
 
 /** A number with exactly `decimals` decimals in the reader's locale (`1,234.50`, `1.234,50`). */

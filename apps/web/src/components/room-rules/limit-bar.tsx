@@ -5,8 +5,8 @@ import { formatFixed } from '../../lib/format';
 
 const statusStyle: Record<LabAreaStatus, { bar: string; text: string; icon: typeof CircleCheck }> =
   {
-    within: { bar: 'bg-ok-600', text: 'text-ok-700', icon: CircleCheck },
-    near: { bar: 'bg-warn-600', text: 'text-warn-700', icon: TriangleAlert },
+    within: { bar: 'bg-ok-700', text: 'text-ok-700', icon: CircleCheck },
+    near: { bar: 'bg-warn-700', text: 'text-warn-700', icon: TriangleAlert },
     over: { bar: 'bg-danger-600', text: 'text-danger-700', icon: CircleAlert },
   };
 

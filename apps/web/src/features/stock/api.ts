@@ -25,6 +25,7 @@ import {
   type ContainerCreate,
   type LotCreate,
   type ContainerChange,
+  type ContainerPatch,
   type ContainerStatus,
   type Disposal,
   type Draw,
@@ -252,6 +253,16 @@ export const useAdjustContainer = (id: number) => useContainerWrite<Adjustment>(
 export const useSplitContainer = (id: number) => useContainerWrite<Split>(id, 'splits');
 export const useTransferContainer = (id: number) => useContainerWrite<Transfer>(id, 'transfers');
 export const useDisposeContainer = (id: number) => useContainerWrite<Disposal>(id, 'disposal');
+
+/** Details that are not quantity or place (`PATCH /api/containers/:id`). */
+export function useUpdateContainer(id: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (patch: ContainerPatch) =>
+      api.patch(`/api/containers/${id}`, patch, containerDetailSchema),
+    onSuccess: () => queryClient.invalidateQueries(),
+  });
+}
 
 export function useCreateLocation() {
   const queryClient = useQueryClient();

@@ -185,7 +185,7 @@ describe('the lab areas', () => {
     );
     expect(
       screen.getByRole('region', { name: 'Containers larger than allowed' }),
-    ).toHaveTextContent(/1\.0 L, the largest allowed is 0\.5 L/);
+    ).toHaveTextContent(/1\.0 L, the largest allowed is 0\.50 L/);
     expect(screen.getByRole('link', { name: 'Inspection summary' })).toHaveAttribute(
       'href',
       '/stock/lab-areas/3/inspection',

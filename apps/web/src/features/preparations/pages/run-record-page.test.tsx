@@ -38,6 +38,7 @@ const shelf = {
   depth: 1,
   storageGroups: [],
   notes: '',
+  flammableStorage: null,
   containerCount: 4,
   childCount: 0,
   createdAt: '2026-08-01T08:00:00.000Z',

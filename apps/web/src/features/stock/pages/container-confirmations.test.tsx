@@ -111,6 +111,7 @@ function routes(write: (request: RecordedRequest) => { status?: number; body?: u
     depth: 1,
     storageGroups: [],
     notes: '',
+    flammableStorage: null,
     containerCount: 1,
     childCount: 0,
     createdAt: '2026-01-01T00:00:00.000Z',
@@ -260,7 +261,7 @@ describe('confirming a write the server asks about', () => {
     });
     expect(confirm).toHaveTextContent('Room 101 · Class I liquids, cabinets and safety cans');
     expect(confirm).toHaveTextContent(
-      /Holds 15\.0 L now, 16\.0 L after this, against a limit of 15\.1 L: 0\.9 L over/,
+      /Holds 15\.0 L now, 16\.0 L after this, against a limit of 15\.1 L: 0\.90 L over/,
     );
     expect(confirm).toHaveTextContent('Limit from NFPA 45 (2024), Table 9.1.1');
     expect(confirm).toHaveTextContent(/not an approval/);

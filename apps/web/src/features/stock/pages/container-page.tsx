@@ -13,6 +13,7 @@ import { useCan } from '../../../lib/auth';
 import { formatAmount, formatDate, formatPercent } from '../../../lib/format';
 import { paths } from '../../../config/paths';
 import { useContainer, useContainerByLabel } from '../api';
+import { ContainerMaterialField } from '../components/container-material';
 import { ContainerActions } from '../components/container-actions';
 import { ContainerHazards } from '../components/container-hazards';
 import { lotSummary } from '../components/containers-table';
@@ -159,6 +160,9 @@ function ContainerView({ container: c }: { container: ContainerDetail }) {
               <span className="tabular-nums">
                 {c.capacity === null ? '—' : formatAmount(c.capacity, c.capacityUnit ?? c.unit)}
               </span>
+            </Property>
+            <Property term="Material">
+              <ContainerMaterialField key={c.material ?? ''} container={c} />
             </Property>
             <Property term="Opened on">
               {c.openedOn ? formatDate(c.openedOn) : 'Not opened'}

@@ -15,6 +15,7 @@ const cabinet = {
   depth: 1,
   storageGroups: ['flammable' as const],
   notes: '',
+  flammableStorage: null,
   containerCount: 3,
   childCount: 0,
   createdAt: '2026-08-01T08:00:00.000Z',

@@ -28,6 +28,7 @@ const cabinet = {
   depth: 1,
   storageGroups: ['flammable' as const],
   notes: '',
+  flammableStorage: null,
   containerCount: 3,
   childCount: 0,
   createdAt: '2026-08-01T08:00:00.000Z',
@@ -48,6 +49,7 @@ const lot = {
   certificateFileName: null,
   certificate: null,
   notes: '',
+  flammableStorage: null,
   containerCount: 0,
   createdAt: '2026-11-30T10:00:00.000Z',
   updatedAt: '2026-11-30T10:00:00.000Z',
@@ -116,6 +118,7 @@ describe('Receive stock', () => {
     const first = screen.getByRole('listitem', { name: 'Container 1' });
     await user.type(within(first).getByLabelText('Quantity'), '1000');
     await user.type(within(first).getByLabelText(/Tare/), '412.5');
+    await user.selectOptions(within(first).getByLabelText('Material'), 'glass');
     await user.selectOptions(await within(first).findByLabelText('Location'), '7');
     await user.click(within(first).getByRole('button', { name: 'Copy' }));
     const second = screen.getByRole('listitem', { name: 'Container 2' });
@@ -144,6 +147,7 @@ describe('Receive stock', () => {
       quantity: 1000,
       unit: 'mL',
       tareMass: 412.5,
+      material: 'glass',
       status: 'sealed',
     });
     expect(writes[2]!.body).toMatchObject({ lotId: 31, quantity: 500 });

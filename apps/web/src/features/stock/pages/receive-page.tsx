@@ -4,6 +4,8 @@ import { useFieldArray, useForm, useWatch, type FieldPath } from 'react-hook-for
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { ChevronLeft, Copy, PackagePlus, Plus, Printer, Trash2 } from 'lucide-react';
 import {
+  containerMaterialLabels,
+  containerMaterials,
   countOf,
   chemicalSchema,
   containerCreateSchema,
@@ -12,6 +14,7 @@ import {
   type Chemical,
   type ContainerChange,
   type ContainerCreate,
+  type ContainerMaterial,
   type Lot,
   type LotCreate,
 } from '@lotwise/shared';
@@ -45,6 +48,8 @@ interface ContainerRow {
   tareMass: string;
   capacity: string;
   capacityUnit: string;
+  /** '' or a container material (for the container-size limits). */
+  material: string;
   locationId: string;
   openedOn: string;
 }
@@ -67,6 +72,7 @@ const emptyRow = (unit: string): ContainerRow => ({
   tareMass: '',
   capacity: '',
   capacityUnit: '',
+  material: '',
   locationId: '',
   openedOn: '',
 });
@@ -85,6 +91,7 @@ const containerLabels: Record<string, string> = {
   tareMass: 'Tare',
   capacity: 'Capacity',
   capacityUnit: 'Capacity unit',
+  material: 'Material',
   locationId: 'Location',
   openedOn: 'Opened on',
 };
@@ -116,6 +123,7 @@ function containerBody(lotId: number, row: ContainerRow): ContainerCreate {
     tareMass: decimal(row.tareMass),
     capacity,
     capacityUnit: capacity === null ? null : row.capacityUnit || row.unit,
+    material: (row.material || null) as ContainerMaterial | null,
     status: row.openedOn ? 'open' : 'sealed',
     openedOn: orNull(row.openedOn),
   };
@@ -586,7 +594,7 @@ export function ReceivePage() {
                       )}
                     </div>
                   </div>
-                  <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-[7rem_5.5rem_7rem_7rem_5.5rem_minmax(14rem,1fr)_9.5rem]">
+                  <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-[7rem_5.5rem_7rem_7rem_5.5rem_9rem_minmax(14rem,1fr)_9.5rem]">
                     <Field label="Quantity" error={rowErrors?.quantity?.message}>
                       {(c) => <AmountInput {...c} {...register(`containers.${index}.quantity`)} />}
                     </Field>
@@ -611,6 +619,18 @@ export function ReceivePage() {
                           <option value="">same</option>
                           {units.map((unit) => (
                             <option key={unit}>{unit}</option>
+                          ))}
+                        </Select>
+                      )}
+                    </Field>
+                    <Field label="Material" error={rowErrors?.material?.message}>
+                      {(c) => (
+                        <Select {...c} {...register(`containers.${index}.material`)}>
+                          <option value="">not said</option>
+                          {containerMaterials.map((m) => (
+                            <option key={m} value={m}>
+                              {containerMaterialLabels[m]}
+                            </option>
                           ))}
                         </Select>
                       )}

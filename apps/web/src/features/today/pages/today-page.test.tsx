@@ -1,6 +1,6 @@
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { safetyDeferral, type Today, type TodayItem } from '@lotwise/shared';
+import { roomRulesReminder, safetyDeferral, type Today, type TodayItem } from '@lotwise/shared';
 import { formatDate } from '../../../lib/format';
 import { mockFetch } from '../../../test/fetch-mock';
 import { makeUser } from '../../../test/factories';
@@ -147,5 +147,45 @@ describe('Start page', () => {
     expect(first).toHaveAttribute('href', '/');
     expect(first).toHaveAttribute('aria-current', 'page');
     expect(screen.getByRole('link', { name: 'Lotwise, home' })).toHaveAttribute('href', '/');
+  });
+
+  it('when a lab area is near a flammable-liquid limit, then the start page names it with the limit, the rule set and the reminder, and links to its page', async () => {
+    const area: TodayItem = {
+      key: 'lab-area:1',
+      severity: 'warning',
+      status: 'Near a limit',
+      title: 'Room 101 Teaching lab',
+      detail: 'One flammable-liquid limit at 90 % or more (NFPA 45 (2024), Table 9.1.1).',
+      notes: [
+        'Class I liquids, cabinets and safety cans included: 30.7 L of 32.6 L (94 %).',
+        roomRulesReminder,
+      ],
+      link: '/stock/lab-areas/1',
+      chemicals: [],
+      dueOn: null,
+    };
+    mockFetch({
+      'GET /api/auth/me': { body: { user: makeUser({ role: 'manager' }) } },
+      'GET /api/today': {
+        body: startPage({
+          labAreaLimits: { total: 1, items: [area], moreLink: '/stock/lab-areas' },
+        }),
+      },
+    });
+    renderApp('/');
+
+    const section = await screen.findByRole(
+      'region',
+      { name: 'Lab areas near a flammable-liquid limit' },
+      { timeout: 5000 },
+    );
+    expect(within(section).getByRole('link', { name: /Room 101 Teaching lab/ })).toHaveAttribute(
+      'href',
+      '/stock/lab-areas/1',
+    );
+    expect(section).toHaveTextContent('Near a limit');
+    expect(section).toHaveTextContent('NFPA 45 (2024), Table 9.1.1');
+    expect(section).toHaveTextContent('30.7 L of 32.6 L (94 %)');
+    expect(section).toHaveTextContent(/not an approval/);
   });
 });
