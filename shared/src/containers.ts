@@ -1,5 +1,6 @@
 import { tryParseUnit } from '@lotwise/chem';
 import { z } from 'zod';
+import { watchListingSchema } from './watch-lists';
 import { amountSchema, quantityUnitSchema } from './amounts';
 import { physicalStateSchema, stockUnitSchema } from './chemicals';
 import { isoDateSchema } from './dates';
@@ -174,6 +175,8 @@ export const containerChemicalSchema = z.object({
   hazardStatements: z.array(z.string()),
   peroxideClass: peroxideClassSchema.nullable(),
   stockUnit: stockUnitSchema,
+  /** On a container's own page: the chosen watch lists' rows the chemical meets. */
+  watchListings: z.array(watchListingSchema).optional(),
 });
 
 export const containerSchema = z.object({
