@@ -89,7 +89,7 @@ describe('migrations', () => {
       await dataSource.initialize();
       try {
         await dataSource.runMigrations({ transaction: 'all' });
-        expect(await tables(dataSource)).toHaveLength(31);
+        expect(await tables(dataSource)).toHaveLength(34);
         expect(await tables(dataSource)).toContain('ledger_entries');
         for (let i = 0; i < migrations.length; i++)
           await dataSource.undoLastMigration({ transaction: 'all' });
