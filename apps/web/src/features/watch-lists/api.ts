@@ -46,6 +46,15 @@ export function useChooseWatchList() {
         body: { chosen },
         schema: watchListDetailSchema,
       }),
+    // The box turns at once; the server's answer (or failure) settles it.
+    onMutate: async ({ id, chosen }) => {
+      await queryClient.cancelQueries({ queryKey: watchListKeys.list() });
+      queryClient.setQueryData(
+        watchListKeys.list(),
+        (old: z.infer<typeof listsSchema> | undefined) =>
+          old ? { items: old.items.map((l) => (l.id === id ? { ...l, chosen } : l)) } : old,
+      );
+    },
     onSettled: () => queryClient.invalidateQueries(),
   });
 }
