@@ -19,7 +19,7 @@ export function WatchListBadges({ listings }: { listings: readonly WatchListing[
     <span className="inline-flex flex-wrap gap-1">
       {byList(listings).map((listing) => (
         <span key={listing.listId} title={watchListingText(listing)} data-testid="watch-badge">
-          <Badge tone="warn" icon={<Eye aria-hidden="true" />}>
+          <Badge tone="warn" icon={<Eye aria-hidden="true" />} className="whitespace-normal">
             Watched: {listing.listName}
           </Badge>
           <span className="sr-only"> {watchListingText(listing)}</span>
