@@ -109,6 +109,8 @@ const pages = {
   adminOutbox: { as: 'admin', url: () => paths.adminOutbox },
   adminUsers: { as: 'admin', url: () => paths.adminUsers },
   adminBackups: { as: 'admin', url: () => paths.adminBackups },
+  adminWatchLists: { as: 'admin', url: () => paths.adminWatchLists },
+  adminWatchedChemicals: { as: 'admin', url: () => paths.adminWatchedChemicals },
   account: { as: 'member', url: () => paths.account },
   help: { as: 'viewer', url: () => paths.help },
 } satisfies Record<keyof typeof paths, Visit | Skip>;

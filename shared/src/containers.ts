@@ -1,5 +1,6 @@
 import { tryParseUnit } from '@lotwise/chem';
 import { z } from 'zod';
+import { watchListingSchema } from './watch-lists';
 import { amountSchema, quantityUnitSchema } from './amounts';
 import { physicalStateSchema, stockUnitSchema } from './chemicals';
 import { isoDateSchema } from './dates';
@@ -188,6 +189,8 @@ export const containerChemicalSchema = z.object({
   /** NFPA 30 class and GHS flammable category of the chemical (see `chemicalSchema`). */
   liquidClass: liquidClassSchema.nullable().optional(),
   ghsFlammableCategory: ghsFlammableCategorySchema.nullable().optional(),
+  /** On a container's own page: the chosen watch lists' rows the chemical meets. */
+  watchListings: z.array(watchListingSchema).optional(),
 });
 
 export const containerSchema = z.object({

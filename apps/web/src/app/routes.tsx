@@ -258,6 +258,19 @@ export const routes: RouteObject[] = [
             'users.manage',
           ),
           lazyPage(
+            paths.adminWatchLists,
+            async () =>
+              (await import('../features/watch-lists/pages/watch-lists-page')).WatchListsPage,
+            'users.manage',
+          ),
+          lazyPage(
+            paths.adminWatchedChemicals,
+            async () =>
+              (await import('../features/watch-lists/pages/watched-chemicals-page'))
+                .WatchedChemicalsPage,
+            'users.manage',
+          ),
+          lazyPage(
             paths.adminBackups,
             async () => (await import('../features/backups/pages/backups-page')).BackupsPage,
             'backups.manage',

@@ -79,6 +79,10 @@ export const paths = {
   adminOutbox: '/admin/outbox',
   adminUsers: '/admin/users',
   adminBackups: '/admin/backups',
+  /** The regulators' lists of restricted and reportable substances the lab follows. */
+  adminWatchLists: '/admin/watch-lists',
+  /** Holdings and movements of watched chemicals for a period, with a CSV export. */
+  adminWatchedChemicals: '/admin/watched-chemicals',
   /** The signed-in person's own account: change password. */
   account: '/account',
   /** What Lotwise is, the everyday jobs, keyboard shortcuts and the API. */

@@ -44,7 +44,7 @@ import type { z } from 'zod';
 import { AppError } from '../../lib/app-error';
 import { checkWaste, withWasteWarnings, writeWaste } from '../waste/waste-contents';
 import { noteLedgerChange, type Repositories, type Store } from '../../db/store';
-import { requireWatchReason } from '../watch-lists/watch-matching';
+import { requireWatchReason, watchListingsFor } from '../watch-lists/watch-matching';
 import { fromMicro, roundToStored, toMicro } from '../../db/quantities';
 import { nowIso } from '../../db/sql';
 import type { ChemicalRow } from '../chemicals/chemical.entity';
@@ -431,7 +431,13 @@ export function containersService(store: Store) {
           );
     const chemical = await repos.chemicals.findRow(view.chemicalId);
     const sds = chemical ? sdsOf(chemical) : null;
-    return { ...container, warnings, sds };
+    const listings = chemical ? await watchListingsFor(repos, [chemical]) : new Map();
+    return {
+      ...container,
+      chemical: { ...container.chemical, watchListings: listings.get(view.chemicalId) ?? [] },
+      warnings,
+      sds,
+    };
   }
 
   async function change(

@@ -63,7 +63,8 @@ export function watchListsRepository(manager: EntityManager) {
         .createQueryBuilder('w')
         .orderBy('w.builtIn', 'DESC')
         .addOrderBy('w.jurisdiction', 'ASC')
-        .addOrderBy('w.name', 'ASC')
+        // Presets in the order they were entered (Annex I before Annex II).
+        .addOrderBy('w.id', 'ASC')
         .getMany();
       const counts: { id: number; n: number }[] = await entries
         .createQueryBuilder('e')

@@ -23,7 +23,10 @@ function listingOf(entry: ChosenEntry): WatchListing {
     substance: entry.substance,
     threshold: thresholdText(entry),
     action: entry.action,
-    source: `${entry.listSource}; ${entry.source}`,
+    // "Regulation …, Annex II" with a row source "Annex II" is said once.
+    source: entry.listSource.endsWith(entry.source)
+      ? entry.listSource
+      : `${entry.listSource}; ${entry.source}`,
   };
 }
 

@@ -49,7 +49,7 @@ describe('SideNav', () => {
     expect(screen.getByText('Purchasing')).toBeInTheDocument();
   });
 
-  it('when an admin signs in, then People, Outbox and Backups under Admin show too', () => {
+  it('when an admin signs in, then People, Outbox, the watch lists and Backups under Admin show too', () => {
     expect(navLabels('admin')).toEqual([
       'Today',
       'Chemicals',
@@ -63,6 +63,8 @@ describe('SideNav', () => {
       'Suppliers',
       'People',
       'Outbox',
+      'Watched chemicals',
+      'Watch lists',
       'Backups',
       'Help',
     ]);

@@ -233,3 +233,10 @@ export function useRecordPayment(orderId: number) {
     onSuccess: () => queryClient.invalidateQueries({ queryKey: orderKeys.all }),
   });
 }
+
+/** A manager approves the watched and restricted chemicals on the lines, with a reason. */
+export function useApproveWatch(orderId: number) {
+  return useOrderWrite(orderId, (reason: string) =>
+    post(`/api/orders/${orderId}/watch-approval`, { reason }),
+  );
+}

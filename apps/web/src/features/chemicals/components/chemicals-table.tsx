@@ -6,6 +6,7 @@ import { hazardStatementTexts, type Chemical } from '@lotwise/shared';
 import { Formula } from '../../../components/chem/formula';
 import { PictogramList } from '../../../components/hazards/pictogram-badge';
 import { StorageGroupLabel } from '../../../components/hazards/storage-group-label';
+import { WatchListBadges } from '../../../components/hazards/watch-list-badges';
 import { Badge } from '../../../components/ui/badge';
 import { DataTable, type ServerTableFeatures } from '../../../components/ui/data-table';
 import { Pagination } from '../../../components/ui/pagination';
@@ -88,6 +89,7 @@ const columns = column.columns([
               ))}
             </p>
           )}
+          <WatchListBadges listings={row.original.watchListings} />
         </div>
       );
     },

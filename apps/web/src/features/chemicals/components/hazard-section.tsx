@@ -4,6 +4,7 @@ import { HazardStatementList } from '../../../components/hazards/hazard-statemen
 import { PictogramList } from '../../../components/hazards/pictogram-badge';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { StorageGroupLabel } from '../../../components/hazards/storage-group-label';
+import { WatchListPanel } from '../../../components/hazards/watch-list-badges';
 
 /** The hazards of one chemical, shown before anything else about it. */
 export function HazardSection({ chemical }: { chemical: Chemical }) {
@@ -44,6 +45,7 @@ export function HazardSection({ chemical }: { chemical: Chemical }) {
             </div>
           </div>
         </div>
+        <WatchListPanel listings={chemical.watchListings} />
         <SafetyCaution />
       </div>
     </section>

@@ -9,6 +9,7 @@ import { isApiError } from '../../../lib/api-client';
 import { formatDate } from '../../../lib/format';
 import { useOrder } from '../api';
 import { CoordinatorActions } from '../components/coordinator-actions';
+import { WatchApprovalPanel } from '../components/watch-approval-panel';
 import { OrderMoneyLinks } from '../../../components/purchasing/order-money-links';
 import { useCurrentUser } from '../../../lib/auth';
 import { DeadlineEditor } from '../components/deadline-editor';
@@ -138,6 +139,7 @@ export function OrderPage() {
       <OrderHeader order={data} />
       <PaymentReturn order={data} paid={paid} cancelled={cancelled} />
       <CoordinatorActions order={data} />
+      <WatchApprovalPanel order={data} />
       {user && (
         <OrderMoneyLinks
           orderId={data.id}

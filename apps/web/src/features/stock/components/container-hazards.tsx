@@ -13,6 +13,7 @@ import { HazardStatementList } from '../../../components/hazards/hazard-statemen
 import { PictogramList } from '../../../components/hazards/pictogram-badge';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
 import { StorageGroupLabel } from '../../../components/hazards/storage-group-label';
+import { WatchListPanel } from '../../../components/hazards/watch-list-badges';
 import { buttonClasses } from '../../../components/ui/button';
 import { formatDate } from '../../../lib/format';
 import { paths } from '../../../config/paths';
@@ -113,6 +114,7 @@ export function ContainerHazards({
             )}
           </div>
         </div>
+        <WatchListPanel listings={chemical.watchListings} />
         <SdsLink chemicalId={chemical.id} sds={sds} />
         <SafetyCaution />
       </div>

@@ -42,6 +42,10 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
   const [mode, setMode] = useState<Mode>(container.tareMass !== null ? 'gross' : 'amount');
   const [done, setDone] = useState<string | null>(null);
   const units = drawUnits(container.chemical);
+  // A watched chemical's draw is recorded with why: the field says so before submitting.
+  const watchedBy = [
+    ...new Set((container.chemical.watchListings ?? []).map((l) => l.listName)),
+  ].join('; ');
   const massUnits = units.filter((u) => u === 'g' || u === 'mg' || u === 'kg');
 
   const form = useForm<DrawFormValues>({
@@ -93,6 +97,14 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
       mode === 'gross'
         ? { grossMass: number, unit: values.unit }
         : { amount: number, unit: values.unit };
+    if (watchedBy && !values.note.trim()) {
+      setError(
+        'note',
+        { message: `Say why: ${container.chemical.name} is on ${watchedBy}` },
+        { shouldFocus: true },
+      );
+      return;
+    }
     if (values.note.trim()) body.note = values.note.trim();
     // The same schema the server applies: a zero amount or a volume as gross mass stops here.
     const checked = drawSchema.safeParse(body);
@@ -137,6 +149,8 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
         );
       if (error.fields.unit)
         setError('unit', { type: 'server', message: fieldMessage('Unit', error.fields.unit) });
+      if (error.fields.note)
+        setError('note', { type: 'server', message: fieldMessage('Why', error.fields.note) });
       setError('root.server', { message: `${error.message} Nothing was recorded.` });
     }
   });
@@ -266,9 +280,19 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
       )}
       <ContainerHolds container={container} compact />
 
-      <Field label="Note" optional error={errors.note?.message} hint="e.g. what it was for">
-        {(c) => <Input {...c} autoComplete="off" {...register('note')} />}
-      </Field>
+      {watchedBy ? (
+        <Field
+          label="Why (required)"
+          error={errors.note?.message}
+          hint={`${container.chemical.name} is on ${watchedBy}: your name and this reason are recorded.`}
+        >
+          {(c) => <Input {...c} autoComplete="off" {...register('note')} />}
+        </Field>
+      ) : (
+        <Field label="Note" optional error={errors.note?.message} hint="e.g. what it was for">
+          {(c) => <Input {...c} autoComplete="off" {...register('note')} />}
+        </Field>
+      )}
 
       <div>
         <Button

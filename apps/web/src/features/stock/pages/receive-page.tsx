@@ -63,6 +63,8 @@ interface ReceiveValues {
   purityPercent: string;
   receivedOn: string;
   expiresOn: string;
+  /** Why the delivery came in: on every container's ledger entry (required when watched). */
+  note: string;
   containers: ContainerRow[];
 }
 
@@ -113,9 +115,10 @@ function lotBody(chemicalId: number, v: ReceiveValues): LotCreate {
   };
 }
 
-function containerBody(lotId: number, row: ContainerRow): ContainerCreate {
+function containerBody(lotId: number, row: ContainerRow, note = ''): ContainerCreate {
   const capacity = decimal(row.capacity);
   return {
+    ...(note.trim() ? { note: note.trim() } : {}),
     lotId,
     locationId: Number(row.locationId) || 0,
     quantity: decimal(row.quantity) ?? Number.NaN,
@@ -240,6 +243,7 @@ export function ReceivePage() {
       purityPercent: '',
       receivedOn: todayIso(),
       expiresOn: '',
+      note: '',
       containers: [emptyRow(defaultUnit)],
     },
   });
@@ -248,9 +252,19 @@ export function ReceivePage() {
   const lotMode = useWatch({ control: form.control, name: 'lotMode' });
   const rowValues = useWatch({ control: form.control, name: 'containers' });
   const units = chemical ? drawUnits(chemical) : ['g'];
+  // A watched chemical is received with why: the field says so before submitting.
+  const watchedBy = [...new Set((chemical?.watchListings ?? []).map((l) => l.listName))].join('; ');
 
   const receive = useMutation({
-    mutationFn: async ({ lot, bodies }: { lot: LotCreate | Lot; bodies: ContainerRow[] }) => {
+    mutationFn: async ({
+      lot,
+      bodies,
+      note,
+    }: {
+      lot: LotCreate | Lot;
+      bodies: ContainerRow[];
+      note: string;
+    }) => {
       const isNewLot = !('id' in lot);
       const saved = 'id' in lot ? lot : await createLot(lot);
       const done: ContainerChange[] = [];
@@ -258,7 +272,7 @@ export function ReceivePage() {
       const confirmedPlaces = new Set<string>();
       try {
         for (const row of bodies) {
-          const body = containerBody(saved.id, row);
+          const body = containerBody(saved.id, row, note);
           const change = await sendWithConfirmation(
             (confirm) =>
               createContainer(
@@ -340,10 +354,14 @@ export function ReceivePage() {
         setFieldErrors(`containers.${index}.`, fields, containerLabels);
       }
     });
+    if (watchedBy && !values.note.trim()) {
+      setError('note', { message: `Say why: ${chemical.name} is on ${watchedBy}` });
+      ok = false;
+    }
     if (!ok) return;
 
     receive.mutate(
-      { lot, bodies: values.containers },
+      { lot, bodies: values.containers, note: values.note },
       {
         onSuccess: (result) => {
           // Went back at the first storage warning: nothing was kept, the form stays as typed.
@@ -365,6 +383,9 @@ export function ReceivePage() {
           rows.remove(done.map((_, index) => index));
           if (isApiError(failure.cause)) {
             setFieldErrors('containers.0.', failure.cause.fields, containerLabels);
+            if (failure.cause.fields.note) {
+              setError('note', { message: fieldMessage('Why', failure.cause.fields.note) });
+            }
           }
           void lots.refetch();
         },
@@ -560,6 +581,24 @@ export function ReceivePage() {
             One line per bottle, jar or bag; quantity, unit and location are needed, the rest is
             optional. The tare (empty, cap on) lets people record draws by weighing.
           </p>
+          {watchedBy ? (
+            <Field
+              label="Reason for this delivery (required)"
+              error={errors.note?.message}
+              hint={`${chemical?.name ?? ''} is on ${watchedBy}: your name and this reason are recorded.`}
+            >
+              {(c) => <Input {...c} autoComplete="off" {...register('note')} />}
+            </Field>
+          ) : (
+            <Field
+              label="Reason for this delivery"
+              optional
+              error={errors.note?.message}
+              hint="e.g. the order or course it is for"
+            >
+              {(c) => <Input {...c} autoComplete="off" {...register('note')} />}
+            </Field>
+          )}
           <ol className="flex flex-col gap-3">
             {rows.fields.map((row, index) => {
               const rowErrors = errors.containers?.[index];
