@@ -7,6 +7,8 @@ import {
   peroxideClassSchema,
   storageGroupSchema,
 } from './hazards';
+import { figureSourceSchema, fireDataProblem, temperatureCSchema } from './fire-data';
+import { ghsFlammableCategorySchema, liquidClassSchema } from './flammability';
 import { listQuerySchema } from './list';
 import { nameSchema } from './names';
 import { storedFileSchema } from './uploads';
@@ -78,13 +80,29 @@ const chemicalFields = {
   /** Orders of a restricted chemical need a manager's approval. */
   restricted: z.boolean(),
   notes: z.string().max(4000, 'is at most 4000 characters'),
+  /** °C (closed cup where the source says); what the liquid class is worked out from. */
+  flashPointC: temperatureCSchema.nullable(),
+  /** °C at normal pressure (the initial boiling point of a mixture). */
+  boilingPointC: temperatureCSchema.nullable(),
+  /** Where the flash point came from: "NIOSH Pocket Guide", "SDS of lot 2291", "from memory". */
+  flashPointSource: figureSourceSchema,
+  boilingPointSource: figureSourceSchema,
 };
+
+/** A flash point at or above the boiling point is a field error on the flash point. */
+function checkFireData(
+  value: { flashPointC?: number | null; boilingPointC?: number | null },
+  ctx: z.RefinementCtx,
+) {
+  const problem = fireDataProblem(value.flashPointC, value.boilingPointC);
+  if (problem) ctx.addIssue({ code: 'custom', path: ['flashPointC'], message: problem });
+}
 
 /**
  * Create a chemical. `molarMass` is never sent: the server computes it from `formula`
  * with packages/chem.
  */
-export const chemicalCreateSchema = z
+const chemicalCreateObject = z
   .object({
     ...chemicalFields,
     synonyms: chemicalFields.synonyms.default([]),
@@ -102,15 +120,25 @@ export const chemicalCreateSchema = z
     reorderQuantity: chemicalFields.reorderQuantity.default(null),
     restricted: chemicalFields.restricted.default(false),
     notes: chemicalFields.notes.default(''),
+    flashPointC: chemicalFields.flashPointC.default(null),
+    boilingPointC: chemicalFields.boilingPointC.default(null),
+    flashPointSource: chemicalFields.flashPointSource.default(''),
+    boilingPointSource: chemicalFields.boilingPointSource.default(''),
   })
   .strict();
+export const chemicalCreateSchema = chemicalCreateObject.superRefine(checkFireData);
 /** What a client sends (defaults optional). */
 export type ChemicalCreate = z.input<typeof chemicalCreateSchema>;
 /** What the server works with after parsing (defaults filled). */
 export type ChemicalCreateParsed = z.output<typeof chemicalCreateSchema>;
 
 /** Change some fields of a chemical; absent fields stay as they are. */
-export const chemicalPatchSchema = z.object(chemicalFields).partial().strict();
+const chemicalPatchObject = z.object(chemicalFields).partial().strict();
+/**
+ * Flash point against boiling point is checked here when a patch gives both; the server checks
+ * a patch of one against the stored other.
+ */
+export const chemicalPatchSchema = chemicalPatchObject.superRefine(checkFireData);
 export type ChemicalPatch = z.infer<typeof chemicalPatchSchema>;
 
 export const chemicalSchema = z.object({
@@ -140,6 +168,18 @@ export const chemicalSchema = z.object({
   reorderQuantity: z.number().nullable(),
   restricted: z.boolean(),
   notes: z.string(),
+  /** °C; null when not recorded. Always sent by the server (as are the three below). */
+  flashPointC: z.number().nullable().optional(),
+  boilingPointC: z.number().nullable().optional(),
+  flashPointSource: z.string().optional(),
+  boilingPointSource: z.string().optional(),
+  /**
+   * Worked out by the server from the figures with @lotwise/chem (NFPA 30 class, GHS
+   * flammable-liquid category); null for solids and gases and when the figures do not tell.
+   * Always sent by the server.
+   */
+  liquidClass: liquidClassSchema.nullable().optional(),
+  ghsFlammableCategory: ghsFlammableCategorySchema.nullable().optional(),
   /**
    * The current safety data sheet (PDF), downloaded from `GET /api/chemicals/:id/sds`; null
    * when none was uploaded. Always sent by the server.
@@ -173,13 +213,13 @@ export const extraHazardGroupsSchema = z
   .refine((list) => new Set(list).size === list.length, 'lists a storage group twice');
 
 /** What `POST /api/chemicals` accepts: {@link chemicalCreateSchema} plus `extraHazardGroups`. */
-export const chemicalCreateBodySchema = chemicalCreateSchema.extend({
-  extraHazardGroups: extraHazardGroupsSchema.optional(),
-});
+export const chemicalCreateBodySchema = chemicalCreateObject
+  .extend({ extraHazardGroups: extraHazardGroupsSchema.optional() })
+  .superRefine(checkFireData);
 export type ChemicalCreateBody = z.input<typeof chemicalCreateBodySchema>;
 
 /** What `PATCH /api/chemicals/:id` accepts: {@link chemicalPatchSchema} plus `extraHazardGroups`. */
-export const chemicalPatchBodySchema = chemicalPatchSchema.extend({
-  extraHazardGroups: extraHazardGroupsSchema.optional(),
-});
+export const chemicalPatchBodySchema = chemicalPatchObject
+  .extend({ extraHazardGroups: extraHazardGroupsSchema.optional() })
+  .superRefine(checkFireData);
 export type ChemicalPatchBody = z.infer<typeof chemicalPatchBodySchema>;

@@ -3,8 +3,10 @@ import { z } from 'zod';
 import { amountSchema, quantityUnitSchema } from './amounts';
 import { physicalStateSchema, stockUnitSchema } from './chemicals';
 import { isoDateSchema } from './dates';
+import { containerMaterialSchema } from './flammability';
 import { ghsCodeSchema, peroxideClassSchema, storageGroupSchema } from './hazards';
 import { confirmFieldSchema, containerHoldSchema } from './confirmations';
+import { ghsFlammableCategorySchema, liquidClassSchema } from './flammability';
 import { labelCodeToLookUp } from './label-codes';
 import { ledgerEntrySchema } from './ledger';
 import { listQuerySchema, queryFlagSchema } from './list';
@@ -42,6 +44,8 @@ export const containerCreateSchema = z
     tareMass: nonNegative('tare mass').nullable().default(null),
     capacity: positive('capacity').nullable().default(null),
     capacityUnit: quantityUnitSchema.nullable().default(null),
+    /** What it is made of (for the container-size limits); null: not said. */
+    material: containerMaterialSchema.nullable().default(null),
     status: z.enum(['sealed', 'open'], { message: 'must be sealed or open' }).default('sealed'),
     openedOn: isoDateSchema.nullable().default(null),
     notes: z.string().max(2000, 'is at most 2000 characters').default(''),
@@ -62,6 +66,7 @@ export const containerPatchSchema = z
     tareMass: nonNegative('tare mass').nullable(),
     capacity: positive('capacity').nullable(),
     capacityUnit: quantityUnitSchema.nullable(),
+    material: containerMaterialSchema.nullable(),
     openedOn: isoDateSchema.nullable(),
     notes: z.string().max(2000, 'is at most 2000 characters'),
   })
@@ -138,6 +143,7 @@ export const splitSchema = z
     tareMass: nonNegative('tare mass').nullable().default(null),
     capacity: positive('capacity').nullable().default(null),
     capacityUnit: quantityUnitSchema.nullable().default(null),
+    material: containerMaterialSchema.nullable().default(null),
     note: noteSchema.default(''),
     /** Place the new container even where it breaks a storage rule. */
     confirm: confirmFieldSchema,
@@ -176,6 +182,9 @@ export const containerChemicalSchema = z.object({
   hazardStatements: z.array(z.string()),
   peroxideClass: peroxideClassSchema.nullable(),
   stockUnit: stockUnitSchema,
+  /** NFPA 30 class and GHS flammable category of the chemical (see `chemicalSchema`). */
+  liquidClass: liquidClassSchema.nullable().optional(),
+  ghsFlammableCategory: ghsFlammableCategorySchema.nullable().optional(),
 });
 
 export const containerSchema = z.object({
@@ -188,6 +197,7 @@ export const containerSchema = z.object({
   tareMass: z.number().nullable(),
   capacity: z.number().nullable(),
   capacityUnit: z.string().nullable(),
+  material: containerMaterialSchema.nullable(),
   openedOn: z.string().nullable(),
   /** The lot's expiry date. */
   expiresOn: z.string().nullable(),

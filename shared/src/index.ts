@@ -41,5 +41,7 @@ export * from './backups';
 export * from './today';
 export * from './settings';
 export * from './flammability';
+export * from './fire-data';
 export * from './rule-sets';
+export * from './lab-areas';
 export * from './waste';

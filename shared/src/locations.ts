@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { flammableStorageKindSchema } from './flammability';
 import { storageGroupSchema } from './hazards';
 import { listQuerySchema, maxPageSize } from './list';
 import { nameSchema } from './names';
@@ -28,6 +29,8 @@ const locationFields = {
     .max(9)
     .refine((list) => new Set(list).size === list.length, 'lists a storage group twice'),
   notes: z.string().max(2000, 'is at most 2000 characters'),
+  /** An approved flammable-storage cabinet or safety-can place; null: neither. */
+  flammableStorage: flammableStorageKindSchema.nullable(),
 };
 
 export const locationCreateSchema = z
@@ -37,6 +40,7 @@ export const locationCreateSchema = z
     parentId: locationFields.parentId.default(null),
     storageGroups: locationFields.storageGroups.default([]),
     notes: locationFields.notes.default(''),
+    flammableStorage: locationFields.flammableStorage.default(null),
   })
   .strict();
 export type LocationCreate = z.input<typeof locationCreateSchema>;
@@ -57,6 +61,7 @@ export const locationSchema = z.object({
   depth: z.number().int(),
   storageGroups: z.array(storageGroupSchema),
   notes: z.string(),
+  flammableStorage: flammableStorageKindSchema.nullable(),
   /** Containers (not disposed) placed directly here. */
   containerCount: z.number().int(),
   childCount: z.number().int(),

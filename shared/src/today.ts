@@ -20,6 +20,7 @@ export const todaySectionKeys = [
   'expiry',
   'peroxideDue',
   'storageConflicts',
+  'labAreaLimits',
   'failedEmails',
 ] as const;
 export type TodaySectionKey = (typeof todaySectionKeys)[number];
@@ -35,6 +36,8 @@ export const todaySectionPermissions: Record<TodaySectionKey, Permission> = {
   plans: 'procedures.read',
   myOpenRuns: 'runs.record',
   storageConflicts: 'stock.read',
+  /** Lab areas over a flammable-liquid limit (critical) or at 90 % of one (warning). */
+  labAreaLimits: 'stock.read',
   failedEmails: 'outbox.manage',
   ordersWaiting: 'orders.join',
 };

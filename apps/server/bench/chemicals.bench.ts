@@ -44,6 +44,10 @@ function chemical(i: number): ChemicalCreateParsed {
     reorderQuantity: null,
     restricted: false,
     notes: '',
+    flashPointC: state === 'solid' ? null : 10 + (i % 80),
+    boilingPointC: state === 'solid' ? null : 120,
+    flashPointSource: '',
+    boilingPointSource: '',
   };
 }
 

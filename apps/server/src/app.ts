@@ -36,6 +36,8 @@ import { databaseFileCheck } from './modules/health/database-file-check';
 import { healthRoutes, type Readiness } from './modules/health/health.routes';
 import { importRoutes } from './modules/imports/imports.routes';
 import { importsService } from './modules/imports/imports.service';
+import { labAreaRoutes } from './modules/lab-areas/lab-areas.routes';
+import { labAreasService } from './modules/lab-areas/lab-areas.service';
 import { locationRoutes } from './modules/locations/locations.routes';
 import { locationsService } from './modules/locations/locations.service';
 import { lotRoutes } from './modules/lots/lots.routes';
@@ -61,6 +63,8 @@ import { purchaseRoutes } from './modules/receiving/purchases.routes';
 import { purchasesService } from './modules/receiving/purchases.service';
 import { receivingRoutes } from './modules/receiving/receiving.routes';
 import { receivingService } from './modules/receiving/receiving.service';
+import { ruleSetRoutes } from './modules/rule-sets/rule-sets.routes';
+import { ruleSetsService } from './modules/rule-sets/rule-sets.service';
 import { runPhotosService } from './modules/run-timeline/run-photos.service';
 import { runTimelineRoutes } from './modules/run-timeline/run-timeline.routes';
 import { runTimelineService } from './modules/run-timeline/run-timeline.service';
@@ -194,6 +198,8 @@ export function createApp({
     ...auditRoutes(auditService(store)),
     ...chemicalRoutes(chemicalsService(store, files)),
     ...locationRoutes(locationsService(store)),
+    ...ruleSetRoutes(ruleSetsService(store)),
+    ...labAreaRoutes(labAreasService(store)),
     ...lotRoutes(lotsService(store, files)),
     ...containerRoutes(containersService(store), waste),
     ...wasteRoutes(waste),

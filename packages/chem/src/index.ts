@@ -22,3 +22,4 @@ export * from './reorder';
 export * from './packs';
 export * from './timeline';
 export * from './flammability';
+export * from './flammable-limits';

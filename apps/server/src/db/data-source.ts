@@ -14,6 +14,8 @@ import { ChemicalEntity } from '../modules/chemicals/chemical.entity';
 import { ContainerEntity } from '../modules/containers/container.entity';
 import { LedgerEntryEntity } from '../modules/containers/ledger-entry.entity';
 import { LocationEntity } from '../modules/locations/location.entity';
+import { LabAreaEntity } from '../modules/lab-areas/lab-area.entity';
+import { RuleSetEntity } from '../modules/rule-sets/rule-set.entity';
 import { LotEntity } from '../modules/lots/lot.entity';
 import { PlanEntity } from '../modules/plans/plan.entity';
 import { ReservationEntity } from '../modules/plans/reservation.entity';
@@ -51,6 +53,8 @@ import { OutboxQueuedAge1796900000000 } from './migrations/1796900000000-outbox-
 import { ScheduledRuns1796910000000 } from './migrations/1796910000000-scheduled-runs';
 import { ProcedureSteps1796950000000 } from './migrations/1796950000000-procedure-steps';
 import { RunTimeline1796960000000 } from './migrations/1796960000000-run-timeline';
+import { ChemicalFireData1796970000000 } from './migrations/1796970000000-chemical-fire-data';
+import { LabAreas1796980000000 } from './migrations/1796980000000-lab-areas';
 import { ChemicalMeasures1796630000000 } from './migrations/1796630000000-chemical-measures';
 import { Waste1797000000000 } from './migrations/1797000000000-waste';
 import { wasteEntities } from '../modules/waste/waste.entity';
@@ -87,6 +91,8 @@ export const entities = [
   ScheduledRunEntity,
   RunPhotoEntity,
   RunTimelineEntryEntity,
+  RuleSetEntity,
+  LabAreaEntity,
   ...wasteEntities,
 ];
 
@@ -110,6 +116,8 @@ export const migrations = [
   ScheduledRuns1796910000000,
   ProcedureSteps1796950000000,
   RunTimeline1796960000000,
+  ChemicalFireData1796970000000,
+  LabAreas1796980000000,
   Waste1797000000000,
 ];
 

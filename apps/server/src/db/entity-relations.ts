@@ -6,7 +6,7 @@ export function foreignKey(
   target: string,
   column: string,
   constraintName: string,
-  onDelete: 'RESTRICT' | 'SET NULL',
+  onDelete: 'RESTRICT' | 'SET NULL' | 'CASCADE',
   nullable = false,
 ) {
   return {

@@ -38,6 +38,7 @@ describe('migrations', () => {
         'chemicals',
         'containers',
         'imports',
+        'lab_areas',
         'ledger_change_notes',
         'ledger_entries',
         'locations',
@@ -54,6 +55,7 @@ describe('migrations', () => {
         'procedures',
         'purchase_requests',
         'reservations',
+        'rule_sets',
         'run_inputs',
         'run_photos',
         'run_products',
@@ -91,7 +93,7 @@ describe('migrations', () => {
       await dataSource.initialize();
       try {
         await dataSource.runMigrations({ transaction: 'all' });
-        expect(await tables(dataSource)).toHaveLength(36);
+        expect(await tables(dataSource)).toHaveLength(38);
         expect(await tables(dataSource)).toContain('ledger_entries');
         for (let i = 0; i < migrations.length; i++)
           await dataSource.undoLastMigration({ transaction: 'all' });

@@ -6,6 +6,7 @@ import { auditRepository } from '../modules/audit/audit.repository';
 import { chemicalsRepository } from '../modules/chemicals/chemicals.repository';
 import { containersRepository } from '../modules/containers/containers.repository';
 import { importsRepository } from '../modules/imports/imports.repository';
+import { labAreasRepository } from '../modules/lab-areas/lab-areas.repository';
 import { locationsRepository } from '../modules/locations/locations.repository';
 import { lotsRepository } from '../modules/lots/lots.repository';
 import { metricsRepository } from '../modules/metrics/metrics.repository';
@@ -16,6 +17,7 @@ import { proceduresRepository } from '../modules/procedures/procedures.repositor
 import { receivingRepository } from '../modules/receiving/receiving.repository';
 import { reorderRepository } from '../modules/reorder/reorder.repository';
 import { requestsRepository } from '../modules/requests/requests.repository';
+import { ruleSetsRepository } from '../modules/rule-sets/rule-sets.repository';
 import { runTimelineRepository } from '../modules/run-timeline/run-timeline.repository';
 import { runsRepository } from '../modules/runs/runs.repository';
 import { segregationRepository } from '../modules/segregation/segregation.repository';
@@ -57,6 +59,8 @@ export const repositoryFactories = {
   receiving: receivingRepository,
   metrics: metricsRepository,
   today: todayRepository,
+  ruleSets: ruleSetsRepository,
+  labAreas: labAreasRepository,
   waste: wasteRepository,
 } satisfies Record<string, (manager: EntityManager) => object>;
 

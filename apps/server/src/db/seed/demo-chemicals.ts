@@ -5,7 +5,11 @@ import type { ChemicalCreateBody } from '@lotwise/shared';
  * and peroxide classes come from the Lotwise reference table, whose values cite the EU CLP
  * harmonised classification (Annex VI, 17th ATP), the NIST Chemistry WebBook, the Merck
  * Index, the CRC Handbook and university guidance on peroxide formers; values marked
- * "(memory)" there were recalled, not read. Reorder points and quantities are invented for
+ * "(memory)" there were recalled, not read. Flash points are the NIOSH Pocket Guide to Chemical
+ * Hazards' (given there in °F, converted to °C to one decimal); ethanol's was read from the
+ * guide, the others were recalled from it and say "(from memory)" in their source. Boiling
+ * points are the reference table's (Merck Index, NIST Chemistry WebBook) or the NIOSH Pocket
+ * Guide's where the table has none. Reorder points and quantities are invented for
  * the demo. Demo data only: the supplier's SDS is the authority for any real bottle.
  */
 export const demoChemicals: ChemicalCreateBody[] = [
@@ -15,6 +19,8 @@ export const demoChemicals: ChemicalCreateBody[] = [
     casNumber: '7732-18-5',
     formula: 'H2O',
     physicalState: 'liquid',
+    boilingPointC: 100,
+    boilingPointSource: 'NIST Chemistry WebBook',
     density: 0.99821,
     storageGroup: 'low-hazard',
     stockUnit: 'mL',
@@ -27,6 +33,10 @@ export const demoChemicals: ChemicalCreateBody[] = [
     casNumber: '64-17-5',
     formula: 'C2H6O',
     physicalState: 'liquid',
+    flashPointC: 12.8, // 55 °F in the guide, converted to °C
+    flashPointSource: 'NIOSH Pocket Guide to Chemical Hazards',
+    boilingPointC: 78.3,
+    boilingPointSource: 'Merck Index',
     density: 0.7893,
     ghsPictograms: ['GHS02'],
     hazardStatements: ['H225'],
@@ -41,6 +51,10 @@ export const demoChemicals: ChemicalCreateBody[] = [
     casNumber: '67-64-1',
     formula: 'C3H6O',
     physicalState: 'liquid',
+    flashPointC: -17.8, // 0 °F in the guide, converted to °C
+    flashPointSource: 'NIOSH Pocket Guide to Chemical Hazards (from memory)',
+    boilingPointC: 56.1,
+    boilingPointSource: 'Merck Index',
     density: 0.79,
     ghsPictograms: ['GHS02', 'GHS07'],
     hazardStatements: ['H225', 'H319', 'H336'],
@@ -56,6 +70,10 @@ export const demoChemicals: ChemicalCreateBody[] = [
     casNumber: '141-78-6',
     formula: 'C4H8O2',
     physicalState: 'liquid',
+    flashPointC: -4.4, // 24 °F in the guide, converted to °C
+    flashPointSource: 'NIOSH Pocket Guide to Chemical Hazards (from memory)',
+    boilingPointC: 77,
+    boilingPointSource: 'Merck Index',
     density: 0.902,
     ghsPictograms: ['GHS02', 'GHS07'],
     hazardStatements: ['H225', 'H319', 'H336'],
@@ -70,6 +88,10 @@ export const demoChemicals: ChemicalCreateBody[] = [
     casNumber: '64-19-7',
     formula: 'C2H4O2',
     physicalState: 'liquid',
+    flashPointC: 39.4, // 103 °F in the guide, converted to °C
+    flashPointSource: 'NIOSH Pocket Guide to Chemical Hazards (from memory)',
+    boilingPointC: 118,
+    boilingPointSource: 'Merck Index',
     density: 1.049,
     ghsPictograms: ['GHS02', 'GHS05'],
     hazardStatements: ['H226', 'H314'],
@@ -85,6 +107,10 @@ export const demoChemicals: ChemicalCreateBody[] = [
     casNumber: '108-24-7',
     formula: 'C4H6O3',
     physicalState: 'liquid',
+    flashPointC: 48.9, // 120 °F in the guide, converted to °C
+    flashPointSource: 'NIOSH Pocket Guide to Chemical Hazards (from memory)',
+    boilingPointC: 139,
+    boilingPointSource: 'NIST Chemistry WebBook',
     density: 1.082,
     ghsPictograms: ['GHS02', 'GHS05', 'GHS07'],
     hazardStatements: ['H226', 'H302', 'H332', 'H314'],
@@ -128,6 +154,10 @@ export const demoChemicals: ChemicalCreateBody[] = [
     casNumber: '123-51-3',
     formula: 'C5H12O',
     physicalState: 'liquid',
+    flashPointC: 42.8, // 109 °F in the guide, converted to °C
+    flashPointSource: 'NIOSH Pocket Guide to Chemical Hazards (from memory)',
+    boilingPointC: 132.2, // 270 °F, converted to °C
+    boilingPointSource: 'NIOSH Pocket Guide to Chemical Hazards (from memory)',
     density: 0.81,
     ghsPictograms: ['GHS02', 'GHS07'],
     hazardStatements: ['H226', 'H332', 'H335'],
@@ -143,6 +173,10 @@ export const demoChemicals: ChemicalCreateBody[] = [
     casNumber: '123-92-2',
     formula: 'C7H14O2',
     physicalState: 'liquid',
+    flashPointC: 25, // 77 °F in the guide, converted to °C
+    flashPointSource: 'NIOSH Pocket Guide to Chemical Hazards (from memory)',
+    boilingPointC: 142.2, // 288 °F, converted to °C
+    boilingPointSource: 'NIOSH Pocket Guide to Chemical Hazards (from memory)',
     density: 0.876,
     ghsPictograms: ['GHS02'],
     hazardStatements: ['H226'],
@@ -158,6 +192,10 @@ export const demoChemicals: ChemicalCreateBody[] = [
     casNumber: '100-52-7',
     formula: 'C7H6O',
     physicalState: 'liquid',
+    flashPointC: 63, // from memory
+    flashPointSource: 'from memory',
+    boilingPointC: 178.5,
+    boilingPointSource: 'Merck Index',
     density: 1.046,
     ghsPictograms: ['GHS07'],
     hazardStatements: ['H302'],
@@ -337,6 +375,10 @@ export const demoChemicals: ChemicalCreateBody[] = [
     casNumber: '60-29-7',
     formula: 'C4H10O',
     physicalState: 'liquid',
+    flashPointC: -45, // −49 °F in the guide, converted to °C
+    flashPointSource: 'NIOSH Pocket Guide to Chemical Hazards (from memory)',
+    boilingPointC: 34.6,
+    boilingPointSource: 'NIST Chemistry WebBook',
     density: 0.7136,
     ghsPictograms: ['GHS02', 'GHS07'],
     hazardStatements: ['H224', 'H302', 'H336'],
@@ -353,6 +395,10 @@ export const demoChemicals: ChemicalCreateBody[] = [
     casNumber: '109-99-9',
     formula: 'C4H8O',
     physicalState: 'liquid',
+    flashPointC: -14.4, // 6 °F in the guide, converted to °C
+    flashPointSource: 'NIOSH Pocket Guide to Chemical Hazards (from memory)',
+    boilingPointC: 66,
+    boilingPointSource: 'Merck Index',
     density: 0.889,
     ghsPictograms: ['GHS02', 'GHS07', 'GHS08'],
     hazardStatements: ['H225', 'H319', 'H335', 'H351'],
@@ -369,6 +415,10 @@ export const demoChemicals: ChemicalCreateBody[] = [
     casNumber: '110-54-3',
     formula: 'C6H14',
     physicalState: 'liquid',
+    flashPointC: -21.7, // −7 °F in the guide, converted to °C
+    flashPointSource: 'NIOSH Pocket Guide to Chemical Hazards (from memory)',
+    boilingPointC: 68.9, // 156 °F, converted to °C
+    boilingPointSource: 'NIOSH Pocket Guide to Chemical Hazards (from memory)',
     density: 0.66,
     ghsPictograms: ['GHS02', 'GHS07', 'GHS08', 'GHS09'],
     hazardStatements: ['H225', 'H304', 'H315', 'H336', 'H361f', 'H373', 'H411'],

@@ -73,6 +73,58 @@ describe('demo seed', () => {
     for (const account of demoAccounts) expect(account.email).toMatch(/@example\.test$/);
   });
 
+  it('when seeded, then every demo liquid with a flash point has a class and category that agree with its H224–H226 and name their source', async () => {
+    const store = openStore(dataSource);
+    const { items } = await store.repos.chemicals.list({
+      q: '',
+      sort: 'name.asc',
+      page: 1,
+      pageSize: 200,
+    });
+    const liquids = items.filter((c) => c.physicalState !== 'solid');
+    const fireRated = liquids.filter((c) => c.flashPointC !== null);
+    // Every organic liquid of the demo lab has a flash point; water and the acids do not burn.
+    expect(fireRated.map((c) => c.name).sort()).toEqual([
+      'Acetic acid, glacial',
+      'Acetic anhydride',
+      'Acetone',
+      'Benzaldehyde',
+      'Diethyl ether',
+      'Ethanol',
+      'Ethyl acetate',
+      'Isoamyl acetate',
+      'Isoamyl alcohol',
+      'Tetrahydrofuran',
+      'n-Hexane',
+    ]);
+    // GHS Rev. 10 Table 2.6.1: category 1 H224, 2 H225, 3 H226. EU CLP has no category 4
+    // (H227), so a category-4 liquid such as benzaldehyde lists none (common practice, no source).
+    const statementOf: Record<number, string> = { 1: 'H224', 2: 'H225', 3: 'H226' };
+    for (const chemical of fireRated) {
+      expect(chemical.flashPointSource, chemical.name).not.toBe('');
+      expect(chemical.boilingPointSource, chemical.name).not.toBe('');
+      expect(chemical.liquidClass, chemical.name).not.toBeNull();
+      const listed = chemical.hazardStatements.filter((h) => /^H22[4-7]$/.test(h));
+      const category = chemical.ghsFlammableCategory;
+      expect(listed, chemical.name).toEqual(
+        category && statementOf[category] ? [statementOf[category]] : [],
+      );
+    }
+    const byName = (name: string) => items.find((c) => c.name === name);
+    // NFPA 30 (2024) §4.3.1–4.3.3; GHS Rev. 10 Table 2.6.1
+    expect(byName('Diethyl ether')).toMatchObject({ liquidClass: 'IA', ghsFlammableCategory: 1 });
+    expect(byName('Ethanol')).toMatchObject({ liquidClass: 'IB', ghsFlammableCategory: 2 });
+    expect(byName('Isoamyl acetate')).toMatchObject({ liquidClass: 'IC', ghsFlammableCategory: 3 });
+    expect(byName('Acetic acid, glacial')).toMatchObject({
+      liquidClass: 'II',
+      ghsFlammableCategory: 3,
+    });
+    expect(byName('Benzaldehyde')).toMatchObject({ liquidClass: 'IIIA', ghsFlammableCategory: 4 });
+    for (const chemical of items.filter((c) => c.physicalState === 'solid')) {
+      expect(chemical.liquidClass, chemical.name).toBeNull();
+    }
+  });
+
   it('when seeded, then each demo account signs in with the demo password and has its role', async () => {
     const app = createApp({ dataSource, config });
     for (const account of demoAccounts) {

@@ -31,6 +31,12 @@ export interface ChemicalRow {
   reorderQuantity: number | null;
   restricted: boolean;
   notes: string;
+  /** °C; null when not recorded. */
+  flashPointC: number | null;
+  boilingPointC: number | null;
+  /** Where each figure came from; empty when not said. */
+  flashPointSource: string;
+  boilingPointSource: string;
   /** Name, synonyms, CAS RN and formula, lower-cased, one per line: what `q` searches. */
   searchText: string;
   /** The current safety data sheet: original name, random stored name, bytes, type, time. */
@@ -67,6 +73,15 @@ export const ChemicalEntity = new EntitySchema<ChemicalRow>({
     reorderQuantity: { name: 'reorder_quantity', type: 'double precision', nullable: true },
     restricted: { type: 'boolean' },
     notes: { type: 'text' },
+    flashPointC: { name: 'flash_point_c', type: 'double precision', nullable: true },
+    boilingPointC: { name: 'boiling_point_c', type: 'double precision', nullable: true },
+    flashPointSource: { name: 'flash_point_source', type: 'varchar', length: 120, default: '' },
+    boilingPointSource: {
+      name: 'boiling_point_source',
+      type: 'varchar',
+      length: 120,
+      default: '',
+    },
     searchText: { name: 'search_text', type: 'text' },
     sdsFileName: { name: 'sds_file_name', type: 'varchar', length: 255, nullable: true },
     sdsStoredName: { name: 'sds_stored_name', type: 'varchar', length: 100, nullable: true },

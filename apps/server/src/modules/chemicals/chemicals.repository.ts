@@ -1,4 +1,10 @@
-import { parseSort, type Chemical, type ChemicalListQuery, type StoredFile } from '@lotwise/shared';
+import {
+  fireClassOf,
+  parseSort,
+  type Chemical,
+  type ChemicalListQuery,
+  type StoredFile,
+} from '@lotwise/shared';
 import { type EntityManager, In } from 'typeorm';
 import { AppError } from '../../lib/app-error';
 import { containsPattern, isUniqueViolation } from '../../db/sql';
@@ -27,6 +33,7 @@ function toChemical({
 }: ChemicalRow): Chemical {
   return {
     ...chemical,
+    ...fireClassOf(chemical),
     extraHazardGroups: extraHazardGroups ?? [],
     sds: sdsOf({ sdsFileName, sdsSize, sdsContentType, sdsUploadedAt }),
   };

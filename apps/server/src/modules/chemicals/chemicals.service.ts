@@ -1,4 +1,4 @@
-import { countOf } from '@lotwise/shared';
+import { countOf, fireDataProblem } from '@lotwise/shared';
 import { canonicalFormula, tryMolarMass } from '@lotwise/chem';
 import type {
   Chemical,
@@ -123,6 +123,15 @@ export function chemicalsService(store: Store, files?: StoredFiles) {
         }
       }
       if (patch.casNumber !== undefined) await assertCasFree(patch.casNumber, id);
+      const problem = fireDataProblem(
+        patch.flashPointC === undefined ? current.flashPointC : patch.flashPointC,
+        patch.boilingPointC === undefined ? current.boilingPointC : patch.boilingPointC,
+      );
+      if (problem) {
+        throw AppError.validation('The flash point must be below the boiling point.', {
+          flashPointC: problem,
+        });
+      }
       const normalized =
         patch.formula === undefined ? patch : { ...patch, formula: storedFormula(patch.formula) };
       const next = { ...current, ...normalized };

@@ -1,4 +1,4 @@
-import type { ContainerStatus, StockUnit } from '@lotwise/shared';
+import type { ContainerMaterial, ContainerStatus, StockUnit } from '@lotwise/shared';
 import { EntitySchema } from 'typeorm';
 import { foreignKey } from '../../db/entity-relations';
 import { microQuantity } from '../../db/quantities';
@@ -22,6 +22,8 @@ export interface ContainerRow {
   tareMass: number | null;
   capacity: number | null;
   capacityUnit: string | null;
+  /** What it is made of, for the container-size limits; null: not said. */
+  material?: ContainerMaterial | null;
   openedOn: string | null;
   expiresOn: string | null;
   peroxideDueOn: string | null;
@@ -54,6 +56,7 @@ export const ContainerEntity = new EntitySchema<ContainerRow>({
     tareMass: { name: 'tare_mass', type: 'double precision', nullable: true },
     capacity: { type: 'double precision', nullable: true },
     capacityUnit: { name: 'capacity_unit', type: 'varchar', length: 8, nullable: true },
+    material: { type: 'varchar', length: 20, nullable: true },
     openedOn: { name: 'opened_on', type: 'varchar', length: 10, nullable: true },
     expiresOn: { name: 'expires_on', type: 'varchar', length: 10, nullable: true },
     peroxideDueOn: { name: 'peroxide_due_on', type: 'varchar', length: 10, nullable: true },

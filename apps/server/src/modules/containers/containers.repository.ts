@@ -34,6 +34,8 @@ export interface ContainerView extends ContainerRow {
   chemicalHazardStatements: string[];
   chemicalPeroxideClass: PeroxideClass | null;
   chemicalStockUnit: StockUnit;
+  chemicalFlashPointC: number | null;
+  chemicalBoilingPointC: number | null;
   chemicalDefaultPurity: number;
   lotSource: LotSource;
   lotSupplierName: string | null;
@@ -60,6 +62,7 @@ const viewColumns: [string, keyof ContainerView][] = [
   ['c.tare_mass', 'tareMass'],
   ['c.capacity', 'capacity'],
   ['c.capacity_unit', 'capacityUnit'],
+  ['c.material', 'material'],
   ['c.opened_on', 'openedOn'],
   ['c.expires_on', 'expiresOn'],
   ['c.peroxide_due_on', 'peroxideDueOn'],
@@ -78,6 +81,8 @@ const viewColumns: [string, keyof ContainerView][] = [
   ['ch.hazard_statements', 'chemicalHazardStatements'],
   ['ch.peroxide_class', 'chemicalPeroxideClass'],
   ['ch.stock_unit', 'chemicalStockUnit'],
+  ['ch.flash_point_c', 'chemicalFlashPointC'],
+  ['ch.boiling_point_c', 'chemicalBoilingPointC'],
   ['ch.default_purity_percent', 'chemicalDefaultPurity'],
   ['l.source', 'lotSource'],
   ['l.supplier_name', 'lotSupplierName'],

@@ -9,6 +9,7 @@ import {
 } from '@lotwise/chem';
 import {
   amountProblem,
+  fireClassOf,
   formatLabelCode,
   maxStockAmount,
   maxStockAmountText,
@@ -19,6 +20,7 @@ import {
   type Container,
   type ContainerChange,
   type ContainerHold,
+  type ContainerMaterial,
   type ContainerCreateParsed,
   type ContainerDetail,
   type ContainerListQuery,
@@ -53,6 +55,7 @@ import { holdsOfContainers, requireHoldsConfirmed } from '../plans/holds';
 import { segregationService } from '../segregation/segregation.service';
 import type { ContainerRow } from './container.entity';
 import { peroxideDueOf } from './peroxide-dates';
+import { checkPlacement } from './placement';
 import type { ContainerView, LedgerEntryValues } from './containers.repository';
 
 type AdjustmentParsed = z.output<typeof adjustmentSchema>;
@@ -174,6 +177,7 @@ export function presentContainer(
     tareMass: view.tareMass,
     capacity: view.capacity,
     capacityUnit: view.capacityUnit,
+    material: view.material ?? null,
     openedOn: view.openedOn,
     expiresOn: view.expiresOn,
     expired: view.expiresOn !== null && view.expiresOn < today,
@@ -193,6 +197,11 @@ export function presentContainer(
       hazardStatements: view.chemicalHazardStatements,
       peroxideClass: view.chemicalPeroxideClass,
       stockUnit: view.chemicalStockUnit,
+      ...fireClassOf({
+        physicalState: view.chemicalPhysicalState,
+        flashPointC: view.chemicalFlashPointC,
+        boilingPointC: view.chemicalBoilingPointC,
+      }),
     },
     lot: {
       id: view.lotId,
@@ -342,6 +351,8 @@ export async function createContainer(
     tareMass: number | null;
     capacity: number | null;
     capacityUnit: string | null;
+    /** What it is made of; null or left out: not said. */
+    material?: ContainerMaterial | null;
     notes: string;
     expiresOn: string | null;
     /** The member it belongs to; null or left out: the lab's. */
@@ -362,6 +373,7 @@ export async function createContainer(
     tareMass: values.tareMass,
     capacity: values.capacity,
     capacityUnit: values.capacityUnit,
+    material: values.material ?? null,
     openedOn: values.openedOn,
     expiresOn: values.expiresOn,
     peroxideDueOn: null,
@@ -504,12 +516,9 @@ export function containersService(store: Store) {
         const quantity = roundQuantity(
           toStockUnit(input.quantity, input.unit, chemical, 'quantity'),
         );
-        await segregationService(repos).requireStorageConfirmed(
-          { id: null },
-          chemical,
-          location,
-          input.confirm,
-        );
+        const placement = await checkPlacement(repos, { id: null }, chemical, location, {
+          confirmed: input.confirm,
+        });
         const row = await createContainer(repos, {
           lotId: lot.id,
           chemical,
@@ -520,6 +529,7 @@ export function containersService(store: Store) {
           tareMass: input.tareMass,
           capacity: input.capacity,
           capacityUnit: input.capacityUnit,
+          material: input.material,
           notes: input.notes,
           expiresOn: lot.expiresOn,
         });
@@ -535,6 +545,7 @@ export function containersService(store: Store) {
           actor,
           quantity <= epsilon ? { status: 'empty' } : {},
         );
+        await placement.settle([row.id]);
         return { id: row.id, entries: [entry] };
       });
     },
@@ -700,14 +711,10 @@ export function containersService(store: Store) {
           );
         }
         // A bottle poured off onto the shelf its source stands on adds no new conflict.
-        if (location.id !== container.locationId) {
-          await segregationService(repos).requireStorageConfirmed(
-            { id: null },
-            chemical,
-            location,
-            input.confirm,
-          );
-        }
+        const placement = await checkPlacement(repos, { id: null }, chemical, location, {
+          confirmed: input.confirm,
+          storage: location.id !== container.locationId,
+        });
         const today = todayIso();
         const created = await createContainer(repos, {
           lotId: container.lotId,
@@ -719,6 +726,7 @@ export function containersService(store: Store) {
           tareMass: input.tareMass,
           capacity: input.capacity,
           capacityUnit: input.capacityUnit,
+          material: input.material,
           notes: input.note,
           expiresOn: container.expiresOn,
         });
@@ -762,6 +770,7 @@ export function containersService(store: Store) {
           },
           actor,
         );
+        await placement.settle([created.id]);
         return { id: id, entries: [out.entry, into.entry], newContainerId: created.id };
       });
     },
@@ -776,12 +785,9 @@ export function containersService(store: Store) {
             locationId: 'is where the container already is',
           });
         }
-        await segregationService(repos).requireStorageConfirmed(
-          { id: container.id },
-          chemical,
-          to,
-          input.confirm,
-        );
+        const placement = await checkPlacement(repos, { id: container.id }, chemical, to, {
+          confirmed: input.confirm,
+        });
         const from = (await repos.locations.findRow(container.locationId))!;
         const { entry } = await appendEntry(
           repos,
@@ -796,6 +802,7 @@ export function containersService(store: Store) {
           actor,
           { locationId: to.id },
         );
+        await placement.settle([container.id]);
         return { id: id, entries: [entry] };
       });
     },

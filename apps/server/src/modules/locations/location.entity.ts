@@ -1,4 +1,4 @@
-import type { LocationKind, StorageGroup } from '@lotwise/shared';
+import type { FlammableStorageKind, LocationKind, StorageGroup } from '@lotwise/shared';
 import { EntitySchema } from 'typeorm';
 
 /**
@@ -17,6 +17,8 @@ export interface LocationRow {
   depth: number;
   storageGroups: StorageGroup[];
   notes: string;
+  /** An approved flammable-storage cabinet or safety-can place; null: neither. */
+  flammableStorage?: FlammableStorageKind | null;
   createdAt: string;
   updatedAt: string;
 }
@@ -34,6 +36,7 @@ export const LocationEntity = new EntitySchema<LocationRow>({
     depth: { type: 'integer' },
     storageGroups: { name: 'storage_groups', type: 'simple-json' },
     notes: { type: 'text' },
+    flammableStorage: { name: 'flammable_storage', type: 'varchar', length: 12, nullable: true },
     createdAt: { name: 'created_at', type: 'varchar', length: 24 },
     updatedAt: { name: 'updated_at', type: 'varchar', length: 24 },
   },

@@ -50,6 +50,7 @@ export function locationsRepository(manager: EntityManager) {
     const { containers, children } = await counts(rows.map((r) => r.id));
     return rows.map(({ idPath: _idPath, parent: _parent, ...row }) => ({
       ...row,
+      flammableStorage: row.flammableStorage ?? null,
       containerCount: containers.get(row.id) ?? 0,
       childCount: children.get(row.id) ?? 0,
     }));

@@ -6,7 +6,7 @@ import {
   type ReceiveOrderParsed,
   type ReceivingLine,
   type ReceivingView,
-  type StorageConflictWarning,
+  type ConfirmationWarning,
   type User,
 } from '@lotwise/shared';
 import type { Config } from '../../config';
@@ -30,7 +30,8 @@ import { mayMove } from '../orders/order-lifecycle';
 import type { OrderLineRow } from '../orders/order-line.entity';
 import type { OrderShareRow } from '../orders/order-share.entity';
 import type { OrderRecord } from '../orders/orders.repository';
-import { segregationService } from '../segregation/segregation.service';
+import { watchLabAreas } from '../lab-areas/lab-area-confirmations';
+import { refuseUnconfirmed, segregationService } from '../segregation/segregation.service';
 import { closeBlockers, requireOrder } from './money';
 import { planPacks } from './pack-portions';
 
@@ -239,7 +240,11 @@ export function receivingService(store: Store, alerts: AlertsService, config: Co
         const supplierName =
           (await repos.receiving.supplierNames([order.supplierId])).get(order.supplierId) ?? null;
         const segregation = segregationService(repos);
-        const warnings: StorageConflictWarning[] = [];
+        const warnings: ConfirmationWarning[] = [];
+        const labAreas = input.confirm
+          ? null
+          : await watchLabAreas(repos, [defaultLocation, ...placeOf.values()]);
+        const written: number[] = [];
         const checkPlace = async (chemical: ChemicalRow, location: LocationRow) => {
           if (input.confirm) return;
           for (const warning of await segregation.confirmationsFor(
@@ -333,6 +338,7 @@ export function receivingService(store: Store, alerts: AlertsService, config: Co
                 actor,
               )
             ).container;
+            written.push(pack.id);
             if (keeper && !containerOfShare.has(keeper.share.id)) {
               containerOfShare.set(keeper.share.id, packRow.id);
             }
@@ -397,6 +403,7 @@ export function receivingService(store: Store, alerts: AlertsService, config: Co
                 },
                 actor,
               );
+              written.push(created.id);
               made.push({ share: portion.share, container: into.container, location, chemical });
               if (!containerOfShare.has(portion.share.id)) {
                 containerOfShare.set(portion.share.id, created.id);
@@ -413,12 +420,11 @@ export function receivingService(store: Store, alerts: AlertsService, config: Co
             }
           }
         }
-        if (warnings.length > 0) {
-          throw AppError.confirmationRequired(
-            `${warnings.map((w) => w.message).join(' ')} Nothing was received: confirm to store the portions there anyway. ${safetyDeferral}`,
-            warnings,
-          );
-        }
+        if (labAreas) warnings.push(...(await labAreas.warnings(written)));
+        refuseUnconfirmed(
+          warnings,
+          'Nothing was received: confirm to store the portions there anyway.',
+        );
         for (const [shareId, containerId] of containerOfShare) {
           await repos.orders.updateShare(shareId, { containerId, updatedAt: now });
         }

@@ -2,6 +2,7 @@ import { rulesBetween, type IncompatiblePair } from '@lotwise/chem';
 import {
   safetyDeferral,
   storageGroups,
+  type ConfirmationWarning,
   type ConflictContainer,
   type LocationConflict,
   type LocationConflictPair,
@@ -80,7 +81,7 @@ function conflictsAmong(location: LocationRow, here: PlacedContainer[]): Locatio
 }
 
 /** The chemical of a container being placed, with its groups. */
-interface PlacedChemical {
+export interface PlacedChemical {
   id: number;
   name: string;
   storageGroup: StorageGroup;
@@ -110,6 +111,18 @@ function article(noun: string): string {
 /** "Ethanol" in the middle of a sentence reads "ethanol"; "EDTA" stays as it is. */
 function midSentence(name: string): string {
   return /^[A-Z][a-z]/.test(name) ? name[0]!.toLowerCase() + name.slice(1) : name;
+}
+
+/**
+ * Refuses a write (409 `confirmation_required`, nothing written) while there are warnings the
+ * person has not confirmed: every write that asks for a say-so answers through here.
+ */
+export function refuseUnconfirmed(warnings: ConfirmationWarning[], nothingSaved: string): void {
+  if (warnings.length === 0) return;
+  throw AppError.confirmationRequired(
+    `${warnings.map((w) => w.message).join(' ')} ${nothingSaved} ${safetyDeferral}`,
+    warnings,
+  );
 }
 
 export function segregationService(repos: Repositories) {
@@ -236,11 +249,9 @@ export function segregationService(repos: Repositories) {
       confirmed: boolean,
     ): Promise<void> {
       if (confirmed) return;
-      const warnings = await this.confirmationsFor(container, chemical, location);
-      if (warnings.length === 0) return;
-      throw AppError.confirmationRequired(
-        `${warnings.map((w) => w.message).join(' ')} Nothing was saved: confirm to store it there anyway. ${safetyDeferral}`,
-        warnings,
+      refuseUnconfirmed(
+        await this.confirmationsFor(container, chemical, location),
+        'Nothing was saved: confirm to store it there anyway.',
       );
     },
 

@@ -24,6 +24,7 @@ import type { Repositories, Store } from '../../db/store';
 import type { AlertsService } from '../alerts/alerts.service';
 import { claimsOpen, paymentsOpen } from '../orders/order-lifecycle';
 import { shareFigures } from '../receiving/money';
+import { labAreasNearLimits } from '../lab-areas/lab-areas.service';
 import { segregationService } from '../segregation/segregation.service';
 import { stockCheckOf } from '../plans/stock-check';
 import type { TodayPlanRow, TodayShareRow } from './today.repository';
@@ -323,6 +324,10 @@ export function todayService(store: Store, config: Config, deps: { alerts: Alert
       if (may('plans')) sections.plans = await plans(repos, today, weekEnd);
       if (may('myOpenRuns')) sections.myOpenRuns = await myOpenRuns(repos, actor);
       if (may('storageConflicts')) sections.storageConflicts = await storageConflicts(repos);
+      if (may('labAreaLimits')) {
+        const found = await labAreasNearLimits(repos);
+        sections.labAreaLimits = section(found, found.length, '/stock/lab-areas');
+      }
       if (may('failedEmails')) sections.failedEmails = await failedEmails();
       if (may('ordersWaiting')) sections.ordersWaiting = await ordersWaiting(repos, actor);
       return {

@@ -13,14 +13,11 @@ import {
   chemicalCreateSchema,
   chemicalPatchSchema,
   hazardStatementTexts,
-  numberIssueMessage,
   peroxideClasses,
   physicalStates,
   stockUnits,
   storageGroupCodes,
   storageGroups,
-  type Chemical,
-  type ChemicalCreateParsed,
   type PeroxideClass,
 } from '@lotwise/shared';
 import { CircleCheck, Save } from 'lucide-react';
@@ -35,87 +32,24 @@ import { physicalStateLabels } from '../labels';
 import { ListTextInput } from './list-text-input';
 import { MolarMassPreview } from './molar-mass-preview';
 import { PictogramPicker } from './pictogram-picker';
+import {
+  emptyToNull,
+  fieldNames,
+  joinCodes,
+  joinLines,
+  labels,
+  schemaOptions,
+  splitCodes,
+  splitLines,
+  toNumber,
+  type ChemicalFormValues,
+} from './chemical-form-values';
 
-/** Every editable field of a chemical, all present (the form always holds the whole record). */
-export type ChemicalFormValues = ChemicalCreateParsed;
-
-/**
- * A new chemical: the schema's own defaults (parsed with stand-in required values), with
- * name and physical state left for the person to fill in.
- */
-const { physicalState: _stateStandIn, ...schemaDefaults } = chemicalCreateSchema.parse({
-  name: 'new',
-  physicalState: 'solid',
-});
-export const emptyChemical: DefaultValues<ChemicalFormValues> = { ...schemaDefaults, name: '' };
-
-export function chemicalToFormValues(chemical: Chemical): ChemicalFormValues {
-  return {
-    name: chemical.name,
-    synonyms: chemical.synonyms,
-    casNumber: chemical.casNumber,
-    formula: chemical.formula,
-    physicalState: chemical.physicalState,
-    density: chemical.density,
-    bulkDensity: chemical.bulkDensity,
-    defaultPurityPercent: chemical.defaultPurityPercent,
-    ghsPictograms: chemical.ghsPictograms,
-    hazardStatements: chemical.hazardStatements,
-    storageGroup: chemical.storageGroup,
-    peroxideClass: chemical.peroxideClass,
-    stockUnit: chemical.stockUnit,
-    reorderPoint: chemical.reorderPoint,
-    reorderQuantity: chemical.reorderQuantity,
-    restricted: chemical.restricted,
-    notes: chemical.notes,
-  };
-}
-
-const labels: Record<keyof ChemicalFormValues, string> = {
-  name: 'Name',
-  synonyms: 'Synonyms',
-  casNumber: 'CAS RN',
-  formula: 'Formula',
-  physicalState: 'Physical state',
-  density: 'Density',
-  bulkDensity: 'Bulk density',
-  defaultPurityPercent: 'Default purity',
-  ghsPictograms: 'Pictograms',
-  hazardStatements: 'Hazard statements',
-  storageGroup: 'Storage group',
-  peroxideClass: 'Peroxide-former class',
-  stockUnit: 'Stock unit',
-  reorderPoint: 'Reorder point',
-  reorderQuantity: 'Reorder quantity',
-  restricted: 'Restricted',
-  notes: 'Notes',
-};
-const fieldNames = Object.keys(labels) as Array<keyof ChemicalFormValues>;
-
-// Schema messages stay as written; numbers get the one wording of `@lotwise/shared`.
-const schemaOptions = { error: numberIssueMessage };
-
-const emptyToNull = (value: unknown) =>
-  typeof value === 'string' && value.trim() === '' ? null : value;
-const toNumber = (value: unknown) => {
-  if (value === null || value === undefined) return null;
-  if (typeof value === 'number') return value;
-  const text = String(value).trim().replace(',', '.');
-  return text === '' ? null : Number(text);
-};
-
-const splitLines = (text: string) =>
-  text
-    .split('\n')
-    .map((line) => line.trim())
-    .filter(Boolean);
-const joinLines = (items: readonly string[]) => items.join('\n');
-const splitCodes = (text: string) =>
-  text
-    .split(/[\s,;]+/)
-    .filter(Boolean)
-    .map((code) => code.replace(/^h/, 'H'));
-const joinCodes = (items: readonly string[]) => items.join(', ');
+export {
+  chemicalToFormValues,
+  emptyChemical,
+  type ChemicalFormValues,
+} from './chemical-form-values';
 
 interface ChemicalFormProps {
   mode: 'create' | 'edit';

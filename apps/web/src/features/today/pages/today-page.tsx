@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import {
   CalendarClock,
   ClipboardList,
+  Flame,
   FlaskRound,
   MailWarning,
   PackageMinus,
@@ -63,6 +64,12 @@ const sectionTexts: Record<TodaySectionKey, SectionText> = {
     icon: <ShieldAlert aria-hidden="true" />,
     allWell: () => 'Every place holds only what may be stored together.',
     moreLabel: 'Storage check',
+  },
+  labAreaLimits: {
+    title: 'Lab areas near a flammable-liquid limit',
+    icon: <Flame aria-hidden="true" />,
+    allWell: () => 'Every lab area holds well within its flammable-liquid limits.',
+    moreLabel: 'All lab areas',
   },
   failedEmails: {
     title: 'E-mails not sent',
