@@ -359,9 +359,7 @@ describe('pickups and areas', () => {
       ),
     );
     expect(again.state).toBe('over');
-    expect(again.citation).toBe(
-      'US EPA, 40 CFR 262.15 (2016), satellite accumulation, (a)(1) and (a)(6)',
-    );
+    expect(again.citation).toBe('US EPA, 40 CFR, §262.15');
     expect(again.reminder).toMatch(/authority having jurisdiction/);
     // 55 gal = 208.2 L
     expect(again.hazardous.limitLitres).toBeCloseTo(208.19765, 4);
@@ -384,5 +382,41 @@ describe('pickups and areas', () => {
     expect(onHand.ignitableLitresByClass).toEqual({ IB: 1.5 });
     expect(onHand.containers[0]!.liquidClassNote).toMatch(/Class IB/);
     wasteContainerSchema.parse(onHand.containers[0]);
+  });
+
+  it('when a lab area holds ignitable waste, then it counts toward the flammable-liquid totals under its most severe class', async () => {
+    const room = await make.location();
+    const shelf = await make.location({ parentId: room.id });
+    const area = await post(
+      '/api/lab-areas',
+      { locationId: room.id, unitClass: 'B', floorArea: 50, floorAreaUnit: 'm2' },
+      manager,
+    );
+    expect(area.status).toBe(201);
+    // Ethanol: flash point 13 °C, boiling point 78 °C (CRC Handbook, from memory) -> Class IB
+    const ethanol = await stock.chemical({
+      storageGroup: 'flammable',
+      flashPointC: 13,
+      boilingPointC: 78,
+    } as object);
+    const bin = await wasteContainer(shelf.id);
+    await post(`/api/waste-containers/${bin.id}/additions`, {
+      description: 'Washings',
+      quantity: 2,
+      unit: 'L',
+      chemicalIds: [ethanol.id],
+    }).expect(201);
+    const detail = (await get(`/api/lab-areas/${area.body.id}`).expect(200)).body;
+    expect(detail.countedWaste).toEqual([
+      expect.objectContaining({
+        wasteContainerId: bin.id,
+        liquidClass: 'IB',
+        litres: 2,
+        liquidClassNote: null,
+      }),
+    ]);
+    expect(
+      detail.byClass.find((c: { liquidClass: string }) => c.liquidClass === 'IB').totalLitres,
+    ).toBeCloseTo(2, 9);
   });
 });
