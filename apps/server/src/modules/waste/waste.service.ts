@@ -22,6 +22,8 @@ import { nowIso } from '../../db/sql';
 import { rulesBetween } from '@lotwise/chem';
 import { requireRuleSet } from '../rule-sets/rule-sets.service';
 import { hazardGroupsOf } from '../segregation/segregation.service';
+import type { AlertsService } from '../alerts/alerts.service';
+import { wasteAlertMessages } from './waste-alerts';
 import { wasteAreas } from './waste-areas';
 import {
   addWaste,
@@ -130,7 +132,17 @@ function presentPickup(
 }
 
 /** Waste containers, their additions, accumulation areas and pickups. */
-export function wasteService(store: Store) {
+export function wasteService(
+  store: Store,
+  options: { alerts?: Pick<AlertsService, 'notify'> } = {},
+) {
+  /** Sends the waste alerts of the moment with the write that changed them. */
+  async function alertAfter(repos: Repositories) {
+    if (!options.alerts) return;
+    for (const message of await wasteAlertMessages(repos))
+      await options.alerts.notify(repos, message);
+  }
+
   return {
     /** Open containers (or of `status`); `compatibleWith` leaves out those that conflict. */
     async list(
@@ -222,9 +234,10 @@ export function wasteService(store: Store) {
       actor: User,
     ): Promise<WasteContainerDetail> {
       const { confirm, ...rest } = input;
-      await store.transaction((repos) =>
-        addWaste(repos, { ...rest, wasteContainerId: id }, {}, actor, { confirm }),
-      );
+      await store.transaction(async (repos) => {
+        await addWaste(repos, { ...rest, wasteContainerId: id }, {}, actor, { confirm });
+        await alertAfter(repos);
+      });
       return wasteContainerDetail(store.repos, id);
     },
 

@@ -10,6 +10,7 @@ import {
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { signedIn, stockFactory } from '../../test/factories';
+import { withPlaceholders } from '../../db/sql';
 import { testContext } from '../../test/harness';
 import { preparationFactory } from '../../test/preparations';
 import { wasteOnHandIn } from './waste.service';
@@ -418,5 +419,56 @@ describe('pickups and areas', () => {
     expect(
       detail.byClass.find((c: { liquidClass: string }) => c.liquidClass === 'IB').totalLitres,
     ).toBeCloseTo(2, 9);
+  });
+
+  it('when a container takes its area over the limit, then exactly one alert per manager is queued, and later evaluations queue no more', async () => {
+    const admin = (await signedIn('admin')).cookie;
+    const shelf = await make.location();
+    await request(app())
+      .put(`/api/waste-areas/${shelf.id}`)
+      .set('Cookie', manager)
+      .send({})
+      .expect(200);
+    const acute = await wasteContainer(shelf.id, {
+      title: 'P-listed residues',
+      acutelyHazardous: true,
+      characteristics: ['toxic'],
+      capacity: 4,
+    });
+    const key = `waste-near-limit:area:${shelf.id}:over`;
+    const sent = async () => {
+      const { dataSource } = testContext();
+      const rows: { n: number; people: number }[] = await dataSource.query(
+        withPlaceholders(
+          dataSource,
+          'SELECT COUNT(*) AS n, COUNT(DISTINCT recipient_email) AS people FROM outbox WHERE dedup_key = ?',
+        ),
+        [key],
+      );
+      return { n: Number(rows[0]!.n), people: Number(rows[0]!.people) };
+    };
+    await post(`/api/waste-containers/${acute.id}/additions`, {
+      description: 'Residue',
+      quantity: 0.5,
+      unit: 'L',
+    }).expect(201);
+    expect((await sent()).n).toBe(0);
+    // 1.2 L of acutely hazardous waste: over 1 quart (US EPA 40 CFR 262.15(a)(1))
+    await post(`/api/waste-containers/${acute.id}/additions`, {
+      description: 'Residue',
+      quantity: 0.7,
+      unit: 'L',
+    }).expect(201);
+    const first = await sent();
+    expect(first.n).toBeGreaterThan(0);
+    expect(first.n).toBe(first.people);
+    await post(`/api/waste-containers/${acute.id}/additions`, {
+      description: 'Residue',
+      quantity: 0.1,
+      unit: 'L',
+    }).expect(201);
+    await request(app()).post('/api/alerts/evaluate').set('Cookie', admin).expect(200);
+    await request(app()).post('/api/alerts/evaluate').set('Cookie', admin).expect(200);
+    expect(await sent()).toEqual(first);
   });
 });
