@@ -6,6 +6,7 @@ import { nowIso } from '../sql';
 import { openStore } from '../repositories';
 import { demoChemicals } from './demo-chemicals';
 import { seedDemoStock } from './demo-stock';
+import { seedDemoWaste } from './demo-waste';
 import { preparedOnlyChemicals, seedDemoPreparations } from './demo-preparations';
 import { seedDemoSuppliers } from './purchasing-suppliers';
 
@@ -64,6 +65,12 @@ export async function seedDemo(
       people,
     );
     await seedDemoPreparations(repos, inserted, people, places);
+    await seedDemoWaste(
+      repos,
+      new Map(inserted.map((chemical) => [chemical.name, chemical.id])),
+      people,
+      places.get('r102')!.id,
+    );
     await seedDemoSuppliers(repos, inserted, currency);
     return true;
   });
