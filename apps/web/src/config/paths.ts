@@ -18,6 +18,9 @@ export const paths = {
   stockLocation: (id: number | string = ':id') => `/stock/locations/${id}`,
   stockStocktake: (id: number | string = ':id') => `/stock/locations/${id}/stocktake`,
   stockSegregation: '/stock/segregation',
+  /** Waste containers by accumulation area, and the pickups. */
+  stockWaste: '/stock/waste',
+  stockWasteContainer: (id: number | string = ':id') => `/stock/waste/${id}`,
   stockReceive: '/stock/receive',
   stockImport: '/stock/import',
   /** `?ids=1,2,3` or `?labelCodes=LW-00001,LW-00002`. */

@@ -1,5 +1,14 @@
 import { Outlet } from 'react-router';
-import { Boxes, FileUp, LayoutList, MapPin, PackagePlus, ShieldAlert, Tags } from 'lucide-react';
+import {
+  Boxes,
+  FileUp,
+  LayoutList,
+  MapPin,
+  PackagePlus,
+  ShieldAlert,
+  Tags,
+  Trash2,
+} from 'lucide-react';
 import { can, type Permission } from '@lotwise/shared';
 import { useCurrentUser } from '../../../lib/auth';
 import { SectionTabs, type SectionTab } from '../../../components/ui/section-tabs';
@@ -16,6 +25,7 @@ const sections: Section[] = [
   { to: paths.stockContainers, label: 'Containers', icon: Boxes },
   { to: paths.stockLocations, label: 'Locations', icon: MapPin },
   { to: paths.stockSegregation, label: 'Storage conflicts', icon: ShieldAlert },
+  { to: paths.stockWaste, label: 'Waste', icon: Trash2 },
   { to: paths.stockReceive, label: 'Receive', icon: PackagePlus, permission: 'stock.write' },
   { to: paths.stockImport, label: 'Import', icon: FileUp, permission: 'stock.write' },
   { to: paths.stockLabels, label: 'Labels', icon: Tags },
