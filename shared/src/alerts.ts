@@ -17,6 +17,8 @@ export const alertKinds = [
   'order-cancelled',
   'order-portion-ready',
   'order-payment',
+  'waste-near-limit',
+  'waste-time',
 ] as const;
 export const alertKindSchema = z.enum(alertKinds, {
   message: `must be one of: ${alertKinds.join(', ')}`,
@@ -35,6 +37,8 @@ export const alertKindLabels: Record<AlertKind, string> = {
   'order-cancelled': 'A shared order was cancelled or refunded',
   'order-portion-ready': 'Your portion of an order is ready',
   'order-payment': 'A payment for your share was recorded',
+  'waste-near-limit': 'Waste near or over its limit',
+  'waste-time': 'Waste near or past its accumulation time',
 };
 
 export const alertSeverities = ['info', 'warning', 'critical'] as const;

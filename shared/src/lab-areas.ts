@@ -221,9 +221,24 @@ export const labAreaStoragePlaceSchema = z.object({
 export type LabAreaStoragePlace = z.infer<typeof labAreaStoragePlaceSchema>;
 
 /** `GET /api/lab-areas/:id`: the limits with their working and what is counted. */
+/** Ignitable liquid waste counted toward the totals (when the rule set counts it). */
+export const labAreaCountedWasteSchema = z.object({
+  wasteContainerId: z.number().int(),
+  labelCode: z.string(),
+  title: z.string(),
+  locationPath: z.string(),
+  liquidClass: liquidClassSchema,
+  /** Set when the class is assumed (ignitable, no flash point known: Class IB). */
+  liquidClassNote: z.string().nullable(),
+  litres: z.number(),
+  inStorage: z.boolean(),
+});
+export type LabAreaCountedWaste = z.infer<typeof labAreaCountedWasteSchema>;
+
 export const labAreaDetailSchema = labAreaSchema.extend({
   byClass: z.array(labAreaClassTotalSchema),
   containers: z.array(labAreaCountedContainerSchema),
+  countedWaste: z.array(labAreaCountedWasteSchema),
   notCounted: z.array(labAreaNotCountedSchema),
   containerSizeBreaches: z.array(labAreaContainerSizeBreachSchema),
   storagePlaces: z.array(labAreaStoragePlaceSchema),

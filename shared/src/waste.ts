@@ -188,7 +188,7 @@ export type WasteContainerListQuery = z.infer<typeof wasteContainerListQuerySche
 /** `PUT /api/waste-areas/:locationId`: mark a place as a waste accumulation area. */
 export const wasteAreaPutSchema = z
   .object({
-    /** A `waste-accumulation` rule set; null: the built-in US EPA 40 CFR 262.15 figures. */
+    /** A `waste-accumulation` rule set; null: the built-in one (US EPA, 40 CFR §262.15). */
     ruleSetId: z.number().int().positive().nullable().default(null),
   })
   .strict();
@@ -197,8 +197,9 @@ export const wasteAreaPutSchema = z
 export const wasteAreaSchema = z.object({
   locationId: z.number().int(),
   locationPath: z.string(),
-  ruleSetId: z.number().int().nullable(),
-  /** "US EPA, 40 CFR 262.15 (2016), (a)(1)": cited beside every figure. */
+  ruleSetId: z.number().int(),
+  ruleSetName: z.string(),
+  /** "US EPA, 40 CFR, §262.15": cited beside every figure. */
   citation: z.string(),
   hazardous: z.object({ litres: z.number(), limitLitres: z.number(), fraction: z.number() }),
   acutelyHazardous: z.object({ litres: z.number(), limitLitres: z.number(), fraction: z.number() }),

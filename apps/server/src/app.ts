@@ -85,6 +85,7 @@ import { uploadsService } from './modules/uploads/uploads.service';
 import { userCacheOf } from './modules/users/user-cache';
 import { userRoutes } from './modules/users/users.routes';
 import { wasteRoutes } from './modules/waste/waste.routes';
+import { wasteAlertMessages } from './modules/waste/waste-alerts';
 import { wasteService } from './modules/waste/waste.service';
 import { usersService } from './modules/users/users.service';
 import { watchListRoutes } from './modules/watch-lists/watch-lists.routes';
@@ -183,6 +184,7 @@ export function createApp({
       // Members hear about the chemicals they claimed in a shared order as about those they use.
       claimedChemicals: (userIds) => store.repos.orders.claimedChemicals(userIds, claimingStatuses),
     },
+    extraMessages: wasteAlertMessages,
   });
   // A transaction that changed the ledger notes the chemicals before it commits; the alert
   // rules run for them after the commit, outside the write.
@@ -192,7 +194,7 @@ export function createApp({
   app.locals[ledgerNotesKey] = ledgerNotes;
   // Card payments; the orders module calls payments.refundPaidShares when an order is cancelled.
   const payments = paymentsService(store, config, { alerts, logger });
-  const waste = wasteService(store);
+  const waste = wasteService(store, { alerts });
   const routes: ApiRoute[] = [
     ...healthRoutes(store, logger, readiness, databaseFileCheck(dataSource)),
     ...settingsRoutes(config),

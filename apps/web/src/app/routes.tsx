@@ -91,6 +91,16 @@ const stockRoutes: RouteObject[] = [
     'stock.write',
   ),
   lazyPage(
+    paths.stockWaste,
+    async () => (await import('../features/waste/pages/waste-page')).WastePage,
+    'stock.read',
+  ),
+  lazyPage(
+    paths.stockWasteContainer(),
+    async () => (await import('../features/waste/pages/waste-container-page')).WasteContainerPage,
+    'stock.read',
+  ),
+  lazyPage(
     paths.stockReceive,
     async () => (await import('../features/stock/pages/receive-page')).ReceivePage,
     'stock.write',

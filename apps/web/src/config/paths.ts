@@ -29,6 +29,9 @@ export const paths = {
   stockRuleSetNew: '/stock/rule-sets/new',
   stockRuleSet: (id: number | string = ':id') => `/stock/rule-sets/${id}`,
   stockRuleSetEdit: (id: number | string = ':id') => `/stock/rule-sets/${id}/edit`,
+  /** Waste containers by accumulation area, and the pickups. */
+  stockWaste: '/stock/waste',
+  stockWasteContainer: (id: number | string = ':id') => `/stock/waste/${id}`,
   stockReceive: '/stock/receive',
   stockImport: '/stock/import',
   /** `?ids=1,2,3` or `?labelCodes=LW-00001,LW-00002`. */

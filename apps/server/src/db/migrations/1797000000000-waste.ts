@@ -46,7 +46,8 @@ function fk(
  * Chemical waste: the pickups that close waste containers (`waste_pickups`), the containers
  * (`waste_containers`, label codes `LW-W…` numbered apart from stock labels), what went into
  * them (`waste_additions`, each from a run, a ledger entry or by hand, with its chemicals in
- * `waste_addition_chemicals`) and the places marked as accumulation areas (`waste_areas`).
+ * `waste_addition_chemicals`) and the places marked as accumulation areas (`waste_areas`, each with its waste-accumulation
+ * rule set).
  */
 export class Waste1797000000000 implements MigrationInterface {
   name = 'Waste1797000000000';
@@ -159,16 +160,14 @@ export class Waste1797000000000 implements MigrationInterface {
     await queryRunner.createTable(
       new Table({
         name: 'waste_areas',
-        columns: [
-          id,
-          integer('location_id'),
-          // A waste-accumulation rule set; null: the built-in US EPA figures.
-          integer('rule_set_id', true),
-          varchar('created_at', 24),
+        columns: [id, integer('location_id'), integer('rule_set_id'), varchar('created_at', 24)],
+        foreignKeys: [
+          fk('waste_areas_location_fk', 'location_id', 'locations', 'RESTRICT'),
+          fk('waste_areas_rule_set_fk', 'rule_set_id', 'rule_sets', 'RESTRICT'),
         ],
-        foreignKeys: [fk('waste_areas_location_fk', 'location_id', 'locations', 'RESTRICT')],
         indices: [
           { name: 'waste_areas_location_unique', columnNames: ['location_id'], isUnique: true },
+          { name: 'waste_areas_rule_set_idx', columnNames: ['rule_set_id'] },
         ],
       }),
     );

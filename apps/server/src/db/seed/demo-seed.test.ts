@@ -179,6 +179,32 @@ describe('demo seed', () => {
     expect(nitrite.extraHazardGroups).toEqual(['gas-with-acid']);
   });
 
+  it('when seeded, then the waste station is an accumulation area with a run-fed solvent container, a nearly full acid container and one past pickup', async () => {
+    const app = createApp({ dataSource, config });
+    const login = await request(app)
+      .post('/api/auth/login')
+      .send({ email: 'instructor@example.test', password: demoPassword })
+      .expect(200);
+    const cookie = String([login.headers['set-cookie']].flat()[0]).split(';')[0]!;
+    const get = (path: string) => request(app).get(path).set('Cookie', cookie).expect(200);
+
+    const [area] = (await get('/api/waste-areas')).body;
+    expect(area.locationPath).toMatch(/Waste station$/);
+    expect(area.citation).toMatch(/40 CFR/);
+    expect(area.containers.map((c: { title: string }) => c.title)).toEqual([
+      'Halogen-free organic solvents',
+      'Aqueous acid waste',
+    ]);
+    const acids = area.containers[1];
+    expect(acids.fillFraction).toBeGreaterThanOrEqual(0.9);
+    const organic = (await get(`/api/waste-containers/${area.containers[0].id}`)).body;
+    expect(organic.additions.length).toBe(4);
+    expect(organic.additions.every((a: { runId: number | null }) => a.runId !== null)).toBe(true);
+    const pickups = (await get('/api/waste-pickups')).body;
+    expect(pickups).toHaveLength(1);
+    expect(pickups[0].containers).toHaveLength(1);
+  });
+
   it('when seeded, then four procedures (two chained), 11 recorded runs with realistic yields and a make-versus-buy shortfall exist', async () => {
     const app = createApp({ dataSource, config });
     const login = await request(app)

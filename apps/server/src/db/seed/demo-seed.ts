@@ -7,6 +7,7 @@ import { openStore } from '../repositories';
 import { demoChemicals } from './demo-chemicals';
 import { seedDemoLabAreas } from './demo-lab-areas';
 import { seedDemoStock } from './demo-stock';
+import { seedDemoWaste } from './demo-waste';
 import { preparedOnlyChemicals, seedDemoPreparations } from './demo-preparations';
 import { seedDemoSuppliers } from './purchasing-suppliers';
 
@@ -68,6 +69,12 @@ export async function seedDemo(
       people,
     );
     await seedDemoPreparations(repos, inserted, people, places);
+    await seedDemoWaste(
+      repos,
+      new Map(inserted.map((chemical) => [chemical.name, chemical.id])),
+      people,
+      places.get('r102')!.id,
+    );
     await seedDemoSuppliers(repos, inserted, currency);
     // The demo lab follows the EU explosives-precursor lists: acetone (Annex II) and sulfuric
     // acid 98 % (Annex I, above 15 %) are watched, with their history of draws.

@@ -71,6 +71,11 @@ export interface AlertsServiceOptions {
   /** Where lapsing reservations come from; by default the plans' reservations table. */
   reservations?: ReservationSource;
   claims?: ClaimSource;
+  /**
+   * Messages of other capabilities' rules, sent by every evaluation (e.g. waste near its
+   * limits); each with a `dedupKey` that names its condition, so it is sent once.
+   */
+  extraMessages?: (repos: Repositories, now: Date) => Promise<NotifyInput[]>;
 }
 
 /** How far ahead the reservation rule looks. */
@@ -266,6 +271,12 @@ export function alertsService(store: Store, config: Config, options: AlertsServi
     await repos.alerts.takeRulesTurn();
     const conditions = await collect(repos, now, chemicalIds);
     const result = { conditions: conditions.length, queued: 0, duplicates: 0 };
+    for (const message of options.extraMessages ? await options.extraMessages(repos, now) : []) {
+      const sent = await notify(repos, message, now);
+      result.conditions++;
+      result.queued += sent.queued;
+      result.duplicates += sent.duplicates;
+    }
     if (conditions.length === 0) return result;
     const topics = mailTopics(conditions);
     const everyone = await people(repos);
@@ -299,6 +310,52 @@ export function alertsService(store: Store, config: Config, options: AlertsServi
     return result;
   }
 
+  /** The general message API; see `NotifyInput`. Answers how many were queued. */
+  async function notify(
+    repos: Repositories,
+    input: NotifyInput,
+    now = new Date(),
+  ): Promise<{ queued: number; duplicates: number }> {
+    const everyone = await people(repos);
+    const chosen = input.recipients
+      ? everyone.filter((p) => input.recipients!.includes(p.id))
+      : everyone.filter((p) =>
+          input.audience === 'managers'
+            ? fullScopeRoles.includes(p.role)
+            : input.audience === 'members'
+              ? p.role !== 'viewer'
+              : input.audience === 'everyone',
+        );
+    const link = input.link
+      ? /^https?:\/\//.test(input.link)
+        ? input.link
+        : `${config.publicUrl}${input.link.startsWith('/') ? '' : '/'}${input.link}`
+      : null;
+    const html = input.html ?? textToHtml(input.subject, input.text, link);
+    const text = link ? `${input.text}\n\nOpen in Lotwise: ${link}` : input.text;
+    const result = { queued: 0, duplicates: 0 };
+    for (const person of chosen) {
+      if (!person.kinds.has(input.kind)) continue;
+      const written = await queue(
+        repos,
+        person,
+        {
+          kind: input.kind,
+          subject: input.subject,
+          text,
+          html,
+          link,
+          dedupKey: input.dedupKey ?? null,
+        },
+        now,
+      );
+      if (written) result.queued++;
+      else result.duplicates++;
+    }
+    queued(result.queued);
+    return result;
+  }
+
   return {
     evaluate,
 
@@ -308,50 +365,7 @@ export function alertsService(store: Store, config: Config, options: AlertsServi
     },
 
     /** The general message API; see `NotifyInput`. Answers how many were queued. */
-    async notify(
-      repos: Repositories,
-      input: NotifyInput,
-      now = new Date(),
-    ): Promise<{ queued: number; duplicates: number }> {
-      const everyone = await people(repos);
-      const chosen = input.recipients
-        ? everyone.filter((p) => input.recipients!.includes(p.id))
-        : everyone.filter((p) =>
-            input.audience === 'managers'
-              ? fullScopeRoles.includes(p.role)
-              : input.audience === 'members'
-                ? p.role !== 'viewer'
-                : input.audience === 'everyone',
-          );
-      const link = input.link
-        ? /^https?:\/\//.test(input.link)
-          ? input.link
-          : `${config.publicUrl}${input.link.startsWith('/') ? '' : '/'}${input.link}`
-        : null;
-      const html = input.html ?? textToHtml(input.subject, input.text, link);
-      const text = link ? `${input.text}\n\nOpen in Lotwise: ${link}` : input.text;
-      const result = { queued: 0, duplicates: 0 };
-      for (const person of chosen) {
-        if (!person.kinds.has(input.kind)) continue;
-        const written = await queue(
-          repos,
-          person,
-          {
-            kind: input.kind,
-            subject: input.subject,
-            text,
-            html,
-            link,
-            dedupKey: input.dedupKey ?? null,
-          },
-          now,
-        );
-        if (written) result.queued++;
-        else result.duplicates++;
-      }
-      queued(result.queued);
-      return result;
-    },
+    notify,
 
     /** Current conditions, computed live. */
     async current(query: AlertListQuery, now = new Date()): Promise<AlertList> {

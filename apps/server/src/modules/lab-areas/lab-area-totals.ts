@@ -20,6 +20,7 @@ import {
   type FlammableLimitsData,
   type LabArea,
   type LabAreaContainerSizeBreach,
+  type LabAreaCountedWaste,
   type LabAreaCountedContainer,
   type LabAreaDetail,
   type LabAreaNotCounted,
@@ -28,6 +29,7 @@ import {
 import { AppError } from '../../lib/app-error';
 import type { Repositories } from '../../db/store';
 import type { RuleSetRow } from '../rule-sets/rule-set.entity';
+import { ignitableWasteUnder, type IgnitableWaste } from '../waste/waste.service';
 import type { AreaContainer, LabAreaPlaced, StoragePlace } from './lab-areas.repository';
 
 /** GHS hazard statements of flammable liquids (H224–H226) and combustible ones (H227). */
@@ -42,6 +44,8 @@ export interface AreaData {
   ruleSets: Map<number, RuleSetRow>;
   storagePlaces: StoragePlace[];
   containers: AreaContainer[];
+  /** Ignitable liquid waste under the areas (counted when the rule set says so). */
+  ignitableWaste: IgnitableWaste[];
 }
 
 /**
@@ -59,12 +63,19 @@ export async function loadAreaData(repos: Repositories, areas: LabAreaPlaced[]):
     ),
   ];
   const idPaths = areas.map((a) => a.idPath);
-  const [sets, storagePlaces, containers] = [
+  const [sets, storagePlaces, containers, ignitableWaste] = [
     await repos.ruleSets.rowsByIds(setIds),
     await repos.labAreas.storagePlaces(idPaths),
     await repos.labAreas.liquidContainers(idPaths),
+    await ignitableWasteUnder(repos, idPaths),
   ];
-  return { areas, ruleSets: new Map(sets.map((s) => [s.id, s])), storagePlaces, containers };
+  return {
+    areas,
+    ruleSets: new Map(sets.map((s) => [s.id, s])),
+    storagePlaces,
+    containers,
+    ignitableWaste,
+  };
 }
 
 function litresOfCapacity(c: AreaContainer): number | null {
@@ -216,9 +227,29 @@ export function totalsOf(
     }
   }
   for (const v of extra.get(area.id) ?? []) volumes.push(v);
+  const data45 = set.data as unknown as FlammableLimitsData;
+  // Waste ignitable liquids count toward the totals when the set says so (NFPA 45 does).
+  const countedWaste: LabAreaCountedWaste[] = [];
+  for (const w of data45.countsIgnitableWaste ? data.ignitableWaste : []) {
+    if (!w.idPath.startsWith(area.idPath)) continue;
+    const storage = storageOf(w.idPath);
+    volumes.push({ liquidClass: w.liquidClass, litres: w.litres, inStorage: storage !== null });
+    if (storage && countsTowardCombinedLimit(w.liquidClass)) {
+      heldIn.set(storage.id, (heldIn.get(storage.id) ?? 0) + w.litres);
+    }
+    countedWaste.push({
+      wasteContainerId: w.wasteContainerId,
+      labelCode: w.labelCode,
+      title: w.title,
+      locationPath: w.locationPath,
+      liquidClass: w.liquidClass,
+      liquidClassNote: w.liquidClassNote,
+      litres: w.litres,
+      inStorage: storage !== null,
+    });
+  }
 
   const totals = flammableTotals(volumes, limits, labAreaNearFraction);
-  const data45 = set.data as unknown as FlammableLimitsData;
   const storagePlaces: LabAreaStoragePlace[] = places.map((p) => ({
     locationId: p.id,
     path: p.path,
@@ -267,6 +298,7 @@ export function totalsOf(
       ...area_,
       byClass: totals.byClass,
       containers: counted,
+      countedWaste,
       notCounted,
       containerSizeBreaches: breaches,
       storagePlaces,

@@ -24,7 +24,7 @@ export function ruleSetsRepository(manager: EntityManager) {
     async builtIn(kind: RuleSetKind): Promise<RuleSetRow | null> {
       return repo.findOne({ where: { kind, builtIn: true }, order: { id: 'ASC' } });
     },
-    /** Names of the places marked as lab areas that use the set. */
+    /** Names of the places marked as lab areas or waste accumulation areas that use the set. */
     async usedBy(id: number): Promise<string[]> {
       const rows: { path: string }[] = await manager
         .createQueryBuilder()
@@ -34,7 +34,15 @@ export function ruleSetsRepository(manager: EntityManager) {
         .where('a.flammable_rule_set_id = :id OR a.container_size_rule_set_id = :id', { id })
         .orderBy('l.path', 'ASC')
         .getRawMany();
-      return rows.map((r) => r.path);
+      const waste: { path: string }[] = await manager
+        .createQueryBuilder()
+        .select('l.path', 'path')
+        .from('waste_areas', 'w')
+        .innerJoin('locations', 'l', 'l.id = w.location_id')
+        .where('w.rule_set_id = :id', { id })
+        .orderBy('l.path', 'ASC')
+        .getRawMany();
+      return [...rows, ...waste].map((r) => r.path);
     },
     async insert(values: RuleSetValues): Promise<number> {
       const saved = await repo.save({ ...values });

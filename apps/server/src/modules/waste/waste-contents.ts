@@ -29,18 +29,6 @@ import type { WasteAdditionRow, WasteContainerRow } from './waste.entity';
  * the containers as pages show them (fill, age, liquid class, hazards of the contents).
  */
 
-/** The flash and boiling points of a chemical, when the chemical records them. */
-function flammabilityOf(chemical: ChemicalRow): {
-  flashPointC: number | null;
-  boilingPointC: number | null;
-} {
-  const facts = chemical as ChemicalRow & {
-    flashPointC?: number | null;
-    boilingPointC?: number | null;
-  };
-  return { flashPointC: facts.flashPointC ?? null, boilingPointC: facts.boilingPointC ?? null };
-}
-
 /**
  * The NFPA 30 class a waste counts under: the most severe class among its chemicals. An
  * ignitable waste whose chemicals give no class counts as Class IB, a conservative choice
@@ -52,8 +40,7 @@ export function wasteLiquidClass(
 ): { liquidClass: LiquidClass | null; note: string | null } {
   let worst: LiquidClass | null = null;
   for (const chemical of chemicals) {
-    const { flashPointC, boilingPointC } = flammabilityOf(chemical);
-    const found = liquidClassOf(flashPointC, boilingPointC);
+    const found = liquidClassOf(chemical.flashPointC, chemical.boilingPointC);
     if (
       found &&
       (worst === null || LIQUID_CLASSES.indexOf(found) < LIQUID_CLASSES.indexOf(worst))

@@ -200,9 +200,10 @@ export const WastePickupEntity = new EntitySchema<WastePickupRow>({
 export interface WasteAreaRow {
   id: number;
   locationId: number;
-  ruleSetId: number | null;
+  ruleSetId: number;
   createdAt: string;
   location?: unknown;
+  ruleSet?: unknown;
 }
 
 export const WasteAreaEntity = new EntitySchema<WasteAreaRow>({
@@ -211,13 +212,17 @@ export const WasteAreaEntity = new EntitySchema<WasteAreaRow>({
   columns: {
     id: { type: 'integer', primary: true, generated: 'increment' },
     locationId: { name: 'location_id', type: 'integer' },
-    ruleSetId: { name: 'rule_set_id', type: 'integer', nullable: true },
+    ruleSetId: { name: 'rule_set_id', type: 'integer' },
     createdAt: { name: 'created_at', type: 'varchar', length: 24 },
   },
   relations: {
     location: foreignKey('Location', 'location_id', 'waste_areas_location_fk', 'RESTRICT'),
+    ruleSet: foreignKey('RuleSet', 'rule_set_id', 'waste_areas_rule_set_fk', 'RESTRICT'),
   },
-  indices: [{ name: 'waste_areas_location_unique', columns: ['locationId'], unique: true }],
+  indices: [
+    { name: 'waste_areas_location_unique', columns: ['locationId'], unique: true },
+    { name: 'waste_areas_rule_set_idx', columns: ['ruleSetId'] },
+  ],
 });
 
 export const wasteEntities = [

@@ -57,6 +57,25 @@ export function wasteRepository(manager: EntityManager) {
       }
       return qb.orderBy('w.label_number', 'ASC').getMany();
     },
+    /** Open and full waste containers anywhere under the places of `idPaths` (`/1/4/`). */
+    async openInSubtrees(idPaths: string[]): Promise<(WasteContainerRow & { idPath: string })[]> {
+      if (idPaths.length === 0) return [];
+      const rows = await containers
+        .createQueryBuilder('w')
+        .innerJoin('locations', 'l', 'l.id = w.location_id')
+        .addSelect('l.id_path', 'idPath')
+        .where("w.status IN ('open', 'full')")
+        .andWhere(
+          `(${idPaths.map((_, i) => `l.id_path LIKE :p${i}`).join(' OR ')})`,
+          Object.fromEntries(idPaths.map((p, i) => [`p${i}`, `${p}%`])),
+        )
+        .orderBy('w.label_number', 'ASC')
+        .getRawAndEntities();
+      return rows.entities.map((row, i) => ({
+        ...row,
+        idPath: String((rows.raw[i] as { idPath: string }).idPath),
+      }));
+    },
     async nextLabelNumber(): Promise<number> {
       await takeTurn(manager, advisoryLocks.labelNumbers);
       const row = await manager
@@ -137,7 +156,7 @@ export function wasteRepository(manager: EntityManager) {
     async findArea(locationId: number): Promise<WasteAreaRow | null> {
       return areas.findOne({ where: { locationId } });
     },
-    async setArea(locationId: number, ruleSetId: number | null, now: string): Promise<void> {
+    async setArea(locationId: number, ruleSetId: number, now: string): Promise<void> {
       const found = await areas.findOne({ where: { locationId }, ...lockForWrite(manager) });
       if (found) await areas.update({ id: found.id }, { ruleSetId });
       else await areas.insert({ locationId, ruleSetId, createdAt: now });

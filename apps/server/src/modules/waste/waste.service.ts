@@ -20,7 +20,10 @@ import { AppError } from '../../lib/app-error';
 import type { Repositories, Store } from '../../db/store';
 import { nowIso } from '../../db/sql';
 import { rulesBetween } from '@lotwise/chem';
+import { requireRuleSet } from '../rule-sets/rule-sets.service';
 import { hazardGroupsOf } from '../segregation/segregation.service';
+import type { AlertsService } from '../alerts/alerts.service';
+import { wasteAlertMessages } from './waste-alerts';
 import { wasteAreas } from './waste-areas';
 import {
   addWaste,
@@ -40,6 +43,18 @@ export interface WasteOnHand {
   litres: number;
   /** Litres of ignitable liquid waste by the NFPA 30 class it counts under. */
   ignitableLitresByClass: Partial<Record<LiquidClass, number>>;
+}
+
+/** An ignitable liquid waste container, as the flammable-liquid totals count it. */
+export interface IgnitableWaste {
+  wasteContainerId: number;
+  labelCode: string;
+  title: string;
+  locationPath: string;
+  idPath: string;
+  liquidClass: LiquidClass;
+  liquidClassNote: string | null;
+  litres: number;
 }
 
 /** The waste on hand in `locationIds` (the places themselves, not their children). */
@@ -69,6 +84,33 @@ export async function wasteOnHandIn(
   return { containers, litres, ignitableLitresByClass: byClass };
 }
 
+/** Ignitable liquid waste anywhere under `idPaths`, for the flammable-liquid totals. */
+export async function ignitableWasteUnder(
+  repos: Repositories,
+  idPaths: string[],
+  today = todayIso(),
+): Promise<IgnitableWaste[]> {
+  const rows = await repos.waste.openInSubtrees(idPaths);
+  const idPathOf = new Map(rows.map((r) => [r.id, r.idPath]));
+  const presented = await presentWasteContainers(repos, rows, today);
+  return presented.flatMap((c) =>
+    c.form === 'liquid' && c.liquidClass && c.characteristics.includes('ignitable')
+      ? [
+          {
+            wasteContainerId: c.id,
+            labelCode: c.labelCode,
+            title: c.title,
+            locationPath: c.locationPath,
+            idPath: idPathOf.get(c.id)!,
+            liquidClass: c.liquidClass,
+            liquidClassNote: c.liquidClassNote,
+            litres: c.filled === null ? 0 : (approximateIn(c.filled, c.capacityUnit, 'L') ?? 0),
+          },
+        ]
+      : [],
+  );
+}
+
 async function requireLocation(repos: Repositories, id: number) {
   const location = await repos.locations.findRow(id);
   if (!location) {
@@ -90,7 +132,17 @@ function presentPickup(
 }
 
 /** Waste containers, their additions, accumulation areas and pickups. */
-export function wasteService(store: Store) {
+export function wasteService(
+  store: Store,
+  options: { alerts?: Pick<AlertsService, 'notify'> } = {},
+) {
+  /** Sends the waste alerts of the moment with the write that changed them. */
+  async function alertAfter(repos: Repositories) {
+    if (!options.alerts) return;
+    for (const message of await wasteAlertMessages(repos))
+      await options.alerts.notify(repos, message);
+  }
+
   return {
     /** Open containers (or of `status`); `compatibleWith` leaves out those that conflict. */
     async list(
@@ -182,9 +234,10 @@ export function wasteService(store: Store) {
       actor: User,
     ): Promise<WasteContainerDetail> {
       const { confirm, ...rest } = input;
-      await store.transaction((repos) =>
-        addWaste(repos, { ...rest, wasteContainerId: id }, {}, actor, { confirm }),
-      );
+      await store.transaction(async (repos) => {
+        await addWaste(repos, { ...rest, wasteContainerId: id }, {}, actor, { confirm });
+        await alertAfter(repos);
+      });
       return wasteContainerDetail(store.repos, id);
     },
 
@@ -196,7 +249,13 @@ export function wasteService(store: Store) {
     ): Promise<WasteArea[]> {
       await store.transaction(async (repos) => {
         await requireLocation(repos, locationId);
-        await repos.waste.setArea(locationId, input.ruleSetId, nowIso());
+        const set =
+          input.ruleSetId === null
+            ? await repos.ruleSets.builtIn('waste-accumulation')
+            : await requireRuleSet(repos, input.ruleSetId, 'waste-accumulation', 'ruleSetId');
+        if (!set)
+          throw AppError.conflict('There is no waste-accumulation rule set: add one first.');
+        await repos.waste.setArea(locationId, set.id, nowIso());
       });
       return wasteAreas(store.repos);
     },

@@ -10,6 +10,7 @@ import {
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { signedIn, stockFactory } from '../../test/factories';
+import { withPlaceholders } from '../../db/sql';
 import { testContext } from '../../test/harness';
 import { preparationFactory } from '../../test/preparations';
 import { wasteOnHandIn } from './waste.service';
@@ -359,9 +360,7 @@ describe('pickups and areas', () => {
       ),
     );
     expect(again.state).toBe('over');
-    expect(again.citation).toBe(
-      'US EPA, 40 CFR 262.15 (2016), satellite accumulation, (a)(1) and (a)(6)',
-    );
+    expect(again.citation).toBe('US EPA, 40 CFR, §262.15');
     expect(again.reminder).toMatch(/authority having jurisdiction/);
     // 55 gal = 208.2 L
     expect(again.hazardous.limitLitres).toBeCloseTo(208.19765, 4);
@@ -384,5 +383,92 @@ describe('pickups and areas', () => {
     expect(onHand.ignitableLitresByClass).toEqual({ IB: 1.5 });
     expect(onHand.containers[0]!.liquidClassNote).toMatch(/Class IB/);
     wasteContainerSchema.parse(onHand.containers[0]);
+  });
+
+  it('when a lab area holds ignitable waste, then it counts toward the flammable-liquid totals under its most severe class', async () => {
+    const room = await make.location();
+    const shelf = await make.location({ parentId: room.id });
+    const area = await post(
+      '/api/lab-areas',
+      { locationId: room.id, unitClass: 'B', floorArea: 50, floorAreaUnit: 'm2' },
+      manager,
+    );
+    expect(area.status).toBe(201);
+    // Ethanol: flash point 13 °C, boiling point 78 °C (CRC Handbook, from memory) -> Class IB
+    const ethanol = await stock.chemical({
+      storageGroup: 'flammable',
+      flashPointC: 13,
+      boilingPointC: 78,
+    } as object);
+    const bin = await wasteContainer(shelf.id);
+    await post(`/api/waste-containers/${bin.id}/additions`, {
+      description: 'Washings',
+      quantity: 2,
+      unit: 'L',
+      chemicalIds: [ethanol.id],
+    }).expect(201);
+    const detail = (await get(`/api/lab-areas/${area.body.id}`).expect(200)).body;
+    expect(detail.countedWaste).toEqual([
+      expect.objectContaining({
+        wasteContainerId: bin.id,
+        liquidClass: 'IB',
+        litres: 2,
+        liquidClassNote: null,
+      }),
+    ]);
+    expect(
+      detail.byClass.find((c: { liquidClass: string }) => c.liquidClass === 'IB').totalLitres,
+    ).toBeCloseTo(2, 9);
+  });
+
+  it('when a container takes its area over the limit, then exactly one alert per manager is queued, and later evaluations queue no more', async () => {
+    const admin = (await signedIn('admin')).cookie;
+    const shelf = await make.location();
+    await request(app())
+      .put(`/api/waste-areas/${shelf.id}`)
+      .set('Cookie', manager)
+      .send({})
+      .expect(200);
+    const acute = await wasteContainer(shelf.id, {
+      title: 'P-listed residues',
+      acutelyHazardous: true,
+      characteristics: ['toxic'],
+      capacity: 4,
+    });
+    const key = `waste-near-limit:area:${shelf.id}:over`;
+    const sent = async () => {
+      const { dataSource } = testContext();
+      const rows: { n: number; people: number }[] = await dataSource.query(
+        withPlaceholders(
+          dataSource,
+          'SELECT COUNT(*) AS n, COUNT(DISTINCT recipient_email) AS people FROM outbox WHERE dedup_key = ?',
+        ),
+        [key],
+      );
+      return { n: Number(rows[0]!.n), people: Number(rows[0]!.people) };
+    };
+    await post(`/api/waste-containers/${acute.id}/additions`, {
+      description: 'Residue',
+      quantity: 0.5,
+      unit: 'L',
+    }).expect(201);
+    expect((await sent()).n).toBe(0);
+    // 1.2 L of acutely hazardous waste: over 1 quart (US EPA 40 CFR 262.15(a)(1))
+    await post(`/api/waste-containers/${acute.id}/additions`, {
+      description: 'Residue',
+      quantity: 0.7,
+      unit: 'L',
+    }).expect(201);
+    const first = await sent();
+    expect(first.n).toBeGreaterThan(0);
+    expect(first.n).toBe(first.people);
+    await post(`/api/waste-containers/${acute.id}/additions`, {
+      description: 'Residue',
+      quantity: 0.1,
+      unit: 'L',
+    }).expect(201);
+    await request(app()).post('/api/alerts/evaluate').set('Cookie', admin).expect(200);
+    await request(app()).post('/api/alerts/evaluate').set('Cookie', admin).expect(200);
+    expect(await sent()).toEqual(first);
   });
 });

@@ -11,6 +11,8 @@ import { Notice } from '../../../components/ui/notice';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { errorMessage, isApiError, sendWithConfirmation } from '../../../lib/api-client';
 import { todayIsoDate } from '../../../lib/dates';
+import { parseDecimal } from '../../../lib/numbers';
+import { noWaste, WasteDestination } from '../../../components/waste/waste-destination';
 import { paths } from '../../../config/paths';
 import { RecordDeviations } from '../../run-notebook/components/record-deviations';
 import { usePlan, useProcedure, useRecordRun, useRun } from '../api';
@@ -55,21 +57,38 @@ function RecordForm({
   const [appearance, setAppearance] = useState('');
   const [notes, setNotes] = useState('');
   const [problems, setProblems] = useState<string[]>([]);
+  const [waste, setWaste] = useState(() => noWaste(`Filtrate and washings of run #${run.id}`));
+  const reagentIds = procedure.lines
+    .filter((line) => line.role !== 'product')
+    .map((line) => line.chemical.id);
 
   async function handleSubmit(event: FormEvent) {
     event.preventDefault();
-    const body = recordBody({
-      performedOn,
-      draws,
-      extras,
-      productLineIndex: product?.index ?? null,
-      crude,
-      portions,
-      meltingLow,
-      meltingHigh,
-      appearance,
-      notes,
-    });
+    const body = {
+      ...recordBody({
+        performedOn,
+        draws,
+        extras,
+        productLineIndex: product?.index ?? null,
+        crude,
+        portions,
+        meltingLow,
+        meltingHigh,
+        appearance,
+        notes,
+      }),
+      waste: waste.wasteContainerId
+        ? [
+            {
+              wasteContainerId: Number(waste.wasteContainerId),
+              description: waste.description,
+              quantity: parseDecimal(waste.quantity) ?? (undefined as unknown as number),
+              unit: waste.unit,
+              chemicalIds: reagentIds,
+            },
+          ]
+        : [],
+    };
     const parsed = runRecordSchema.safeParse(body);
     // The rule the server applies: the yield comes only from what is drawn here.
     const undrawn = undrawnLines(procedure, draws).map(
@@ -136,6 +155,15 @@ function RecordForm({
           setPortions={setPortions}
         />
       )}
+
+      <Section id="waste-heading" title="Waste">
+        <WasteDestination
+          legend="Washings, filtrates and residues"
+          value={waste}
+          onChange={setWaste}
+          chemicalIds={reagentIds}
+        />
+      </Section>
 
       <Section id="observations-heading" title="Observations">
         <div className="grid gap-3 md:grid-cols-[auto_auto_1fr] md:items-end">

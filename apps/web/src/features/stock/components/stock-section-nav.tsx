@@ -9,6 +9,7 @@ import {
   PackagePlus,
   ShieldAlert,
   Tags,
+  Trash2,
 } from 'lucide-react';
 import { can, type Permission } from '@lotwise/shared';
 import { useCurrentUser } from '../../../lib/auth';
@@ -28,6 +29,7 @@ const sections: Section[] = [
   { to: paths.stockSegregation, label: 'Storage conflicts', icon: ShieldAlert },
   { to: paths.stockLabAreas, label: 'Lab areas', icon: Flame },
   { to: paths.stockRuleSets, label: 'Rule sets', icon: BookOpenCheck },
+  { to: paths.stockWaste, label: 'Waste', icon: Trash2 },
   { to: paths.stockReceive, label: 'Receive', icon: PackagePlus, permission: 'stock.write' },
   { to: paths.stockImport, label: 'Import', icon: FileUp, permission: 'stock.write' },
   { to: paths.stockLabels, label: 'Labels', icon: Tags },
