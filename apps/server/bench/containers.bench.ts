@@ -217,6 +217,25 @@ await dataSource.transaction(async () => {
     entries,
   );
 });
+// Room 41 (about a third of the containers, half of them liquids of Class IB) is a lab area.
+await dataSource.query(
+  "UPDATE chemicals SET flash_point_c = 13, boiling_point_c = 78 WHERE physical_state = 'liquid'",
+);
+await dataSource.query("UPDATE locations SET flammable_storage = 'cabinet' WHERE id % 2 = 0");
+const labAreaId = await store.repos.labAreas.insert({
+  locationId: 41,
+  kind: 'lab-unit',
+  unitClass: 'A',
+  floorArea: 400,
+  floorAreaUnit: 'm2',
+  storey: 1,
+  instructional: false,
+  flammableRuleSetId: (await store.repos.ruleSets.builtIn('flammable-limits'))!.id,
+  containerSizeRuleSetId: (await store.repos.ruleSets.builtIn('container-sizes'))!.id,
+  notes: '',
+  createdAt: now,
+  updatedAt: now,
+});
 await dataSource.query('ANALYZE');
 console.log(
   `seeded ${containerCount.toLocaleString('en')} containers in ${Math.round(performance.now() - seedStarted)} ms`,
@@ -264,6 +283,15 @@ describe(`GET /api/containers on ${containerCount.toLocaleString('en')} containe
   });
   bench('exact label code', async () => {
     await get('/api/containers?q=LW-54321');
+  });
+});
+
+describe(`lab areas on ${containerCount.toLocaleString('en')} containers`, () => {
+  bench('GET /api/lab-areas (totals of a room holding a third of them)', async () => {
+    await get('/api/lab-areas');
+  });
+  bench('GET /api/lab-areas/:id (every counted container listed)', async () => {
+    await get(`/api/lab-areas/${labAreaId}`);
   });
 });
 
