@@ -30,7 +30,7 @@ const back = (
   </Link>
 );
 
-const link = 'text-accent-700 underline-offset-2 hover:underline';
+const link = 'text-accent-700 underline underline-offset-2';
 
 function LimitCard({ limit, citation }: { limit: LabAreaLimit; citation: string }) {
   const over = limit.marginLitres < 0;

@@ -125,6 +125,55 @@ describe('marking a place as a lab area', () => {
   });
 });
 
+describe('approved flammable storage', () => {
+  it('when a manager marks a cabinet as approved flammable storage, then the change sends it and the panel says liquids there count as in storage', async () => {
+    const cabinet = place({
+      id: 11,
+      name: 'Solvent cabinet',
+      kind: 'cabinet',
+      path: 'Room 204 › Solvent cabinet',
+    });
+    let saved = cabinet;
+    const { requests } = mockFetch({
+      'GET /api/auth/me': { body: { user: manager } },
+      'GET /api/locations/11': () => ({ body: saved }),
+      'GET /api/locations': { body: page([listedPlace(), listedPlace(cabinet)]) },
+      'GET /api/containers': { body: page([]) },
+      'GET /api/lab-areas': { body: { items: [listedArea()] } },
+      'PATCH /api/locations/11': (request) => {
+        saved = { ...cabinet, ...(request.body as object) };
+        return { body: listedPlace(saved) };
+      },
+    });
+    const user = userEvent.setup();
+    renderApp('/stock/locations/11');
+
+    await user.click(
+      await screen.findByRole('button', { name: 'Change or move' }, { timeout: 5000 }),
+    );
+    const dialog = await screen.findByRole('dialog', { name: 'Change Solvent cabinet' });
+    await user.selectOptions(
+      within(dialog).getByRole('combobox', { name: 'Approved flammable storage' }),
+      'cabinet',
+    );
+    await user.click(within(dialog).getByRole('button', { name: 'Save changes' }));
+
+    await waitFor(() =>
+      expect(requests.find((r) => r.method === 'PATCH')?.body).toMatchObject({
+        flammableStorage: 'cabinet',
+      }),
+    );
+    const panel = screen.getByRole('region', { name: 'Room rules' });
+    expect(
+      await within(panel).findByText(/Approved flammable-storage cabinet: liquids here count/),
+    ).toBeVisible();
+    expect(within(panel).getByRole('link', { name: 'Room 204' })).toHaveAttribute(
+      'href',
+      '/stock/lab-areas/3',
+    );
+  });
+});
+
 describe('the lab areas', () => {
   it('when areas are listed, then each shows its most used limit as a bar with the share and the status in words', async () => {
     mockFetch({
