@@ -4,6 +4,7 @@ import {
   watchListDetailSchema,
   watchListSchema,
   watchReportSchema,
+  type WatchListCreate,
   type WatchReportQuery,
 } from '@lotwise/shared';
 import { api, apiRequest, withQuery } from '../../lib/api-client';
@@ -71,4 +72,14 @@ export function useWatchReport(query: WatchReportQuery | null) {
 /** The download address of the report as CSV. */
 export function watchReportCsvUrl(query: WatchReportQuery): string {
   return withQuery('/api/watch-lists/report.csv', { ...query });
+}
+
+/** The admin enters a list of the lab's own regulator, with its substances. */
+export function useCreateWatchList() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (body: WatchListCreate) =>
+      apiRequest('/api/watch-lists', { method: 'POST', body, schema: watchListDetailSchema }),
+    onSettled: () => queryClient.invalidateQueries(),
+  });
 }

@@ -11,6 +11,7 @@ import { paths } from '../../../config/paths';
 import { errorMessage } from '../../../lib/api-client';
 import { formatCount } from '../../../lib/format';
 import { useChooseWatchList, useWatchList, useWatchLists } from '../api';
+import { OwnListForm } from '../components/own-list-form';
 
 function Entries({ list }: { list: WatchList }) {
   const [open, setOpen] = useState(false);
@@ -143,6 +144,19 @@ export function WatchListsPage() {
           ))}
         </ul>
       )}
+      <section
+        aria-labelledby="own-list-heading"
+        className="flex flex-col gap-3 rounded-lg border border-ink-200 bg-white px-4 py-3"
+      >
+        <h2 id="own-list-heading" className="text-base font-semibold">
+          Your regulator’s own list
+        </h2>
+        <p className="text-sm text-ink-600">
+          Where your authority restricts other substances or other concentrations, enter its list
+          here, with the source of every row. The lab follows it once saved.
+        </p>
+        <OwnListForm />
+      </section>
     </div>
   );
 }
