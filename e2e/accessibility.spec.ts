@@ -33,6 +33,7 @@ interface DemoIds {
   order: number;
   closedOrder: number;
   supplier: number;
+  wasteContainer: number;
   inviteToken: string;
 }
 
@@ -57,6 +58,11 @@ const pages = {
   stockContainerByLabel: { as: 'member', url: (ids) => paths.stockContainerByLabel(ids.labelCode) },
   stockChemical: { as: 'viewer', url: (ids) => paths.stockChemical(ids.chemical) },
   stockLocations: { as: 'viewer', url: () => paths.stockLocations },
+  stockWaste: { as: 'viewer', url: () => paths.stockWaste },
+  stockWasteContainer: {
+    as: 'member',
+    url: (ids) => paths.stockWasteContainer(ids.wasteContainer),
+  },
   stockLocation: { as: 'viewer', url: (ids) => paths.stockLocation(ids.location) },
   stockStocktake: { as: 'manager', url: (ids) => paths.stockStocktake(ids.location) },
   stockSegregation: { as: 'viewer', url: () => paths.stockSegregation },
@@ -185,6 +191,7 @@ async function demoIds(browser: Browser): Promise<DemoIds> {
     order: orders.items.find((o) => o.status === 'open')!.id,
     closedOrder: orders.items.find((o) => o.status !== 'open')!.id,
     supplier: await firstId(api, '/api/suppliers'),
+    wasteContainer: await firstId(api, '/api/containers?kind=waste'),
     inviteToken: inviteUrl.split('/invite/')[1]!,
   };
   await context.close();
