@@ -35,6 +35,7 @@ interface DemoIds {
   supplier: number;
   labArea: number;
   ruleSet: number;
+  wasteContainer: number;
   inviteToken: string;
 }
 
@@ -59,6 +60,11 @@ const pages = {
   stockContainerByLabel: { as: 'member', url: (ids) => paths.stockContainerByLabel(ids.labelCode) },
   stockChemical: { as: 'viewer', url: (ids) => paths.stockChemical(ids.chemical) },
   stockLocations: { as: 'viewer', url: () => paths.stockLocations },
+  stockWaste: { as: 'viewer', url: () => paths.stockWaste },
+  stockWasteContainer: {
+    as: 'member',
+    url: (ids) => paths.stockWasteContainer(ids.wasteContainer),
+  },
   stockLocation: { as: 'viewer', url: (ids) => paths.stockLocation(ids.location) },
   stockStocktake: { as: 'manager', url: (ids) => paths.stockStocktake(ids.location) },
   stockSegregation: { as: 'viewer', url: () => paths.stockSegregation },
@@ -200,6 +206,7 @@ async function demoIds(browser: Browser): Promise<DemoIds> {
     supplier: await firstId(api, '/api/suppliers'),
     labArea: await firstId(api, '/api/lab-areas'),
     ruleSet: await firstId(api, '/api/rule-sets?kind=flammable-limits'),
+    wasteContainer: await firstId(api, '/api/containers?kind=waste'),
     inviteToken: inviteUrl.split('/invite/')[1]!,
   };
   await context.close();

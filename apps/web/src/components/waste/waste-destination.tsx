@@ -113,3 +113,36 @@ export function WasteDestination({
     </fieldset>
   );
 }
+
+/** Only the choice of an open waste container (a draw "to waste": the amount is the draw's). */
+export function WasteContainerSelect({
+  value,
+  onChange,
+  chemicalIds,
+  label = 'To waste',
+}: {
+  value: string;
+  onChange: (next: string) => void;
+  chemicalIds: readonly number[];
+  label?: string;
+}) {
+  const open = useCompatibleWaste(chemicalIds);
+  return (
+    <Field
+      label={label}
+      optional
+      hint="Choose a waste container when what is drawn goes to waste; only compatible ones are offered."
+    >
+      {(control) => (
+        <Select {...control} value={value} onChange={(e) => onChange(e.target.value)}>
+          <option value="">Not to waste</option>
+          {(open.data ?? []).map((c) => (
+            <option key={c.id} value={c.id}>
+              {c.labelCode} {c.title} ({c.locationPath})
+            </option>
+          ))}
+        </Select>
+      )}
+    </Field>
+  );
+}

@@ -128,6 +128,7 @@ describe('Recording a run', () => {
           ),
         }),
         'GET /api/locations': { body: page([shelf]) },
+        'GET /api/waste-containers': { body: [] },
         'POST /api/runs/12/record': () => {
           answered = recorded;
           return { body: recorded };

@@ -5,6 +5,7 @@ import { drawSchema, type ContainerDetail, type Draw } from '@lotwise/shared';
 import { ContainerHolds, freeOf } from '../../../components/holds/container-holds';
 import { Button } from '../../../components/ui/button';
 import { useConfirmation } from '../../../components/ui/confirmation-dialog';
+import { WasteContainerSelect } from '../../../components/waste/waste-destination';
 import { Field, fieldMessage } from '../../../components/ui/field';
 import { AmountInput } from '../../../components/ui/amount-input';
 import { Input, Select } from '../../../components/ui/input';
@@ -41,6 +42,7 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
   const confirmation = useConfirmation();
   const [mode, setMode] = useState<Mode>(container.tareMass !== null ? 'gross' : 'amount');
   const [done, setDone] = useState<string | null>(null);
+  const [toWaste, setToWaste] = useState('');
   const units = drawUnits(container.chemical);
   // A watched chemical's draw is recorded with why: the field says so before submitting.
   const watchedBy = [
@@ -106,6 +108,7 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
       return;
     }
     if (values.note.trim()) body.note = values.note.trim();
+    if (toWaste) body.toWasteContainerId = Number(toWaste);
     // The same schema the server applies: a zero amount or a volume as gross mass stops here.
     const checked = drawSchema.safeParse(body);
     if (!checked.success) {
@@ -293,6 +296,11 @@ export function DrawForm({ container }: { container: ContainerDetail }) {
           {(c) => <Input {...c} autoComplete="off" {...register('note')} />}
         </Field>
       )}
+      <WasteContainerSelect
+        value={toWaste}
+        onChange={setToWaste}
+        chemicalIds={[container.chemical.id]}
+      />
 
       <div>
         <Button

@@ -195,7 +195,7 @@ export function WasteContainerPage() {
 
       <section aria-labelledby="waste-additions" className="flex flex-col gap-2">
         <h2 id="waste-additions" className="font-semibold text-ink-900">
-          What went in
+          Contents added so far
         </h2>
         {c.additions.length === 0 ? (
           <p className="text-sm text-ink-600">Nothing yet.</p>
