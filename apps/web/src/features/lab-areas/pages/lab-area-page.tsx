@@ -19,6 +19,7 @@ import { TableScroll } from '../../../components/ui/table-scroll';
 import { paths } from '../../../config/paths';
 import { isApiError } from '../../../lib/api-client';
 import { formatLitres } from '../../../lib/format';
+import { CountedWaste } from '../components/counted-waste';
 
 const back = (
   <Link
@@ -292,6 +293,7 @@ export function LabAreaPage() {
       )}
 
       <CountedContainers area={area} />
+      <CountedWaste area={area} />
 
       {area.notCounted.length > 0 && (
         <section aria-labelledby="not-counted-heading" className="flex flex-col gap-2">

@@ -180,6 +180,7 @@ export const room204: LabAreaDetail = {
       capacityLitres: 100,
     },
   ],
+  countedWaste: [],
   notCounted: [
     {
       containerId: 72,
@@ -208,6 +209,7 @@ export function listedArea(area: LabAreaDetail = room204) {
   const {
     byClass: _b,
     containers: _c,
+    countedWaste: _cw,
     notCounted: _n,
     containerSizeBreaches: _s,
     storagePlaces: _p,
