@@ -14,6 +14,7 @@ const sampleParams: Record<string, string> = {
   labelCode: 'LW-99999',
   lineId: '999999',
   photoId: '999999',
+  locationId: '999999',
   name: 'lotwise-20000101T000000Z-manual.sqlite',
 };
 
