@@ -59,6 +59,17 @@ function inDependencyOrder(metadatas: EntityMetadata[]): EntityMetadata[] {
 const quote = (name: string) => `"${name}"`;
 
 /**
+ * Tables whose rows the migrations themselves insert (the built-in rule sets and watch lists):
+ * the condition those rows meet, or null when every row of the table belongs to one of them.
+ * A migrated database holding only such rows still counts as empty.
+ */
+const shippedRows: Record<string, string | null> = {
+  rule_sets: '"built_in" = true',
+  watch_lists: '"built_in" = true',
+  watch_list_entries: null,
+};
+
+/**
  * Copies every row of the Lotwise SQLite database behind `source` into the empty, migrated
  * PostgreSQL database behind `target`, in one transaction, then compares row counts and the
  * sums of every stock (`*_micro`) and money (`*_minor`) column. Both must be at the same
@@ -82,7 +93,12 @@ export async function copyToPostgres(source: DataSource, target: DataSource): Pr
   }
   const metadatas = inDependencyOrder(target.entityMetadatas);
   for (const metadata of metadatas) {
-    const [row] = await target.query(`SELECT COUNT(*) AS n FROM ${quote(metadata.tableName)}`);
+    const shipped = shippedRows[metadata.tableName];
+    if (shipped === null) continue;
+    const where = shipped ? ` WHERE NOT (${shipped})` : '';
+    const [row] = await target.query(
+      `SELECT COUNT(*) AS n FROM ${quote(metadata.tableName)}${where}`,
+    );
     if (Number(row.n) > 0) {
       throw new CopyRefused(
         `The PostgreSQL database is not empty (${metadata.tableName} has rows): copy into a new, empty database.`,
@@ -93,6 +109,12 @@ export async function copyToPostgres(source: DataSource, target: DataSource): Pr
   const tables: CopiedTable[] = [];
   const sums: ComparedSum[] = [];
   await target.transaction(async (manager) => {
+    // The rows the migrations shipped give way to the SQLite file's own (the same sets, as the
+    // lab chose and changed them), so that ids and choices carry over.
+    for (const metadata of [...metadatas].reverse()) {
+      if (metadata.tableName in shippedRows)
+        await manager.query(`DELETE FROM ${quote(metadata.tableName)}`);
+    }
     for (const metadata of metadatas) {
       const table = metadata.tableName;
       const columns = metadata.columns.map((c) => c.databaseName);

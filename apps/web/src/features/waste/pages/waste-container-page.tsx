@@ -212,7 +212,7 @@ export function WasteContainerPage() {
                     from{' '}
                     <Link
                       to={paths.run(a.runId)}
-                      className="text-accent-700 underline-offset-2 hover:underline"
+                      className="text-accent-700 underline underline-offset-2"
                     >
                       run #{a.runId}
                     </Link>
