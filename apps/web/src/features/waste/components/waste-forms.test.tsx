@@ -290,3 +290,22 @@ describe('waste accumulation areas', () => {
     );
   });
 });
+
+describe('who may change waste', () => {
+  it('when a viewer opens the waste page, then it offers no new container and no area changes', async () => {
+    mockFetch({
+      ...wastePageRoutes([station]),
+      'GET /api/auth/me': { body: { user: makeUser({ role: 'viewer' }) } },
+    });
+    renderApp('/stock/waste');
+
+    expect(
+      await screen.findByRole('heading', { name: /Room 102 › Waste station/ }, { timeout: 5000 }),
+    ).toBeVisible();
+    expect(screen.queryByRole('button', { name: 'New waste container' })).not.toBeInTheDocument();
+    expect(
+      screen.queryByRole('button', { name: 'Mark a place as a waste accumulation area' }),
+    ).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: /Unmark/ })).not.toBeInTheDocument();
+  });
+});
