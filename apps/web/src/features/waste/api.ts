@@ -5,10 +5,11 @@ import {
   wasteContainerSchema,
   wastePickupSchema,
   type WasteAdditionCreate,
+  type WasteContainerCreate,
   type WastePickupCreate,
 } from '@lotwise/shared';
 import { z } from 'zod';
-import { api, withQuery } from '../../lib/api-client';
+import { api, apiRequest, withQuery } from '../../lib/api-client';
 
 export const wasteKeys = {
   all: ['waste'] as const,
@@ -72,5 +73,42 @@ export function useRecordPickup() {
     mutationFn: (body: WastePickupCreate) =>
       api.post('/api/waste-pickups', body, wastePickupSchema),
     onSuccess: () => client.invalidateQueries({ queryKey: wasteKeys.all }),
+  });
+}
+
+/** Waste counts toward lab areas (ignitable waste) and the start page: refresh everything. */
+function useInvalidateAll() {
+  const client = useQueryClient();
+  return () => client.invalidateQueries();
+}
+
+export function useCreateWasteContainer() {
+  const invalidate = useInvalidateAll();
+  return useMutation({
+    mutationFn: (body: WasteContainerCreate) =>
+      api.post('/api/waste-containers', body, wasteContainerDetailSchema),
+    onSuccess: invalidate,
+  });
+}
+
+/** Marks a place as a waste accumulation area, or changes its rule set (`ruleSetId`). */
+export function usePutWasteArea() {
+  const invalidate = useInvalidateAll();
+  return useMutation({
+    mutationFn: ({ locationId, ruleSetId }: { locationId: number; ruleSetId: number | null }) =>
+      apiRequest(`/api/waste-areas/${locationId}`, {
+        method: 'PUT',
+        body: { ruleSetId },
+        schema: z.array(wasteAreaSchema),
+      }),
+    onSuccess: invalidate,
+  });
+}
+
+export function useDeleteWasteArea(locationId: number) {
+  const invalidate = useInvalidateAll();
+  return useMutation({
+    mutationFn: () => api.delete(`/api/waste-areas/${locationId}`),
+    onSuccess: invalidate,
   });
 }

@@ -1,6 +1,8 @@
-import { Trash2 } from 'lucide-react';
+import { useState } from 'react';
+import { MapPin, Pencil, Plus, Trash2 } from 'lucide-react';
 import { can, type WasteArea } from '@lotwise/shared';
 import { SafetyCaution } from '../../../components/hazards/safety-caution';
+import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
 import { ErrorState } from '../../../components/ui/error-state';
 import { PageSpinner } from '../../../components/ui/spinner';
@@ -8,6 +10,8 @@ import { useCurrentUser } from '../../../lib/auth';
 import { formatAmount, formatDate } from '../../../lib/format';
 import { useOpenWasteContainers, useWasteAreas, useWastePickups } from '../api';
 import { PickupForm } from '../components/pickup-form';
+import { UnmarkWasteAreaDialog, WasteAreaFormDialog } from '../components/waste-area-dialogs';
+import { WasteContainerFormDialog } from '../components/waste-container-form-dialog';
 import { WasteTable } from '../components/waste-table';
 
 const stateWords: Record<WasteArea['state'], string> = {
@@ -43,6 +47,10 @@ export function WastePage() {
   const open = useOpenWasteContainers();
   const pickups = useWastePickups();
   const mayPickUp = user ? can(user.role, 'stock.write') : false;
+  const [dialog, setDialog] = useState<
+    { kind: 'container' | 'mark' } | { kind: 'change' | 'unmark'; area: WasteArea } | null
+  >(null);
+  const close = () => setDialog(null);
 
   if (areas.isPending || open.isPending) return <PageSpinner label="Loading the waste…" />;
   if (areas.isError || open.isError) {
@@ -63,12 +71,31 @@ export function WastePage() {
 
   return (
     <div className="flex flex-col gap-6">
-      <header>
-        <h1 className="text-xl font-semibold text-ink-900">Waste</h1>
-        <p className="text-sm text-ink-600">
-          Waste containers by accumulation area, how full and how old each is, and the pickups that
-          took them away. Amounts are the estimates entered with each addition.
-        </p>
+      <header className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <h1 className="text-xl font-semibold text-ink-900">Waste</h1>
+          <p className="text-sm text-ink-600">
+            Waste containers by accumulation area, how full and how old each is, and the pickups
+            that took them away. Amounts are the estimates entered with each addition.
+          </p>
+        </div>
+        {mayPickUp && (
+          <div className="flex flex-wrap gap-2">
+            <Button
+              onClick={() => setDialog({ kind: 'mark' })}
+              icon={<MapPin aria-hidden="true" className="size-4" />}
+            >
+              Mark a place as a waste accumulation area
+            </Button>
+            <Button
+              variant="primary"
+              onClick={() => setDialog({ kind: 'container' })}
+              icon={<Plus aria-hidden="true" className="size-4" />}
+            >
+              New waste container
+            </Button>
+          </div>
+        )}
       </header>
       <SafetyCaution />
 
@@ -90,6 +117,25 @@ export function WastePage() {
             <span className="text-sm font-normal text-ink-600">— accumulation area</span>
           </h2>
           <AreaTotals area={area} />
+          {mayPickUp && (
+            <div className="flex flex-wrap gap-2">
+              <Button
+                size="sm"
+                onClick={() => setDialog({ kind: 'change', area })}
+                icon={<Pencil aria-hidden="true" className="size-4" />}
+                aria-label={`Change the rule set of ${area.locationPath}`}
+              >
+                Change the rule set
+              </Button>
+              <Button
+                size="sm"
+                onClick={() => setDialog({ kind: 'unmark', area })}
+                aria-label={`Unmark ${area.locationPath} as an accumulation area`}
+              >
+                Unmark
+              </Button>
+            </div>
+          )}
           {area.containers.length > 0 ? (
             <WasteTable
               containers={area.containers}
@@ -149,6 +195,16 @@ export function WastePage() {
           </ul>
         )}
       </section>
+
+      {dialog?.kind === 'container' && <WasteContainerFormDialog onClose={close} />}
+      {dialog?.kind === 'mark' && (
+        <WasteAreaFormDialog
+          exclude={new Set(areas.data.map((a) => a.locationId))}
+          onClose={close}
+        />
+      )}
+      {dialog?.kind === 'change' && <WasteAreaFormDialog area={dialog.area} onClose={close} />}
+      {dialog?.kind === 'unmark' && <UnmarkWasteAreaDialog area={dialog.area} onClose={close} />}
     </div>
   );
 }
